@@ -1,0 +1,190 @@
+package mesh
+
+import (
+	"math"
+	"math/rand/v2"
+	"sync"
+	"testing"
+)
+
+// gradedMesh is an n-by-n grid on [0,1]² whose node coordinates are mapped
+// by s -> s^4, so triangles near the origin are up to ~n³ times smaller
+// than at the far corner; cells (i, j) with skip(i, j) are left out.
+func gradedMesh(n int, skip func(i, j int) bool) *Mesh {
+	m := gridMesh(n, n, 0, 0, 1/float64(n), skip, func(i, j int) int32 { return int32(i % 3) })
+	for k := range m.X {
+		m.X[k] = math.Pow(m.X[k], 4)
+		m.Y[k] = math.Pow(m.Y[k], 4)
+	}
+	return m
+}
+
+// bruteFind lists every triangle that holds (x, y), by exhaustive search.
+func bruteFind(m *Mesh, l *Locator, x, y float64) map[int32]bool {
+	out := map[int32]bool{}
+	for t := 0; t < m.NumTriangles(); t++ {
+		a, b, c := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
+		if x < min(m.X[a], m.X[b], m.X[c]) || x > max(m.X[a], m.X[b], m.X[c]) ||
+			y < min(m.Y[a], m.Y[b], m.Y[c]) || y > max(m.Y[a], m.Y[b], m.Y[c]) {
+			continue
+		}
+		if l.inside(int32(t), x, y) {
+			out[int32(t)] = true
+		}
+	}
+	return out
+}
+
+func TestLocatorMatchesBruteForce(t *testing.T) {
+	ring := func(n int) func(i, j int) bool {
+		// a square hole in the middle and a notch cut from one side make
+		// the domain non-convex and multiply connected
+		return func(i, j int) bool {
+			return (i > n/3 && i < 2*n/3 && j > n/3 && j < 2*n/3) || (j == n/2 && i > 2*n/3)
+		}
+	}
+	cases := []struct {
+		name string
+		m    *Mesh
+	}{
+		{"two triangles", twoTriangles()},
+		{"grid with hole", gridMesh(20, 15, -3, 1e3, 0.01, ring(15), nil)},
+		{"graded", gradedMesh(40, nil)},
+		{"graded with hole", gradedMesh(40, ring(40))},
+		{"graded, no Nbr", func() *Mesh { m := gradedMesh(30, ring(30)); m.Nbr = nil; return m }()},
+	}
+	rng := rand.New(rand.NewPCG(1, 1))
+	for _, c := range cases {
+		m := c.m
+		l := NewLocator(m)
+		x0, x1, y0, y1 := l.x0, l.x1, l.y0, l.y1
+		w, h := x1-x0, y1-y0
+		var pts [][2]float64
+		for i := 0; i < 600; i++ {
+			// uniform points over a box 10% larger than the mesh, and
+			// points biased towards the small triangles at the origin
+			u, v := rng.Float64(), rng.Float64()
+			pts = append(pts, [2]float64{x0 - 0.05*w + 1.1*w*u, y0 - 0.05*h + 1.1*h*v})
+			pts = append(pts, [2]float64{x0 + w*math.Pow(u, 4), y0 + h*math.Pow(v, 4)})
+		}
+		// nodes and edge midpoints of every 5th triangle: points on shared
+		// edges and corners
+		for t := 0; t < m.NumTriangles(); t += 5 {
+			for k := 0; k < 3; k++ {
+				a, b := m.Tri[3*t+k], m.Tri[3*t+(k+1)%3]
+				pts = append(pts, [2]float64{m.X[a], m.Y[a]}, [2]float64{0.5 * (m.X[a] + m.X[b]), 0.5 * (m.Y[a] + m.Y[b])})
+			}
+		}
+		walks := 0
+		for _, p := range pts {
+			tr, b0, b1, b2, ok := l.Find(p[0], p[1])
+			want := bruteFind(m, l, p[0], p[1])
+			if ok != (len(want) > 0) || (ok && !want[tr]) {
+				t.Fatalf("%s: Find(%g, %g) = %d, %v; brute force %v", c.name, p[0], p[1], tr, ok, want)
+			}
+			if !ok {
+				if tr != -1 {
+					t.Fatalf("%s: outside point got t = %d", c.name, tr)
+				}
+				continue
+			}
+			// Barycentric coordinates reproduce the point: x = sum bk xk,
+			// to rounding (1e-12 of the mesh extent).
+			a, b, cc := m.Tri[3*tr], m.Tri[3*tr+1], m.Tri[3*tr+2]
+			rx := b0*m.X[a] + b1*m.X[b] + b2*m.X[cc]
+			ry := b0*m.Y[a] + b1*m.Y[b] + b2*m.Y[cc]
+			scale := math.Max(math.Max(math.Abs(x0), math.Abs(x1)), math.Max(math.Abs(y0), math.Abs(y1)))
+			if math.Abs(rx-p[0]) > 1e-12*scale || math.Abs(ry-p[1]) > 1e-12*scale {
+				t.Errorf("%s: barycentric (%g,%g,%g) gives (%g,%g) for (%g,%g)", c.name, b0, b1, b2, rx, ry, p[0], p[1])
+			}
+			if min(b0, b1, b2) < -1e-9 {
+				t.Errorf("%s: negative barycentric (%g,%g,%g)", c.name, b0, b1, b2)
+			}
+			cx, cy := l.cellX(p[0]), l.cellY(p[1])
+			if l.first[cy*l.nx+cx] >= 0 {
+				walks++
+			}
+		}
+		if c.name == "graded" && walks == 0 {
+			t.Errorf("%s: no query walked; the walk is untested", c.name)
+		}
+		for _, p := range [][2]float64{{math.NaN(), 0}, {0, math.Inf(1)}, {x1 + 1, y0}} {
+			if tr, _, _, _, ok := l.Find(p[0], p[1]); ok || tr != -1 {
+				t.Errorf("%s: Find(%v) = %d, %v, want -1, false", c.name, p, tr, ok)
+			}
+		}
+	}
+}
+
+func TestLocatorEmptyAndConcurrent(t *testing.T) {
+	if tr, _, _, _, ok := NewLocator(&Mesh{}).Find(0, 0); ok || tr != -1 {
+		t.Errorf("empty mesh: %d %v", tr, ok)
+	}
+	m := gradedMesh(50, nil)
+	l := NewLocator(m)
+	var wg sync.WaitGroup
+	errs := make(chan string, 4)
+	for g := 0; g < 4; g++ {
+		wg.Add(1)
+		go func(seed uint64) {
+			defer wg.Done()
+			rng := rand.New(rand.NewPCG(seed, 1))
+			for i := 0; i < 2000; i++ {
+				x, y := math.Pow(rng.Float64(), 3), math.Pow(rng.Float64(), 3)
+				if _, _, _, _, ok := l.Find(x, y); !ok {
+					errs <- "point inside the unit square not found"
+					return
+				}
+			}
+		}(uint64(g))
+	}
+	wg.Wait()
+	close(errs)
+	for e := range errs {
+		t.Error(e)
+	}
+}
+
+func BenchmarkLocatorFind(b *testing.B) {
+	for _, n := range []int{30, 224} { // ~1.8k and ~100k triangles
+		m := gradedMesh(n, nil)
+		l := NewLocator(m)
+		rng := rand.New(rand.NewPCG(1, 1))
+		pts := make([][2]float64, 4096)
+		for i := range pts {
+			pts[i] = [2]float64{rng.Float64(), rng.Float64()}
+		}
+		b.Run("graded-uniform-points/"+itoa(m.NumTriangles()), func(b *testing.B) {
+			b.ReportAllocs()
+			for i := 0; b.Loop(); i++ {
+				p := pts[i&4095]
+				l.Find(p[0], p[1])
+			}
+			b.ReportMetric(float64(b.N)/b.Elapsed().Seconds(), "queries/s")
+		})
+		for i := range pts {
+			pts[i] = [2]float64{math.Pow(pts[i][0], 4), math.Pow(pts[i][1], 4)}
+		}
+		b.Run("graded-dense-points/"+itoa(m.NumTriangles()), func(b *testing.B) {
+			b.ReportAllocs()
+			for i := 0; b.Loop(); i++ {
+				p := pts[i&4095]
+				l.Find(p[0], p[1])
+			}
+			b.ReportMetric(float64(b.N)/b.Elapsed().Seconds(), "queries/s")
+		})
+		b.Run("build/"+itoa(m.NumTriangles()), func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				NewLocator(m)
+			}
+		})
+	}
+}
+
+func itoa(n int) string {
+	if n < 10 {
+		return string(rune('0' + n))
+	}
+	return itoa(n/10) + string(rune('0'+n%10))
+}
