@@ -1,0 +1,62 @@
+package sparse
+
+import "fmt"
+
+// Panic messages for programmer misuse.
+const (
+	errShape       = "sparse: dimension mismatch"
+	errIndex       = "sparse: index out of range"
+	errNotAnalyzed = "sparse: Factor called before Analyze"
+	errNotFactored = "sparse: SolveTo called before Factor"
+	errPattern     = "sparse: matrix pattern differs from the analyzed pattern"
+	errBadCSR      = "sparse: malformed CSR"
+	errNodes       = "sparse: element connectivity length is not a multiple of nodesPerElem"
+	errKind        = "sparse: unknown solver kind"
+)
+
+// NotPositiveDefiniteError reports a pivot that is not positive (or not
+// finite) during a Cholesky or incomplete Cholesky factorization. Column is
+// the row/column index in the caller's (unpermuted) numbering.
+type NotPositiveDefiniteError struct {
+	Column int
+	Pivot  float64
+}
+
+func (e *NotPositiveDefiniteError) Error() string {
+	return fmt.Sprintf("sparse: matrix is not positive definite: pivot %g at column %d", e.Pivot, e.Column)
+}
+
+// NotConvergedError reports an iterative solve that stopped without meeting
+// its tolerance. Result carries the iteration count and residual history.
+type NotConvergedError struct {
+	Result Result
+	Tol    float64
+}
+
+func (e *NotConvergedError) Error() string {
+	return fmt.Sprintf("sparse: no convergence after %d iterations: relative residual %.3g > tolerance %.3g (%s)",
+		e.Result.Iterations, e.Result.Residual, e.Tol, e.Result.Status)
+}
+
+// FormatError reports malformed Matrix Market input.
+type FormatError struct {
+	Line int
+	Msg  string
+}
+
+func (e *FormatError) Error() string {
+	return fmt.Sprintf("sparse: matrix market line %d: %s", e.Line, e.Msg)
+}
+
+// String returns the status name.
+func (s Status) String() string {
+	switch s {
+	case Converged:
+		return "converged"
+	case IterationLimit:
+		return "iteration limit"
+	case Breakdown:
+		return "breakdown"
+	}
+	return fmt.Sprintf("Status(%d)", int(s))
+}

@@ -1,0 +1,101 @@
+package sparse
+
+// Dense kernels on column-major blocks used by the supernodal Cholesky
+// factorization. They are written with fixed 4-wide inner loops so the
+// compiler keeps the multipliers in registers; no kernel allocates.
+
+// syrkLowerSub computes the lower trapezoid of D -= X X_top^T: for c in
+// [0,q) and i in [c,r),
+//
+//	d[i+c*ldd] -= sum_{k<kk} x[i+k*ldx] * x[c+k*ldx].
+//
+// x holds r rows of kk columns (leading dimension ldx); its first q rows
+// form X_top.
+func syrkLowerSub(d []float64, ldd int, x []float64, ldx, r, q, kk int) {
+	c := 0
+	for ; c+1 < q; c += 2 {
+		d0 := d[c*ldd : c*ldd+r]
+		d1 := d[(c+1)*ldd : (c+1)*ldd+r]
+		k := 0
+		for ; k+3 < kk; k += 4 {
+			x0 := x[k*ldx : k*ldx+r]
+			x1 := x[(k+1)*ldx : (k+1)*ldx+r]
+			x2 := x[(k+2)*ldx : (k+2)*ldx+r]
+			x3 := x[(k+3)*ldx : (k+3)*ldx+r]
+			a0, a1, a2, a3 := x0[c], x1[c], x2[c], x3[c]
+			b0, b1, b2, b3 := x0[c+1], x1[c+1], x2[c+1], x3[c+1]
+			d0[c] -= a0*a0 + a1*a1 + a2*a2 + a3*a3
+			for i := c + 1; i < r; i++ {
+				v0, v1, v2, v3 := x0[i], x1[i], x2[i], x3[i]
+				d0[i] -= a0*v0 + a1*v1 + a2*v2 + a3*v3
+				d1[i] -= b0*v0 + b1*v1 + b2*v2 + b3*v3
+			}
+		}
+		for ; k < kk; k++ {
+			x0 := x[k*ldx : k*ldx+r]
+			a0, b0 := x0[c], x0[c+1]
+			d0[c] -= a0 * a0
+			for i := c + 1; i < r; i++ {
+				v0 := x0[i]
+				d0[i] -= a0 * v0
+				d1[i] -= b0 * v0
+			}
+		}
+	}
+	if c < q {
+		d0 := d[c*ldd : c*ldd+r]
+		for k := 0; k < kk; k++ {
+			x0 := x[k*ldx : k*ldx+r]
+			a0 := x0[c]
+			if a0 == 0 {
+				continue
+			}
+			for i := c; i < r; i++ {
+				d0[i] -= a0 * x0[i]
+			}
+		}
+	}
+}
+
+// panelBlock is the panel width of the blocked dense Cholesky.
+const panelBlock = 48
+
+// potrfTrapezoid factors in place the m×nc column-major trapezoid b (leading
+// dimension m) of one supernode: the top nc×nc block becomes its Cholesky
+// factor L11 and the rows below become L21 = A21 L11^{-T}. It returns the
+// local column of the first non-positive or non-finite pivot, or -1, and
+// that pivot value.
+func potrfTrapezoid(b []float64, m, nc int) (int, float64) {
+	for k0 := 0; k0 < nc; k0 += panelBlock {
+		k1 := min(k0+panelBlock, nc)
+		// Unblocked right-looking factorization of the panel columns.
+		for k := k0; k < k1; k++ {
+			ck := b[k*m : k*m+m]
+			d := ck[k]
+			if !(d > 0) || d > maxFinite {
+				return k, d
+			}
+			piv := sqrtf(d)
+			ck[k] = piv
+			inv := 1 / piv
+			for i := k + 1; i < m; i++ {
+				ck[i] *= inv
+			}
+			for c := k + 1; c < k1; c++ {
+				cc := b[c*m : c*m+m]
+				l := ck[c]
+				if l == 0 {
+					continue
+				}
+				for i := c; i < m; i++ {
+					cc[i] -= l * ck[i]
+				}
+			}
+		}
+		if k1 < nc {
+			// Trailing update with the whole panel at once.
+			syrkLowerSub(b[k1+k1*m:], m, b[k1+k0*m:], m, m-k1, nc-k1, k1-k0)
+		}
+	}
+	return -1, 0
+}

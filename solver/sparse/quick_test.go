@@ -1,0 +1,28 @@
+package sparse_test
+
+import (
+	"math"
+	"testing"
+
+	"polegap/solver/sparse"
+)
+
+func TestQuickGrid(t *testing.T) {
+	for _, o := range []sparse.Ordering{sparse.Natural, sparse.NestedDissection} {
+		a := gridSystem(60, 0.3)
+		ch := &sparse.Cholesky{Options: sparse.CholeskyOptions{Ordering: o}}
+		if err := ch.Analyze(a); err != nil {
+			t.Fatal(err)
+		}
+		if err := ch.Factor(a); err != nil {
+			t.Fatal(err)
+		}
+		b := make([]float64, a.N)
+		for i := range b {
+			b[i] = math.Sin(float64(i))
+		}
+		x := make([]float64, a.N)
+		res, err := ch.SolveTo(x, b)
+		t.Log(o, a.N, ch.NNZL(), ch.Flops(), res.Residual, err)
+	}
+}
