@@ -166,7 +166,6 @@ type ndState struct {
 	nextID atomic.Int32
 }
 
-
 // ndWork is per-goroutine scratch: BFS level of each vertex (valid only
 // for vertices stamped with the current visit mark) and a queue.
 type ndWork struct {
