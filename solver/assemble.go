@@ -1,0 +1,269 @@
+package solver
+
+import (
+	"math"
+	"sync"
+
+	"polegap/mesh"
+)
+
+// assembler evaluates the Galerkin forms of one problem. With the curl
+// vector c_i of basis function N_i (planar: (∂N/∂y, −∂N/∂x); axisymmetric:
+// (−∂N/∂z, ∂N/∂r + N/r)) and B = Σ a_i c_i, it computes per element
+//
+//	residual  r_i  = ∫ (ν(|B|²) B − M)·c_i − J N_i  dΩ
+//	tangent   k_ij = ∫ ν c_i·c_j + 2 ν'(|B|²) (B·c_i)(B·c_j)  dΩ
+//
+// with dΩ = dx dy (planar) or r dr dz (axisymmetric, per radian). The
+// tangent is the exact Jacobian of the residual; for a linear material it is
+// the stiffness matrix and r = K a − f.
+type assembler struct {
+	p     *Problem
+	m     *mesh.Mesh
+	el    Element
+	nn    int
+	axi   bool
+	rule  *Rule
+	val   [][MaxNodes]float64    // basis values at the quadrature points
+	rgrad [][MaxNodes][2]float64 // reference gradients at the quadrature points
+	d     dofMap
+	pat   *pattern
+
+	// source, when set (tests only), adds a space-dependent current
+	// density J(x, y) to the region's.
+	source func(x, y float64) float64
+}
+
+// quadratureDegree picks the rule: exact for the linear stiffness and a
+// region-constant source in the planar case; for the axisymmetric case the
+// integrand carries r and 1/r, and a rule two degrees higher is used.
+func quadratureDegree(order int, f Formulation) int {
+	switch {
+	case order == 1 && f == Planar:
+		return 1
+	case order == 2 && f == Planar:
+		return 2
+	case order == 1:
+		return 3
+	default:
+		return 4
+	}
+}
+
+func newAssembler(p *Problem, d dofMap, workers int) *assembler {
+	m := p.Mesh
+	as := &assembler{p: p, m: m, el: elementFor(m.Order()), axi: p.Formulation == Axisymmetric, d: d}
+	as.nn = as.el.NumNodes()
+	deg := quadratureDegree(m.Order(), p.Formulation)
+	if as.axi && deg == 3 {
+		deg = 4 // Dunavant's degree-3 rule has a negative weight; avoid it in a nonlinear tangent
+	}
+	as.rule = RuleOfDegree(deg)
+	nq := as.rule.NumPoints()
+	as.val = make([][MaxNodes]float64, nq)
+	as.rgrad = make([][MaxNodes][2]float64, nq)
+	for q := 0; q < nq; q++ {
+		xi, eta := as.rule.Point(q)
+		as.el.EvalTo(as.val[q][:], as.rgrad[q][:], xi, eta)
+	}
+	as.pat = buildPattern(m, &as.d, workers)
+	return as
+}
+
+// elemWork is one worker's element buffers.
+type elemWork struct {
+	nodes [MaxNodes]int32
+	a     [MaxNodes]float64
+	ke    [MaxNodes][MaxNodes]float64
+	re    [MaxNodes]float64
+	c     [MaxNodes][2]float64
+	err   error
+}
+
+// gather loads the potentials of triangle t's nodes.
+func (as *assembler) gather(t int, A []float64, w *elemWork) {
+	elementNodes(as.m, t, &w.nodes)
+	for i := 0; i < as.nn; i++ {
+		w.a[i] = A[w.nodes[i]]
+	}
+}
+
+// affine returns the corner coordinates and the Jacobian entries
+// (x1−x0, x2−x0, y1−y0, y2−y0) and its determinant (twice the area).
+func (as *assembler) affine(t int) (x0, y0, a, b, c, d, det float64) {
+	m := as.m
+	i0, i1, i2 := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
+	x0, y0 = m.X[i0], m.Y[i0]
+	a, b = m.X[i1]-x0, m.X[i2]-x0
+	c, d = m.Y[i1]-y0, m.Y[i2]-y0
+	det = a*d - b*c
+	return
+}
+
+// curlAt fills w.c with the curl vectors at quadrature point q of triangle
+// t and returns the integration weight (including r for axisymmetry) and
+// the physical point.
+func (as *assembler) curlAt(t, q int, w *elemWork, x0, y0, a, b, c, d, det float64) (wt, x, y float64) {
+	xi, eta := as.rule.Point(q)
+	x = x0 + a*xi + b*eta
+	y = y0 + c*xi + d*eta
+	wt = as.rule.W[q] * 0.5 * det
+	inv := 1 / det
+	rg := &as.rgrad[q]
+	if !as.axi {
+		for i := 0; i < as.nn; i++ {
+			gx := (d*rg[i][0] - c*rg[i][1]) * inv
+			gy := (-b*rg[i][0] + a*rg[i][1]) * inv
+			w.c[i] = [2]float64{gy, -gx}
+		}
+		return
+	}
+	wt *= x
+	v := &as.val[q]
+	for i := 0; i < as.nn; i++ {
+		gr := (d*rg[i][0] - c*rg[i][1]) * inv
+		gz := (-b*rg[i][0] + a*rg[i][1]) * inv
+		w.c[i] = [2]float64{-gz, gr + v[i]/x}
+	}
+	return
+}
+
+// element computes the residual (and, if wantK, the tangent) of triangle t
+// for the potentials in w.a. It returns false after storing a
+// *MaterialError in w.err when a material misbehaves.
+func (as *assembler) element(t int, w *elemWork, wantK bool) bool {
+	nn := as.nn
+	reg := as.m.Region[t]
+	mat := as.p.Materials[reg]
+	var jz float64
+	if int(reg) < len(as.p.CurrentDensity) {
+		jz = as.p.CurrentDensity[reg]
+	}
+	var mg [2]float64
+	if int(reg) < len(as.p.Magnetization) {
+		mg = as.p.Magnetization[reg]
+	}
+	w.re = [MaxNodes]float64{}
+	if wantK {
+		w.ke = [MaxNodes][MaxNodes]float64{}
+	}
+	x0, y0, a, b, c, d, det := as.affine(t)
+	for q := range as.rule.W {
+		wt, x, y := as.curlAt(t, q, w, x0, y0, a, b, c, d, det)
+		var bx, by float64
+		for i := 0; i < nn; i++ {
+			bx += w.a[i] * w.c[i][0]
+			by += w.a[i] * w.c[i][1]
+		}
+		b2 := bx*bx + by*by
+		nu, dnu := mat.Nu(b2)
+		if !(nu > 0) || math.IsInf(nu, 0) || !finite(dnu) {
+			w.err = &MaterialError{Region: reg, B2: b2, Nu: nu, DNu: dnu}
+			return false
+		}
+		src := jz
+		if as.source != nil {
+			src += as.source(x, y)
+		}
+		hx, hy := nu*bx-mg[0], nu*by-mg[1]
+		v := &as.val[q]
+		for i := 0; i < nn; i++ {
+			w.re[i] += wt * (hx*w.c[i][0] + hy*w.c[i][1] - src*v[i])
+		}
+		if !wantK {
+			continue
+		}
+		two := 2 * dnu
+		for i := 0; i < nn; i++ {
+			ci := w.c[i]
+			bci := bx*ci[0] + by*ci[1]
+			for j := i; j < nn; j++ {
+				cj := w.c[j]
+				k := nu*(ci[0]*cj[0]+ci[1]*cj[1]) + two*bci*(bx*cj[0]+by*cj[1])
+				w.ke[i][j] += wt * k
+			}
+		}
+	}
+	if wantK {
+		for i := 0; i < nn; i++ {
+			for j := 0; j < i; j++ {
+				w.ke[i][j] = w.ke[j][i]
+			}
+		}
+	}
+	return true
+}
+
+// assemble writes the residual over the unknowns into r (len d.n) and, if
+// wantK, the tangent into the pattern's matrix values, for the nodal
+// potentials A (fixed nodes at their values). Workers own disjoint row
+// ranges, so no two of them write the same entry.
+func (as *assembler) assemble(A, r []float64, wantK bool) error {
+	for i := range r {
+		r[i] = 0
+	}
+	if wantK {
+		for i := range as.pat.k.Val {
+			as.pat.k.Val[i] = 0
+		}
+	}
+	parts := as.pat.parts
+	errs := make([]error, len(parts))
+	if len(parts) == 1 {
+		errs[0] = as.assemblePart(&parts[0], A, r, wantK)
+	} else {
+		var wg sync.WaitGroup
+		for w := range parts {
+			wg.Add(1)
+			go func(w int) {
+				defer wg.Done()
+				errs[w] = as.assemblePart(&parts[w], A, r, wantK)
+			}(w)
+		}
+		wg.Wait()
+	}
+	for _, err := range errs {
+		if err != nil {
+			return err
+		}
+	}
+	for _, pc := range as.p.PointCurrents {
+		if c := as.d.dof[pc.Node]; c >= 0 {
+			r[c] -= pc.Current
+		}
+	}
+	return nil
+}
+
+func (as *assembler) assemblePart(pt *part, A, r []float64, wantK bool) error {
+	var w elemWork
+	nn := as.nn
+	val := as.pat.k.Val
+	pos := as.pat.pos
+	dof := as.d.dof
+	for _, t32 := range pt.elems {
+		t := int(t32)
+		as.gather(t, A, &w)
+		if !as.element(t, &w, wantK) {
+			return w.err
+		}
+		base := t * nn * nn
+		for i := 0; i < nn; i++ {
+			ri := dof[w.nodes[i]]
+			if ri < pt.r0 || ri >= pt.r1 {
+				continue
+			}
+			r[ri] += w.re[i]
+			if !wantK {
+				continue
+			}
+			pi := pos[base+i*nn : base+i*nn+nn]
+			for j, p := range pi {
+				if p >= 0 {
+					val[p] += w.ke[i][j]
+				}
+			}
+		}
+	}
+	return nil
+}

@@ -1,0 +1,79 @@
+package solver
+
+import (
+	"fmt"
+
+	"polegap/solver/sparse"
+)
+
+// Panic messages for programmer misuse.
+const (
+	errNilMesh    = "solver: nil problem or mesh"
+	errInitialLen = "solver: Options.Initial length differs from the number of nodes"
+	errDstLen     = "solver: destination length differs from the required length"
+	errNoMaterial = "solver: region without a material"
+	errBadWorkers = "solver: negative worker count"
+)
+
+// ProblemError reports inconsistent problem data.
+type ProblemError struct {
+	Field  string // the Problem field at fault
+	Reason string
+}
+
+func (e *ProblemError) Error() string { return "solver: problem." + e.Field + ": " + e.Reason }
+
+// SingularError reports a system without a unique solution: a part of the
+// mesh whose potential is fixed nowhere (no zero-potential edge, fixed node
+// or axis in its connected part), so that adding a constant to A there
+// changes nothing.
+type SingularError struct {
+	Nodes   int   // number of nodes in the floating part
+	Example int32 // one node of it
+}
+
+func (e *SingularError) Error() string {
+	return fmt.Sprintf("solver: singular system: %d nodes (node %d among them) form a part whose potential is fixed nowhere; give it a zero-potential boundary edge or a fixed node", e.Nodes, e.Example)
+}
+
+// MaterialError reports a reluctivity that is not finite and positive.
+type MaterialError struct {
+	Region int32
+	B2     float64 // |B|² (T²) at which the material was asked
+	Nu     float64
+	DNu    float64
+}
+
+func (e *MaterialError) Error() string {
+	return fmt.Sprintf("solver: material of region %d returned ν = %g, dν/db² = %g at |B|² = %g T²; ν must be finite and positive", e.Region, e.Nu, e.DNu, e.B2)
+}
+
+// LinearSolveError reports a failure of the linear solver.
+type LinearSolveError struct {
+	Stage  string // "analyze", "factor" or "solve"
+	Result sparse.Result
+	Err    error
+}
+
+func (e *LinearSolveError) Error() string {
+	if e.Err != nil {
+		return fmt.Sprintf("solver: linear %s failed: %v", e.Stage, e.Err)
+	}
+	return fmt.Sprintf("solver: linear %s failed: status %d after %d iterations, residual %g", e.Stage, e.Result.Status, e.Result.Iterations, e.Result.Residual)
+}
+
+func (e *LinearSolveError) Unwrap() error { return e.Err }
+
+// NotConvergedError reports a Newton-Raphson run that did not meet its
+// tolerances. No Solution is returned with it.
+type NotConvergedError struct {
+	Iterations int
+	History    []float64 // relative residual after each iteration (index 0: start)
+	Residual   float64   // last relative residual
+	Update     float64   // last relative update estimate
+	Reason     string
+}
+
+func (e *NotConvergedError) Error() string {
+	return fmt.Sprintf("solver: Newton-Raphson did not converge after %d iterations (relative residual %.3g, update %.3g): %s", e.Iterations, e.Residual, e.Update, e.Reason)
+}

@@ -1,0 +1,196 @@
+package solver
+
+import (
+	"math"
+	"time"
+
+	"polegap/solver/sparse"
+)
+
+// newton runs Newton-Raphson on the residual R(A) = 0 with the exact
+// tangent and a backtracking line search on ‖R‖ (J. E. Dennis,
+// R. B. Schnabel, "Numerical Methods for Unconstrained Optimization and
+// Nonlinear Equations", 1983, sec. 6.3: Armijo condition with α = 1e-4).
+// Convergence: relative residual <= opt.Tol and the next update, estimated
+// with the last factorization, <= opt.UpdateTol relative to max |A|.
+func newton(as *assembler, opt Options, s *Solution) error {
+	d := &as.d
+	nn := as.m.NumNodes()
+	n := d.n
+	A := make([]float64, nn)
+	if opt.Initial != nil {
+		copy(A, opt.Initial)
+	}
+	for i := 0; i < nn; i++ {
+		if d.dof[i] < 0 {
+			A[i] = d.value[i]
+		}
+	}
+	// Identified nodes share their unknown's value: take the first member's.
+	if opt.Initial != nil {
+		first := make([]float64, n)
+		seen := make([]bool, n)
+		for i := 0; i < nn; i++ {
+			if c := d.dof[i]; c >= 0 {
+				if !seen[c] {
+					seen[c], first[c] = true, A[i]
+				}
+				A[i] = first[c]
+			}
+		}
+	}
+	s.A = A
+	if n == 0 {
+		s.Converged = true
+		return nil
+	}
+	R := make([]float64, n)
+	Rt := make([]float64, n)
+	du := make([]float64, n)
+	trial := make([]float64, nn)
+
+	// Reference residual: all unknowns at zero.
+	t0 := time.Now()
+	if opt.Initial != nil {
+		copy(trial, A)
+		for i := 0; i < nn; i++ {
+			if d.dof[i] >= 0 {
+				trial[i] = 0
+			}
+		}
+		if err := as.assemble(trial, R, false); err != nil {
+			return err
+		}
+	} else {
+		if err := as.assemble(A, R, false); err != nil {
+			return err
+		}
+	}
+	ref := norm2(R)
+	s.Time.Assemble += time.Since(t0)
+	if ref == 0 {
+		// No source and no prescribed potential: the field is zero.
+		for i := 0; i < nn; i++ {
+			if d.dof[i] >= 0 {
+				A[i] = 0
+			}
+		}
+		s.Converged = true
+		s.History = []float64{0}
+		return nil
+	}
+	t0 = time.Now()
+	if err := as.assemble(A, R, true); err != nil {
+		return err
+	}
+	s.Time.Assemble += time.Since(t0)
+	res := norm2(R) / ref
+	s.History = append(s.History, res)
+
+	lin := opt.linearSolver()
+	t0 = time.Now()
+	if err := lin.Analyze(as.pat.k); err != nil {
+		return &LinearSolveError{Stage: "analyze", Err: err}
+	}
+	s.Time.Analyze = time.Since(t0)
+
+	upd := math.Inf(1)
+	for it := 1; it <= opt.MaxIter; it++ {
+		t0 = time.Now()
+		if err := lin.Factor(as.pat.k); err != nil {
+			return &LinearSolveError{Stage: "factor", Err: err}
+		}
+		s.Time.Factor += time.Since(t0)
+		for i := range R {
+			R[i] = -R[i]
+		}
+		t0 = time.Now()
+		lr, err := lin.SolveTo(du, R)
+		s.Time.Solve += time.Since(t0)
+		s.Linear = lr
+		if err != nil || lr.Status != sparse.Converged {
+			return &LinearSolveError{Stage: "solve", Result: lr, Err: err}
+		}
+		for i := range R {
+			R[i] = -R[i]
+		}
+		// Backtracking on ‖R‖.
+		rn := res * ref
+		step := 1.0
+		accepted := false
+		t0 = time.Now()
+		for ls := 0; ls < 20; ls++ {
+			for i := 0; i < nn; i++ {
+				if c := d.dof[i]; c >= 0 {
+					trial[i] = A[i] + step*du[c]
+				} else {
+					trial[i] = A[i]
+				}
+			}
+			err := as.assemble(trial, Rt, false)
+			if err == nil {
+				rt := norm2(Rt)
+				if rt <= (1-1e-4*step)*rn || rt/ref <= opt.Tol {
+					accepted = true
+					break
+				}
+			} else if _, ok := err.(*MaterialError); !ok {
+				return err
+			}
+			step *= 0.5
+		}
+		s.Time.Assemble += time.Since(t0)
+		if !accepted {
+			return &NotConvergedError{Iterations: it, History: s.History, Residual: res, Update: upd,
+				Reason: "the line search found no step that lowers the residual"}
+		}
+		copy(A, trial)
+		R, Rt = Rt, R
+		res = norm2(R) / ref
+		s.History = append(s.History, res)
+		s.Iterations = it
+		s.Residual = res
+		if !finite(res) {
+			return &NotConvergedError{Iterations: it, History: s.History, Residual: res, Update: upd, Reason: "the residual is not finite"}
+		}
+		if res <= opt.Tol {
+			// Estimate the next update with the factorization in hand.
+			t0 = time.Now()
+			lr, err := lin.SolveTo(du, R)
+			s.Time.Solve += time.Since(t0)
+			if err == nil && lr.Status == sparse.Converged {
+				upd = normInf(du) / math.Max(normInfA(A), math.SmallestNonzeroFloat64)
+				if upd <= opt.UpdateTol {
+					s.Update = upd
+					s.Converged = true
+					return nil
+				}
+			}
+		}
+		t0 = time.Now()
+		if err := as.assemble(A, R, true); err != nil {
+			return err
+		}
+		s.Time.Assemble += time.Since(t0)
+	}
+	return &NotConvergedError{Iterations: opt.MaxIter, History: s.History, Residual: res, Update: upd,
+		Reason: "iteration limit reached"}
+}
+
+func norm2(x []float64) float64 {
+	var s float64
+	for _, v := range x {
+		s += v * v
+	}
+	return math.Sqrt(s)
+}
+
+func normInf(x []float64) float64 {
+	var m float64
+	for _, v := range x {
+		m = math.Max(m, math.Abs(v))
+	}
+	return m
+}
+
+func normInfA(x []float64) float64 { return normInf(x) }

@@ -1,0 +1,75 @@
+package solver
+
+import (
+	"runtime"
+
+	"polegap/solver/sparse"
+)
+
+// LinearMethod chooses the linear solver used inside Solve.
+type LinearMethod int
+
+const (
+	// Auto picks the direct solver.
+	Auto LinearMethod = iota
+	// Direct: fill-reducing ordering and sparse Cholesky; the symbolic
+	// analysis is reused across Newton steps.
+	Direct
+	// Iterative: preconditioned conjugate gradients.
+	Iterative
+)
+
+// Options control Solve. The zero value works: Auto linear solver,
+// relative residual 1e-8, update 1e-6, 30 Newton steps, all cores.
+type Options struct {
+	Method LinearMethod
+	// Solver, when not nil, is used instead of the one Method names.
+	Solver sparse.Solver
+	// Tol is the relative residual ‖R(A)‖/‖R(A₀)‖ to reach, where A₀ has
+	// every unknown at zero; default 1e-8.
+	Tol float64
+	// UpdateTol bounds the estimated next Newton update relative to the
+	// largest |A| (max norms); default 1e-6.
+	UpdateTol float64
+	// MaxIter is the limit on Newton steps; default 30.
+	MaxIter int
+	// LinearTol is the relative residual of an iterative linear solve;
+	// default 1e-10.
+	LinearTol float64
+	// Initial is a warm start: A per node (len Mesh.NumNodes()), or nil
+	// for zero. Fixed nodes take their prescribed values regardless.
+	Initial []float64
+	// Workers is the number of goroutines used for assembly; 0 means
+	// GOMAXPROCS.
+	Workers int
+}
+
+func (o Options) withDefaults() Options {
+	if o.Tol <= 0 {
+		o.Tol = 1e-8
+	}
+	if o.UpdateTol <= 0 {
+		o.UpdateTol = 1e-6
+	}
+	if o.MaxIter <= 0 {
+		o.MaxIter = 30
+	}
+	if o.LinearTol <= 0 {
+		o.LinearTol = 1e-10
+	}
+	if o.Workers < 0 {
+		panic(errBadWorkers)
+	}
+	if o.Workers == 0 {
+		o.Workers = runtime.GOMAXPROCS(0)
+	}
+	return o
+}
+
+// linearSolver returns the solver that opt asks for.
+func (o Options) linearSolver() sparse.Solver {
+	if o.Solver != nil {
+		return o.Solver
+	}
+	return &jacobiCG{tol: o.LinearTol}
+}

@@ -1,0 +1,189 @@
+package solver
+
+import (
+	"runtime"
+	"sort"
+
+	"polegap/mesh"
+	"polegap/solver/sparse"
+)
+
+// pattern is the sparsity structure of the reduced system, built once per
+// mesh and unknown numbering, with the map from element matrix entries to
+// positions in CSR.Val so that every later assembly is a pure scatter.
+type pattern struct {
+	k   *sparse.CSR
+	nn  int     // nodes per element
+	pos []int32 // nn*nn per element: index into k.Val, or -1 for a fixed row or column
+	// parts split the rows among workers: worker w owns rows [r0, r1) and
+	// assembles the elements that touch them, scattering only into its rows.
+	parts []part
+}
+
+type part struct {
+	r0, r1 int32
+	elems  []int32
+}
+
+// buildPattern numbers the nonzeros of the reduced stiffness matrix.
+func buildPattern(m *mesh.Mesh, d *dofMap, workers int) *pattern {
+	nt := m.NumTriangles()
+	var nodes [MaxNodes]int32
+	nn := elementNodes(m, 0, &nodes)
+	n := d.n
+	// Elements of each unknown.
+	cnt := make([]int32, n+1)
+	for t := 0; t < nt; t++ {
+		elementNodes(m, t, &nodes)
+		for _, v := range nodes[:nn] {
+			if r := d.dof[v]; r >= 0 {
+				cnt[r+1]++
+			}
+		}
+	}
+	for i := 0; i < n; i++ {
+		cnt[i+1] += cnt[i]
+	}
+	elemOf := make([]int32, cnt[n])
+	fill := make([]int32, n)
+	copy(fill, cnt[:n])
+	for t := 0; t < nt; t++ {
+		elementNodes(m, t, &nodes)
+		for _, v := range nodes[:nn] {
+			if r := d.dof[v]; r >= 0 {
+				elemOf[fill[r]] = int32(t)
+				fill[r]++
+			}
+		}
+	}
+	// Rows: union of the unknowns of the row's elements.
+	est := 7 * n
+	if nn == 6 {
+		est = 14 * n
+	}
+	k := &sparse.CSR{N: n, RowPtr: make([]int, n+1), Col: make([]int32, 0, est)}
+	mark := fill // reuse: mark[c] == r+1... use a separate stamp
+	for i := range mark {
+		mark[i] = -1
+	}
+	for r := 0; r < n; r++ {
+		start := len(k.Col)
+		for _, t := range elemOf[cnt[r]:cnt[r+1]] {
+			elementNodes(m, int(t), &nodes)
+			for _, v := range nodes[:nn] {
+				c := d.dof[v]
+				if c >= 0 && mark[c] != int32(r) {
+					mark[c] = int32(r)
+					k.Col = append(k.Col, c)
+				}
+			}
+		}
+		row := k.Col[start:]
+		sortInt32(row)
+		k.RowPtr[r+1] = len(k.Col)
+	}
+	k.Val = make([]float64, len(k.Col))
+	// Element entry -> CSR position.
+	p := &pattern{k: k, nn: nn, pos: make([]int32, nt*nn*nn)}
+	for t := 0; t < nt; t++ {
+		elementNodes(m, t, &nodes)
+		base := t * nn * nn
+		for i := 0; i < nn; i++ {
+			ri := d.dof[nodes[i]]
+			for j := 0; j < nn; j++ {
+				cj := d.dof[nodes[j]]
+				if ri < 0 || cj < 0 {
+					p.pos[base+i*nn+j] = -1
+					continue
+				}
+				row := k.Col[k.RowPtr[ri]:k.RowPtr[ri+1]]
+				p.pos[base+i*nn+j] = int32(k.RowPtr[ri] + searchInt32(row, cj))
+			}
+		}
+	}
+	p.split(m, d, workers)
+	return p
+}
+
+// split divides the rows into contiguous ranges of about equal nonzero
+// count, one per worker, and lists the elements touching each range.
+func (p *pattern) split(m *mesh.Mesh, d *dofMap, workers int) {
+	if workers <= 0 {
+		workers = runtime.GOMAXPROCS(0)
+	}
+	n := p.k.N
+	nnz := p.k.NNZ()
+	if workers > 64 {
+		workers = 64
+	}
+	if n < 2000 { // small systems: one worker (common practice threshold)
+		workers = 1
+	}
+	p.parts = make([]part, workers)
+	r := 0
+	for w := 0; w < workers; w++ {
+		p.parts[w].r0 = int32(r)
+		target := (w + 1) * nnz / workers
+		for r < n && p.k.RowPtr[r] < target {
+			r++
+		}
+		if w == workers-1 {
+			r = n
+		}
+		p.parts[w].r1 = int32(r)
+	}
+	var nodes [MaxNodes]int32
+	nt := m.NumTriangles()
+	if workers == 1 {
+		p.parts[0].elems = make([]int32, nt)
+		for t := range p.parts[0].elems {
+			p.parts[0].elems[t] = int32(t)
+		}
+		return
+	}
+	for t := 0; t < nt; t++ {
+		k := elementNodes(m, t, &nodes)
+		var seen uint64
+		for _, v := range nodes[:k] {
+			c := d.dof[v]
+			if c < 0 {
+				continue
+			}
+			w := sort.Search(workers, func(w int) bool { return p.parts[w].r1 > c })
+			if seen&(1<<uint(w)) == 0 {
+				seen |= 1 << uint(w)
+				p.parts[w].elems = append(p.parts[w].elems, int32(t))
+			}
+		}
+	}
+}
+
+func sortInt32(a []int32) {
+	if len(a) > 32 {
+		sort.Slice(a, func(i, j int) bool { return a[i] < a[j] })
+		return
+	}
+	for i := 1; i < len(a); i++ {
+		v := a[i]
+		j := i
+		for j > 0 && a[j-1] > v {
+			a[j] = a[j-1]
+			j--
+		}
+		a[j] = v
+	}
+}
+
+// searchInt32 returns the index of v in the sorted slice a (v present).
+func searchInt32(a []int32, v int32) int {
+	lo, hi := 0, len(a)
+	for lo < hi {
+		h := int(uint(lo+hi) >> 1)
+		if a[h] < v {
+			lo = h + 1
+		} else {
+			hi = h
+		}
+	}
+	return lo
+}
