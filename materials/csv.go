@@ -1,0 +1,215 @@
+package materials
+
+import (
+	"bufio"
+	"errors"
+	"fmt"
+	"io"
+	"strconv"
+	"strings"
+)
+
+// maxCSVLine bounds one line of a B-H CSV file (bytes).
+const maxCSVLine = 1 << 16
+
+// ReadCurveCSV reads a B-H table and builds a Curve named name (the name also
+// prefixes error messages, so pass the file name).
+//
+// Format: '#' starts a comment (whole line or trailing); blank lines are
+// skipped; fields are separated by commas (or, if a line has none, by
+// semicolons, tabs or spaces) and may be quoted. The first remaining line is
+// a header naming the columns H and B, each optionally with its unit in
+// parentheses or brackets: "H (A/m),B (T)", "H [kA/m], B [mT]", "h,b".
+// Units: A/m or kA/m for H, T or mT for B; none means A/m and T. Other
+// columns are ignored. Each later line is one (H, B) point; the table rules
+// of NewCurve apply. Every error is a *CSVError naming the line and what to
+// do.
+func ReadCurveCSV(r io.Reader, name string) (*Curve, error) {
+	sc := bufio.NewScanner(r)
+	sc.Buffer(make([]byte, 0, 4096), maxCSVLine)
+	lineErr := func(line int, err error, format string, args ...any) error {
+		return &CSVError{Name: name, Line: line, Reason: fmt.Sprintf(format, args...), Err: err}
+	}
+	var (
+		line         int
+		header       bool
+		colH, colB   = -1, -1
+		scaleH       = 1.0
+		scaleB       = 1.0
+		hs, bs       []float64
+		lines        []int
+		ncolRequired int
+	)
+	for sc.Scan() {
+		line++
+		text := sc.Text()
+		if line == 1 {
+			text = strings.TrimPrefix(text, "\ufeff")
+		}
+		if k := strings.IndexByte(text, '#'); k >= 0 {
+			text = text[:k]
+		}
+		text = strings.TrimSpace(text)
+		if text == "" {
+			continue
+		}
+		fields := splitFields(text)
+		if !header {
+			header = true
+			for k, f := range fields {
+				col, unit := parseHeaderField(f)
+				switch col {
+				case "h":
+					if colH >= 0 {
+						return nil, lineErr(line, ErrHeader, "header names column H twice (columns %d and %d); keep one", colH+1, k+1)
+					}
+					s, ok := unitScaleH(unit)
+					if !ok {
+						return nil, lineErr(line, ErrHeader, "unit %q of column H not understood; use A/m or kA/m", unit)
+					}
+					colH, scaleH = k, s
+				case "b":
+					if colB >= 0 {
+						return nil, lineErr(line, ErrHeader, "header names column B twice (columns %d and %d); keep one", colB+1, k+1)
+					}
+					s, ok := unitScaleB(unit)
+					if !ok {
+						return nil, lineErr(line, ErrHeader, "unit %q of column B not understood; use T or mT", unit)
+					}
+					colB, scaleB = k, s
+				}
+			}
+			if colH < 0 || colB < 0 {
+				missing := "H"
+				if colH >= 0 {
+					missing = "B"
+				} else if colB < 0 {
+					missing = "H and B"
+				}
+				if _, err := strconv.ParseFloat(strings.TrimSpace(fields[0]), 64); err == nil {
+					return nil, lineErr(line, ErrMissingColumn, "no header row; start the table with a header such as \"H (A/m),B (T)\"")
+				}
+				return nil, lineErr(line, ErrMissingColumn, "header has no column %s; name the columns H and B, e.g. \"H (A/m),B (T)\"", missing)
+			}
+			ncolRequired = max(colH, colB) + 1
+			continue
+		}
+		if len(fields) < ncolRequired {
+			missing := "B"
+			if colH >= len(fields) {
+				missing = "H"
+			}
+			return nil, lineErr(line, ErrMissingColumn, "missing column %s (the row has %d fields, the header %d or more); give both H and B on every row", missing, len(fields), ncolRequired)
+		}
+		hv, err := parseNumber(fields[colH])
+		if err != nil {
+			return nil, lineErr(line, ErrNumber, "column H: %q is not a number; write plain decimals such as 1500 or 1.5e3", fields[colH])
+		}
+		bv, err := parseNumber(fields[colB])
+		if err != nil {
+			return nil, lineErr(line, ErrNumber, "column B: %q is not a number; write plain decimals such as 1.52", fields[colB])
+		}
+		hs = append(hs, hv*scaleH)
+		bs = append(bs, bv*scaleB)
+		lines = append(lines, line)
+	}
+	if err := sc.Err(); err != nil {
+		if errors.Is(err, bufio.ErrTooLong) {
+			return nil, lineErr(line+1, ErrNumber, "line longer than %d bytes; is this a B-H table?", maxCSVLine)
+		}
+		return nil, &CSVError{Name: name, Reason: "reading: " + err.Error(), Err: err}
+	}
+	if !header {
+		return nil, &CSVError{Name: name, Reason: "no header and no data; give a header such as \"H (A/m),B (T)\" and at least two points", Err: ErrEmpty}
+	}
+	c, err := NewCurve(hs, bs)
+	if err != nil {
+		var te *TableError
+		if errors.As(err, &te) {
+			if te.Row > 0 {
+				return nil, &CSVError{Name: name, Line: lines[te.Row-1], Reason: te.Reason, Err: te}
+			}
+			return nil, &CSVError{Name: name, Reason: te.Reason, Err: te}
+		}
+		return nil, err
+	}
+	c.name = name
+	return c, nil
+}
+
+// splitFields splits a line on commas, else semicolons, else tabs or
+// runs of spaces, trimming spaces and one level of double quotes.
+func splitFields(s string) []string {
+	var f []string
+	switch {
+	case strings.Contains(s, ","):
+		f = strings.Split(s, ",")
+	case strings.Contains(s, ";"):
+		f = strings.Split(s, ";")
+	default:
+		f = strings.Fields(s)
+	}
+	for i := range f {
+		v := strings.TrimSpace(f[i])
+		if len(v) >= 2 && v[0] == '"' && v[len(v)-1] == '"' {
+			v = strings.TrimSpace(v[1 : len(v)-1])
+		}
+		f[i] = v
+	}
+	return f
+}
+
+// parseHeaderField splits "H (A/m)" into ("h", "A/m"). The column name is
+// lower-cased; the unit keeps its case ("mT" is not "MT").
+func parseHeaderField(f string) (col, unit string) {
+	name := f
+	if k := strings.IndexAny(f, "(["); k >= 0 {
+		name = f[:k]
+		rest := f[k+1:]
+		if e := strings.IndexAny(rest, ")]"); e >= 0 {
+			rest = rest[:e]
+		}
+		unit = strings.TrimSpace(rest)
+	} else if k := strings.IndexByte(f, ' '); k >= 0 {
+		// "H A/m" style.
+		name, unit = f[:k], strings.TrimSpace(f[k+1:])
+	}
+	return strings.ToLower(strings.TrimSpace(name)), unit
+}
+
+func unitScaleH(u string) (float64, bool) {
+	switch strings.ReplaceAll(u, " ", "") {
+	case "", "A/m", "a/m", "At/m", "A.m-1", "Am-1":
+		return 1, true
+	case "kA/m", "ka/m", "kA.m-1", "kAm-1":
+		return 1e3, true
+	}
+	return 0, false
+}
+
+func unitScaleB(u string) (float64, bool) {
+	switch strings.TrimSpace(u) {
+	case "", "T", "t", "tesla", "Tesla":
+		return 1, true
+	case "mT", "millitesla":
+		return 1e-3, true
+	}
+	return 0, false
+}
+
+// parseNumber parses a decimal number; NaN and infinities pass through
+// to NewCurve, which reports them with the row.
+func parseNumber(s string) (float64, error) {
+	if s == "" {
+		return 0, strconv.ErrSyntax
+	}
+	v, err := strconv.ParseFloat(s, 64)
+	if err != nil {
+		var ne *strconv.NumError
+		if errors.As(err, &ne) && errors.Is(ne.Err, strconv.ErrRange) {
+			return v, nil // ±Inf or 0: NewCurve reports it
+		}
+		return 0, err
+	}
+	return v, nil
+}

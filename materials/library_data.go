@@ -1,0 +1,125 @@
+package materials
+
+// Tables of the built-in nonlinear materials.
+//
+// Each table gives the initial (normal) magnetisation curve as field
+// strength H in A/m and magnetic polarisation J = B - μ0 H in T. Library
+// computes B = J + μ0 H, so every slope between rows is at least μ0 (J never
+// falls) and the curves end close to μ0, as saturated iron must.
+//
+// Source of every table: from memory: typical values. None is copied from
+// a published table; they are smooth representative curves of each material
+// class, good to perhaps ±5 % in B below the knee and ±2 % in saturation
+// (from memory: typical values). Measured data for the actual steel should
+// replace them (ReadCurveCSV) whenever the result matters.
+
+type curveData struct {
+	entry Entry
+	h, j  []float64 // H in A/m, J in T
+}
+
+const fromMemory = "from memory: typical values"
+
+var curveTables = []curveData{
+	{
+		// Annealed high-purity iron: maximum relative permeability of order
+		// 1e4 near 50 A/m, saturation polarisation about 2.15 T.
+		// Source: from memory: typical values.
+		entry: Entry{
+			Name:        "pure-iron",
+			Description: "annealed high-purity iron (99.8 % Fe or better); mu_r max about 9000, J_sat about 2.16 T",
+			Source:      fromMemory,
+			Kind:        KindNonlinear,
+		},
+		h: []float64{0, 10, 20, 30, 40, 50, 60, 80, 100, 150, 200, 300, 400, 600, 1000, 2000, 4000, 8000, 15000, 30000, 60000, 100000, 200000, 400000},
+		j: []float64{0, 0.01, 0.05, 0.14, 0.32, 0.55, 0.74, 0.97, 1.10, 1.29, 1.36, 1.43, 1.47, 1.53, 1.60, 1.70, 1.81, 1.92, 2.01, 2.08, 2.12, 2.14, 2.155, 2.16},
+	},
+	{
+		// Low-carbon steel, 1010 type (about 0.1 % C), hot-rolled or
+		// machined yoke stock: maximum relative permeability about 2700.
+		// Source: from memory: typical values.
+		entry: Entry{
+			Name:        "low-carbon-steel",
+			Description: "low-carbon steel of the 1010 type (about 0.1 % C) as used for magnet yokes; mu_r max about 2700, J_sat about 2.11 T",
+			Source:      fromMemory,
+			Kind:        KindNonlinear,
+		},
+		h: []float64{0, 50, 100, 150, 200, 300, 400, 600, 800, 1000, 1500, 2000, 3000, 5000, 8000, 12000, 20000, 40000, 80000, 150000, 300000},
+		j: []float64{0, 0.08, 0.25, 0.50, 0.75, 1.00, 1.12, 1.25, 1.33, 1.39, 1.48, 1.54, 1.62, 1.71, 1.79, 1.86, 1.94, 2.02, 2.07, 2.095, 2.11},
+	},
+	{
+		// Non-oriented silicon steel, about 3 % Si, 0.35 mm sheet, the
+		// 2.7 W/kg (1.5 T, 50 Hz) loss class, e.g. grade M270-35A of
+		// EN 10106. Source: from memory: typical values.
+		entry: Entry{
+			Name:        "silicon-steel-no",
+			Description: "non-oriented silicon steel, about 3 % Si, 0.35 mm, loss class 2.7 W/kg at 1.5 T 50 Hz (grade class M270-35A); sheet value, apply a stacking factor",
+			Source:      fromMemory,
+			Kind:        KindNonlinear,
+		},
+		h: []float64{0, 20, 40, 60, 80, 100, 150, 200, 300, 500, 1000, 2500, 5000, 10000, 20000, 50000, 100000, 200000},
+		j: []float64{0, 0.10, 0.40, 0.75, 0.95, 1.06, 1.20, 1.27, 1.34, 1.40, 1.46, 1.52, 1.61, 1.72, 1.83, 1.94, 1.99, 2.02},
+	},
+	{
+		// 49 % cobalt, 49 % iron, 2 % vanadium alloy, fully annealed: the
+		// highest saturation of the common soft alloys, about 2.35 T.
+		// Source: from memory: typical values.
+		entry: Entry{
+			Name:        "cobalt-iron",
+			Description: "49 % Co - 49 % Fe - 2 % V alloy, annealed; J_sat about 2.35 T, for pole tips and high-field poles",
+			Source:      fromMemory,
+			Kind:        KindNonlinear,
+		},
+		h: []float64{0, 20, 40, 60, 80, 100, 150, 200, 300, 500, 1000, 2000, 4000, 8000, 16000, 40000, 100000, 200000},
+		j: []float64{0, 0.05, 0.20, 0.60, 1.00, 1.30, 1.65, 1.82, 1.97, 2.08, 2.18, 2.24, 2.28, 2.31, 2.33, 2.345, 2.35, 2.355},
+	},
+	{
+		// Grey cast iron: graphite flakes lower both permeability (maximum
+		// about 300) and saturation. Source: from memory: typical values.
+		entry: Entry{
+			Name:        "cast-iron",
+			Description: "grey cast iron; mu_r max about 300, J_sat about 1.5 T; for old frames and bases",
+			Source:      fromMemory,
+			Kind:        KindNonlinear,
+		},
+		h: []float64{0, 200, 500, 1000, 1500, 2000, 3000, 5000, 8000, 12000, 20000, 40000, 80000, 150000, 300000},
+		j: []float64{0, 0.05, 0.20, 0.38, 0.50, 0.58, 0.70, 0.84, 0.97, 1.07, 1.18, 1.32, 1.42, 1.48, 1.52},
+	},
+}
+
+// linearEntries are the built-in linear materials and magnets.
+var linearEntries = []struct {
+	entry Entry
+	mat   Material
+}{
+	{
+		// Air: susceptibility of order 4e-7, neglected.
+		// Source: from memory: typical values.
+		Entry{Name: "air", Description: "air or vacuum, mu_r = 1 (air's susceptibility of about 4e-7 neglected)", Source: fromMemory, Kind: KindLinear},
+		Linear{MuR: 1},
+	},
+	{
+		// Copper: diamagnetic, susceptibility of order -1e-5, neglected.
+		// Source: from memory: typical values.
+		Entry{Name: "copper", Description: "copper (coil conductors), mu_r = 1 (susceptibility of about -1e-5 neglected)", Source: fromMemory, Kind: KindLinear},
+		Linear{MuR: 1},
+	},
+	{
+		// A generic unsaturated iron for hand checks against the ideal
+		// magnetic circuit. Source: from memory: typical values.
+		Entry{Name: "linear-1000", Description: "generic linear iron, mu_r = 1000, never saturates; for hand checks", Source: fromMemory, Kind: KindLinear},
+		Linear{MuR: 1000},
+	},
+	{
+		// Sintered neodymium-iron-boron magnet, mid grade.
+		// Source: from memory: typical values.
+		Entry{Name: "magnet-ndfeb", Description: "sintered NdFeB magnet, Br = 1.2 T, recoil mu_r = 1.05, magnetised along +x (set Direction)", Source: fromMemory, Kind: KindMagnet},
+		Magnet{Remanence: 1.2, MuRecoil: 1.05},
+	},
+	{
+		// Sintered hard ferrite (strontium ferrite) magnet.
+		// Source: from memory: typical values.
+		Entry{Name: "magnet-ferrite", Description: "sintered hard ferrite magnet, Br = 0.4 T, recoil mu_r = 1.1, magnetised along +x (set Direction)", Source: fromMemory, Kind: KindMagnet},
+		Magnet{Remanence: 0.4, MuRecoil: 1.1},
+	},
+}

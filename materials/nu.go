@@ -1,0 +1,187 @@
+package materials
+
+import "math"
+
+// The reluctivity of a Curve as a function of b2 = B²:
+//
+//	ν(b2) = H(B)/B,   dν/db2 = (dH/dB - H/B) / (2 B²),   B = √b2.
+//
+// Nu is on the solver's hot path, so ν(b2) is tabulated once, at
+// construction, as a C1 piecewise cubic Hermite function of b2 on
+// [0, B_last²]. The cells are refined adaptively until the cubic matches the
+// exact ν to nuTol = 1e-9 relative at three interior points; every table knot B_i²
+// is a cell boundary, so the cubic never straddles a kink of d²B/dH². Nu
+// returns the cubic and its own derivative, so the pair is exactly
+// consistent (Newton's Jacobian is exact for the ν the residual uses).
+//
+// Near the origin the first piece is B = d0 H + c3 H³, whose inverse gives
+// ν = 1/(d0 + c3 H²), smooth in b2 with dν/db2(0) = -c3/d0⁴.
+//
+// Past the last knot H = H_l + (B - B_l)/μ0, so ν = 1/μ0 + (H_l - B_l/μ0)/B
+// and dν/db2 = -(H_l - B_l/μ0)/(2 B³), which join the table C1 at B_l.
+//
+// Look-up: a uniform bucket array over [0, B_last²] gives the first cell to
+// try; a short forward scan finishes the search.
+
+const (
+	nuTol      = 1e-9 // relative value tolerance of the ν table
+	nuMaxDepth = 40   // bisections per knot interval
+	nuMinCells = 128  // cells at least over [0, B_last²] (caps cell width)
+)
+
+type nuTable struct {
+	x      []float64    // cell boundaries in b2, len = cells+1; x[0] = 0, x[cells] = xmax
+	c      [][4]float64 // ν = c0 + t(c1 + t(c2 + t c3)), t = b2 - x[j]
+	bucket []int32      // bucket[k]: the cell holding b2 = k/bscale
+	bscale float64
+	xmax   float64 // B_last²
+	nu0    float64 // ν(0) = 1/initial slope
+	g0     float64 // dν/db2 at 0
+	tail   float64 // H_last - B_last/μ0 (negative for steels)
+}
+
+// Nu returns the reluctivity ν = H/B in m/H at b2 = |B|² in T², and its
+// derivative dν/db2 in m/(H·T²). ν is positive, C1 in b2 and tends to 1/μ0
+// as b2 grows; ν·B = H is strictly increasing in B. b2 = 0 gives the initial
+// reluctivity and the finite limit of the derivative; a negative b2 counts
+// as 0; a NaN panics. Nu does not allocate.
+func (c *Curve) Nu(b2 float64) (nu, dnudb2 float64) {
+	t := &c.nut
+	if !(b2 > 0) {
+		if b2 != b2 {
+			panic(errNaNArgument)
+		}
+		return t.nu0, t.g0
+	}
+	if b2 >= t.xmax {
+		b := math.Sqrt(b2)
+		return 1/Mu0 + t.tail/b, -t.tail / (2 * b * b2)
+	}
+	j := int(t.bucket[int(b2*t.bscale)])
+	for b2 >= t.x[j+1] {
+		j++
+	}
+	s := b2 - t.x[j]
+	p := &t.c[j]
+	return p[0] + s*(p[1]+s*(p[2]+s*p[3])), p[1] + s*(2*p[2]+3*s*p[3])
+}
+
+// exactNu returns ν and dν/db2 from the interpolant itself (not the table),
+// for 0 <= b <= B_last.
+func (c *Curve) exactNu(b float64) (nu, g float64) {
+	d0, c3 := c.d[0], c.c3[0]
+	if b == 0 {
+		return 1 / d0, -c3 / (d0 * d0 * d0 * d0)
+	}
+	hv, _ := c.evalH(b)
+	if hv <= c.h[1] {
+		// First piece, closed form without cancellation.
+		q := c3 * hv * hv
+		e := d0 + q
+		return 1 / e, -c3 / ((d0 + 3*q) * e * e * e)
+	}
+	_, slope := c.evalB(hv)
+	if hv >= c.hl {
+		slope = Mu0
+	}
+	nu = hv / b
+	return nu, (1/slope - nu) / (2 * b * b)
+}
+
+// build tabulates ν(b2); it needs the knots and pieces.
+func (c *Curve) build() {
+	t := &c.nut
+	n := len(c.h)
+	t.xmax = c.bl * c.bl
+	t.nu0, t.g0 = c.exactNu(0)
+	t.tail = c.hl - c.bl/Mu0
+	t.x = t.x[:0]
+	t.c = t.c[:0]
+	maxW := t.xmax / nuMinCells
+	xa := 0.0
+	fa, ga := t.nu0, t.g0
+	for i := 1; i < n; i++ {
+		xb := c.b[i] * c.b[i]
+		if i == n-1 {
+			xb = t.xmax
+		}
+		fb, gb := c.exactNu(c.b[i])
+		// Split the knot interval into equal parts no wider than maxW,
+		// then refine each adaptively.
+		parts := int(math.Ceil((xb - xa) / maxW))
+		if parts < 1 {
+			parts = 1
+		}
+		pa, pfa, pga := xa, fa, ga
+		for k := 1; k <= parts; k++ {
+			pb, pfb, pgb := xb, fb, gb
+			if k < parts {
+				pb = xa + (xb-xa)*float64(k)/float64(parts)
+				pfb, pgb = c.exactNu(math.Sqrt(pb))
+			}
+			c.refine(pa, pfa, pga, pb, pfb, pgb, 0)
+			pa, pfa, pga = pb, pfb, pgb
+		}
+		xa, fa, ga = xb, fb, gb
+	}
+	t.x = append(t.x, t.xmax)
+	cells := len(t.c)
+	nb := 2 * cells
+	t.bscale = float64(nb) / t.xmax
+	t.bucket = make([]int32, nb+1)
+	j := 0
+	for k := range t.bucket {
+		xk := float64(k) / t.bscale
+		for j < cells-1 && t.x[j+1] <= xk {
+			j++
+		}
+		t.bucket[k] = int32(j)
+	}
+}
+
+// hermite returns the cubic coefficients on [xa, xb] in t = b2 - xa.
+func hermite(xa, fa, ga, xb, fb, gb float64) [4]float64 {
+	w := xb - xa
+	s := (fb - fa) / w
+	return [4]float64{fa, ga, (3*s - 2*ga - gb) / w, (ga + gb - 2*s) / (w * w)}
+}
+
+func evalCubic(p *[4]float64, s float64) (v, dv float64) {
+	return p[0] + s*(p[1]+s*(p[2]+s*p[3])), p[1] + s*(2*p[2]+3*s*p[3])
+}
+
+// refine appends the cells of [xa, xb], bisecting until the cubic matches
+// exactNu to nuTol at the quarter points.
+func (c *Curve) refine(xa, fa, ga, xb, fb, gb float64, depth int) {
+	t := &c.nut
+	p := hermite(xa, fa, ga, xb, fb, gb)
+	w := xb - xa
+	ok := depth >= nuMaxDepth
+	var fm, gm float64
+	if !ok {
+		ok = true
+		for q := 1; q <= 3; q++ {
+			x := xa + w*float64(q)/4
+			f, g := c.exactNu(math.Sqrt(x))
+			if q == 2 {
+				fm, gm = f, g
+			}
+			v, dv := evalCubic(&p, x-xa)
+			if math.Abs(v-f) > nuTol*f || math.Abs(dv-g) > 1e-6*(math.Abs(g)+f/xb) {
+				ok = false
+				if q < 2 {
+					fm, gm = c.exactNu(math.Sqrt(xa + w/2))
+				}
+				break
+			}
+		}
+	}
+	if ok {
+		t.x = append(t.x, xa)
+		t.c = append(t.c, p)
+		return
+	}
+	xm := xa + w/2
+	c.refine(xa, fa, ga, xm, fm, gm, depth+1)
+	c.refine(xm, fm, gm, xb, fb, gb, depth+1)
+}
