@@ -1,0 +1,165 @@
+package models
+
+import "math"
+
+// The c-core template: a planar C-shaped dipole yoke. y = 0 is the gap's
+// mid-plane and x = 0 the outer face of the back leg. Lengths in the
+// model's units:
+//
+//	         0    leg-width     window-width      pole-width
+//	         |<--------->|<----------------->|<------------->|
+//	    yt - +-------------------------------------------------+ -
+//	         |                 upper-arm                       | arm-thickness
+//	    yr - +-----------+-------------------+-----------------+ -
+//	         |           |                    \  upper-pole   /  pole-height
+//	         |           |                     |             |   (taper to
+//	         | back-leg  |      window         +-+  face   +-+    pole-face-width,
+//	   g/2 - |           |                        +-------+       chamfer at
+//	     0 - |           |                        :  gap  :  gap  the face corners)
+//	  -g/2 - |           |                        +-------+
+//	         |           |                     lower-pole (mirror)
+//	   -yr - +-----------+-------------------+-----------------+
+//	         |                 lower-arm                       |
+//	   -yt - +-------------------------------------------------+
+//
+// yr = gap/2 + pole-height, yt = yr + arm-thickness. The pole root spans the
+// full pole-width at the arm; the face is pole-face-width wide (default
+// pole-width; smaller gives a straight taper), centred on the root, with
+// 45°-style chamfers of length chamfer cut along the sides at its corners.
+//
+// coil: back-leg puts coil-left outside the back leg and coil-right in the
+// window, each coil-width by coil-height, centred on y = 0, clearance from
+// the iron. coil: poles puts four sides around the two poles (coil-upper-left,
+// coil-upper-right, coil-lower-left, coil-lower-right), hanging from the arms
+// with clearance. Senses are chosen so a positive current drives the gap
+// field along +y. Each side carries turns conductors; with coil: poles the
+// two pole coils are in series, giving 2·turns·current ampere-turns.
+var cCoreKeys = []string{"gap", "pole-width", "pole-height", "pole-face-width", "chamfer", "arm-thickness",
+	"leg-width", "window-width", "coil", "coil-width", "coil-height", "clearance", "turns", "current", "field", "steel"}
+
+var cCoreCoils = []string{"back-leg", "poles"}
+
+func expandCCore(m *Model, t *dims, x *expansion) {
+	d := t.d
+	g := t.length("gap", 0, false, true)
+	if v := t.f.get("gap"); v == nil {
+		t.misfit("gap", "template c-core needs dimension \"gap\": the distance between the pole faces")
+	} else if g == 0 && t.ok {
+		t.misfit("gap", "a zero gap leaves no room for a field: gap must be greater than zero")
+	}
+	wp := t.length("pole-width", 0, true, false)
+	hp := t.length("pole-height", 0, true, false)
+	ta := t.length("arm-thickness", 0, true, false)
+	wl := t.length("leg-width", 0, true, false)
+	ww := t.length("window-width", 0, true, false)
+	wf := t.length("pole-face-width", wp, false, false)
+	c := t.length("chamfer", 0, false, true)
+	cw := t.length("coil-width", 0, true, false)
+	ch := t.length("coil-height", 0, true, false)
+	clr := t.length("clearance", cw/10, false, true)
+	turns := t.number("turns", true, true, "<conductors in each coil side>")
+	current := t.number("current", true, false, "<ampere per conductor>")
+	place := "back-leg"
+	if v := t.f.get("coil"); v != nil {
+		var ok bool
+		if place, ok = d.enum(v, t.f.sub("coil"), "coil placement", cCoreCoils); !ok {
+			t.ok = false
+		}
+	}
+	steel := t.steel(m, x)
+	if !t.ok {
+		return
+	}
+
+	// Fit checks, with the relative tolerance used elsewhere.
+	tol := relTol * (wl + ww + wp + g + hp + ta)
+	if wf > wp+tol {
+		t.misfit("pole-face-width", "pole-face-width (%s) must not exceed pole-width (%s)", d.fmtLen(wf), d.fmtLen(wp))
+	}
+	g2, yr := g/2, g/2+hp
+	x0, x1 := wl+ww, wl+ww+wp
+	xc := (x0 + x1) / 2
+	xl, xr := xc-wf/2, xc+wf/2
+	side := math.Hypot((wp-wf)/2, hp) // length of a pole side
+	if 2*c >= wf-tol {
+		t.misfit("chamfer", "two chamfers (2 × %s) must be narrower than the pole face (%s)", d.fmtLen(c), d.fmtLen(wf))
+	} else if c >= side-tol {
+		t.misfit("chamfer", "chamfer (%s) must be shorter than the pole side (%s)", d.fmtLen(c), d.fmtLen(side))
+	}
+	switch place {
+	case "back-leg":
+		if cw+2*clr > ww+tol {
+			t.misfit("coil-width", "the coil side in the window needs coil-width + 2·clearance = %s, but window-width is %s", d.fmtLen(cw+2*clr), d.fmtLen(ww))
+		}
+		if ch+2*clr > 2*yr+tol {
+			t.misfit("coil-height", "coil-height + 2·clearance = %s exceeds the back leg between the arms (gap + 2·pole-height = %s)", d.fmtLen(ch+2*clr), d.fmtLen(2*yr))
+		}
+	case "poles":
+		if cw+2*clr > ww+tol {
+			t.misfit("coil-width", "the pole coil side in the window needs coil-width + 2·clearance = %s, but window-width is %s", d.fmtLen(cw+2*clr), d.fmtLen(ww))
+		}
+		if ch+clr > hp+tol {
+			t.misfit("coil-height", "coil-height + clearance = %s exceeds pole-height (%s)", d.fmtLen(ch+clr), d.fmtLen(hp))
+		}
+	}
+	if !t.ok {
+		return
+	}
+
+	yt := yr + ta
+	x.regions = append(x.regions,
+		t.rect("back-leg", steel, 0, -yr, wl, yr))
+	upperArm := t.poly("upper-arm", steel, []float64{0, wl, x0, x1, x1, 0}, []float64{yr, yr, yr, yr, yt, yt})
+	x.regions = append(x.regions, upperArm, mirrorY(upperArm, "lower-arm"))
+
+	// Upper pole, counter-clockwise from the face's left end.
+	ux, uy := sideStep(xr, g2, x1, yr, c)
+	vx, vy := sideStep(xl, g2, x0, yr, c)
+	px, py := dropDuplicates(
+		[]float64{xl + c, xr - c, ux, x1, x0, vx},
+		[]float64{g2, g2, uy, yr, yr, vy})
+	upperPole := t.poly("upper-pole", steel, px, py)
+	x.regions = append(x.regions, upperPole, mirrorY(upperPole, "lower-pole"))
+	x.regions = append(x.regions, t.rect("gap", "air", xl+c, -g2, xr-c, g2))
+
+	coil := Coil{Name: "main", Turns: turns, Current: current, Pos: t.at}
+	addSide := func(name string, sense, ax0, ay0, ax1, ay1 float64) {
+		x.regions = append(x.regions, t.rect(name, "copper", ax0, ay0, ax1, ay1))
+		coil.Sides = append(coil.Sides, CoilSide{Region: name, Sense: sense, Pos: t.at})
+	}
+	switch place {
+	case "back-leg":
+		addSide("coil-left", -1, -clr-cw, -ch/2, -clr, ch/2)
+		addSide("coil-right", +1, wl+clr, -ch/2, wl+clr+cw, ch/2)
+	case "poles":
+		addSide("coil-upper-left", +1, x0-clr-cw, yr-clr-ch, x0-clr, yr-clr)
+		addSide("coil-upper-right", -1, x1+clr, yr-clr-ch, x1+clr+cw, yr-clr)
+		addSide("coil-lower-left", +1, x0-clr-cw, -yr+clr, x0-clr, -yr+clr+ch)
+		addSide("coil-lower-right", -1, x1+clr, -yr+clr, x1+clr+cw, -yr+clr+ch)
+	}
+	x.coils = append(x.coils, coil)
+
+	// Probes. The good-field box reaches to one gap from the face edges
+	// (common practice for a flat pole), but at least half the face width.
+	hw := wf/2 - g
+	if hw < wf/4 {
+		hw = wf / 4
+	}
+	x.probes = append(x.probes,
+		t.point("gap-centre", xc, 0),
+		t.line("midplane", xc-wp, 0, xc+wp, 0),
+		t.box("good-field", xc-hw, -g/4, xc+hw, g/4))
+	x.refine = append(x.refine, Refine{Near: "gap", Size: g / 10, Pos: t.at})
+	for _, s := range []float64{1, -1} {
+		x.refine = append(x.refine,
+			t.refinePoint(xl+c, s*g2, g/20),
+			t.refinePoint(xr-c, s*g2, g/20))
+	}
+	t.target(x, "gap-centre")
+}
+
+// sideStep returns the point at distance c from (ax, ay) towards (bx, by).
+func sideStep(ax, ay, bx, by, c float64) (x, y float64) {
+	l := math.Hypot(bx-ax, by-ay)
+	return ax + c*(bx-ax)/l, ay + c*(by-ay)/l
+}
