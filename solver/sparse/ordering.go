@@ -219,7 +219,7 @@ func (nd *ndState) pseudoPeripheral(start, id int32, ws *ndWork) int32 {
 	g := nd.g
 	root := start
 	_, depth := nd.bfs(root, id, ws)
-	for it := 0; it < 4; it++ {
+	for it := 0; it < 2; it++ {
 		q := ws.queue
 		// Pick the minimum-degree vertex of the deepest level.
 		best, bestDeg := int32(-1), 1<<30
@@ -231,8 +231,7 @@ func (nd *ndState) pseudoPeripheral(start, id int32, ws *ndWork) int32 {
 		}
 		_, d2 := nd.bfs(best, id, ws)
 		if d2 <= depth {
-			nd.bfs(root, id, ws) // leave ws holding root's level structure
-			return root
+			return best // as eccentric as root; ws holds its levels
 		}
 		root, depth = best, d2
 	}

@@ -26,3 +26,21 @@ func TestQuickGrid(t *testing.T) {
 		t.Log(o, a.N, ch.NNZL(), ch.Flops(), res.Residual, err)
 	}
 }
+
+func TestQuickPCG(t *testing.T) {
+	for _, pc := range []sparse.Preconditioner{sparse.Jacobi, sparse.IC0} {
+		a := gridSystem(100, 0.3)
+		s := &sparse.PCG{Options: sparse.PCGOptions{Preconditioner: pc}}
+		s.Analyze(a)
+		if err := s.Factor(a); err != nil {
+			t.Fatal(err)
+		}
+		b := make([]float64, a.N)
+		for i := range b {
+			b[i] = math.Sin(float64(i))
+		}
+		x := make([]float64, a.N)
+		res, err := s.SolveTo(x, b)
+		t.Log(pc, a.N, res.Iterations, res.Residual, res.Status, err)
+	}
+}
