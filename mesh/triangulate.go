@@ -1,0 +1,390 @@
+package mesh
+
+import (
+	"math"
+	"slices"
+)
+
+// Triangulate meshes the planar straight-line graph in: a constrained
+// Delaunay triangulation of its vertices and segments, with region tags from
+// the seeds, the exterior and holes removed, refined (Ruppert 1995, Shewchuk
+// 2002) until every triangle meets opt.MinAngle and opt.Size.
+//
+// Triangulate panics on malformed input slices (odd Segments length, Markers
+// length mismatch, vertex index out of range, marker < 1). It returns an
+// *InputError for non-finite coordinates or a graph with no area, a
+// *SegmentsCrossError when two segments cross away from a vertex, and a
+// *TooManyTrianglesError when refinement would pass opt.MaxTriangles.
+//
+// Mesh vertices are the input vertices that some triangle uses, in input
+// order (exact duplicates merged into the first), followed by the vertices
+// refinement created.
+func Triangulate(in *Input, opt Options) (*Mesh, error) {
+	if in == nil {
+		panic(errNilInput)
+	}
+	if len(in.X) != len(in.Y) {
+		panic(errCoordsLength)
+	}
+	if len(in.Segments)%2 != 0 {
+		panic(errSegmentsOdd)
+	}
+	if len(in.Markers) != len(in.Segments)/2 {
+		panic(errMarkersLength)
+	}
+	n := len(in.X)
+	for _, s := range in.Segments {
+		if s < 0 || int(s) >= n {
+			panic(errSegmentIndex)
+		}
+	}
+	for _, m := range in.Markers {
+		if m < 1 {
+			panic(errMarkerNotPosit)
+		}
+	}
+	if opt.Order < 0 || opt.Order > 2 {
+		panic(errBadOrder)
+	}
+	for i := range in.X {
+		if math.IsNaN(in.X[i]) || math.IsInf(in.X[i], 0) || math.IsNaN(in.Y[i]) || math.IsInf(in.Y[i], 0) {
+			return nil, &InputError{Reason: "coordinate is not finite", Vertex: i}
+		}
+		if math.Abs(in.X[i]) > 1e150 || math.Abs(in.Y[i]) > 1e150 {
+			return nil, &InputError{Reason: "coordinate magnitude above 1e150 (predicates would overflow)", Vertex: i}
+		}
+	}
+	if n < 3 {
+		return nil, &InputError{Reason: "fewer than three vertices", Vertex: -1}
+	}
+	maxTri := opt.MaxTriangles
+	if maxTri <= 0 {
+		maxTri = DefaultMaxTriangles
+	}
+
+	d, vmap, err := buildCDT(in)
+	if err != nil {
+		return nil, err
+	}
+	d.classify(in, vmap)
+	if d.numTri() == 0 {
+		return nil, &InputError{Reason: "no triangle inside the boundary (collinear or empty graph)", Vertex: -1}
+	}
+	r := newRefiner(d, in, vmap, &opt, maxTri)
+	if err := r.run(); err != nil {
+		return nil, err
+	}
+	m := d.export()
+	// TODO(order 2): call Elevate(m) from quadratic.go once it exists; until
+	// then Order 2 yields a first-order mesh.
+	return m, nil
+}
+
+// buildCDT inserts the input vertices into a triangulation of an enclosing
+// box, then recovers the segments. vmap maps input vertices to triangulation
+// vertices (duplicates share one).
+func buildCDT(in *Input) (*cdt, []int32, error) {
+	n := len(in.X)
+	minX, maxX := slices.Min(in.X), slices.Max(in.X)
+	minY, maxY := slices.Min(in.Y), slices.Max(in.Y)
+	span := math.Max(maxX-minX, maxY-minY)
+	if span == 0 {
+		return nil, nil, &InputError{Reason: "all vertices coincide", Vertex: -1}
+	}
+	d := &cdt{seed: 2463534242}
+	d.x = make([]float64, 0, n+4)
+	d.y = make([]float64, 0, n+4)
+	for i := range in.X {
+		d.addVertex(in.X[i], in.Y[i])
+	}
+	// Box corners, one span away: any enclosing box works because the
+	// predicates are exact, and the box triangles are removed later.
+	b0 := d.addVertex(minX-span, minY-span)
+	b1 := d.addVertex(maxX+span, minY-span)
+	b2 := d.addVertex(maxX+span, maxY+span)
+	b3 := d.addVertex(minX-span, maxY+span)
+	t0 := d.newTri(b0, b1, b2)
+	t1 := d.newTri(b0, b2, b3)
+	d.nbr[3*t0+1] = t1 // edge (b2, b0)
+	d.nbr[3*t1+2] = t0 // edge (b0, b2)
+
+	vmap := make([]int32, n)
+	t := t0
+	for _, i := range hilbertOrder(in.X, in.Y, minX, minY, span) {
+		x, y := in.X[i], in.Y[i]
+		tt, k, loc := d.locate(t, x, y)
+		if loc == locVertex {
+			vmap[i] = d.tri[3*tt+int32(k)]
+			t = tt
+			continue
+		}
+		vmap[i] = i
+		d.insertVertex(i, tt, k, loc)
+		t = d.created[0]
+	}
+
+	if len(in.Segments) == 0 {
+		hull := d.hull(vmap)
+		for i := range hull {
+			a, b := hull[i], hull[(i+1)%len(hull)]
+			if err := d.insertSegment(a, b, 1, -1); err != nil {
+				return nil, nil, err
+			}
+		}
+	}
+	for s := 0; s < len(in.Segments)/2; s++ {
+		a, b := vmap[in.Segments[2*s]], vmap[in.Segments[2*s+1]]
+		if err := d.insertSegment(a, b, in.Markers[s], s); err != nil {
+			return nil, nil, err
+		}
+	}
+	return d, vmap, nil
+}
+
+// hull returns the convex hull of the distinct input vertices in
+// counter-clockwise order, without collinear points (A. M. Andrew, "Another
+// efficient algorithm for convex hulls in two dimensions", IPL 9, 1979).
+func (d *cdt) hull(vmap []int32) []int32 {
+	var pts []int32
+	for i, v := range vmap {
+		if int(v) == i {
+			pts = append(pts, v)
+		}
+	}
+	slices.SortFunc(pts, func(a, b int32) int {
+		if c := cmpF(d.x[a], d.x[b]); c != 0 {
+			return c
+		}
+		return cmpF(d.y[a], d.y[b])
+	})
+	h := make([]int32, 0, 2*len(pts))
+	for _, p := range pts {
+		for len(h) >= 2 && d.orient(h[len(h)-2], h[len(h)-1], p) != CCW {
+			h = h[:len(h)-1]
+		}
+		h = append(h, p)
+	}
+	lo := len(h) + 1
+	for i := len(pts) - 2; i >= 0; i-- {
+		p := pts[i]
+		for len(h) >= lo && d.orient(h[len(h)-2], h[len(h)-1], p) != CCW {
+			h = h[:len(h)-1]
+		}
+		h = append(h, p)
+	}
+	return h[:len(h)-1]
+}
+
+func cmpF(a, b float64) int {
+	switch {
+	case a < b:
+		return -1
+	case a > b:
+		return 1
+	}
+	return 0
+}
+
+// hilbertOrder returns the vertex indices sorted along a Hilbert curve over
+// the bounding square, so that consecutive insertions are close and the
+// location walk is short.
+func hilbertOrder(xs, ys []float64, minX, minY, span float64) []int32 {
+	const bits = 16
+	const side = 1 << bits
+	keys := make([]uint64, len(xs))
+	idx := make([]int32, len(xs))
+	scale := float64(side-1) / span
+	for i := range xs {
+		hx := uint32((xs[i] - minX) * scale)
+		hy := uint32((ys[i] - minY) * scale)
+		keys[i] = hilbertKey(hx, hy, side)<<24 | uint64(i&(1<<24-1))
+		idx[i] = int32(i)
+	}
+	slices.SortFunc(idx, func(a, b int32) int {
+		ka, kb := keys[a], keys[b]
+		switch {
+		case ka < kb:
+			return -1
+		case ka > kb:
+			return 1
+		}
+		return int(a - b)
+	})
+	return idx
+}
+
+// hilbertKey maps (x, y) in [0, n)^2 to its index along the Hilbert curve of
+// side n (a power of two).
+func hilbertKey(x, y, n uint32) uint64 {
+	var key uint64
+	for s := n / 2; s > 0; s /= 2 {
+		var rx, ry uint32
+		if x&s != 0 {
+			rx = 1
+		}
+		if y&s != 0 {
+			ry = 1
+		}
+		key += uint64(s) * uint64(s) * uint64((3*rx)^ry)
+		if ry == 0 {
+			if rx == 1 {
+				x = n - 1 - x
+				y = n - 1 - y
+			}
+			x, y = y, x
+		}
+	}
+	return key
+}
+
+const unassigned = math.MinInt32
+
+// classify removes the triangles outside the outer segments and inside hole
+// seeds, and tags the rest with regions by flood fill from the seeds across
+// unmarked edges.
+func (d *cdt) classify(in *Input, vmap []int32) {
+	nt := len(d.tri) / 3
+	for t := 0; t < nt; t++ {
+		d.reg[t] = unassigned
+	}
+	const exterior = math.MinInt32 + 1
+	nIn := int32(len(in.X))
+	var stack []int32
+	fill := func(t0 int32, tag int32) {
+		stack = append(stack[:0], t0)
+		d.reg[t0] = tag
+		for len(stack) > 0 {
+			t := stack[len(stack)-1]
+			stack = stack[:len(stack)-1]
+			for k := int32(0); k < 3; k++ {
+				n := d.nbr[3*t+k]
+				if n >= 0 && d.mark[3*t+k] == 0 && d.reg[n] == unassigned {
+					d.reg[n] = tag
+					stack = append(stack, n)
+				}
+			}
+		}
+	}
+	for t := int32(0); t < int32(nt); t++ {
+		if !d.alive(t) || d.reg[t] != unassigned {
+			continue
+		}
+		for k := int32(0); k < 3; k++ {
+			if d.tri[3*t+k] >= nIn {
+				fill(t, exterior)
+				break
+			}
+		}
+	}
+	start := int32(-1)
+	for t := int32(0); t < int32(nt); t++ {
+		if d.alive(t) {
+			start = t
+			break
+		}
+	}
+	for _, s := range in.Seeds {
+		if math.IsNaN(s.X) || math.IsNaN(s.Y) || math.IsInf(s.X, 0) || math.IsInf(s.Y, 0) {
+			continue
+		}
+		t, _, loc := d.locate(start, s.X, s.Y)
+		if loc == locOutside || d.reg[t] != unassigned {
+			continue
+		}
+		tag := s.Region
+		if tag < 0 {
+			tag = exterior
+		}
+		fill(t, tag)
+	}
+	for t := int32(0); t < int32(nt); t++ {
+		if !d.alive(t) {
+			continue
+		}
+		if d.reg[t] == unassigned {
+			d.reg[t] = in.DefaultRegion
+		}
+	}
+	for t := int32(0); t < int32(nt); t++ {
+		if !d.alive(t) || d.reg[t] != exterior {
+			continue
+		}
+		for k := int32(0); k < 3; k++ {
+			if n := d.nbr[3*t+k]; n >= 0 && d.reg[n] != exterior {
+				d.nbr[3*n+int32(d.edgeIndex(n, t))] = -1
+			}
+		}
+	}
+	for t := int32(0); t < int32(nt); t++ {
+		if d.alive(t) && d.reg[t] == exterior {
+			d.killTri(t)
+		}
+	}
+	for t := int32(0); t < int32(nt); t++ {
+		if d.alive(t) {
+			for k := int32(0); k < 3; k++ {
+				d.vtri[d.tri[3*t+k]] = t
+			}
+		}
+	}
+}
+
+// export compacts the live triangles and used vertices into a Mesh.
+func (d *cdt) export() *Mesh {
+	nv := len(d.x)
+	vnew := make([]int32, nv)
+	for i := range vnew {
+		vnew[i] = -1
+	}
+	ntAll := len(d.tri) / 3
+	tnew := make([]int32, ntAll)
+	nt := int32(0)
+	for t := 0; t < ntAll; t++ {
+		tnew[t] = -1
+		if d.tri[3*t] >= 0 {
+			tnew[t] = nt
+			nt++
+			for k := 0; k < 3; k++ {
+				vnew[d.tri[3*t+k]] = 0
+			}
+		}
+	}
+	nUsed := int32(0)
+	for v := range vnew {
+		if vnew[v] == 0 {
+			vnew[v] = nUsed
+			nUsed++
+		}
+	}
+	m := &Mesh{
+		X:          make([]float64, nUsed),
+		Y:          make([]float64, nUsed),
+		Tri:        make([]int32, 3*nt),
+		Nbr:        make([]int32, 3*nt),
+		Region:     make([]int32, nt),
+		EdgeMarker: make([]int32, 3*nt),
+	}
+	m.NumVertices = int(nUsed)
+	for v, nv := range vnew {
+		if nv >= 0 {
+			m.X[nv], m.Y[nv] = d.x[v], d.y[v]
+		}
+	}
+	for t := 0; t < ntAll; t++ {
+		j := tnew[t]
+		if j < 0 {
+			continue
+		}
+		m.Region[j] = d.reg[t]
+		for k := 0; k < 3; k++ {
+			m.Tri[3*j+int32(k)] = vnew[d.tri[3*t+k]]
+			if n := d.nbr[3*t+k]; n >= 0 {
+				m.Nbr[3*j+int32(k)] = tnew[n]
+			} else {
+				m.Nbr[3*j+int32(k)] = -1
+			}
+			m.EdgeMarker[3*j+int32(k)] = d.mark[3*t+k]
+		}
+	}
+	return m
+}

@@ -1,0 +1,120 @@
+package mesh
+
+import (
+	"errors"
+	"math"
+	"math/rand/v2"
+	"testing"
+)
+
+// polyInput builds an Input from closed polygons (each a flat x,y list),
+// marker i+1 for polygon i.
+func polyInput(polys ...[]float64) *Input {
+	in := &Input{}
+	for pi, p := range polys {
+		base := int32(len(in.X))
+		n := int32(len(p) / 2)
+		for i := int32(0); i < n; i++ {
+			in.X = append(in.X, p[2*i])
+			in.Y = append(in.Y, p[2*i+1])
+			in.Segments = append(in.Segments, base+i, base+(i+1)%n)
+			in.Markers = append(in.Markers, int32(pi+1))
+		}
+	}
+	return in
+}
+
+// mustMesh triangulates and runs Check with the given options.
+func mustMesh(t *testing.T, name string, in *Input, opt Options, chk CheckOptions) *Mesh {
+	t.Helper()
+	m, err := Triangulate(in, opt)
+	if err != nil {
+		t.Fatalf("%s: Triangulate: %v", name, err)
+	}
+	if chk.Input == nil {
+		chk.Input = in
+	}
+	if err := m.Check(chk); err != nil {
+		t.Fatalf("%s: %v", name, err)
+	}
+	return m
+}
+
+// segmentsCovered checks that every input segment is a union of mesh edges
+// carrying its marker: the marked mesh edges lying on the segment must sum
+// to its length (to 1e-12 relative).
+func segmentsCovered(t *testing.T, name string, in *Input, m *Mesh) {
+	t.Helper()
+	for s := 0; s < len(in.Segments)/2; s++ {
+		a, b := in.Segments[2*s], in.Segments[2*s+1]
+		ax, ay, bx, by := in.X[a], in.Y[a], in.X[b], in.Y[b]
+		l := math.Hypot(bx-ax, by-ay)
+		if l == 0 {
+			continue
+		}
+		sum := 0.0
+		for i, mk := range m.EdgeMarker {
+			if mk == 0 {
+				continue
+			}
+			tt, k := i/3, i%3
+			u, v := m.Tri[3*tt+(k+1)%3], m.Tri[3*tt+(k+2)%3]
+			if m.Nbr[i] >= 0 && u > v {
+				continue // count interior edges once
+			}
+			if distToSegment(m.X[u], m.Y[u], ax, ay, bx, by) <= 1e-12*l &&
+				distToSegment(m.X[v], m.Y[v], ax, ay, bx, by) <= 1e-12*l {
+				sum += math.Hypot(m.X[v]-m.X[u], m.Y[v]-m.Y[u])
+			}
+		}
+		if math.Abs(sum-l) > 1e-12*l*10 {
+			t.Errorf("%s: segment %d: marked mesh edges cover %.17g of length %.17g", name, s, sum, l)
+		}
+	}
+}
+
+func TestTriangulateSquareCDT(t *testing.T) {
+	in := polyInput([]float64{0, 0, 1, 0, 1, 1, 0, 1})
+	m := mustMesh(t, "square", in, Options{MinAngle: -1}, CheckOptions{RegionAreas: map[int32]float64{0: 1}})
+	if m.NumTriangles() != 2 || m.NumVertices != 4 {
+		t.Errorf("square: %d triangles %d vertices, want 2 and 4", m.NumTriangles(), m.NumVertices)
+	}
+}
+
+func TestTriangulateRandomPoints(t *testing.T) {
+	rng := rand.New(rand.NewPCG(1, 1))
+	for _, n := range []int{3, 10, 100, 2000} {
+		in := &Input{}
+		for i := 0; i < n; i++ {
+			in.X = append(in.X, rng.Float64())
+			in.Y = append(in.Y, rng.Float64())
+		}
+		m := mustMesh(t, "random", in, Options{MinAngle: -1}, CheckOptions{})
+		// Euler: a triangulation of n points with h on the hull has 2n-2-h triangles.
+		h := 0
+		for i := range m.Nbr {
+			if m.Nbr[i] < 0 {
+				h++
+			}
+		}
+		if got, want := m.NumTriangles(), 2*n-2-h; got != want {
+			t.Errorf("random %d: %d triangles, want 2n-2-h = %d", n, got, want)
+		}
+	}
+}
+
+func TestTriangulateQualitySquare(t *testing.T) {
+	in := polyInput([]float64{0, 0, 1, 0, 1, 1, 0, 1})
+	m := mustMesh(t, "square", in, Options{Size: SizeField{Global: 0.05}}, CheckOptions{MinAngle: 28, RegionAreas: map[int32]float64{0: 1}})
+	segmentsCovered(t, "square", in, m)
+	t.Logf("square h=0.05: %d triangles", m.NumTriangles())
+}
+
+func TestTriangulateCrossing(t *testing.T) {
+	in := &Input{X: []float64{0, 1, 0, 1}, Y: []float64{0, 1, 1, 0}, Segments: []int32{0, 1, 2, 3}, Markers: []int32{1, 2}}
+	_, err := Triangulate(in, Options{})
+	var ce *SegmentsCrossError
+	if !errors.As(err, &ce) {
+		t.Fatalf("crossing segments: got %v, want *SegmentsCrossError", err)
+	}
+}
