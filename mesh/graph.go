@@ -1,0 +1,802 @@
+package mesh
+
+import (
+	"fmt"
+	"math"
+	"sort"
+)
+
+// The planar straight-line graph of a model.
+//
+// BuildInput turns region polygons (with arcs) and a boundary polygon into an
+// Input for Triangulate:
+//
+//  1. arcs become chords (DiscretizePolygon), each polygon is checked for
+//     fewer than 3 distinct vertices, zero area and self-intersection;
+//  2. all edges go into one list, boundary first, then the regions in order;
+//  3. vertices closer than MergeTol merge (grid hashing);
+//  4. edges are split where they cross (decided by the exact Orient2D, then
+//     the crossing point computed) and where a vertex lies on them
+//     (T-junctions, overlapping collinear edges), until nothing changes;
+//  5. duplicate edges collapse to the first one, so a shared edge appears
+//     once with the marker of the first polygon, boundary markers first;
+//  6. the faces of the graph are traced (half-edges sorted by angle around
+//     each vertex) and every bounded face gets a seed point strictly inside
+//     it: from the middle of its longest edge a ray goes into the face, and
+//     the seed sits half way to the first edge the ray meets. The face takes
+//     the Region of the polygon that contains its seed, the boundary's
+//     Region (Input.DefaultRegion) when none does.
+//
+// Seeding faces rather than polygons keeps the tagging right when edges of
+// other polygons cut a polygon into pieces or when polygons nest.
+
+// Polygon is a closed outline: a region of the model, or the boundary.
+type Polygon struct {
+	// X, Y are the vertices in order (either orientation), metres, with
+	// the first vertex not repeated at the end.
+	X, Y []float64
+	// Sweep optionally makes edges circular arcs: Sweep[i] is the signed
+	// angle in radians that the arc from vertex i to vertex i+1 (mod n)
+	// turns through about its centre; positive when it runs
+	// counter-clockwise about the centre, which on a counter-clockwise
+	// polygon bulges outwards. 0 is a straight edge; |Sweep[i]| < 2π.
+	Sweep []float64
+	// Region is the region tag of the interior (for the boundary, of the
+	// area no region polygon covers). A negative tag makes a hole.
+	Region int32
+	// Marker (>= 1) is given to every edge unless EdgeMarkers is set;
+	// 0 means 1.
+	Marker int32
+	// EdgeMarkers optionally gives each edge i (vertex i to i+1) its own
+	// marker (>= 1, 0 means Marker).
+	EdgeMarkers []int32
+}
+
+// Overlap says what BuildInput does where region polygons overlap.
+type Overlap int
+
+const (
+	// OverlapError makes overlapping region polygons an error (the
+	// default: a model's regions are meant to be disjoint).
+	OverlapError Overlap = iota
+	// OverlapLaterWins gives overlapping area to the polygon that comes
+	// later in the list, so a small region can be drawn over a larger one.
+	OverlapLaterWins
+)
+
+// GraphOptions control BuildInput and DiscretizePolygon. The zero value
+// uses the defaults; see WithDefaults.
+type GraphOptions struct {
+	// ChordTol is the largest sagitta (distance between an arc and its
+	// chord), metres; 0 means 1e-3 of the model extent.
+	ChordTol float64
+	// MaxArcAngle is the largest angle one chord may span, radians;
+	// 0 means 10 degrees.
+	MaxArcAngle float64
+	// MergeTol is the distance below which vertices merge, metres;
+	// 0 means 1e-9 of the model extent.
+	MergeTol float64
+	// Overlap selects the rule for overlapping region polygons.
+	Overlap Overlap
+}
+
+// GraphError reports a polygon that cannot be meshed.
+type GraphError struct {
+	Polygon int    // index in the regions slice, or -1 for the boundary
+	Other   int    // second polygon involved (overlaps), or -2 when none
+	Reason  string // what is wrong
+	X, Y    float64
+	HasAt   bool // X, Y locate the problem
+}
+
+func (e *GraphError) Error() string {
+	s := "mesh: " + polyName(e.Polygon) + ": " + e.Reason
+	if e.Other != -2 {
+		s = "mesh: " + polyName(e.Polygon) + " and " + polyName(e.Other) + ": " + e.Reason
+	}
+	if e.HasAt {
+		s += fmt.Sprintf(" near (%g, %g)", e.X, e.Y)
+	}
+	return s
+}
+
+func polyName(i int) string {
+	if i < 0 {
+		return "boundary polygon"
+	}
+	return fmt.Sprintf("region polygon %d", i)
+}
+
+func graphErr(p int, reason string) *GraphError {
+	return &GraphError{Polygon: p, Other: -2, Reason: reason}
+}
+
+func graphErrAt(p int, reason string, x, y float64) *GraphError {
+	return &GraphError{Polygon: p, Other: -2, Reason: reason, X: x, Y: y, HasAt: true}
+}
+
+// WithDefaults returns o with every zero field replaced by its default for
+// the model made of regions and boundary (the extent is the larger side of
+// the bounding box of all their vertices). DiscretizePolygon with these
+// options gives exactly the outline that BuildInput meshes.
+func (o GraphOptions) WithDefaults(regions []Polygon, boundary Polygon) GraphOptions {
+	checkPolygonShape(boundary)
+	for i := range regions {
+		checkPolygonShape(regions[i])
+	}
+	x0, y0 := math.Inf(1), math.Inf(1)
+	x1, y1 := math.Inf(-1), math.Inf(-1)
+	for i := -1; i < len(regions); i++ {
+		p := &boundary
+		if i >= 0 {
+			p = &regions[i]
+		}
+		for j := range p.X {
+			if isFinite(p.X[j]) && isFinite(p.Y[j]) {
+				x0, x1 = math.Min(x0, p.X[j]), math.Max(x1, p.X[j])
+				y0, y1 = math.Min(y0, p.Y[j]), math.Max(y1, p.Y[j])
+			}
+		}
+	}
+	ext := math.Max(x1-x0, y1-y0)
+	if !(ext > 0) || math.IsInf(ext, 0) {
+		ext = 1
+	}
+	if o.ChordTol <= 0 {
+		o.ChordTol = 1e-3 * ext
+	}
+	if o.MaxArcAngle <= 0 {
+		o.MaxArcAngle = 10 * math.Pi / 180
+	}
+	if o.MergeTol <= 0 {
+		o.MergeTol = 1e-9 * ext
+	}
+	return o
+}
+
+// PolygonArea returns the signed area of the polygon (x, y), positive when
+// counter-clockwise, by the shoelace formula taken relative to the first
+// vertex and summed with compensation.
+func PolygonArea(x, y []float64) float64 {
+	if len(x) != len(y) {
+		panic("mesh: PolygonArea: len(x) != len(y)")
+	}
+	var s sum2
+	for i := 1; i+1 < len(x); i++ {
+		s.add(triArea(x[0], y[0], x[i], y[i], x[i+1], y[i+1]))
+	}
+	return s.value()
+}
+
+// DiscretizePolygon returns the vertices of p with every arc replaced by
+// chords: an arc of radius R and sweep θ gets n = ceil(|θ| / φ) equal chords
+// with φ = min(MaxArcAngle, 2 acos(1 - ChordTol/R)), so the sagitta
+// R (1 - cos(θ/2n)) stays within ChordTol. The original vertices are kept, in
+// the original order, with the new ones between them. Zero options are
+// resolved from p alone; pass opt.WithDefaults(...) to match BuildInput.
+func DiscretizePolygon(p Polygon, opt GraphOptions) (x, y []float64) {
+	checkPolygonShape(p)
+	opt = opt.WithDefaults(nil, p)
+	x, y, _ = discretize(p, opt)
+	return x, y
+}
+
+// checkPolygonShape panics on length mismatches (programming errors).
+func checkPolygonShape(p Polygon) {
+	n := len(p.X)
+	if len(p.Y) != n || (p.Sweep != nil && len(p.Sweep) != n) || (p.EdgeMarkers != nil && len(p.EdgeMarkers) != n) {
+		panic("mesh: Polygon: X, Y, Sweep and EdgeMarkers must have equal lengths (Sweep, EdgeMarkers may be nil)")
+	}
+	if p.Marker < 0 {
+		panic("mesh: Polygon: negative Marker")
+	}
+	for _, m := range p.EdgeMarkers {
+		if m < 0 {
+			panic("mesh: Polygon: negative edge marker")
+		}
+	}
+}
+
+// discretize returns the chorded outline of p and the marker of each of its
+// edges (edge i runs from vertex i to i+1 mod n).
+func discretize(p Polygon, opt GraphOptions) (x, y []float64, mk []int32) {
+	n := len(p.X)
+	for i := 0; i < n; i++ {
+		marker := p.Marker
+		if p.EdgeMarkers != nil && p.EdgeMarkers[i] != 0 {
+			marker = p.EdgeMarkers[i]
+		}
+		if marker == 0 {
+			marker = 1
+		}
+		x = append(x, p.X[i])
+		y = append(y, p.Y[i])
+		mk = append(mk, marker)
+		if p.Sweep == nil || p.Sweep[i] == 0 {
+			continue
+		}
+		j := (i + 1) % n
+		x0, y0, x1, y1, th := p.X[i], p.Y[i], p.X[j], p.Y[j], p.Sweep[i]
+		c := math.Hypot(x1-x0, y1-y0)
+		if c == 0 || !(math.Abs(th) < 2*math.Pi) {
+			continue // reported by validate
+		}
+		r := c / (2 * math.Abs(math.Sin(th/2)))
+		// The centre lies on the chord's perpendicular bisector, at
+		// signed distance (c/2)/tan(θ/2) to the left of the chord.
+		h := (c / 2) / math.Tan(th/2)
+		cx := (x0+x1)/2 - (y1-y0)/c*h
+		cy := (y0+y1)/2 + (x1-x0)/c*h
+		phi := opt.MaxArcAngle
+		if q := 1 - opt.ChordTol/r; q > -1 {
+			phi = math.Min(phi, 2*math.Acos(q))
+		}
+		k := int(math.Ceil(math.Abs(th)/phi - 1e-12))
+		a0 := math.Atan2(y0-cy, x0-cx)
+		for s := 1; s < k; s++ {
+			a := a0 + th*float64(s)/float64(k)
+			x = append(x, cx+r*math.Cos(a))
+			y = append(y, cy+r*math.Sin(a))
+			mk = append(mk, marker)
+		}
+	}
+	return x, y, mk
+}
+
+// outline is one discretised polygon, counter-clockwise.
+type outline struct {
+	x, y []float64
+	mk   []int32
+	ccw  bool // the input order was counter-clockwise
+	area float64
+}
+
+// validate discretises p, drops repeated consecutive vertices and checks it.
+func validate(idx int, p Polygon, opt GraphOptions) (outline, error) {
+	checkPolygonShape(p)
+	for i := range p.X {
+		if !isFinite(p.X[i]) || !isFinite(p.Y[i]) {
+			return outline{}, graphErr(idx, fmt.Sprintf("vertex %d has a non-finite coordinate", i))
+		}
+		if p.Sweep != nil && !(math.Abs(p.Sweep[i]) < 2*math.Pi) {
+			return outline{}, graphErrAt(idx, fmt.Sprintf("edge %d has arc sweep %g, want |sweep| < 2π", i, p.Sweep[i]), p.X[i], p.Y[i])
+		}
+	}
+	x, y, mk := discretize(p, opt)
+	// Drop vertices that repeat their predecessor within MergeTol.
+	var o outline
+	tol := opt.MergeTol
+	for i := range x {
+		k := len(o.x)
+		if k > 0 && math.Hypot(x[i]-o.x[k-1], y[i]-o.y[k-1]) <= tol {
+			continue
+		}
+		o.x, o.y, o.mk = append(o.x, x[i]), append(o.y, y[i]), append(o.mk, mk[i])
+	}
+	for len(o.x) > 1 && math.Hypot(o.x[0]-o.x[len(o.x)-1], o.y[0]-o.y[len(o.y)-1]) <= tol {
+		o.x, o.y, o.mk = o.x[:len(o.x)-1], o.y[:len(o.y)-1], o.mk[:len(o.mk)-1]
+	}
+	if len(o.x) < 3 {
+		return o, graphErr(idx, fmt.Sprintf("has %d distinct vertices, need at least 3", len(o.x)))
+	}
+	var per float64
+	for i := range o.x {
+		j := (i + 1) % len(o.x)
+		per += math.Hypot(o.x[j]-o.x[i], o.y[j]-o.y[i])
+	}
+	o.area = PolygonArea(o.x, o.y)
+	if math.Abs(o.area) <= tol*per {
+		return o, graphErr(idx, fmt.Sprintf("has zero area (%g m²)", o.area))
+	}
+	if i, j, ok := selfIntersection(o.x, o.y); ok {
+		return o, graphErrAt(idx, fmt.Sprintf("intersects itself: edge %d meets edge %d", i, j), o.x[i], o.y[i])
+	}
+	o.ccw = o.area > 0
+	if !o.ccw {
+		// Reverse to counter-clockwise; edge i (i -> i+1) becomes edge
+		// n-2-i of the reversed list, so rotate markers with it.
+		n := len(o.x)
+		rx, ry, rm := make([]float64, n), make([]float64, n), make([]int32, n)
+		for i := 0; i < n; i++ {
+			rx[i], ry[i] = o.x[n-1-i], o.y[n-1-i]
+			rm[i] = o.mk[(2*n-2-i)%n]
+		}
+		o.x, o.y, o.mk, o.area = rx, ry, rm, -o.area
+	}
+	return o, nil
+}
+
+// segmentsMeet reports whether the closed segments ab and cd share a point.
+func segmentsMeet(ax, ay, bx, by, cx, cy, dx, dy float64) bool {
+	o1 := Orient2D(ax, ay, bx, by, cx, cy)
+	o2 := Orient2D(ax, ay, bx, by, dx, dy)
+	o3 := Orient2D(cx, cy, dx, dy, ax, ay)
+	o4 := Orient2D(cx, cy, dx, dy, bx, by)
+	if o1*o2 < 0 && o3*o4 < 0 {
+		return true
+	}
+	return (o1 == Collinear && between(ax, ay, bx, by, cx, cy)) ||
+		(o2 == Collinear && between(ax, ay, bx, by, dx, dy)) ||
+		(o3 == Collinear && between(cx, cy, dx, dy, ax, ay)) ||
+		(o4 == Collinear && between(cx, cy, dx, dy, bx, by))
+}
+
+// between reports whether p, known to be collinear with ab, lies on the
+// closed segment ab.
+func between(ax, ay, bx, by, px, py float64) bool {
+	return px >= math.Min(ax, bx) && px <= math.Max(ax, bx) && py >= math.Min(ay, by) && py <= math.Max(ay, by)
+}
+
+// selfIntersection finds two edges of the closed polygon that meet other
+// than at the vertex adjacent edges share, with a sweep over x.
+func selfIntersection(x, y []float64) (int, int, bool) {
+	n := len(x)
+	order := make([]int, n)
+	lo := make([]float64, n)
+	for i := range order {
+		j := (i + 1) % n
+		order[i], lo[i] = i, math.Min(x[i], x[j])
+	}
+	sort.Slice(order, func(a, b int) bool { return lo[order[a]] < lo[order[b]] })
+	for a, i := range order {
+		i1 := (i + 1) % n
+		hi := math.Max(x[i], x[i1])
+		for _, j := range order[a+1:] {
+			if lo[j] > hi {
+				break
+			}
+			j1 := (j + 1) % n
+			if j1 == i || i1 == j {
+				// Adjacent edges share a vertex; they meet elsewhere only
+				// when collinear and folding back over each other.
+				p, q, r := i, i1, j1 // edge i then edge j
+				if i1 != j {
+					p, q, r = j, j1, i1
+				}
+				if Orient2D(x[p], y[p], x[q], y[q], x[r], y[r]) == Collinear &&
+					(x[r]-x[q])*(x[p]-x[q])+(y[r]-y[q])*(y[p]-y[q]) > 0 {
+					return min(i, j), max(i, j), true
+				}
+				continue
+			}
+			if segmentsMeet(x[i], y[i], x[i1], y[i1], x[j], y[j], x[j1], y[j1]) {
+				return min(i, j), max(i, j), true
+			}
+		}
+	}
+	return 0, 0, false
+}
+
+// inPolygon reports whether (px, py) lies strictly inside the closed
+// polygon (x, y) of either orientation, by the crossing-number test with
+// the side decisions made by Orient2D; a point on an edge counts as
+// outside.
+func inPolygon(x, y []float64, px, py float64) bool {
+	in := false
+	n := len(x)
+	for i := 0; i < n; i++ {
+		j := (i + 1) % n
+		ax, ay, bx, by := x[i], y[i], x[j], y[j]
+		o := Orient2D(ax, ay, bx, by, px, py)
+		if o == Collinear && between(ax, ay, bx, by, px, py) {
+			return false
+		}
+		// Upward edge with p strictly left, or downward with p right:
+		// the half-open rule counts each crossing once.
+		if ay <= py && by > py && o == CCW {
+			in = !in
+		} else if ay > py && by <= py && o == CW {
+			in = !in
+		}
+	}
+	return in
+}
+
+// BuildInput builds the straight-line graph of a model whose region
+// polygons lie inside boundary (see the steps above). The boundary's Region
+// becomes Input.DefaultRegion. It returns a *GraphError for a degenerate or
+// self-intersecting polygon, a region reaching outside the boundary,
+// overlapping regions (unless opt.Overlap allows it) and edges that cannot
+// be separated; it panics on length mismatches inside a Polygon.
+func BuildInput(regions []Polygon, boundary Polygon, opt GraphOptions) (*Input, error) {
+	checkPolygonShape(boundary)
+	for i := range regions {
+		checkPolygonShape(regions[i])
+	}
+	opt = opt.WithDefaults(regions, boundary)
+	bo, err := validate(-1, boundary, opt)
+	if err != nil {
+		return nil, err
+	}
+	outs := make([]outline, len(regions))
+	for i := range regions {
+		if outs[i], err = validate(i, regions[i], opt); err != nil {
+			return nil, err
+		}
+	}
+	g := newGraph(opt.MergeTol)
+	g.addOutline(bo)
+	for i := range outs {
+		g.addOutline(outs[i])
+	}
+	if err := g.split(); err != nil {
+		return nil, err
+	}
+	g.dedupe()
+	in := &Input{X: g.x, Y: g.y, Segments: g.seg, Markers: g.mk, DefaultRegion: boundary.Region}
+	for _, f := range g.faces() {
+		sx, sy, ok := g.seed(f)
+		if !ok {
+			h := f[0]
+			return nil, graphErrAt(-1, "a face of the graph has no interior point clear of its edges", g.x[g.from(h)], g.y[g.from(h)])
+		}
+		if !inPolygon(bo.x, bo.y, sx, sy) {
+			for i := range outs {
+				if inPolygon(outs[i].x, outs[i].y, sx, sy) {
+					return nil, graphErrAt(i, "reaches outside the boundary", sx, sy)
+				}
+			}
+			continue
+		}
+		owner := -1
+		for i := range outs {
+			if !inPolygon(outs[i].x, outs[i].y, sx, sy) {
+				continue
+			}
+			if owner >= 0 && opt.Overlap == OverlapError {
+				return nil, &GraphError{Polygon: owner, Other: i, Reason: "overlap", X: sx, Y: sy, HasAt: true}
+			}
+			owner = i
+		}
+		if owner >= 0 {
+			in.Seeds = append(in.Seeds, Seed{X: sx, Y: sy, Region: regions[owner].Region})
+		}
+	}
+	return in, nil
+}
+
+// graph is the edge soup being cleaned up: vertices with a hash for
+// merging, segments (vertex pairs) with markers.
+type graph struct {
+	x, y []float64
+	seg  []int32
+	mk   []int32
+	tol  float64
+	hash map[[2]int64][]int32
+}
+
+func newGraph(tol float64) *graph {
+	return &graph{tol: tol, hash: make(map[[2]int64][]int32)}
+}
+
+func (g *graph) cell(x, y float64) [2]int64 {
+	return [2]int64{int64(math.Floor(x / g.tol)), int64(math.Floor(y / g.tol))}
+}
+
+// vertex returns the vertex within tol of (x, y), adding one if none is.
+func (g *graph) vertex(x, y float64) int32 {
+	c := g.cell(x, y)
+	for di := int64(-1); di <= 1; di++ {
+		for dj := int64(-1); dj <= 1; dj++ {
+			for _, v := range g.hash[[2]int64{c[0] + di, c[1] + dj}] {
+				if math.Hypot(g.x[v]-x, g.y[v]-y) <= g.tol {
+					return v
+				}
+			}
+		}
+	}
+	v := int32(len(g.x))
+	g.x, g.y = append(g.x, x), append(g.y, y)
+	g.hash[c] = append(g.hash[c], v)
+	return v
+}
+
+func (g *graph) addOutline(o outline) {
+	n := len(o.x)
+	first := g.vertex(o.x[0], o.y[0])
+	prev := first
+	for i := 0; i < n; i++ {
+		v := first
+		if i+1 < n {
+			v = g.vertex(o.x[i+1], o.y[i+1])
+		}
+		if v != prev {
+			g.seg, g.mk = append(g.seg, prev, v), append(g.mk, o.mk[i])
+		}
+		prev = v
+	}
+}
+
+// maxSplitRounds bounds the split passes; each pass resolves every crossing
+// and T-junction it sees, so more than two or three mean a numerical loop.
+const maxSplitRounds = 16
+
+// split cuts segments at crossings and at vertices lying on them until
+// no segment crosses another or passes through a vertex.
+func (g *graph) split() error {
+	for round := 0; round < maxSplitRounds; round++ {
+		splits := make(map[int][]int32)
+		ns := len(g.seg) / 2
+		// Crossings, from a sweep over x.
+		order, lo, hi := g.sweepOrder()
+		for a, i := range order {
+			for _, j := range order[a+1:] {
+				if lo[j] > hi[i] {
+					break
+				}
+				p, q, r, s := g.seg[2*i], g.seg[2*i+1], g.seg[2*j], g.seg[2*j+1]
+				o1 := Orient2D(g.x[p], g.y[p], g.x[q], g.y[q], g.x[r], g.y[r])
+				o2 := Orient2D(g.x[p], g.y[p], g.x[q], g.y[q], g.x[s], g.y[s])
+				if o1*o2 >= 0 {
+					continue
+				}
+				o3 := Orient2D(g.x[r], g.y[r], g.x[s], g.y[s], g.x[p], g.y[p])
+				o4 := Orient2D(g.x[r], g.y[r], g.x[s], g.y[s], g.x[q], g.y[q])
+				if o3*o4 >= 0 {
+					continue
+				}
+				// A proper crossing: compute the point on ab,
+				// t = ((c-a) x (d-c)) / ((b-a) x (d-c)).
+				ax, ay, bx, by := g.x[p], g.y[p], g.x[q], g.y[q]
+				cx, cy, dx, dy := g.x[r], g.y[r], g.x[s], g.y[s]
+				den := (bx-ax)*(dy-cy) - (by-ay)*(dx-cx)
+				t := ((cx-ax)*(dy-cy) - (cy-ay)*(dx-cx)) / den
+				t = math.Min(math.Max(t, 0), 1)
+				v := g.vertex(ax+t*(bx-ax), ay+t*(by-ay))
+				if v != p && v != q {
+					splits[i] = append(splits[i], v)
+				}
+				if v != r && v != s {
+					splits[j] = append(splits[j], v)
+				}
+			}
+		}
+		// T-junctions: vertices within tol of a segment's interior.
+		vo := make([]int32, len(g.x))
+		for i := range vo {
+			vo[i] = int32(i)
+		}
+		sort.Slice(vo, func(a, b int) bool { return g.x[vo[a]] < g.x[vo[b]] })
+		for i := 0; i < ns; i++ {
+			p, q := g.seg[2*i], g.seg[2*i+1]
+			ax, ay, bx, by := g.x[p], g.y[p], g.x[q], g.y[q]
+			x0, x1 := math.Min(ax, bx)-g.tol, math.Max(ax, bx)+g.tol
+			y0, y1 := math.Min(ay, by)-g.tol, math.Max(ay, by)+g.tol
+			k := sort.Search(len(vo), func(k int) bool { return g.x[vo[k]] >= x0 })
+			l2 := (bx-ax)*(bx-ax) + (by-ay)*(by-ay)
+			for ; k < len(vo) && g.x[vo[k]] <= x1; k++ {
+				v := vo[k]
+				if v == p || v == q || g.y[v] < y0 || g.y[v] > y1 {
+					continue
+				}
+				px, py := g.x[v], g.y[v]
+				t := ((px-ax)*(bx-ax) + (py-ay)*(by-ay)) / l2
+				if !(t > 0 && t < 1) {
+					continue
+				}
+				on := Orient2D(ax, ay, bx, by, px, py) == Collinear ||
+					math.Abs((bx-ax)*(py-ay)-(by-ay)*(px-ax)) <= g.tol*math.Sqrt(l2)
+				if on {
+					splits[i] = append(splits[i], v)
+				}
+			}
+		}
+		if len(splits) == 0 {
+			return nil
+		}
+		seg := make([]int32, 0, len(g.seg)+4*len(splits))
+		mk := make([]int32, 0, len(g.mk)+2*len(splits))
+		for i := 0; i < ns; i++ {
+			p, q := g.seg[2*i], g.seg[2*i+1]
+			vs := splits[i]
+			ax, ay, bx, by := g.x[p], g.y[p], g.x[q], g.y[q]
+			param := func(v int32) float64 { return (g.x[v]-ax)*(bx-ax) + (g.y[v]-ay)*(by-ay) }
+			sort.Slice(vs, func(a, b int) bool { return param(vs[a]) < param(vs[b]) })
+			prev := p
+			for _, v := range append(vs, q) {
+				if v != prev {
+					seg, mk = append(seg, prev, v), append(mk, g.mk[i])
+				}
+				prev = v
+			}
+		}
+		g.seg, g.mk = seg, mk
+	}
+	i, _ := g.firstCrossing()
+	p := g.seg[2*i]
+	return graphErrAt(-1, fmt.Sprintf("edges still cross after %d splitting passes (nearly parallel edges closer than MergeTol?)", maxSplitRounds), g.x[p], g.y[p])
+}
+
+// sweepOrder returns the segments sorted by their smallest x, with the x
+// range of each.
+func (g *graph) sweepOrder() (order []int, lo, hi []float64) {
+	ns := len(g.seg) / 2
+	order, lo, hi = make([]int, ns), make([]float64, ns), make([]float64, ns)
+	for i := 0; i < ns; i++ {
+		a, b := g.seg[2*i], g.seg[2*i+1]
+		order[i], lo[i], hi[i] = i, math.Min(g.x[a], g.x[b]), math.Max(g.x[a], g.x[b])
+	}
+	sort.Slice(order, func(a, b int) bool { return lo[order[a]] < lo[order[b]] })
+	return order, lo, hi
+}
+
+// firstCrossing returns a segment that properly crosses another, or -1.
+func (g *graph) firstCrossing() (int, int) {
+	order, lo, hi := g.sweepOrder()
+	for a, i := range order {
+		for _, j := range order[a+1:] {
+			if lo[j] > hi[i] {
+				break
+			}
+			p, q, r, s := g.seg[2*i], g.seg[2*i+1], g.seg[2*j], g.seg[2*j+1]
+			if p == r || p == s || q == r || q == s {
+				continue
+			}
+			if segmentsMeet(g.x[p], g.y[p], g.x[q], g.y[q], g.x[r], g.y[r], g.x[s], g.y[s]) {
+				return i, j
+			}
+		}
+	}
+	return -1, -1
+}
+
+// dedupe removes repeated segments (either direction), keeping the first,
+// so the earliest polygon's marker stays.
+func (g *graph) dedupe() {
+	seen := make(map[[2]int32]bool, len(g.mk))
+	k := 0
+	for i := 0; i < len(g.mk); i++ {
+		a, b := g.seg[2*i], g.seg[2*i+1]
+		key := [2]int32{min(a, b), max(a, b)}
+		if a == b || seen[key] {
+			continue
+		}
+		seen[key] = true
+		g.seg[2*k], g.seg[2*k+1], g.mk[k] = a, b, g.mk[i]
+		k++
+	}
+	g.seg, g.mk = g.seg[:2*k], g.mk[:k]
+}
+
+// Half-edge h runs along segment h/2, from its first vertex when h is even
+// and from its second when h is odd; h^1 is its twin.
+func (g *graph) from(h int32) int32 { return g.seg[h^(h&1)+(h&1)] }
+func (g *graph) to(h int32) int32   { return g.seg[h^(h&1)+1-(h&1)] }
+
+// faces traces the boundary cycles of the faces of the graph and returns
+// those with positive area: the outer boundary of every bounded face, each
+// a list of half-edges with the face on their left.
+func (g *graph) faces() [][]int32 {
+	nh := int32(len(g.seg))
+	nv := len(g.x)
+	start := make([]int32, nv+1)
+	for h := int32(0); h < nh; h++ {
+		start[g.from(h)+1]++
+	}
+	for v := 0; v < nv; v++ {
+		start[v+1] += start[v]
+	}
+	out := make([]int32, nh)
+	fill := append([]int32(nil), start[:nv]...)
+	for h := int32(0); h < nh; h++ {
+		v := g.from(h)
+		out[fill[v]] = h
+		fill[v]++
+	}
+	// Sort the half-edges leaving each vertex counter-clockwise by
+	// direction, exactly: first by half-plane (upper, including the +x
+	// axis, before lower), then by Orient2D within a half-plane.
+	upper := func(h int32) bool {
+		a, b := g.from(h), g.to(h)
+		dy := g.y[b] - g.y[a] // the sign of a float difference is exact
+		return dy > 0 || (dy == 0 && g.x[b] > g.x[a])
+	}
+	pos := make([]int32, nh)
+	for v := 0; v < nv; v++ {
+		list := out[start[v]:start[v+1]]
+		sort.Slice(list, func(i, j int) bool {
+			hi, hj := list[i], list[j]
+			ui, uj := upper(hi), upper(hj)
+			if ui != uj {
+				return ui
+			}
+			a, b, c := g.from(hi), g.to(hi), g.to(hj)
+			return Orient2D(g.x[a], g.y[a], g.x[b], g.y[b], g.x[c], g.y[c]) == CCW
+		})
+		for i, h := range list {
+			pos[h] = int32(i)
+		}
+	}
+	// next(h): at the head v of h, the half-edge leaving v just clockwise
+	// of the twin of h keeps the face on the left.
+	next := func(h int32) int32 {
+		v := g.to(h)
+		deg := start[v+1] - start[v]
+		return out[start[v]+(pos[h^1]+deg-1)%deg]
+	}
+	seen := make([]bool, nh)
+	var faces [][]int32
+	for h0 := int32(0); h0 < nh; h0++ {
+		if seen[h0] {
+			continue
+		}
+		var cyc []int32
+		var area sum2
+		a := g.from(h0)
+		for h := h0; !seen[h]; h = next(h) {
+			seen[h] = true
+			cyc = append(cyc, h)
+			area.add(triArea(g.x[a], g.y[a], g.x[g.from(h)], g.y[g.from(h)], g.x[g.to(h)], g.y[g.to(h)]))
+		}
+		if area.value() > 0 {
+			faces = append(faces, cyc)
+		}
+	}
+	return faces
+}
+
+// seed returns a point strictly inside the face bounded on the left by the
+// half-edges of cyc: for its edges, longest first, a ray from the middle of
+// the edge into the face, stopped half way to the first segment it meets.
+// It takes the first point farther than 4 MergeTol from every segment, or
+// else the clearest one found.
+func (g *graph) seed(cyc []int32) (x, y float64, ok bool) {
+	hs := append([]int32(nil), cyc...)
+	length := func(h int32) float64 {
+		a, b := g.from(h), g.to(h)
+		return math.Hypot(g.x[b]-g.x[a], g.y[b]-g.y[a])
+	}
+	sort.SliceStable(hs, func(i, j int) bool { return length(hs[i]) > length(hs[j]) })
+	best := 0.0
+	for _, h := range hs {
+		a, b := g.from(h), g.to(h)
+		l := length(h)
+		mx, my := 0.5*(g.x[a]+g.x[b]), 0.5*(g.y[a]+g.y[b])
+		nx, ny := -(g.y[b]-g.y[a])/l, (g.x[b]-g.x[a])/l
+		tmin := math.Inf(1)
+		for s := 0; s < len(g.mk); s++ {
+			if int32(s) == h/2 {
+				continue
+			}
+			p, q := g.seg[2*s], g.seg[2*s+1]
+			// Solve m + t n = p + u (q - p) for t > 0, 0 <= u <= 1.
+			ex, ey := g.x[q]-g.x[p], g.y[q]-g.y[p]
+			den := nx*ey - ny*ex
+			if den == 0 {
+				continue
+			}
+			wx, wy := g.x[p]-mx, g.y[p]-my
+			t := (wx*ey - wy*ex) / den
+			u := (wx*ny - wy*nx) / den
+			if t > 0 && u >= 0 && u <= 1 && t < tmin {
+				tmin = t
+			}
+		}
+		if math.IsInf(tmin, 1) {
+			continue
+		}
+		sx, sy := mx+0.5*tmin*nx, my+0.5*tmin*ny
+		c := g.clearance(sx, sy)
+		if c > best {
+			best, x, y, ok = c, sx, sy, true
+		}
+		if c > 4*g.tol {
+			break
+		}
+	}
+	return x, y, ok
+}
+
+// clearance is the distance from (x, y) to the nearest segment.
+func (g *graph) clearance(x, y float64) float64 {
+	d := math.Inf(1)
+	for s := 0; s < len(g.mk); s++ {
+		p, q := g.seg[2*s], g.seg[2*s+1]
+		ax, ay, bx, by := g.x[p], g.y[p], g.x[q], g.y[q]
+		ex, ey := bx-ax, by-ay
+		t := ((x-ax)*ex + (y-ay)*ey) / (ex*ex + ey*ey)
+		t = math.Min(math.Max(t, 0), 1)
+		d = math.Min(d, math.Hypot(ax+t*ex-x, ay+t*ey-y))
+	}
+	return d
+}

@@ -1,0 +1,368 @@
+package mesh
+
+import (
+	"errors"
+	"math"
+	"strings"
+	"testing"
+)
+
+func rect(x0, y0, x1, y1 float64, region, marker int32) Polygon {
+	return Polygon{X: []float64{x0, x1, x1, x0}, Y: []float64{y0, y0, y1, y1}, Region: region, Marker: marker}
+}
+
+// checkGraph asserts the invariants BuildInput promises: no repeated or
+// zero-length segments, no two segments meeting other than at a shared end
+// vertex, no vertex inside a segment, markers >= 1, seeds off every
+// segment.
+func checkGraph(t *testing.T, name string, in *Input) {
+	t.Helper()
+	ns := len(in.Segments) / 2
+	if len(in.Markers) != ns || len(in.X) != len(in.Y) {
+		t.Fatalf("%s: %d segments, %d markers, %d/%d coordinates", name, ns, len(in.Markers), len(in.X), len(in.Y))
+	}
+	seen := map[[2]int32]bool{}
+	for i := 0; i < ns; i++ {
+		a, b := in.Segments[2*i], in.Segments[2*i+1]
+		if a == b || seen[[2]int32{min(a, b), max(a, b)}] {
+			t.Errorf("%s: segment %d (%d,%d) is zero-length or repeated", name, i, a, b)
+		}
+		seen[[2]int32{min(a, b), max(a, b)}] = true
+		if in.Markers[i] < 1 {
+			t.Errorf("%s: segment %d has marker %d", name, i, in.Markers[i])
+		}
+		ax, ay, bx, by := in.X[a], in.Y[a], in.X[b], in.Y[b]
+		for v := range in.X {
+			if int32(v) != a && int32(v) != b && Orient2D(ax, ay, bx, by, in.X[v], in.Y[v]) == Collinear && between(ax, ay, bx, by, in.X[v], in.Y[v]) {
+				t.Errorf("%s: vertex %d lies inside segment %d", name, v, i)
+			}
+		}
+		for j := i + 1; j < ns; j++ {
+			c, d := in.Segments[2*j], in.Segments[2*j+1]
+			if a == c || a == d || b == c || b == d {
+				continue // shared ends; overlap would put a vertex inside
+			}
+			if segmentsMeet(ax, ay, bx, by, in.X[c], in.Y[c], in.X[d], in.Y[d]) {
+				t.Errorf("%s: segments %d and %d meet", name, i, j)
+			}
+		}
+		for _, s := range in.Seeds {
+			if Orient2D(ax, ay, bx, by, s.X, s.Y) == Collinear && between(ax, ay, bx, by, s.X, s.Y) {
+				t.Errorf("%s: seed %+v lies on segment %d", name, s, i)
+			}
+		}
+	}
+}
+
+// segLength sums the lengths of the segments carrying marker mk.
+func segLength(in *Input, mk int32) float64 {
+	var s sum2
+	for i := range in.Markers {
+		if in.Markers[i] == mk {
+			a, b := in.Segments[2*i], in.Segments[2*i+1]
+			s.add(math.Hypot(in.X[b]-in.X[a], in.Y[b]-in.Y[a]))
+		}
+	}
+	return s.value()
+}
+
+func seedsOf(in *Input) map[int32]int {
+	n := map[int32]int{}
+	for _, s := range in.Seeds {
+		n[s.Region]++
+	}
+	return n
+}
+
+func TestBuildInputSharedEdge(t *testing.T) {
+	// Two rectangles sharing part of an edge, (1,1)-(2,1); the second one's
+	// lower edge continues to (3,1). The lower one also lies on the
+	// boundary's bottom edge from (0,-1) to (2,-1), where the boundary
+	// marker must win.
+	a := rect(0, -1, 2, 1, 10, 2)
+	b := rect(1, 1, 3, 2, 20, 3)
+	bnd := rect(-1, -1, 4, 3, 0, 1)
+	in, err := BuildInput([]Polygon{a, b}, bnd, GraphOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	checkGraph(t, "shared edge", in)
+	// Vertices: boundary 4, a 4 (two on the boundary's bottom edge), b 4.
+	if len(in.X) != 12 {
+		t.Errorf("%d vertices, want 12", len(in.X))
+	}
+	// Segments: boundary 4 + 2 (bottom split at (0,-1), (2,-1));
+	// a: left, right, top split at (1,1) = 4 (its bottom is the boundary's);
+	// b: 4 + 1 (bottom split at (2,1)) - 1 (the shared piece) = 4.
+	if got := len(in.Segments) / 2; got != 14 {
+		t.Errorf("%d segments, want 14", got)
+	}
+	// Marker lengths: boundary perimeter 18; a keeps left 2, right 2, top 2
+	// (the shared piece is a's, the first polygon); b keeps 1+1+2+1.
+	for _, c := range []struct {
+		mk   int32
+		want float64
+	}{{1, 18}, {2, 6}, {3, 5}} {
+		if got := segLength(in, c.mk); math.Abs(got-c.want) > 1e-12 {
+			t.Errorf("marker %d: total length %g, want %g", c.mk, got, c.want)
+		}
+	}
+	if n := seedsOf(in); len(in.Seeds) != 2 || n[10] != 1 || n[20] != 1 {
+		t.Errorf("seeds %+v", in.Seeds)
+	}
+	for _, s := range in.Seeds {
+		p := a
+		if s.Region == 20 {
+			p = b
+		}
+		if !inPolygon(p.X, p.Y, s.X, s.Y) {
+			t.Errorf("seed %+v not strictly inside its rectangle", s)
+		}
+	}
+	if in.DefaultRegion != 0 {
+		t.Errorf("default region %d", in.DefaultRegion)
+	}
+}
+
+func TestDiscretizeArc(t *testing.T) {
+	// A unit square whose right edge is an arc of sweep θ bulging outwards.
+	// Exact area: 1 + R²/2 (θ - sin θ), the circular segment of radius
+	// R = c / (2 sin(θ/2)) over chord c = 1 (e.g. Abramowitz & Stegun,
+	// Handbook of Mathematical Functions, 1964, formula 4.3.146's circle
+	// geometry; from memory). Chording loses at most ChordTol times the
+	// arc length R θ (the lost sliver is no wider than the sagitta).
+	for _, c := range []struct {
+		name       string
+		theta, tol float64
+		maxAngle   float64
+	}{
+		{"quarter arc, sagitta bound", math.Pi / 2, 1e-4, 0},
+		{"half circle, angle bound", math.Pi, 1, 0.2},
+		{"deep arc", 1.5 * math.Pi, 1e-3, 0},
+		{"concave arc", -math.Pi / 3, 1e-5, 0},
+	} {
+		p := rect(0, 0, 1, 1, 1, 1)
+		p.Sweep = []float64{0, c.theta, 0, 0}
+		opt := GraphOptions{ChordTol: c.tol, MaxArcAngle: c.maxAngle}
+		x, y := DiscretizePolygon(p, opt)
+		th := math.Abs(c.theta)
+		r := 1 / (2 * math.Sin(th/2))
+		seg := r * r / 2 * (th - math.Sin(th))
+		exact := 1 + math.Copysign(seg, c.theta)
+		got := PolygonArea(x, y)
+		if math.Abs(got-exact) > c.tol*r*th {
+			t.Errorf("%s: area %.12g, exact %.12g, allowed chord error %g", c.name, got, exact, c.tol*r*th)
+		}
+		// n equal chords of a circle: the lost area is exactly
+		// R²/2 (θ - n sin(θ/n)).
+		n := len(x) - 3
+		chords := r * r / 2 * (th - float64(n)*math.Sin(th/float64(n)))
+		if math.Abs(got-(exact-math.Copysign(chords, c.theta))) > 1e-12 {
+			t.Errorf("%s: area %.15g, want %.15g from %d equal chords", c.name, got, exact-math.Copysign(chords, c.theta), n)
+		}
+		// Each chord: sagitta R(1 - cos(θ/2n)) <= tol, angle <= max; and
+		// n is the smallest count meeting both.
+		maxA := c.maxAngle
+		if maxA == 0 {
+			maxA = 10 * math.Pi / 180
+		}
+		sag := func(n int) float64 { return r * (1 - math.Cos(th/float64(2*n))) }
+		if sag(n) > c.tol*(1+1e-12) || th/float64(n) > maxA*(1+1e-12) {
+			t.Errorf("%s: %d chords: sagitta %g (tol %g), angle %g (max %g)", c.name, n, sag(n), c.tol, th/float64(n), maxA)
+		}
+		if n > 1 && sag(n-1) <= c.tol && th/float64(n-1) <= maxA {
+			t.Errorf("%s: %d chords where %d would do", c.name, n, n-1)
+		}
+		for i := 0; i < 4; i++ {
+			// the original corners are kept, exactly
+			found := false
+			for k := range x {
+				found = found || (x[k] == p.X[i] && y[k] == p.Y[i])
+			}
+			if !found {
+				t.Errorf("%s: corner %d lost", c.name, i)
+			}
+		}
+	}
+}
+
+func TestDiscretizeCircle(t *testing.T) {
+	// A circle from two vertices and two half-circle arcs. The n chords
+	// form a regular n-gon of area (n/2) R² sin(2π/n) (elementary
+	// geometry), which the discretised polygon must reproduce to rounding.
+	const r = 0.035
+	p := Polygon{X: []float64{r, -r}, Y: []float64{0, 0}, Sweep: []float64{math.Pi, math.Pi}}
+	x, y := DiscretizePolygon(p, GraphOptions{ChordTol: 1e-6})
+	n := float64(len(x))
+	want := n / 2 * r * r * math.Sin(2*math.Pi/n)
+	if got := PolygonArea(x, y); math.Abs(got-want) > 1e-13*want {
+		t.Errorf("%g-gon area %.15g, want %.15g", n, got, want)
+	}
+	if got := PolygonArea(x, y); math.Abs(got-math.Pi*r*r) > 1e-6*2*math.Pi*r {
+		t.Errorf("circle area %.12g vs πR² %.12g beyond the chord error", got, math.Pi*r*r)
+	}
+	if len(x)%2 != 0 {
+		t.Errorf("%d vertices: the two half arcs should have equal chord counts", len(x))
+	}
+	// A disc region inside a box boundary gets one seed inside the disc.
+	in, err := BuildInput([]Polygon{{X: p.X, Y: p.Y, Sweep: p.Sweep, Region: 5}}, rect(-0.1, -0.1, 0.1, 0.1, 0, 1), GraphOptions{ChordTol: 1e-6})
+	if err != nil {
+		t.Fatal(err)
+	}
+	checkGraph(t, "disc", in)
+	if len(in.Seeds) != 1 || in.Seeds[0].Region != 5 || !inPolygon(x, y, in.Seeds[0].X, in.Seeds[0].Y) {
+		t.Errorf("disc seeds %+v", in.Seeds)
+	}
+}
+
+func TestBuildInputCrossing(t *testing.T) {
+	// A plus sign: a horizontal and a vertical bar crossing. Their 8 edge
+	// crossings become vertices; the graph has 5 bounded faces inside the
+	// boundary besides the air: left and right ends of the bar (region 1),
+	// the middle (both: region 2, the later polygon, under
+	// OverlapLaterWins), top and bottom ends (region 2).
+	h := rect(0, 1, 3, 2, 1, 2)
+	v := rect(1, 0, 2, 3, 2, 3)
+	bnd := rect(-1, -1, 4, 4, 0, 1)
+	in, err := BuildInput([]Polygon{h, v}, bnd, GraphOptions{Overlap: OverlapLaterWins})
+	if err != nil {
+		t.Fatal(err)
+	}
+	checkGraph(t, "plus", in)
+	// 4 boundary + 8 bar corners; the crossings are exactly the corners
+	// of the middle square, (1,1),(2,1),(2,2),(1,2), 4 new vertices.
+	if len(in.X) != 16 {
+		t.Errorf("%d vertices, want 16", len(in.X))
+	}
+	// 4 boundary; each bar edge of length 3 is split in three (2 long
+	// edges x 3 pieces x 2 bars = 12) and each short end edge stays (4).
+	if got := len(in.Segments) / 2; got != 20 {
+		t.Errorf("%d segments, want 20", got)
+	}
+	if n := seedsOf(in); n[1] != 2 || n[2] != 3 || len(in.Seeds) != 5 {
+		t.Errorf("seeds per region %v, want 1:2 2:3", n)
+	}
+	// A slanted crossing: the intersection point is computed, not found.
+	tri := Polygon{X: []float64{0.5, 2.5, 0.7}, Y: []float64{0.2, 0.4, 2.9}, Region: 3}
+	sq := rect(1, 1, 3.3, 3.1, 4, 5)
+	in, err = BuildInput([]Polygon{tri, sq}, bnd, GraphOptions{Overlap: OverlapLaterWins})
+	if err != nil {
+		t.Fatal(err)
+	}
+	checkGraph(t, "slanted", in)
+	// Faces: triangle alone, the overlap (to the later square) and the
+	// square alone.
+	if n := seedsOf(in); n[3] != 1 || n[4] != 2 {
+		t.Errorf("slanted: seeds per region %v", n)
+	}
+	// The default rule refuses the overlap and names both polygons.
+	_, err = BuildInput([]Polygon{h, v}, bnd, GraphOptions{})
+	var ge *GraphError
+	if !errors.As(err, &ge) || ge.Polygon != 0 || ge.Other != 1 || !strings.Contains(err.Error(), "region polygon 0 and region polygon 1: overlap") {
+		t.Errorf("overlap error: %v", err)
+	}
+}
+
+func TestBuildInputSeedInsideNonConvex(t *testing.T) {
+	// A C-shaped yoke outline (invented dimensions, metres) whose longest
+	// edge faces its own window: the seed must land in the steel, not in
+	// the window, and a coil region sits in the window.
+	c := Polygon{
+		X:      []float64{0, 0.3, 0.3, 0.05, 0.05, 0.3, 0.3, 0},
+		Y:      []float64{0, 0, 0.05, 0.05, 0.25, 0.25, 0.3, 0.3},
+		Region: 1, Marker: 2,
+	}
+	coil := rect(0.08, 0.08, 0.2, 0.22, 2, 3)
+	in, err := BuildInput([]Polygon{c, coil}, rect(-0.1, -0.1, 0.4, 0.4, 0, 1), GraphOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	checkGraph(t, "C-core", in)
+	if len(in.Seeds) != 2 {
+		t.Fatalf("seeds %+v", in.Seeds)
+	}
+	for _, s := range in.Seeds {
+		p := c
+		if s.Region == 2 {
+			p = coil
+		}
+		if !inPolygon(p.X, p.Y, s.X, s.Y) {
+			t.Errorf("seed %+v not inside its polygon", s)
+		}
+	}
+}
+
+func TestBuildInputMarkersAndOrientation(t *testing.T) {
+	// A clockwise triangle with per-edge markers: after reversal each
+	// marker must stay on its own geometric edge.
+	tri := Polygon{X: []float64{0, 0, 1}, Y: []float64{0, 1, 0}, EdgeMarkers: []int32{5, 6, 7}, Region: 9}
+	in, err := BuildInput([]Polygon{tri}, rect(-1, -1, 2, 2, 0, 1), GraphOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	checkGraph(t, "cw triangle", in)
+	want := map[[4]float64]int32{{0, 0, 0, 1}: 5, {0, 1, 1, 0}: 6, {1, 0, 0, 0}: 7}
+	for i := range in.Markers {
+		a, b := in.Segments[2*i], in.Segments[2*i+1]
+		for k, mk := range want {
+			if (in.X[a] == k[0] && in.Y[a] == k[1] && in.X[b] == k[2] && in.Y[b] == k[3]) ||
+				(in.X[b] == k[0] && in.Y[b] == k[1] && in.X[a] == k[2] && in.Y[a] == k[3]) {
+				if in.Markers[i] != mk {
+					t.Errorf("edge %v has marker %d, want %d", k, in.Markers[i], mk)
+				}
+				delete(want, k)
+			}
+		}
+	}
+	if len(want) != 0 {
+		t.Errorf("edges not found: %v", want)
+	}
+	if PolygonArea(tri.X, tri.Y) != -0.5 {
+		t.Errorf("clockwise area %g, want -0.5", PolygonArea(tri.X, tri.Y))
+	}
+	// Vertices within MergeTol merge; farther ones do not.
+	a := rect(0, 0, 1, 1, 1, 2)
+	b := rect(1+1e-12, 0, 2, 1, 2, 3)
+	in, err = BuildInput([]Polygon{a, b}, rect(-1, -1, 3, 2, 0, 1), GraphOptions{MergeTol: 1e-10})
+	if err != nil {
+		t.Fatal(err)
+	}
+	checkGraph(t, "merge", in)
+	if len(in.X) != 10 || len(in.Segments)/2 != 11 {
+		t.Errorf("merge: %d vertices, %d segments, want 10 and 11", len(in.X), len(in.Segments)/2)
+	}
+}
+
+func TestBuildInputErrors(t *testing.T) {
+	bnd := rect(-1, -1, 3, 3, 0, 1)
+	ok := rect(0, 0, 1, 1, 1, 1)
+	cases := []struct {
+		name    string
+		regions []Polygon
+		bnd     Polygon
+		poly    int
+		reason  string
+	}{
+		{"two distinct vertices", []Polygon{ok, {X: []float64{0, 1, 1}, Y: []float64{2, 2, 2 + 1e-15}}}, bnd, 1, "distinct vertices"},
+		{"zero area", []Polygon{{X: []float64{0, 1, 2}, Y: []float64{0, 1, 2}}}, bnd, 0, "zero area"},
+		{"bow tie", []Polygon{ok, {X: []float64{0, 1, 1, 0}, Y: []float64{1.5, 2.5, 1.5, 2.8}}}, bnd, 1, "intersects itself"},
+		{"fold back", []Polygon{{X: []float64{0, 2, 1, 1}, Y: []float64{0, 0, 0, 1}}}, bnd, 0, "intersects itself"},
+		{"outside", []Polygon{rect(2, 2, 4, 4, 1, 1)}, bnd, 0, "outside the boundary"},
+		{"NaN", []Polygon{{X: []float64{0, math.NaN(), 1}, Y: []float64{0, 0, 1}}}, bnd, 0, "non-finite"},
+		{"sweep", []Polygon{{X: []float64{0, 1, 1}, Y: []float64{0, 0, 1}, Sweep: []float64{7, 0, 0}}}, bnd, 0, "sweep"},
+		{"bad boundary", []Polygon{ok}, Polygon{X: []float64{0, 1}, Y: []float64{0, 1}}, -1, "boundary polygon: has 2 distinct"},
+	}
+	for _, c := range cases {
+		_, err := BuildInput(c.regions, c.bnd, GraphOptions{})
+		var ge *GraphError
+		if !errors.As(err, &ge) || ge.Polygon != c.poly || !strings.Contains(err.Error(), c.reason) {
+			t.Errorf("%s: got %v, want a GraphError for polygon %d containing %q", c.name, err, c.poly, c.reason)
+		}
+	}
+	defer func() {
+		if r, _ := recover().(string); !strings.HasPrefix(r, "mesh: ") {
+			t.Errorf("length mismatch: recovered %q", r)
+		}
+	}()
+	BuildInput([]Polygon{{X: []float64{0, 1, 1}, Y: []float64{0, 0}}}, bnd, GraphOptions{})
+}
