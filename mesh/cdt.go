@@ -13,11 +13,11 @@ package mesh
 
 // Point-location outcomes.
 const (
-	locInside = iota // strictly inside triangle t
-	locEdge          // on edge k of t (between its end points)
-	locVertex        // equal to corner k of t
-	locOutside       // outside the triangulated domain (t, k is the boundary edge)
-	locBlocked       // a segment lies between start and target (t, k is that edge)
+	locInside  = iota // strictly inside triangle t
+	locEdge           // on edge k of t (between its end points)
+	locVertex         // equal to corner k of t
+	locOutside        // outside the triangulated domain (t, k is the boundary edge)
+	locBlocked        // a segment lies between start and target (t, k is that edge)
 )
 
 var next3 = [5]int{1, 2, 0, 1, 2}
