@@ -28,6 +28,7 @@ type assembler struct {
 	rgrad [][MaxNodes][2]float64 // reference gradients at the quadrature points
 	d     dofMap
 	pat   *pattern
+	rtol  float64 // nodes with |r| <= rtol lie on the axis
 
 	// source, when set (tests only), adds a space-dependent current
 	// density J(x, y) to the region's.
@@ -54,6 +55,7 @@ func newAssembler(p *Problem, d dofMap, workers int) *assembler {
 	m := p.Mesh
 	as := &assembler{p: p, m: m, el: elementFor(m.Order()), axi: p.Formulation == Axisymmetric, d: d}
 	as.nn = as.el.NumNodes()
+	as.rtol = axisTol(m)
 	deg := quadratureDegree(m.Order(), p.Formulation)
 	if as.axi && deg == 3 {
 		deg = 4 // Dunavant's degree-3 rule has a negative weight; avoid it in a nonlinear tangent

@@ -25,7 +25,7 @@ func (s *Solution) evalElement(t int, xi, eta float64) (a, bx, by float64) {
 		return a, gy, -gx
 	}
 	r := x0 + ja*xi + jb*eta
-	if r <= axisTol(as.m) {
+	if r <= as.rtol {
 		// On the axis A = 0 and A/r tends to ∂A/∂r.
 		return a, -gy, 2 * gx
 	}

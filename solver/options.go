@@ -71,5 +71,8 @@ func (o Options) linearSolver() sparse.Solver {
 	if o.Solver != nil {
 		return o.Solver
 	}
-	return &jacobiCG{tol: o.LinearTol}
+	if o.Method == Iterative {
+		return &jacobiCG{tol: o.LinearTol}
+	}
+	return &sparse.Cholesky{}
 }

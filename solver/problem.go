@@ -141,11 +141,12 @@ func (p *Problem) validate() error {
 			return &ProblemError{Field: "Materials", Reason: fmt.Sprintf("triangle %d has region %d without a material", t, r)}
 		}
 	}
+	tol := axisTol(m)
 	for i := 0; i < nn; i++ {
 		if !finite(m.X[i]) || !finite(m.Y[i]) {
 			return &ProblemError{Field: "Mesh.X", Reason: fmt.Sprintf("node %d has a non-finite coordinate", i)}
 		}
-		if p.Formulation == Axisymmetric && m.X[i] < -axisTol(m) {
+		if p.Formulation == Axisymmetric && m.X[i] < -tol {
 			return &ProblemError{Field: "Mesh.X", Reason: fmt.Sprintf("node %d lies at r = %g < 0 in an axisymmetric model", i, m.X[i])}
 		}
 	}
