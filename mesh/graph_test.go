@@ -366,3 +366,67 @@ func TestBuildInputErrors(t *testing.T) {
 	}()
 	BuildInput([]Polygon{{X: []float64{0, 1, 1}, Y: []float64{0, 0}}}, bnd, GraphOptions{})
 }
+
+// absArea is the area of p as BuildInput meshes it.
+func absArea(p Polygon, opt GraphOptions) float64 {
+	x, y := DiscretizePolygon(p, opt)
+	return math.Abs(PolygonArea(x, y))
+}
+
+func TestBuildInputTriangulateAreas(t *testing.T) {
+	// Mesh each graph and compare the compensated area of every region
+	// with the area of its discretised polygon: the triangulation covers
+	// the chorded polygons exactly, so only rounding separates them
+	// (1e-9 relative, the bound Mesh.Check applies).
+	yoke := Polygon{
+		X:      []float64{0, 0.3, 0.3, 0.05, 0.05, 0.3, 0.3, 0},
+		Y:      []float64{0, 0, 0.05, 0.05, 0.25, 0.25, 0.3, 0.3},
+		Sweep:  []float64{0, 0, 0, 0, 0, 0, 0, 0},
+		Region: 1, Marker: 2,
+	}
+	yoke.Sweep[6] = 0.8 // rounded back, bulging outwards
+	coil := rect(0.08, 0.08, 0.2, 0.22, 2, 3)
+	pole := Polygon{X: []float64{0.22, 0.28, 0.25}, Y: []float64{0.1, 0.1, 0.16}, Region: 3, Marker: 4}
+	disc := Polygon{X: []float64{0.012, -0.012}, Y: []float64{0.5, 0.5}, Sweep: []float64{math.Pi, math.Pi}, Region: 4}
+	cases := []struct {
+		name    string
+		regions []Polygon
+		bnd     Polygon
+		size    float64
+	}{
+		{"C-core, coil, pole", []Polygon{yoke, coil, pole}, rect(-0.2, -0.2, 0.6, 0.55, 0, 1), 0.02},
+		{"disc on a shared edge pair", []Polygon{disc, rect(-0.05, 0.3, 0.05, 0.45, 5, 2), rect(0.05, 0.3, 0.1, 0.4, 6, 3)}, rect(-0.2, 0.2, 0.2, 0.7, 0, 1), 0.01},
+	}
+	for _, c := range cases {
+		opt := GraphOptions{}.WithDefaults(c.regions, c.bnd)
+		in, err := BuildInput(c.regions, c.bnd, opt)
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		checkGraph(t, c.name, in)
+		m, err := Triangulate(in, Options{Size: SizeField{Global: c.size}})
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		want := map[int32]float64{}
+		rest := absArea(c.bnd, opt)
+		for _, p := range c.regions {
+			a := absArea(p, opt)
+			want[p.Region] += a
+			rest -= a
+		}
+		want[c.bnd.Region] += rest
+		if err := m.Check(CheckOptions{MinAngle: DefaultMinAngle, Input: in, RegionAreas: want}); err != nil {
+			t.Errorf("%s: %v", c.name, err)
+		}
+		got := m.RegionAreas()
+		for r, a := range want {
+			if math.Abs(got[r]-a) > 1e-9*a {
+				t.Errorf("%s: region %d area %.15g, discretised polygon %.15g", c.name, r, got[r], a)
+			}
+		}
+		if len(got) != len(want) {
+			t.Errorf("%s: regions %v, want %v", c.name, got, want)
+		}
+	}
+}
