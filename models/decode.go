@@ -361,6 +361,14 @@ func (d *decoder) fmtLen(x float64) string {
 }
 
 func (d *decoder) fmtPoint(x, y float64) string {
+	// Drop rounding noise such as -4e-16 next to a coordinate of 100.
+	s := math.Max(math.Abs(x), math.Abs(y))
+	if math.Abs(x) < 1e-9*s {
+		x = 0
+	}
+	if math.Abs(y) < 1e-9*s {
+		y = 0
+	}
 	return fmt.Sprintf("(%s, %s) %s", d.fmtLen(x), d.fmtLen(y), d.units)
 }
 

@@ -98,7 +98,7 @@ func closest(s string, candidates []string) string {
 	if limit < 2 {
 		limit = 2
 	}
-	if bestD > limit {
+	if bestD > limit || bestD >= len(s) {
 		return ""
 	}
 	return best

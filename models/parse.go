@@ -124,7 +124,7 @@ func (d *decoder) parse(data []byte) *Model {
 
 	if n := top.get("regions"); n != nil {
 		d.regions(m, n)
-	} else if t == nil {
+	} else if top.get("template") == nil {
 		d.fail(top.node, "", "missing required key \"regions\"; add a list of regions (name, material, polygon) or use a template")
 	}
 	if n := top.get("coils"); n != nil {
@@ -187,6 +187,7 @@ func (d *decoder) materials(m *Model, n *yaml.Node) {
 				what = strings.Join(kinds, " and ")
 			}
 			d.fail(mf.node, path, "a material needs exactly one of curve, table, table-file, mu-r or remanence (got %s)", what)
+			m.Materials = append(m.Materials, mat) // keep the name: regions using it are not also wrong
 			continue
 		}
 		kind := kinds[0]

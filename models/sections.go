@@ -86,9 +86,7 @@ func (d *decoder) probes(m *Model, n *yaml.Node) {
 				}
 			}
 		}
-		if !good {
-			continue
-		}
+		_ = good // a bad probe keeps its name, so a target naming it is not also wrong
 		if old, ok := m.Probe(name); ok && d.generated["probe:"+name] {
 			delete(d.generated, "probe:"+name)
 			*old = p

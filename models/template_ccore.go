@@ -6,21 +6,21 @@ import "math"
 // mid-plane and x = 0 the outer face of the back leg. Lengths in the
 // model's units:
 //
-//	         0    leg-width     window-width      pole-width
-//	         |<--------->|<----------------->|<------------->|
-//	    yt - +-------------------------------------------------+ -
-//	         |                 upper-arm                       | arm-thickness
-//	    yr - +-----------+-------------------+-----------------+ -
-//	         |           |                    \  upper-pole   /  pole-height
-//	         |           |                     |             |   (taper to
-//	         | back-leg  |      window         +-+  face   +-+    pole-face-width,
-//	   g/2 - |           |                        +-------+       chamfer at
-//	     0 - |           |                        :  gap  :  gap  the face corners)
-//	  -g/2 - |           |                        +-------+
-//	         |           |                     lower-pole (mirror)
-//	   -yr - +-----------+-------------------+-----------------+
-//	         |                 lower-arm                       |
-//	   -yt - +-------------------------------------------------+
+//	       0    leg-width     window-width      pole-width
+//	       |<--------->|<----------------->|<------------->|
+//	  yt - +-------------------------------------------------+ -
+//	       |                 upper-arm                       | arm-thickness
+//	  yr - +-----------+-------------------+-----------------+ -
+//	       |           |                    \  upper-pole   /  pole-height
+//	       |           |                     |             |   (taper to
+//	       | back-leg  |      window         +-+  face   +-+    pole-face-width,
+//	 g/2 - |           |                        +-------+       chamfer at
+//	   0 - |           |                        :  gap  :  gap  the face corners)
+//	-g/2 - |           |                        +-------+
+//	       |           |                     lower-pole (mirror)
+//	 -yr - +-----------+-------------------+-----------------+
+//	       |                 lower-arm                       |
+//	 -yt - +-------------------------------------------------+
 //
 // yr = gap/2 + pole-height, yt = yr + arm-thickness. The pole root spans the
 // full pole-width at the arm; the face is pole-face-width wide (default
@@ -41,11 +41,15 @@ var cCoreCoils = []string{"back-leg", "poles"}
 
 func expandCCore(m *Model, t *dims, x *expansion) {
 	d := t.d
-	g := t.length("gap", 0, false, true)
+	g := 0.0
 	if v := t.f.get("gap"); v == nil {
 		t.misfit("gap", "template c-core needs dimension \"gap\": the distance between the pole faces")
-	} else if g == 0 && t.ok {
-		t.misfit("gap", "a zero gap leaves no room for a field: gap must be greater than zero")
+	} else if x, ok := d.number(v, t.f.sub("gap")); !ok {
+		t.ok = false
+	} else if x <= 0 {
+		t.misfit("gap", "gap is %s: the pole faces must stand apart, so gap must be greater than zero", v.Value)
+	} else {
+		g = d.m(x)
 	}
 	wp := t.length("pole-width", 0, true, false)
 	hp := t.length("pole-height", 0, true, false)

@@ -174,24 +174,22 @@ func (d *decoder) checkPolygon(m *Model, r *Region, tol float64) bool {
 		return false
 	}
 	area := r.Area()
-	if math.Abs(area) <= tol*math.Max(size2(r), tol) {
+	flat := math.Abs(area) <= tol*math.Max(size2(r), tol)
+	if flat && collinear(r, tol) {
 		d.failAt(Pos{r.Pos.Line, r.Pos.Column, ppath}, "open or degenerate polygon: region %q has zero area (are all vertices on one line?)", r.Name)
+		return false
+	}
+	if e1, e2, x, y, ok := r.selfIntersection(tol); ok {
+		d.failAt(r.VertexPos(min(e1, e2)), "self-intersecting polygon: edges from vertex %d and vertex %d of region %q meet near %s; a region must be a simple polygon, split it into two regions",
+			min(e1, e2), max(e1, e2), r.Name, d.fmtPoint(x, y))
+		return false
+	}
+	if flat {
+		d.failAt(Pos{r.Pos.Line, r.Pos.Column, ppath}, "open or degenerate polygon: region %q has zero area", r.Name)
 		return false
 	}
 	if area < 0 {
 		r.reverse()
-	}
-	if e1, e2, x, y, ok := r.selfIntersection(tol); ok {
-		p := r.VertexPos(e1)
-		if e2 < e1 {
-			p = r.VertexPos(e2)
-		}
-		d.failAt(p, "self-intersecting polygon: edges from vertex %d and vertex %d of region %q meet near %s; a region must be a simple polygon, split it into two regions",
-			min(e1, e2), max(e1, e2), r.Name, d.fmtPoint(x, y))
-		if area < 0 {
-			r.reverse()
-		}
-		return false
 	}
 	if m.Geometry == Axisymmetric {
 		for i := 0; i < n; i++ {
@@ -199,6 +197,30 @@ func (d *decoder) checkPolygon(m *Model, r *Region, tol float64) bool {
 				d.failAt(r.VertexPos(i), "region %q reaches r = %s; an axisymmetric model lies in r = x >= 0 (the axis is x = 0)", r.Name, d.fmtLen(x0))
 				return false
 			}
+		}
+	}
+	return true
+}
+
+// collinear reports whether a straight-edged region's vertices all lie on
+// one line.
+func collinear(r *Region, tol float64) bool {
+	for _, s := range r.Sweep {
+		if s != 0 {
+			return false
+		}
+	}
+	// The line through vertex 0 and the vertex farthest from it.
+	far, fd := 0, 0.0
+	for i := range r.X {
+		if d := math.Hypot(r.X[i]-r.X[0], r.Y[i]-r.Y[0]); d > fd {
+			far, fd = i, d
+		}
+	}
+	for i := range r.X {
+		if segDist(r.X[i], r.Y[i], r.X[0], r.Y[0], r.X[far], r.Y[far]) > tol &&
+			math.Abs(orient(r.X[0], r.Y[0], r.X[far], r.Y[far], r.X[i], r.Y[i])) > tol*fd {
+			return false
 		}
 	}
 	return true
