@@ -18,7 +18,9 @@ type CheckOptions struct {
 	// Input is the graph the mesh was made from (optional, for the angle
 	// exception above).
 	Input *Input
-	// Frozen lists segment markers exempt from the angle test nearby.
+	// Frozen lists segment markers exempt from the angle test nearby:
+	// triangles whose centroid is within one frozen edge length of a frozen
+	// edge.
 	Frozen []int32
 	// RegionAreas, when set, gives the expected area of each region tag; the
 	// compensated sum of triangle areas must match to 1e-9 relative.
@@ -177,14 +179,13 @@ func (m *Mesh) minAngle(t int) (float64, int) {
 
 func (m *Mesh) checkAngles(opt CheckOptions) error {
 	nt := len(m.Tri) / 3
-	frozenV := make(map[int32]bool)
+	var frozenE []int32 // frozen edges as vertex pairs
 	if len(opt.Frozen) > 0 {
 		for i, mk := range m.EdgeMarker {
 			for _, f := range opt.Frozen {
 				if mk == f {
 					t, k := i/3, i%3
-					frozenV[m.Tri[3*t+(k+1)%3]] = true
-					frozenV[m.Tri[3*t+(k+2)%3]] = true
+					frozenE = append(frozenE, m.Tri[3*t+(k+1)%3], m.Tri[3*t+(k+2)%3])
 				}
 			}
 		}
@@ -200,7 +201,7 @@ func (m *Mesh) checkAngles(opt CheckOptions) error {
 		if m.EdgeMarker[3*t+(k+1)%3] != 0 && m.EdgeMarker[3*t+(k+2)%3] != 0 {
 			continue // an input angle
 		}
-		if frozenV[m.Tri[3*t]] || frozenV[m.Tri[3*t+1]] || frozenV[m.Tri[3*t+2]] {
+		if m.nearFrozen(t, frozenE) {
 			continue
 		}
 		if opt.Input != nil && m.shellException(t, opt.Input) {
@@ -217,6 +218,23 @@ func (m *Mesh) checkAngles(opt CheckOptions) error {
 			Detail: fmt.Sprintf("smallest angle %.4g degrees below %g", worst, opt.MinAngle)}
 	}
 	return nil
+}
+
+// nearFrozen reports whether the centroid of t lies within one edge length
+// of a frozen edge: the refiner cannot put vertices on such an edge, so the
+// triangles it faces keep the shape its fixed vertices impose.
+func (m *Mesh) nearFrozen(t int, frozenE []int32) bool {
+	a, b, c := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
+	gx := (m.X[a] + m.X[b] + m.X[c]) / 3
+	gy := (m.Y[a] + m.Y[b] + m.Y[c]) / 3
+	for i := 0; i < len(frozenE); i += 2 {
+		u, v := frozenE[i], frozenE[i+1]
+		l := math.Hypot(m.X[v]-m.X[u], m.Y[v]-m.Y[u])
+		if distToSegment(gx, gy, m.X[u], m.Y[u], m.X[v], m.Y[v]) <= l {
+			return true
+		}
+	}
+	return false
 }
 
 // shellException reports whether the shortest edge of t joins points on two

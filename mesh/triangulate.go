@@ -75,8 +75,9 @@ func Triangulate(in *Input, opt Options) (*Mesh, error) {
 		return nil, err
 	}
 	m := d.export()
-	// TODO(order 2): call Elevate(m) from quadratic.go once it exists; until
-	// then Order 2 yields a first-order mesh.
+	if opt.Order == 2 {
+		Elevate(m)
+	}
 	return m, nil
 }
 
