@@ -166,3 +166,131 @@ func geometricRadii(r0, R float64, nth int) []float64 {
 	}
 	return out
 }
+
+// gridMesh triangulates the tensor-product grid xs × ys (strictly
+// increasing), cutting cells along alternating diagonals; region(x, y) tags
+// each triangle by its centroid. Boundary markers: 1 bottom, 2 right,
+// 3 top, 4 left.
+func gridMesh(xs, ys []float64, order int, region func(x, y float64) int32) *mesh.Mesh {
+	nx, ny := len(xs)-1, len(ys)-1
+	var x, y []float64
+	for j := 0; j <= ny; j++ {
+		for i := 0; i <= nx; i++ {
+			x = append(x, xs[i])
+			y = append(y, ys[j])
+		}
+	}
+	id := func(i, j int) int32 { return int32(j*(nx+1) + i) }
+	tri := make([]int32, 0, 6*nx*ny)
+	reg := make([]int32, 0, 2*nx*ny)
+	add := func(a, b, c int32) {
+		tri = append(tri, a, b, c)
+		r := int32(0)
+		if region != nil {
+			r = region((x[a]+x[b]+x[c])/3, (y[a]+y[b]+y[c])/3)
+		}
+		reg = append(reg, r)
+	}
+	for j := 0; j < ny; j++ {
+		for i := 0; i < nx; i++ {
+			a, b, c, d := id(i, j), id(i+1, j), id(i+1, j+1), id(i, j+1)
+			if (i+j)%2 == 0 {
+				add(a, b, c)
+				add(a, c, d)
+			} else {
+				add(a, b, d)
+				add(b, c, d)
+			}
+		}
+	}
+	x1, y0, y1 := xs[nx], ys[0], ys[ny]
+	marker := func(xm, ym float64) int32 {
+		switch {
+		case ym == y0:
+			return 1
+		case xm == x1:
+			return 2
+		case ym == y1:
+			return 3
+		default:
+			return 4
+		}
+	}
+	return finishMesh(x, y, tri, reg, marker, order)
+}
+
+// graded returns points from a to b (both included) whose spacing changes
+// geometrically from about ha at a to about hb at b.
+func graded(a, b, ha, hb float64) []float64 {
+	L := b - a
+	if math.Abs(ha-hb) < 1e-12*L {
+		n := int(math.Ceil(L / ha))
+		out := make([]float64, n+1)
+		for i := range out {
+			out[i] = a + L*float64(i)/float64(n)
+		}
+		return out
+	}
+	q := (L - ha) / (L - hb) // ratio of the series ha q^k summing to L
+	n := int(math.Ceil(math.Log(hb/ha)/math.Log(q))) + 1
+	if n < 1 {
+		n = 1
+	}
+	q = math.Pow(hb/ha, 1/float64(n-1+boolInt(n == 1)))
+	out := []float64{a}
+	var s float64
+	w := make([]float64, n)
+	for k := 0; k < n; k++ {
+		w[k] = math.Pow(q, float64(k))
+		s += w[k]
+	}
+	pos := a
+	for k := 0; k < n; k++ {
+		pos += L * w[k] / s
+		out = append(out, pos)
+	}
+	out[n] = b
+	return out
+}
+
+func boolInt(b bool) int {
+	if b {
+		return 1
+	}
+	return 0
+}
+
+// joinAxes concatenates point lists that share their end points.
+func joinAxes(parts ...[]float64) []float64 {
+	out := append([]float64(nil), parts[0]...)
+	for _, p := range parts[1:] {
+		out = append(out, p[1:]...)
+	}
+	return out
+}
+
+// boundaryNodes returns the nodes on boundary edges (Nbr == -1), midside
+// nodes included.
+func boundaryNodes(m *mesh.Mesh) []int32 {
+	seen := make(map[int32]bool)
+	var out []int32
+	addn := func(v int32) {
+		if !seen[v] {
+			seen[v] = true
+			out = append(out, v)
+		}
+	}
+	for t := 0; t < m.NumTriangles(); t++ {
+		for k := 0; k < 3; k++ {
+			if m.Nbr[3*t+k] != -1 {
+				continue
+			}
+			addn(m.Tri[3*t+(k+1)%3])
+			addn(m.Tri[3*t+(k+2)%3])
+			if m.Mid != nil {
+				addn(m.Mid[3*t+k])
+			}
+		}
+	}
+	return out
+}
