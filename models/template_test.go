@@ -1,0 +1,169 @@
+package models
+
+import (
+	"math"
+	"strings"
+	"testing"
+)
+
+// checkNoOverlap asserts that no two regions' interiors overlap, with the
+// same test Parse uses, and that every area is positive.
+func checkNoOverlap(t *testing.T, name string, m *Model) {
+	t.Helper()
+	for i := range m.Regions {
+		if a := m.Regions[i].Area(); !(a > 0) {
+			t.Errorf("%s: region %s area %g", name, m.Regions[i].Name, a)
+		}
+		for j := i + 1; j < len(m.Regions); j++ {
+			if x, y, ok := overlap(&m.Regions[i], &m.Regions[j], 1e-12); ok {
+				t.Errorf("%s: %s overlaps %s at (%g, %g)", name, m.Regions[i].Name, m.Regions[j].Name, x, y)
+			}
+		}
+	}
+}
+
+// checkAreas compares region areas with hand-computed values (m²). The
+// tolerance, 1e-12 relative, allows for the rounding of a few products.
+func checkAreas(t *testing.T, name string, m *Model, want map[string]float64) {
+	t.Helper()
+	if len(m.Regions) != len(want) {
+		t.Errorf("%s: %d regions, want %d", name, len(m.Regions), len(want))
+	}
+	for rn, w := range want {
+		r, ok := m.Region(rn)
+		if !ok {
+			t.Errorf("%s: no region %q", name, rn)
+			continue
+		}
+		if a := r.Area(); math.Abs(a-w) > 1e-12*w {
+			t.Errorf("%s: region %s area %.15g m², want %.15g", name, rn, a, w)
+		}
+	}
+}
+
+const cCore = `units: mm
+depth: 100
+template: c-core
+dimensions: {gap: 40, pole-width: 200, pole-height: 80, arm-thickness: 180, leg-width: 180,
+  window-width: 120, coil-width: 100, coil-height: 160, clearance: 10, turns: 320, current: 100}
+`
+
+func TestCCoreAreas(t *testing.T) {
+	mm2 := 1e-6 // m² per mm²
+	// Hand computation for gap 40, pole 200 × 80, arm 180, leg 180,
+	// window 120, coil 100 × 160: back leg 180 × (40 + 2·80); arm
+	// (180 + 120 + 200) × 180; pole 200 × 80; gap 200 × 40.
+	m := mustParse(t, "c-core", cCore)
+	checkNoOverlap(t, "c-core", m)
+	checkAreas(t, "c-core", m, map[string]float64{
+		"back-leg": 180 * 200 * mm2, "upper-arm": 500 * 180 * mm2, "lower-arm": 500 * 180 * mm2,
+		"upper-pole": 200 * 80 * mm2, "lower-pole": 200 * 80 * mm2, "gap": 200 * 40 * mm2,
+		"coil-left": 100 * 160 * mm2, "coil-right": 100 * 160 * mm2,
+	})
+	// Tapered face 160 wide with 10 chamfers: trapezoid (200 + 160)/2 × 80
+	// less two corner triangles ½·c²·sin φ, φ the angle between the face and
+	// the side, whose direction is (20, 80)/|(20, 80)|: sin φ = 80/√6800.
+	// The gap spans the flat face, 160 - 2·10 = 140 wide.
+	tp := strings.Replace(cCore, "gap: 40", "gap: 40, pole-face-width: 160, chamfer: 10, coil: poles, coil-height: 60", 1)
+	tp = strings.Replace(tp, "coil-height: 160, ", "", 1)
+	tp = strings.Replace(tp, "coil-width: 100", "coil-width: 90", 1)
+	m = mustParse(t, "c-core tapered", tp)
+	checkNoOverlap(t, "c-core tapered", m)
+	sinPhi := 80 / math.Sqrt(6800)
+	pole := ((200+160)/2*80 - 2*0.5*10*10*sinPhi) * mm2
+	checkAreas(t, "c-core tapered", m, map[string]float64{
+		"back-leg": 180 * 200 * mm2, "upper-arm": 500 * 180 * mm2, "lower-arm": 500 * 180 * mm2,
+		"upper-pole": pole, "lower-pole": pole, "gap": 140 * 40 * mm2,
+		"coil-upper-left": 90 * 60 * mm2, "coil-upper-right": 90 * 60 * mm2,
+		"coil-lower-left": 90 * 60 * mm2, "coil-lower-right": 90 * 60 * mm2,
+	})
+	// Pole coils in series: each side carries the coil's turns; the senses
+	// drive the gap field along +y (window sides +1, outer sides -1).
+	c, _ := m.Coil("main")
+	senses := map[string]float64{}
+	for _, s := range c.Sides {
+		senses[s.Region] = s.Sense
+	}
+	if senses["coil-upper-left"] != 1 || senses["coil-lower-left"] != 1 || senses["coil-upper-right"] != -1 || senses["coil-lower-right"] != -1 {
+		t.Errorf("pole coil senses %v", senses)
+	}
+	// Probes: gap-centre at the pole centre on the mid-plane.
+	p, _ := m.Probe("gap-centre")
+	if p.Point != [2]float64{0.4, 0} {
+		t.Errorf("gap-centre %v", p.Point)
+	}
+	if m.Target != nil {
+		t.Errorf("target without field: %+v", m.Target)
+	}
+}
+
+func TestSolenoidAreas(t *testing.T) {
+	src := `units: mm
+geometry: axisymmetric
+template: solenoid
+dimensions: {inner-radius: 40, thickness: 50, length: 100, clearance: 4, turns: 1000, current: 14, field: 0.8}
+`
+	mm2 := 1e-6
+	m := mustParse(t, "air solenoid", src)
+	checkAreas(t, "air solenoid", m, map[string]float64{"winding": 50 * 100 * mm2})
+	if m.Target == nil || m.Target.Probe != "centre" || m.Target.Field != 0.8 {
+		t.Errorf("target %+v", m.Target)
+	}
+	// With yoke and poles: shell inner radius 40 + 50 + 4 = 94, outer 119;
+	// plates from z = 54 to 79, hole radius 35; poles r <= 35 from z = 10.
+	// Yoke = (119 - 35) × 158 - (94 - 35) × 108; pole = 35 × (79 - 10).
+	src = strings.Replace(src, "clearance: 4,", "clearance: 4, yoke-thickness: 25, bore-radius: 35, pole-gap: 20,", 1)
+	m = mustParse(t, "iron solenoid", src)
+	checkNoOverlap(t, "iron solenoid", m)
+	checkAreas(t, "iron solenoid", m, map[string]float64{
+		"winding": 50 * 100 * mm2, "yoke": (84*158 - 59*108) * mm2,
+		"upper-pole": 35 * 69 * mm2, "lower-pole": 35 * 69 * mm2,
+	})
+	// The geometry must lie in r >= 0 and touch the axis only with the poles.
+	x0, _, x1, _ := m.Extent()
+	if x0 != 0 || math.Abs(x1-0.119) > 1e-15 {
+		t.Errorf("extent r from %g to %g", x0, x1)
+	}
+}
+
+func TestTemplateOverride(t *testing.T) {
+	src := cCore + `regions:
+  - {name: gap, material: brass, polygon: [[320, -20], [480, -20], [480, 20], [320, 20]]}
+  - {name: shim, material: brass, polygon: [[600, 0], [610, 0], [610, 10]]}
+materials:
+  brass: {mu-r: 1}
+coils:
+  - {name: main, turns: 10, current: 1, sides: [{region: coil-left, sense: +1}]}
+probes:
+  gap-centre: {point: [300, 0]}
+  extra: {point: [0, 0]}
+mesh: {refine: [{near: shim, size: 1}]}
+target: {probe: extra, field: 0.1}
+`
+	m := mustParse(t, "override", src)
+	g, _ := m.Region("gap")
+	if g.Material != "brass" || g.Pos.Line == 0 || math.Abs(g.Area()-160*40*1e-6) > 1e-18 {
+		t.Errorf("gap not replaced: %+v", g)
+	}
+	if len(m.Regions) != 9 || m.Regions[8].Name != "shim" {
+		t.Errorf("regions: %v", regionNames(m))
+	}
+	c, _ := m.Coil("main")
+	if len(m.Coils) != 1 || c.Turns != 10 || len(c.Sides) != 1 {
+		t.Errorf("coil not replaced: %+v", c)
+	}
+	p, _ := m.Probe("gap-centre")
+	if p.Point[0] != 0.3 || len(m.Probes) != 4 {
+		t.Errorf("probes: %v", m.Probes)
+	}
+	if len(m.Mesh.Refine) != 1 || m.Mesh.Refine[0].Near != "shim" {
+		t.Errorf("refine not replaced: %+v", m.Mesh.Refine)
+	}
+	if m.Target.Probe != "extra" {
+		t.Errorf("target %+v", m.Target)
+	}
+	// A user region overlapping a template region is an error at the user's line.
+	bad := cCore + "regions: [{name: plate, material: air, polygon: [[0, 0], [10, 0], [10, 10]]}]\n"
+	runErrCases(t, []errCase{{"overlaps template", bad,
+		`m.yaml:6:11: regions[0]: region "plate" overlaps region "back-leg" near (5, 0.0005) mm; regions may touch or share edges but not overlap (one inside another is an overlap too: cut a hole by splitting the outer region)`}})
+}
