@@ -3,6 +3,7 @@ package mesh
 import (
 	"errors"
 	"math"
+	"math/rand/v2"
 	"strings"
 	"testing"
 )
@@ -427,6 +428,74 @@ func TestBuildInputTriangulateAreas(t *testing.T) {
 		}
 		if len(got) != len(want) {
 			t.Errorf("%s: regions %v, want %v", c.name, got, want)
+		}
+	}
+}
+
+// TestBuildInputRandomOverlaps throws random overlapping rectangles (on a
+// coarse lattice, so edges overlap, touch and share vertices) and random
+// triangles (so edges cross at computed points) at BuildInput with the
+// later-wins rule, meshes the result and checks the region of the mesh at
+// random points against the last polygon that contains each point.
+func TestBuildInputRandomOverlaps(t *testing.T) {
+	rng := rand.New(rand.NewPCG(1, 1))
+	bnd := rect(-1, -1, 11, 11, 0, 1)
+	for trial := 0; trial < 25; trial++ {
+		var regions []Polygon
+		for k := 0; k < 5; k++ {
+			if rng.IntN(2) == 0 {
+				x0, y0 := float64(rng.IntN(8)), float64(rng.IntN(8))
+				regions = append(regions, rect(x0, y0, x0+1+float64(rng.IntN(4)), y0+1+float64(rng.IntN(4)), int32(k+1), int32(k+2)))
+				continue
+			}
+			p := Polygon{Region: int32(k + 1), Marker: int32(k + 2)}
+			for len(p.X) < 3 {
+				p.X, p.Y = append(p.X, 10*rng.Float64()), append(p.Y, 10*rng.Float64())
+			}
+			if math.Abs(PolygonArea(p.X, p.Y)) < 0.5 {
+				continue
+			}
+			regions = append(regions, p)
+		}
+		name := "trial " + itoa(trial)
+		in, err := BuildInput(regions, bnd, GraphOptions{Overlap: OverlapLaterWins})
+		if err != nil {
+			t.Fatalf("%s: %v", name, err)
+		}
+		checkGraph(t, name, in)
+		m, err := Triangulate(in, Options{Size: SizeField{Global: 1}})
+		if err != nil {
+			t.Fatalf("%s: %v", name, err)
+		}
+		if err := m.Check(CheckOptions{Input: in, RegionAreas: nil}); err != nil {
+			t.Fatalf("%s: %v", name, err)
+		}
+		if s := m.Stats(); math.Abs(s.Area-144) > 1e-12*144 {
+			t.Errorf("%s: total area %.15g, want 144", name, s.Area)
+		}
+		l := NewLocator(m)
+		for i := 0; i < 200; i++ {
+			x, y := -1+12*rng.Float64(), -1+12*rng.Float64()
+			want := int32(0)
+			near := false
+			for _, p := range regions {
+				for e := range p.X {
+					f := (e + 1) % len(p.X)
+					ex, ey := p.X[f]-p.X[e], p.Y[f]-p.Y[e]
+					u := math.Min(math.Max(((x-p.X[e])*ex+(y-p.Y[e])*ey)/(ex*ex+ey*ey), 0), 1)
+					near = near || math.Hypot(p.X[e]+u*ex-x, p.Y[e]+u*ey-y) < 1e-6
+				}
+				if inPolygon(p.X, p.Y, x, y) {
+					want = p.Region
+				}
+			}
+			if near {
+				continue
+			}
+			tr, _, _, _, ok := l.Find(x, y)
+			if !ok || m.Region[tr] != want {
+				t.Fatalf("%s: region at (%g, %g) is %d (found %v), want %d", name, x, y, m.Region[tr], ok, want)
+			}
 		}
 	}
 }
