@@ -142,7 +142,7 @@ target: {probe: extra, field: 0.1}
 `
 	m := mustParse(t, "override", src)
 	g, _ := m.Region("gap")
-	if g.Material != "brass" || g.Pos.Line == 0 || math.Abs(g.Area()-160*40*1e-6) > 1e-18 {
+	if g.Material != "brass" || g.Pos.Line == 0 || math.Abs(g.Area()-160*40*1e-6) > 1e-12*160*40*1e-6 {
 		t.Errorf("gap not replaced: %+v", g)
 	}
 	if len(m.Regions) != 9 || m.Regions[8].Name != "shim" {
