@@ -1,0 +1,121 @@
+package main
+
+import (
+	"encoding/json"
+	"flag"
+	"fmt"
+	"io"
+	"time"
+
+	"gonum.org/v1/plot/vg"
+
+	"polegap/internal/fileout"
+	"polegap/mesh"
+	"polegap/post/plot"
+	"polegap/post/prepare"
+)
+
+var cmdMesh = &Command{
+	UsageLine: "mesh [--out FILE.vtu] [--png FILE.png] [--json] MODEL",
+	Short:     "mesh a model and print the mesh statistics",
+	Long: `Mesh builds the model's geometry, triangulates it with the model's mesh
+controls (size, per-region sizes, refinement near named places, element
+order) and prints the mesh statistics: nodes, triangles, the smallest and
+mean angle, the worst aspect ratio and the triangles per region.
+
+MODEL is a model file or the name of an embedded example.
+--out writes the mesh as a VTK XML unstructured grid (.vtu) with region ids;
+--png (or .svg) draws it, each region coloured by kind.`,
+	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
+		out := fs.String("out", "", "write the mesh to this .vtu file")
+		png := fs.String("png", "", "draw the mesh to this .png or .svg file")
+		asJSON := fs.Bool("json", false, "print the statistics as JSON")
+		return func(env *Env, args []string) error {
+			if err := oneModel(args); err != nil {
+				return err
+			}
+			m, err := loadModel(args[0])
+			if err != nil {
+				return err
+			}
+			start := time.Now()
+			d, err := prepare.Discretize(m)
+			if err != nil {
+				return err
+			}
+			elapsed := time.Since(start)
+			if *out != "" {
+				if err := writeMeshVTU(*out, d); err != nil {
+					return err
+				}
+			}
+			if *png != "" {
+				if err := drawMesh(*png, d); err != nil {
+					return err
+				}
+			}
+			if *asJSON {
+				return writeJSON(env.Stdout, meshReport(d))
+			}
+			printMeshStats(env.Stdout, d, elapsed)
+			return nil
+		}
+	},
+}
+
+func writeMeshVTU(path string, d *prepare.Discretization) error {
+	return fileout.Write(path, func(w io.Writer) error { return mesh.WriteVTU(w, d.Mesh) })
+}
+
+func drawMesh(path string, d *prepare.Discretization) error {
+	m := d.Mesh
+	p := plot.MeshFigure(d.Model.Name+": mesh", m.X, m.Y, m.Tri, m.Region, d.RegionKind)
+	const width = 18 * vg.Centimeter
+	return plot.Save(p, width, plot.EqualAspectHeight(p, width), path)
+}
+
+// meshStats is the JSON form of the mesh statistics.
+type meshStats struct {
+	Nodes       int            `json:"nodes"`
+	Triangles   int            `json:"triangles"`
+	Order       int            `json:"order"`
+	MinAngle    float64        `json:"min_angle_deg"`
+	MeanAngle   float64        `json:"mean_angle_deg"`
+	WorstAspect float64        `json:"worst_aspect"`
+	Regions     []regionStats  `json:"regions"`
+}
+
+type regionStats struct {
+	Name      string  `json:"name"`
+	Triangles int     `json:"triangles"`
+	Area      float64 `json:"area_m2"`
+}
+
+func meshReport(d *prepare.Discretization) meshStats {
+	s := d.Mesh.Stats()
+	r := meshStats{
+		Nodes: s.Nodes, Triangles: s.Triangles, Order: d.Mesh.Order(),
+		MinAngle: s.MinAngle, MeanAngle: s.MeanAngle, WorstAspect: s.WorstAspect,
+	}
+	for _, pr := range s.PerRegion {
+		r.Regions = append(r.Regions, regionStats{Name: d.RegionName(pr.Region), Triangles: pr.Triangles, Area: pr.Area})
+	}
+	return r
+}
+
+func printMeshStats(w io.Writer, d *prepare.Discretization, elapsed time.Duration) {
+	r := meshReport(d)
+	fmt.Fprintf(w, "model      %s (%s)\n", d.Model.Name, d.Model.File)
+	fmt.Fprintf(w, "mesh       %d nodes, %d triangles, order %d, built in %v\n", r.Nodes, r.Triangles, r.Order, elapsed.Round(time.Millisecond))
+	fmt.Fprintf(w, "quality    min angle %.1f°, mean angle %.1f°, worst aspect ratio %.2f\n", r.MinAngle, r.MeanAngle, r.WorstAspect)
+	fmt.Fprintf(w, "\n%-20s %10s %14s\n", "region", "triangles", "area (mm²)")
+	for _, rs := range r.Regions {
+		fmt.Fprintf(w, "%-20s %10d %14.2f\n", rs.Name, rs.Triangles, rs.Area*1e6)
+	}
+}
+
+func writeJSON(w io.Writer, v any) error {
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	return enc.Encode(v)
+}

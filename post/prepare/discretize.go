@@ -1,0 +1,158 @@
+package prepare
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"polegap/mesh"
+	"polegap/models"
+	"polegap/post/plot"
+)
+
+// Discretization is a model with its mesh.
+type Discretization struct {
+	Model    *models.Model
+	Boundary mesh.Polygon
+	Input    *mesh.Input
+	Options  mesh.Options
+	Mesh     *mesh.Mesh
+}
+
+// RegionName returns the model name of a region tag ("air" for AirTag).
+func (d *Discretization) RegionName(tag int32) string {
+	if tag == AirTag || int(tag) > len(d.Model.Regions) {
+		return "air"
+	}
+	return d.Model.Regions[tag-1].Name
+}
+
+// SizeField returns the mesher's size field for the model: the global size,
+// each region's mesh-size and the refine entries (near a region's edges, a
+// probe, a point or a line).
+func SizeField(m *models.Model) mesh.SizeField {
+	f := mesh.SizeField{Global: m.Mesh.Size, Grading: m.Mesh.Grading, Region: map[int32]float64{}}
+	for i, r := range m.Regions {
+		if r.MeshSize > 0 {
+			f.Region[Tag(i)] = r.MeshSize
+		}
+	}
+	addPolygon := func(x, y []float64, size float64) {
+		for i := range x {
+			j := (i + 1) % len(x)
+			f.Lines = append(f.Lines, mesh.SizeLine{X0: x[i], Y0: y[i], X1: x[j], Y1: y[j], Size: size})
+		}
+	}
+	for _, rf := range m.Mesh.Refine {
+		switch {
+		case rf.Point != nil:
+			f.Points = append(f.Points, mesh.SizePoint{X: rf.Point[0], Y: rf.Point[1], Size: rf.Size})
+		case rf.Line != nil:
+			f.Lines = append(f.Lines, mesh.SizeLine{X0: rf.Line[0][0], Y0: rf.Line[0][1], X1: rf.Line[1][0], Y1: rf.Line[1][1], Size: rf.Size})
+		case rf.Near != "":
+			if r, ok := m.Region(rf.Near); ok {
+				addPolygon(r.X, r.Y, rf.Size)
+				continue
+			}
+			if p, ok := m.Probe(rf.Near); ok {
+				switch p.Kind {
+				case "point":
+					f.Points = append(f.Points, mesh.SizePoint{X: p.Point[0], Y: p.Point[1], Size: rf.Size})
+				case "line":
+					f.Lines = append(f.Lines, mesh.SizeLine{X0: p.Line[0][0], Y0: p.Line[0][1], X1: p.Line[1][0], Y1: p.Line[1][1], Size: rf.Size})
+				case "box":
+					b := p.Box
+					addPolygon([]float64{b[0][0], b[1][0], b[1][0], b[0][0]}, []float64{b[0][1], b[0][1], b[1][1], b[1][1]}, rf.Size)
+				case "circle":
+					const n = 16
+					x, y := make([]float64, n), make([]float64, n)
+					for k := range x {
+						a := 2 * math.Pi * float64(k) / n
+						x[k], y[k] = p.Centre[0]+p.Radius*math.Cos(a), p.Centre[1]+p.Radius*math.Sin(a)
+					}
+					addPolygon(x, y, rf.Size)
+				}
+			}
+		}
+	}
+	return f
+}
+
+// Options returns the mesher options of the model.
+func Options(m *models.Model) mesh.Options {
+	return mesh.Options{
+		MinAngle: m.Mesh.MinAngle,
+		Size:     SizeField(m),
+		Order:    m.Mesh.Order,
+	}
+}
+
+// Discretize builds the model's straight-line graph and meshes it.
+func Discretize(m *models.Model) (*Discretization, error) {
+	d := &Discretization{Model: m, Options: Options(m)}
+	var err error
+	if d.Boundary, err = Boundary(m); err != nil {
+		return nil, err
+	}
+	gopt := mesh.GraphOptions{ChordTol: m.Mesh.Chord}
+	d.Input, err = mesh.BuildInput(Polygons(m), d.Boundary, gopt)
+	if err != nil {
+		return nil, d.locate(err)
+	}
+	d.Mesh, err = mesh.Triangulate(d.Input, d.Options)
+	if err != nil {
+		return nil, fmt.Errorf("%s: meshing: %w", m.File, err)
+	}
+	return d, nil
+}
+
+// locate turns a mesher error that names a polygon into an error at that
+// region's place in the model file.
+func (d *Discretization) locate(err error) error {
+	var ge *mesh.GraphError
+	if errors.As(err, &ge) && ge.Polygon >= 0 && ge.Polygon < len(d.Model.Regions) {
+		r := &d.Model.Regions[ge.Polygon]
+		msg := ge.Reason
+		if ge.Other >= 0 && ge.Other < len(d.Model.Regions) {
+			msg += fmt.Sprintf(" (with region %q)", d.Model.Regions[ge.Other].Name)
+		}
+		if ge.HasAt {
+			msg += fmt.Sprintf(" near (%g, %g) m", ge.X, ge.Y)
+		}
+		return d.Model.Errorf(r.Pos, "region %q: %s; check its polygon", r.Name, msg)
+	}
+	return fmt.Errorf("%s: building the geometry: %w", d.Model.File, err)
+}
+
+// RegionKind classifies a region tag for figures: air, iron, coil, magnet
+// or other (a linear non-magnetic part such as brass or a spacer).
+func (d *Discretization) RegionKind(tag int32) int {
+	if tag == AirTag || int(tag) > len(d.Model.Regions) {
+		return plot.KindAir
+	}
+	r := &d.Model.Regions[tag-1]
+	for _, c := range d.Model.Coils {
+		for _, s := range c.Sides {
+			if s.Region == r.Name {
+				return plot.KindCoil
+			}
+		}
+	}
+	switch r.Material {
+	case "air", "vacuum":
+		return plot.KindAir
+	case "copper", "aluminium", "aluminum":
+		return plot.KindCoil
+	}
+	mat, ok := d.Model.Material(r.Material)
+	if !ok {
+		return plot.KindIron // a built-in curve named directly
+	}
+	switch {
+	case mat.Magnet != nil:
+		return plot.KindMagnet
+	case mat.Curve != "" || len(mat.Table) > 0 || mat.TableFile != "" || mat.MuR > 1.5:
+		return plot.KindIron
+	}
+	return plot.KindOther
+}
