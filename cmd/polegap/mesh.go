@@ -76,13 +76,13 @@ func drawMesh(path string, d *prepare.Discretization) error {
 
 // meshStats is the JSON form of the mesh statistics.
 type meshStats struct {
-	Nodes       int            `json:"nodes"`
-	Triangles   int            `json:"triangles"`
-	Order       int            `json:"order"`
-	MinAngle    float64        `json:"min_angle_deg"`
-	MeanAngle   float64        `json:"mean_angle_deg"`
-	WorstAspect float64        `json:"worst_aspect"`
-	Regions     []regionStats  `json:"regions"`
+	Nodes       int           `json:"nodes"`
+	Triangles   int           `json:"triangles"`
+	Order       int           `json:"order"`
+	MinAngle    float64       `json:"min_angle_deg"`
+	MeanAngle   float64       `json:"mean_angle_deg"`
+	WorstAspect float64       `json:"worst_aspect"`
+	Regions     []regionStats `json:"regions"`
 }
 
 type regionStats struct {
