@@ -298,7 +298,7 @@ func (d *decoder) str(n *yaml.Node, path, what string) (string, bool) {
 
 // enum reads one of the allowed words.
 func (d *decoder) enum(n *yaml.Node, path, what string, allowed []string) (string, bool) {
-	s, ok := d.str(n, path, what)
+	s, ok := d.str(n, path, "one of "+oneOf(allowed))
 	if !ok {
 		return "", false
 	}

@@ -104,9 +104,9 @@ func TestErrOverlap(t *testing.T) {
 func TestErrCoilSide(t *testing.T) {
 	runErrCases(t, []errCase{
 		{"missing region", edit(t, "{region: coil-a, sense: +1}", "{region: coil-b, sense: +1}"),
-			`m.yaml:17:13: coils[0].sides[0].region: coil side names region "coil-b", which does not exist; add it under regions; did you mean "coil-a"?`},
+			`m.yaml:17:22: coils[0].sides[0].region: coil side names region "coil-b", which does not exist; add it under regions; did you mean "coil-a"?`},
 		{"used twice", edit(t, "{region: coil-a, sense: +1}", "{region: coil-a, sense: +1}, {region: coil-a, sense: -1}"),
-			`m.yaml:17:42: coils[0].sides[1].region: region "coil-a" is already a coil side (coils[0].sides[0].region, line 17); each region carries one coil side`},
+			`m.yaml:17:51: coils[0].sides[1].region: region "coil-a" is already a coil side (coils[0].sides[0].region, line 17); each region carries one coil side`},
 		{"zero turns", edit(t, "turns: 100", "turns: 0"),
 			`m.yaml:15:12: coils[0].turns: turns must be greater than zero, got 0`},
 		{"no sides", edit(t, "sides: [{region: coil-a, sense: +1}]", "sides: []"),
@@ -128,8 +128,8 @@ func TestErrNegativeSize(t *testing.T) {
 func TestErrReferences(t *testing.T) {
 	runErrCases(t, []errCase{
 		{"target probe", edit(t, "{probe: p, field", "{probe: q, field"), `m.yaml:20:17: target.probe: target probe "q" is not defined; add it under probes`},
-		{"refine near", base + "mesh: {refine: [{near: cor, size: 1}]}\n", `m.yaml:21:17: mesh.refine[0].near: refine near "cor" names no region or probe; did you mean "core"?`},
-		{"material", edit(t, "    material: steel", "    material: steal"), `m.yaml:7:5: regions[0].material: material "steal" is not defined; define it under materials (air and copper are built in); did you mean "steel"?`},
+		{"refine near", base + "mesh: {refine: [{near: cor, size: 1}]}\n", `m.yaml:21:24: mesh.refine[0].near: refine near "cor" names no region or probe; did you mean "core"?`},
+		{"material", edit(t, "    material: steel", "    material: steal"), `m.yaml:8:15: regions[0].material: material "steal" is not defined; define it under materials (air and copper are built in); did you mean "steel"?`},
 		{"air defined", edit(t, "steel: {mu-r: 1000}", "steel: {mu-r: 1000}\n  air: {mu-r: 1}"), `m.yaml:6:3: materials.air: "air" is built in (relative permeability 1); use it without defining it`},
 		{"two kinds", edit(t, "{mu-r: 1000}", "{mu-r: 1000, curve: x}"), `m.yaml:5:10: materials.steel: a material needs exactly one of curve, table, table-file, mu-r or remanence (got curve and mu-r)`},
 	})

@@ -89,7 +89,8 @@ type Region struct {
 	MeshSize float64   // m, local maximum element size; 0 = the global size
 	Pos      Pos
 
-	vertexPos []Pos // position of each vertex in the file, in stored order
+	vertexPos   []Pos // position of each vertex in the file, in stored order
+	materialPos Pos   // where the material name was written
 }
 
 // VertexPos returns where vertex i was written in the file (the region's own
@@ -107,6 +108,8 @@ type CoilSide struct {
 	Region string
 	Sense  float64
 	Pos    Pos
+
+	regionPos Pos // where the region name was written
 }
 
 // Coil is a winding. Every side carries Turns conductors, each carrying
@@ -155,6 +158,8 @@ type Refine struct {
 	Line  *[2][2]float64
 	Size  float64 // m
 	Pos   Pos
+
+	nearPos Pos // where the near name was written
 }
 
 // Probe kinds.

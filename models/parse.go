@@ -295,6 +295,7 @@ func (d *decoder) regions(m *Model, n *yaml.Node) {
 		}
 		if v := d.need(f, "material", "add material: <name> (a material defined under materials, or air or copper)"); v != nil {
 			r.Material, _ = d.str(v, f.sub("material"), "a material name")
+			r.materialPos = pos(v, f.sub("material"))
 		}
 		if v := f.get("mesh-size"); v != nil {
 			r.MeshSize, _ = d.length(v, f.sub("mesh-size"), "mesh-size")
@@ -437,6 +438,7 @@ func (d *decoder) coils(m *Model, n *yaml.Node) {
 					s := CoilSide{Pos: pos(sn, sp)}
 					if rv := d.need(sf, "region", "add region: <name of the region holding these conductors>"); rv != nil {
 						s.Region, _ = d.str(rv, sf.sub("region"), "a region name")
+						s.regionPos = pos(rv, sf.sub("region"))
 					}
 					if sv := d.need(sf, "sense", "add sense: +1 (current out of the page, or along +phi) or -1"); sv != nil {
 						if x, ok := d.number(sv, sf.sub("sense")); ok {

@@ -215,6 +215,7 @@ func (d *decoder) mesh(m *Model, n *yaml.Node) {
 			good := true
 			if v := rf.get("near"); v != nil {
 				r.Near, good = d.str(v, rf.sub("near"), "a region or probe name")
+				r.nearPos = pos(v, rf.sub("near"))
 			}
 			if v := rf.get("point"); v != nil {
 				var p [2]float64

@@ -38,7 +38,11 @@ func (d *decoder) validate(m *Model) {
 			if c := closest(r.Material, names); c != "" {
 				msg += "; did you mean \"" + c + "\"?"
 			}
-			d.failAt(Pos{r.Pos.Line, r.Pos.Column, join(r.Pos.Path, "material")}, msg, r.Material)
+			p := r.materialPos
+			if p.Path == "" {
+				p = Pos{r.Pos.Line, r.Pos.Column, join(r.Pos.Path, "material")}
+			}
+			d.failAt(p, msg, r.Material)
 		}
 	}
 
@@ -77,9 +81,9 @@ func (d *decoder) validate(m *Model) {
 			if s.Region == "" {
 				continue
 			}
-			p := Pos{s.Pos.Line, s.Pos.Column, join(index(join(c.Pos.Path, "sides"), j), "region")}
-			if s.Pos.Path != "" {
-				p.Path = join(s.Pos.Path, "region")
+			p := s.regionPos
+			if p.Path == "" { // made by a template
+				p = Pos{s.Pos.Line, s.Pos.Column, join(index(join(c.Pos.Path, "sides"), j), "region")}
 			}
 			if _, ok := m.Region(s.Region); !ok {
 				msg := "coil side names region %q, which does not exist; add it under regions"
@@ -110,7 +114,11 @@ func (d *decoder) validate(m *Model) {
 			if cl := closest(r.Near, names); cl != "" {
 				msg += "; did you mean \"" + cl + "\"?"
 			}
-			d.failAt(Pos{r.Pos.Line, r.Pos.Column, join(r.Pos.Path, "near")}, msg, r.Near)
+			p := r.nearPos
+			if p.Path == "" {
+				p = Pos{r.Pos.Line, r.Pos.Column, join(r.Pos.Path, "near")}
+			}
+			d.failAt(p, msg, r.Near)
 		}
 	}
 
@@ -174,7 +182,7 @@ func (d *decoder) checkPolygon(m *Model, r *Region, tol float64) bool {
 		return false
 	}
 	area := r.Area()
-	flat := math.Abs(area) <= tol*math.Max(size2(r), tol)
+	flat := math.Abs(area) <= tol*math.Sqrt(size2(r))
 	if flat && collinear(r, tol) {
 		d.failAt(Pos{r.Pos.Line, r.Pos.Column, ppath}, "open or degenerate polygon: region %q has zero area (are all vertices on one line?)", r.Name)
 		return false
