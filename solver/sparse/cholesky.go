@@ -36,14 +36,16 @@ type CholeskyOptions struct {
 type Cholesky struct {
 	Options CholeskyOptions
 
-	sym      *symbolic
-	lx       []float64
-	a        *CSR // matrix of the last Factor, for the residual
-	factored bool
-	work     []cholWork
-	y, r, ax []float64
-	errs     []error
-	failed   atomic.Bool
+	sym       *symbolic
+	lx        []float64
+	a         *CSR // matrix of the last Factor, for the residual
+	factored  bool
+	work      []cholWork
+	y, r, ax  []float64
+	errs      []error
+	failed    atomic.Bool
+	wg        sync.WaitGroup
+	workerFns []func()
 }
 
 type cholWork struct {
@@ -75,6 +77,10 @@ func (ch *Cholesky) Analyze(a *CSR) error {
 		ch.work[w] = cholWork{rel: make([]int32, s.n), c: make([]float64, s.maxC)}
 	}
 	ch.errs = make([]error, nw)
+	ch.workerFns = ch.workerFns[:0]
+	for w := range s.tasks {
+		ch.workerFns = append(ch.workerFns, func() { ch.runTasks(w) })
+	}
 	ch.y = make([]float64, s.n)
 	ch.r = make([]float64, s.n)
 	ch.ax = make([]float64, s.n)
@@ -108,12 +114,11 @@ func (ch *Cholesky) Factor(a *CSR) error {
 		ch.factored = true
 		return nil
 	}
-	var wg sync.WaitGroup
-	wg.Add(len(s.tasks))
-	for w := range s.tasks {
-		go ch.runTasks(w, a, &wg)
+	ch.wg.Add(len(s.tasks))
+	for _, fn := range ch.workerFns {
+		go fn() // func values made in Analyze: starting them allocates nothing
 	}
-	wg.Wait()
+	ch.wg.Wait()
 	for _, err := range ch.errs {
 		if err != nil {
 			return err
@@ -128,9 +133,9 @@ func (ch *Cholesky) Factor(a *CSR) error {
 	return nil
 }
 
-func (ch *Cholesky) runTasks(w int, a *CSR, wg *sync.WaitGroup) {
-	defer wg.Done()
-	s := ch.sym
+func (ch *Cholesky) runTasks(w int) {
+	defer ch.wg.Done()
+	s, a := ch.sym, ch.a
 	for _, r := range s.tasks[w] {
 		for t := s.first[r]; t <= r; t++ {
 			if ch.failed.Load() {

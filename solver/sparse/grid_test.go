@@ -108,3 +108,5 @@ func abs(x float64) float64 {
 	}
 	return x
 }
+
+func nan() float64 { z := 0.0; return z / z }
