@@ -1,3 +1,71 @@
 // Package solver assembles and solves the 2D magnetostatic finite-element
-// problem for the magnetic vector potential.
+// problem for the magnetic vector potential, linear or with nonlinear
+// B-H curves, and evaluates the fields of the solution.
+//
+// # Formulations and units
+//
+// SI units throughout: metres, amperes, tesla, webers per metre.
+//
+// Planar: the unknown is Az(x, y) and ∇·(ν ∇Az) = −Jz − (curl M)z, with
+// B = curl(Az ẑ) = (∂A/∂y, −∂A/∂x). All integrals are per metre of depth:
+// Energy is in J/m, and multiplying by Problem.Depth is left to the caller
+// (package post).
+//
+// Axisymmetric: x is the radius r >= 0 and y the axial coordinate z; the
+// unknown is Aφ(r, z) and B = curl(Aφ φ̂) = (−∂A/∂z, (1/r) ∂(rA)/∂r). The
+// weak form used is the r-weighted one for Aφ itself,
+//
+//	∫ ν [∂A/∂z ∂v/∂z + (∂A/∂r + A/r)(∂v/∂r + v/r)] r dr dz = ∫ Jφ v r dr dz,
+//
+// rather than the flux function ψ = rA with weight 1/r. The reason: on an
+// element with an edge on the axis every basis function that is not held
+// at zero vanishes on that edge, so it is r times a polynomial and the
+// A/r terms are polynomials that quadrature integrates exactly, whereas the
+// 1/r weight of the ψ form makes the stiffness of such elements diverge
+// logarithmically. Aφ = 0 on the axis (nodes with |r| <= 1e-10 of the
+// model's extent) is imposed automatically: it is the physical condition
+// for a finite field on the axis. Bz on the axis is evaluated as the limit
+// 2 ∂A/∂r. Energy is integrated over the full revolution (2π).
+//
+// Sign conventions: B = curl A; a positive current density (or
+// PointCurrent) points out of the page (+z, planar) or along +φ
+// (axisymmetric), and its field circulates counter-clockwise. The
+// constitutive law is H = ν(|B|²) B − M, with ν from Material and M from
+// Problem.Magnetization.
+//
+// # Discretisation
+//
+// P1 and P2 Lagrange triangles (types P1, P2) with Dunavant quadrature
+// (RuleOfDegree). Outer edges are ZeroPotential (Dirichlet A = 0) unless
+// their marker is FluxNormal (natural condition); Problem.Fixed holds nodes
+// at given potentials. Fixed nodes are removed by condensation, so the
+// reduced system stays symmetric positive definite. Problem.Identify joins
+// nodes into one unknown through a DOF map. The sparsity pattern and the
+// map from element entries to matrix positions are built once; every
+// assembly after that is a pure scatter, split over goroutines by row
+// ranges so that no two write the same entry.
+//
+// Solve runs Newton-Raphson with the exact tangent
+// K_t = K(ν) + 2 ν'(|B|²) (B·c_i)(B·c_j) and a backtracking line search;
+// a linear problem converges in one step. Convergence means relative
+// residual <= Options.Tol and an estimated next update <= Options.UpdateTol.
+// The symbolic factorization is computed once and reused for every step.
+//
+// # What mutates, what panics
+//
+// Solve never modifies the Problem, the mesh or Options.Initial. Kernels
+// named FooTo write into the caller's slice (nil is allocated). Numerical
+// outcomes are typed errors (*SingularError, *MaterialError,
+// *LinearSolveError, *NotConvergedError) and inconsistent data is a
+// *ProblemError; no failed solve returns a Solution and no NaN escapes.
+// Programmer misuse panics with a "solver: ..." message: a nil problem or
+// mesh, a wrong-length Options.Initial or destination slice, a negative
+// Options.Workers.
+//
+// # Invariants
+//
+// Triangles are counter-clockwise with straight sides; second-order
+// midside nodes sit at edge midpoints (mesh.Elevate). A Solution's A has
+// one entry per mesh node and is consistent: fixed nodes at their values,
+// identified nodes equal.
 package solver

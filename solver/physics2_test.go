@@ -80,7 +80,7 @@ func TestLineCurrentInIronRing(t *testing.T) {
 		tol   float64 // DESIGN.md: 0.5 % P1 (smoothed), 0.1 % P2
 	}{{1, 128, 5e-3}, {2, 128, 1e-3}} {
 		name := fmt.Sprintf("P%d", c.order)
-		radii := geometricRadii(1e-3, r1, c.nth)
+		radii := geometricRadii(0.02, r1, c.nth)
 		radii = append(radii, geometricRadii(r1, r2, c.nth)[1:]...)
 		radii = append(radii, geometricRadii(r2, R, c.nth)[1:]...)
 		m := diskMesh(radii, c.nth, c.order, func(r float64) int32 {

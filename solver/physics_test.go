@@ -34,7 +34,7 @@ func TestLineCurrentInAir(t *testing.T) {
 		{2, 128, 1e-3},
 	} {
 		name := fmt.Sprintf("P%d", c.order)
-		m := diskMesh(geometricRadii(1e-3, R, c.nth), c.nth, c.order, nil)
+		m := diskMesh(geometricRadii(2e-3, R, c.nth), c.nth, c.order, nil)
 		p := &Problem{Mesh: m, Materials: []Material{linear{1}},
 			PointCurrents: []PointCurrent{{Node: 0, Current: I}}}
 		s, err := Solve(p, Options{})
