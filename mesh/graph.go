@@ -249,6 +249,15 @@ type outline struct {
 	mk   []int32
 	ccw  bool // the input order was counter-clockwise
 	area float64
+	box  [4]float64 // x0, y0, x1, y1
+}
+
+// contains reports whether (x, y) lies strictly inside o.
+func (o *outline) contains(x, y float64) bool {
+	if x < o.box[0] || y < o.box[1] || x > o.box[2] || y > o.box[3] {
+		return false
+	}
+	return inPolygon(o.x, o.y, x, y)
 }
 
 // validate discretises p, drops repeated consecutive vertices and checks it.
@@ -292,6 +301,10 @@ func validate(idx int, p Polygon, opt GraphOptions) (outline, error) {
 		return o, graphErrAt(idx, fmt.Sprintf("intersects itself: edge %d meets edge %d", i, j), o.x[i], o.y[i])
 	}
 	o.ccw = o.area > 0
+	o.box = [4]float64{math.Inf(1), math.Inf(1), math.Inf(-1), math.Inf(-1)}
+	for i := range o.x {
+		o.box = [4]float64{math.Min(o.box[0], o.x[i]), math.Min(o.box[1], o.y[i]), math.Max(o.box[2], o.x[i]), math.Max(o.box[3], o.y[i])}
+	}
 	if !o.ccw {
 		// Reverse to counter-clockwise; edge i (i -> i+1) becomes edge
 		// n-2-i of the reversed list, so rotate markers with it.
@@ -424,15 +437,16 @@ func BuildInput(regions []Polygon, boundary Polygon, opt GraphOptions) (*Input, 
 	}
 	g.dedupe()
 	in := &Input{X: g.x, Y: g.y, Segments: g.seg, Markers: g.mk, DefaultRegion: boundary.Region}
+	sg := newSegGrid(g)
 	for _, f := range g.faces() {
-		sx, sy, ok := g.seed(f)
+		sx, sy, ok := g.seed(sg, f)
 		if !ok {
 			h := f[0]
 			return nil, graphErrAt(-1, "a face of the graph has no interior point clear of its edges", g.x[g.from(h)], g.y[g.from(h)])
 		}
-		if !inPolygon(bo.x, bo.y, sx, sy) {
+		if !bo.contains(sx, sy) {
 			for i := range outs {
-				if inPolygon(outs[i].x, outs[i].y, sx, sy) {
+				if outs[i].contains(sx, sy) {
 					return nil, graphErrAt(i, "reaches outside the boundary", sx, sy)
 				}
 			}
@@ -440,7 +454,7 @@ func BuildInput(regions []Polygon, boundary Polygon, opt GraphOptions) (*Input, 
 		}
 		owner := -1
 		for i := range outs {
-			if !inPolygon(outs[i].x, outs[i].y, sx, sy) {
+			if !outs[i].contains(sx, sy) {
 				continue
 			}
 			if owner >= 0 && opt.Overlap == OverlapError {
@@ -739,25 +753,120 @@ func (g *graph) faces() [][]int32 {
 // half-edges of cyc: for its edges, longest first, a ray from the middle of
 // the edge into the face, stopped half way to the first segment it meets.
 // It takes the first point farther than 4 MergeTol from every segment, or
-// else the clearest one found.
-func (g *graph) seed(cyc []int32) (x, y float64, ok bool) {
+// else the first point found.
+func (g *graph) seed(sg *segGrid, cyc []int32) (x, y float64, ok bool) {
 	hs := append([]int32(nil), cyc...)
 	length := func(h int32) float64 {
 		a, b := g.from(h), g.to(h)
 		return math.Hypot(g.x[b]-g.x[a], g.y[b]-g.y[a])
 	}
 	sort.SliceStable(hs, func(i, j int) bool { return length(hs[i]) > length(hs[j]) })
-	best := 0.0
 	for _, h := range hs {
 		a, b := g.from(h), g.to(h)
 		l := length(h)
 		mx, my := 0.5*(g.x[a]+g.x[b]), 0.5*(g.y[a]+g.y[b])
 		nx, ny := -(g.y[b]-g.y[a])/l, (g.x[b]-g.x[a])/l
-		tmin := math.Inf(1)
-		for s := 0; s < len(g.mk); s++ {
-			if int32(s) == h/2 {
+		tmin := sg.ray(g, mx, my, nx, ny, h/2)
+		if math.IsInf(tmin, 1) {
+			continue
+		}
+		sx, sy := mx+0.5*tmin*nx, my+0.5*tmin*ny
+		if !ok {
+			x, y, ok = sx, sy, true
+		}
+		if !sg.near(g, sx, sy, 4*g.tol) {
+			return sx, sy, true
+		}
+	}
+	return x, y, ok
+}
+
+// segGrid is a uniform bucket grid of segment bounding boxes, about one
+// cell per segment, for ray casting and proximity queries.
+type segGrid struct {
+	x0, y0, invH float64
+	nx, ny       int
+	start, items []int32
+	mark         []int32 // per segment: last query that tested it
+	query        int32
+}
+
+func newSegGrid(g *graph) *segGrid {
+	ns := len(g.mk)
+	sg := &segGrid{mark: make([]int32, ns)}
+	x0, y0, x1, y1 := math.Inf(1), math.Inf(1), math.Inf(-1), math.Inf(-1)
+	for _, v := range g.seg {
+		x0, x1 = math.Min(x0, g.x[v]), math.Max(x1, g.x[v])
+		y0, y1 = math.Min(y0, g.y[v]), math.Max(y1, g.y[v])
+	}
+	w, h := x1-x0, y1-y0
+	size := math.Sqrt(w * h / float64(max(ns, 1)))
+	if !(size > 0) {
+		size = math.Max(math.Max(w, h), 1)
+	}
+	sg.x0, sg.y0, sg.invH = x0, y0, 1/size
+	sg.nx, sg.ny = min(int(w/size)+1, 1<<14), min(int(h/size)+1, 1<<14)
+	nc := sg.nx * sg.ny
+	sg.start = make([]int32, nc+1)
+	each := func(s int, f func(c int)) {
+		a, b := g.seg[2*s], g.seg[2*s+1]
+		i0, i1 := sg.cx(math.Min(g.x[a], g.x[b])), sg.cx(math.Max(g.x[a], g.x[b]))
+		j0, j1 := sg.cy(math.Min(g.y[a], g.y[b])), sg.cy(math.Max(g.y[a], g.y[b]))
+		for j := j0; j <= j1; j++ {
+			for i := i0; i <= i1; i++ {
+				f(j*sg.nx + i)
+			}
+		}
+	}
+	for s := 0; s < ns; s++ {
+		each(s, func(c int) { sg.start[c+1]++ })
+	}
+	for c := 0; c < nc; c++ {
+		sg.start[c+1] += sg.start[c]
+	}
+	sg.items = make([]int32, sg.start[nc])
+	fill := append([]int32(nil), sg.start[:nc]...)
+	for s := 0; s < ns; s++ {
+		each(s, func(c int) { sg.items[fill[c]] = int32(s); fill[c]++ })
+	}
+	return sg
+}
+
+func (sg *segGrid) cx(x float64) int { return min(max(int((x-sg.x0)*sg.invH), 0), sg.nx-1) }
+func (sg *segGrid) cy(y float64) int { return min(max(int((y-sg.y0)*sg.invH), 0), sg.ny-1) }
+
+// ray returns the smallest t > 0 at which (mx, my) + t (nx, ny), a unit
+// direction, meets a segment other than skip, or +Inf. It visits the grid
+// cells along the ray in order (J. Amanatides, A. Woo, "A fast voxel
+// traversal algorithm for ray tracing", Eurographics 1987) and stops once
+// the nearest hit lies before the exit from the current cell.
+func (sg *segGrid) ray(g *graph, mx, my, nx, ny float64, skip int32) float64 {
+	sg.query++
+	h := 1 / sg.invH
+	i, j := sg.cx(mx), sg.cy(my)
+	stepI, stepJ := 1, 1
+	tMaxX, tMaxY := math.Inf(1), math.Inf(1)
+	tDX, tDY := math.Inf(1), math.Inf(1)
+	if nx > 0 {
+		tMaxX, tDX = (sg.x0+float64(i+1)*h-mx)/nx, h/nx
+	} else if nx < 0 {
+		stepI = -1
+		tMaxX, tDX = (sg.x0+float64(i)*h-mx)/nx, -h/nx
+	}
+	if ny > 0 {
+		tMaxY, tDY = (sg.y0+float64(j+1)*h-my)/ny, h/ny
+	} else if ny < 0 {
+		stepJ = -1
+		tMaxY, tDY = (sg.y0+float64(j)*h-my)/ny, -h/ny
+	}
+	tmin := math.Inf(1)
+	for {
+		c := j*sg.nx + i
+		for _, s := range sg.items[sg.start[c]:sg.start[c+1]] {
+			if s == skip || sg.mark[s] == sg.query {
 				continue
 			}
+			sg.mark[s] = sg.query
 			p, q := g.seg[2*s], g.seg[2*s+1]
 			// Solve m + t n = p + u (q - p) for t > 0, 0 <= u <= 1.
 			ex, ey := g.x[q]-g.x[p], g.y[q]-g.y[p]
@@ -772,31 +881,39 @@ func (g *graph) seed(cyc []int32) (x, y float64, ok bool) {
 				tmin = t
 			}
 		}
-		if math.IsInf(tmin, 1) {
-			continue
+		exit := math.Min(tMaxX, tMaxY)
+		if tmin <= exit {
+			return tmin
 		}
-		sx, sy := mx+0.5*tmin*nx, my+0.5*tmin*ny
-		c := g.clearance(sx, sy)
-		if c > best {
-			best, x, y, ok = c, sx, sy, true
+		if tMaxX < tMaxY {
+			i += stepI
+			tMaxX += tDX
+		} else {
+			j += stepJ
+			tMaxY += tDY
 		}
-		if c > 4*g.tol {
-			break
+		if i < 0 || i >= sg.nx || j < 0 || j >= sg.ny {
+			return tmin
 		}
 	}
-	return x, y, ok
 }
 
-// clearance is the distance from (x, y) to the nearest segment.
-func (g *graph) clearance(x, y float64) float64 {
-	d := math.Inf(1)
-	for s := 0; s < len(g.mk); s++ {
-		p, q := g.seg[2*s], g.seg[2*s+1]
-		ax, ay, bx, by := g.x[p], g.y[p], g.x[q], g.y[q]
-		ex, ey := bx-ax, by-ay
-		t := ((x-ax)*ex + (y-ay)*ey) / (ex*ex + ey*ey)
-		t = math.Min(math.Max(t, 0), 1)
-		d = math.Min(d, math.Hypot(ax+t*ex-x, ay+t*ey-y))
+// near reports whether a segment passes within r of (x, y).
+func (sg *segGrid) near(g *graph, x, y, r float64) bool {
+	for j := sg.cy(y - r); j <= sg.cy(y+r); j++ {
+		for i := sg.cx(x - r); i <= sg.cx(x+r); i++ {
+			c := j*sg.nx + i
+			for _, s := range sg.items[sg.start[c]:sg.start[c+1]] {
+				p, q := g.seg[2*s], g.seg[2*s+1]
+				ax, ay, bx, by := g.x[p], g.y[p], g.x[q], g.y[q]
+				ex, ey := bx-ax, by-ay
+				t := ((x-ax)*ex + (y-ay)*ey) / (ex*ex + ey*ey)
+				t = math.Min(math.Max(t, 0), 1)
+				if math.Hypot(ax+t*ex-x, ay+t*ey-y) <= r {
+					return true
+				}
+			}
+		}
 	}
-	return d
+	return false
 }

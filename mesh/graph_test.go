@@ -499,3 +499,32 @@ func TestBuildInputRandomOverlaps(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkBuildInput builds an invented model of n×n round conductors
+// (two half-circle arcs each) sitting on shared-edge square cells.
+func BenchmarkBuildInput(b *testing.B) {
+	for _, n := range []int{5, 20} {
+		var regions []Polygon
+		for i := 0; i < n; i++ {
+			for j := 0; j < n; j++ {
+				x, y := float64(i), float64(j)
+				regions = append(regions,
+					Polygon{X: []float64{x + 0.5 + 0.3, x + 0.5 - 0.3}, Y: []float64{y + 0.5, y + 0.5}, Sweep: []float64{math.Pi, math.Pi}, Region: 2, Marker: 3},
+					rect(x, y+0.9, x+1, y+0.95, 3, 4))
+			}
+		}
+		bnd := rect(-1, -1, float64(n)+1, float64(n)+2, 0, 1)
+		in, err := BuildInput(regions, bnd, GraphOptions{})
+		if err != nil {
+			b.Fatal(err)
+		}
+		b.Run(itoa(len(regions))+"-polygons/"+itoa(len(in.Segments)/2)+"-segments", func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				if _, err := BuildInput(regions, bnd, GraphOptions{}); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
