@@ -188,3 +188,50 @@ func itoa(n int) string {
 	}
 	return itoa(n/10) + string(rune('0'+n%10))
 }
+
+// BenchmarkLocatorGapModel locates points in a mesh graded like a magnet
+// model: an invented C-shaped yoke with a 5 mm gap, 0.5 mm triangles in the
+// gap growing to 10 mm in the air. Queries are uniform over the box and
+// along the gap's centre line, where post-processing samples most.
+func BenchmarkLocatorGapModel(b *testing.B) {
+	yoke := Polygon{
+		X:      []float64{0, 0.2, 0.2, 0.05, 0.05, 0.2, 0.2, 0},
+		Y:      []float64{0, 0, 0.0975, 0.0975, 0.1025, 0.1025, 0.2, 0.2},
+		Region: 1, Marker: 2,
+	}
+	bnd := rect(-0.2, -0.2, 0.4, 0.4, 0, 1)
+	in, err := BuildInput([]Polygon{yoke}, bnd, GraphOptions{})
+	if err != nil {
+		b.Fatal(err)
+	}
+	m, err := Triangulate(in, Options{Size: SizeField{Global: 0.01, Lines: []SizeLine{{X0: 0.05, Y0: 0.1, X1: 0.2, Y1: 0.1, Size: 0.0005}}, Grading: 0.3}})
+	if err != nil {
+		b.Fatal(err)
+	}
+	l := NewLocator(m)
+	rng := rand.New(rand.NewPCG(1, 1))
+	uni := make([][2]float64, 4096)
+	gap := make([][2]float64, 4096)
+	for i := range uni {
+		uni[i] = [2]float64{-0.2 + 0.6*rng.Float64(), -0.2 + 0.6*rng.Float64()}
+		gap[i] = [2]float64{0.05 + 0.15*rng.Float64(), 0.0975 + 0.005*rng.Float64()}
+	}
+	for _, c := range []struct {
+		name string
+		pts  [][2]float64
+	}{{"uniform", uni}, {"gap", gap}} {
+		b.Run(c.name+"/"+itoa(m.NumTriangles()), func(b *testing.B) {
+			b.ReportAllocs()
+			for i := 0; b.Loop(); i++ {
+				p := c.pts[i&4095]
+				l.Find(p[0], p[1])
+			}
+			b.ReportMetric(float64(b.N)/b.Elapsed().Seconds(), "queries/s")
+		})
+	}
+	b.Run("build/"+itoa(m.NumTriangles()), func(b *testing.B) {
+		for b.Loop() {
+			NewLocator(m)
+		}
+	})
+}

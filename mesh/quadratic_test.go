@@ -172,3 +172,14 @@ func TestElevatePanics(t *testing.T) {
 	}()
 	Elevate(m)
 }
+
+func BenchmarkElevate(b *testing.B) {
+	base := gridMesh(224, 224, 0, 0, 1.0/224, nil, nil) // 100,352 triangles
+	b.ReportAllocs()
+	for b.Loop() {
+		m := *base
+		m.X, m.Y, m.Mid = base.X[:base.NumVertices:base.NumVertices], base.Y[:base.NumVertices:base.NumVertices], nil
+		Elevate(&m)
+	}
+	b.ReportMetric(float64(base.NumTriangles())*float64(b.N)/b.Elapsed().Seconds(), "triangles/s")
+}
