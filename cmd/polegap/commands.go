@@ -11,6 +11,7 @@ import (
 // commands is the table of sub-commands, in the order help lists them.
 var commands = []*Command{
 	cmdDemo,
+	cmdSolve,
 	cmdMesh,
 	cmdExamples,
 }

@@ -27,20 +27,33 @@ func (d *Discretization) RegionName(tag int32) string {
 	return d.Model.Regions[tag-1].Name
 }
 
+// FarSizeDivisor sets the element size far out in the air: the model's
+// largest dimension divided by this.
+const FarSizeDivisor = 6
+
 // SizeField returns the mesher's size field for the model: the global size,
 // each region's mesh-size and the refine entries (near a region's edges, a
 // probe, a point or a line).
 func SizeField(m *models.Model) mesh.SizeField {
-	f := mesh.SizeField{Global: m.Mesh.Size, Grading: m.Mesh.Grading, Region: map[int32]float64{}}
-	for i, r := range m.Regions {
-		if r.MeshSize > 0 {
-			f.Region[Tag(i)] = r.MeshSize
-		}
-	}
+	xmin, ymin, xmax, ymax := m.Extent()
+	far := math.Max(xmax-xmin, ymax-ymin) / FarSizeDivisor
+	f := mesh.SizeField{Global: math.Max(far, m.Mesh.Size), Grading: m.Mesh.Grading, Region: map[int32]float64{}}
 	addPolygon := func(x, y []float64, size float64) {
 		for i := range x {
 			j := (i + 1) % len(x)
 			f.Lines = append(f.Lines, mesh.SizeLine{X0: x[i], Y0: y[i], X1: x[j], Y1: y[j], Size: size})
+		}
+	}
+	// The global size holds in every region and along every region edge;
+	// the air grows from there towards the far-field size.
+	for i, r := range m.Regions {
+		s := m.Mesh.Size
+		if r.MeshSize > 0 && (s <= 0 || r.MeshSize < s) {
+			s = r.MeshSize
+		}
+		if s > 0 {
+			f.Region[Tag(i)] = s
+			addPolygon(r.X, r.Y, s)
 		}
 	}
 	for _, rf := range m.Mesh.Refine {

@@ -1,0 +1,108 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+func runCmd(t *testing.T, args ...string) (code int, stdout, stderr string) {
+	t.Helper()
+	var out, errb bytes.Buffer
+	code = run(args, &out, &errb)
+	return code, out.String(), errb.String()
+}
+
+func TestUsage(t *testing.T) {
+	if code, _, errs := runCmd(t); code != 2 || !strings.Contains(errs, "Usage") {
+		t.Errorf("no arguments: code %d, stderr %q", code, errs)
+	}
+	if code, _, _ := runCmd(t, "frobnicate"); code != 2 {
+		t.Errorf("unknown command: code %d, want 2", code)
+	}
+	if code, _, _ := runCmd(t, "mesh"); code != 2 {
+		t.Errorf("mesh without model: code %d, want 2", code)
+	}
+	if code, _, _ := runCmd(t, "mesh", "--nonsense", "x"); code != 2 {
+		t.Errorf("unknown flag: code %d, want 2", code)
+	}
+	code, out, _ := runCmd(t, "help", "solve")
+	if code != 0 || !strings.Contains(out, "--json") {
+		t.Errorf("help solve: code %d, out %q", code, out)
+	}
+	if code, _, errs := runCmd(t, "solve", "no-such-model.yaml"); code != 1 || !strings.Contains(errs, "no model file") {
+		t.Errorf("missing model: code %d, stderr %q", code, errs)
+	}
+}
+
+func TestExamplesRoundTrip(t *testing.T) {
+	code, out, _ := runCmd(t, "examples")
+	if code != 0 || !strings.Contains(out, "bench-dipole") {
+		t.Fatalf("examples: code %d, out %q", code, out)
+	}
+	code, yaml, _ := runCmd(t, "examples", "calibration-solenoid")
+	if code != 0 || !strings.Contains(yaml, "axisymmetric") {
+		t.Fatalf("examples calibration-solenoid: code %d", code)
+	}
+	dir := t.TempDir()
+	p := filepath.Join(dir, "sol.yaml")
+	if err := os.WriteFile(p, []byte(yaml), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	vtu, png := filepath.Join(dir, "m.vtu"), filepath.Join(dir, "m.png")
+	code, out, errs := runCmd(t, "mesh", p, "--out", vtu, "--png", png)
+	if code != 0 {
+		t.Fatalf("mesh: code %d, stderr %q", code, errs)
+	}
+	if !strings.Contains(out, "min angle") {
+		t.Errorf("mesh output lacks the statistics: %q", out)
+	}
+	for _, f := range []string{vtu, png} {
+		if st, err := os.Stat(f); err != nil || st.Size() == 0 {
+			t.Errorf("%s not written: %v", f, err)
+		}
+	}
+}
+
+// TestSolveJSON checks the keys that the JSON report promises (the field
+// values themselves are checked against physics in the solver and post
+// packages).
+func TestSolveJSON(t *testing.T) {
+	code, out, errs := runCmd(t, "solve", "--json", "calibration-solenoid")
+	if code != 0 {
+		t.Fatalf("solve: code %d, stderr %q", code, errs)
+	}
+	var r struct {
+		Mesh   struct{ Nodes, Triangles int }
+		Newton struct {
+			Iterations int
+			Residual   float64
+			Converged  bool
+		}
+		Probes map[string]map[string]any
+	}
+	if err := json.Unmarshal([]byte(out), &r); err != nil {
+		t.Fatalf("JSON: %v\n%s", err, out)
+	}
+	if r.Mesh.Nodes == 0 || r.Mesh.Triangles == 0 || !r.Newton.Converged {
+		t.Errorf("report: %+v", r)
+	}
+	found := false
+	for name, p := range r.Probes {
+		if p["kind"] != "point" {
+			continue
+		}
+		found = true
+		for _, k := range []string{"a", "bx", "by", "b"} {
+			if _, ok := p[k]; !ok {
+				t.Errorf("point probe %s lacks %q", name, k)
+			}
+		}
+	}
+	if !found {
+		t.Errorf("no point probe in the report: %v", r.Probes)
+	}
+}

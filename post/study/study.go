@@ -1,0 +1,65 @@
+package study
+
+import (
+	"time"
+
+	"polegap/models"
+	"polegap/post/prepare"
+	"polegap/post/probes"
+	"polegap/solver"
+)
+
+// Options control a run. The zero value uses the solver's defaults.
+type Options struct {
+	Solver solver.Options
+}
+
+// Study is a solved model.
+type Study struct {
+	Model    *models.Model
+	Disc     *prepare.Discretization
+	Problem  *solver.Problem
+	Solution *solver.Solution
+	Probes   []probes.Result
+	MeshTime time.Duration
+}
+
+// Run meshes, solves and probes m.
+func Run(m *models.Model, opt Options) (*Study, error) {
+	start := time.Now()
+	d, err := prepare.Discretize(m)
+	if err != nil {
+		return nil, err
+	}
+	s := &Study{Model: m, Disc: d, MeshTime: time.Since(start)}
+	if err := s.Solve(opt); err != nil {
+		return nil, err
+	}
+	return s, nil
+}
+
+// Solve (re)builds the problem from the model on the existing mesh, solves
+// it and evaluates the probes. Call it again after changing coil currents.
+func (s *Study) Solve(opt Options) error {
+	p, err := prepare.Problem(s.Disc)
+	if err != nil {
+		return err
+	}
+	sol, err := solver.Solve(p, opt.Solver)
+	if err != nil {
+		return err
+	}
+	s.Problem, s.Solution = p, sol
+	s.Probes = probes.Evaluate(sol, s.Model.Probes)
+	return nil
+}
+
+// Probe returns the evaluated probe of that name.
+func (s *Study) Probe(name string) (probes.Result, bool) {
+	for _, r := range s.Probes {
+		if r.Name == name {
+			return r, true
+		}
+	}
+	return probes.Result{}, false
+}
