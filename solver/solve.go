@@ -1,7 +1,10 @@
 package solver
 
 import (
+	"sync"
 	"time"
+
+	"polegap/mesh"
 
 	"polegap/solver/sparse"
 )
@@ -40,8 +43,9 @@ type Solution struct {
 	NumUnknowns int
 	Time        Timings
 
-	as   *assembler
-	hint int32 // last triangle found by locate
+	as      *assembler
+	locOnce sync.Once
+	loc     *mesh.Locator
 }
 
 // Solve assembles and solves p. It does not modify p. Linear materials
