@@ -8,6 +8,7 @@ import (
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
 
 	"polegap/internal/fileout"
 )
@@ -27,6 +28,34 @@ func Save(p *plot.Plot, width, height vg.Length, path string) error {
 	}
 	return fileout.Write(path, func(w io.Writer) error {
 		_, err := wt.WriteTo(w)
+		return err
+	})
+}
+
+// SaveGrid writes plots arranged in rows and columns into one figure,
+// width by height overall, in the format named by path's extension.
+func SaveGrid(plots [][]*plot.Plot, width, height vg.Length, path string) error {
+	ext := strings.ToLower(strings.TrimPrefix(filepath.Ext(path), "."))
+	c, err := draw.NewFormattedCanvas(width, height, ext)
+	if err != nil {
+		return fmt.Errorf("plot %s: %w", path, err)
+	}
+	rows, cols := len(plots), 0
+	for _, r := range plots {
+		cols = max(cols, len(r))
+	}
+	tiles := draw.Tiles{Rows: rows, Cols: cols, PadX: vg.Millimeter * 4, PadY: vg.Millimeter * 4,
+		PadTop: vg.Millimeter * 2, PadBottom: vg.Millimeter * 2, PadLeft: vg.Millimeter * 2, PadRight: vg.Millimeter * 2}
+	canvases := plot.Align(plots, tiles, draw.New(c))
+	for i := range plots {
+		for j, p := range plots[i] {
+			if p != nil {
+				p.Draw(canvases[i][j])
+			}
+		}
+	}
+	return fileout.Write(path, func(w io.Writer) error {
+		_, err := c.WriteTo(w)
 		return err
 	})
 }
