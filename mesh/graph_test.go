@@ -528,3 +528,50 @@ func BenchmarkBuildInput(b *testing.B) {
 		})
 	}
 }
+
+// FuzzBuildInput reads up to four polygons of lattice points (so edges
+// overlap, touch and cross often), some edges arcs, and checks that
+// BuildInput either returns a GraphError or a graph that keeps checkGraph's
+// invariants and that Triangulate accepts.
+func FuzzBuildInput(f *testing.F) {
+	f.Add([]byte{4, 0, 0, 4, 0, 4, 4, 0, 4, 3, 2, 2, 6, 2, 4, 6})
+	f.Add([]byte{3, 0, 0, 5, 1, 1, 5, 3, 1, 4, 6, 2, 2, 6, 4, 3, 3, 0, 0, 7, 7, 0})
+	f.Add([]byte{2, 1, 1, 5, 1, 0x82, 0x82, 4, 2, 2, 3, 2, 3, 3, 2, 3})
+	f.Fuzz(func(t *testing.T, data []byte) {
+		var regions []Polygon
+		for len(data) > 0 && len(regions) < 4 {
+			n := int(data[0]%6) + 2
+			data = data[1:]
+			if len(data) < 2*n {
+				break
+			}
+			p := Polygon{Region: int32(len(regions) + 1), Marker: int32(len(regions) + 2), Sweep: make([]float64, n)}
+			for i := 0; i < n; i++ {
+				p.X = append(p.X, float64(data[2*i]&15))
+				p.Y = append(p.Y, float64(data[2*i+1]&15))
+				if data[2*i]&0x80 != 0 {
+					p.Sweep[i] = float64(int(data[2*i+1]>>4)-8) * 0.35
+				}
+			}
+			data = data[2*n:]
+			regions = append(regions, p)
+		}
+		bnd := rect(-2, -2, 18, 18, 0, 1)
+		in, err := BuildInput(regions, bnd, GraphOptions{Overlap: OverlapLaterWins, ChordTol: 0.05})
+		if err != nil {
+			var ge *GraphError
+			if !errors.As(err, &ge) {
+				t.Fatalf("error of type %T: %v", err, err)
+			}
+			return
+		}
+		checkGraph(t, "fuzz", in)
+		m, err := Triangulate(in, Options{MinAngle: -1})
+		if err != nil {
+			t.Fatalf("Triangulate: %v", err)
+		}
+		if s := m.Stats(); math.Abs(s.Area-400) > 1e-9*400 {
+			t.Fatalf("area %.15g, want 400", s.Area)
+		}
+	})
+}
