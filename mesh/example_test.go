@@ -146,3 +146,64 @@ func ExampleDiscretizePolygon() {
 	// Output:
 	// 37 vertices, area 1.5688 cm² (exact half disc 1.5708 cm²)
 }
+
+// A 2 m x 1 m plate with a 0.5 m square inclusion of its own region.
+func ExampleTriangulate() {
+	in := &mesh.Input{
+		X:        []float64{0, 2, 2, 0, 0.75, 1.25, 1.25, 0.75},
+		Y:        []float64{0, 0, 1, 1, 0.25, 0.25, 0.75, 0.75},
+		Segments: []int32{0, 1, 1, 2, 2, 3, 3, 0, 4, 5, 5, 6, 6, 7, 7, 4},
+		Markers:  []int32{1, 1, 1, 1, 2, 2, 2, 2},
+		Seeds:    []mesh.Seed{{X: 1, Y: 0.5, Region: 2}},
+
+		DefaultRegion: 1,
+	}
+	m, err := mesh.Triangulate(in, mesh.Options{Size: mesh.SizeField{Global: 0.1}})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	err = m.Check(mesh.CheckOptions{MinAngle: 28, Input: in, RegionAreas: map[int32]float64{1: 1.75, 2: 0.25}})
+	fmt.Println("check:", err)
+	fmt.Println("regions and areas verified; quality >= 28 degrees:", err == nil)
+	// Output:
+	// check: <nil>
+	// regions and areas verified; quality >= 28 degrees: true
+}
+
+func ExampleOrient2D() {
+	fmt.Println(mesh.Orient2D(0, 0, 1, 0, 0, 1))
+	fmt.Println(mesh.Orient2D(0, 0, 1, 0, 2, 0))
+	// Points that float rounding would misjudge: c is 1 ulp above the line.
+	fmt.Println(mesh.Orient2D(0.5, 0.5, 12, 12, 24, 24.000000000000004))
+	// Output:
+	// CCW
+	// Collinear
+	// CCW
+}
+
+func ExampleInCircle() {
+	// The fourth corner of a square lies exactly on the circle through the other three.
+	fmt.Println(mesh.InCircle(0, 0, 1, 0, 1, 1, 0, 1))
+	fmt.Println(mesh.InCircle(0, 0, 1, 0, 1, 1, 0.5, 0.5))
+	// Output:
+	// 0
+	// 1
+}
+
+func ExampleMesh_Check() {
+	m := &mesh.Mesh{
+		X: []float64{0, 1, 0}, Y: []float64{0, 0, 1}, NumVertices: 3,
+		Tri: []int32{0, 2, 1}, Nbr: []int32{-1, -1, -1}, EdgeMarker: []int32{1, 1, 1}, Region: []int32{0},
+	}
+	fmt.Println(m.Check(mesh.CheckOptions{}))
+	// Output:
+	// mesh: check area failed at triangle 0 (1 violations): triangle is not counter-clockwise with positive area
+}
+
+func ExampleSizeField_At() {
+	f := mesh.SizeField{Global: 0.01, Points: []mesh.SizePoint{{X: 0, Y: 0, Size: 0.001}}, Grading: 0.2}
+	fmt.Printf("%.4f %.4f\n", f.At(0.01, 0, 0), f.At(1, 0, 0))
+	// Output:
+	// 0.0030 0.0100
+}
