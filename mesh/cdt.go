@@ -39,6 +39,12 @@ type cdt struct {
 	link    []int32 // per vertex: new triangle whose edge 2 starts there, or -1
 	created []int32 // triangles made by the last insertion
 	seed    uint32  // walk randomisation
+
+	// Recovered segment pieces (an input segment split at the input
+	// vertices lying on it gives one piece per part): end points, and the
+	// piece of each piece's edge.
+	segEnds [][2]int32
+	segOf   map[edgeKey]int32
 }
 
 // bndEdge is an edge (a, b) of the cavity boundary, seen CCW from the new

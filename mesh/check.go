@@ -249,11 +249,12 @@ func (m *Mesh) shellException(t int, in *Input) bool {
 			best, u, v = l, p, q
 		}
 	}
-	onSeg := func(p int32, s int) bool {
+	onSegXY := func(x, y float64, s int) bool {
 		a, b := in.Segments[2*s], in.Segments[2*s+1]
 		l := math.Hypot(in.X[b]-in.X[a], in.Y[b]-in.Y[a])
-		return distToSegment(m.X[p], m.Y[p], in.X[a], in.Y[a], in.X[b], in.Y[b]) <= 1e-12*l
+		return distToSegment(x, y, in.X[a], in.Y[a], in.X[b], in.Y[b]) <= 1e-12*l
 	}
+	onSeg := func(p int32, s int) bool { return onSegXY(m.X[p], m.Y[p], s) }
 	ns := len(in.Segments) / 2
 	for s1 := 0; s1 < ns; s1++ {
 		if !onSeg(u, s1) {
@@ -263,12 +264,15 @@ func (m *Mesh) shellException(t int, in *Input) bool {
 			if s2 == s1 || !onSeg(v, s2) {
 				continue
 			}
-			for _, a := range [2]int32{in.Segments[2*s1], in.Segments[2*s1+1]} {
-				if a != in.Segments[2*s2] && a != in.Segments[2*s2+1] {
+			// The apex is an input vertex on both segments (an end point of
+			// one, lying anywhere on the other).
+			for _, a := range [4]int32{in.Segments[2*s1], in.Segments[2*s1+1], in.Segments[2*s2], in.Segments[2*s2+1]} {
+				ax, ay := in.X[a], in.Y[a]
+				if !onSegXY(ax, ay, s1) || !onSegXY(ax, ay, s2) {
 					continue
 				}
-				du := math.Hypot(m.X[u]-in.X[a], m.Y[u]-in.Y[a])
-				dv := math.Hypot(m.X[v]-in.X[a], m.Y[v]-in.Y[a])
+				du := math.Hypot(m.X[u]-ax, m.Y[u]-ay)
+				dv := math.Hypot(m.X[v]-ax, m.Y[v]-ay)
 				if du > 0 && dv > 0 && du < 1.001*dv && dv < 1.001*du {
 					return true
 				}

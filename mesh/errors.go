@@ -64,3 +64,13 @@ type CheckError struct {
 func (e *CheckError) Error() string {
 	return fmt.Sprintf("mesh: check %s failed at triangle %d (%d violations): %s", e.Invariant, e.Triangle, e.Count, e.Detail)
 }
+
+// ResolutionError reports that refinement needed a vertex closer to existing
+// ones than floating-point coordinates can place it, near (X, Y): usually
+// input features (vertices almost on segments, nearly overlapping segments)
+// far smaller than the domain.
+type ResolutionError struct{ X, Y float64 }
+
+func (e *ResolutionError) Error() string {
+	return fmt.Sprintf("mesh: refinement reached floating-point resolution near (%g, %g); remove tiny features or near-touching segments there", e.X, e.Y)
+}

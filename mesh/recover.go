@@ -7,25 +7,54 @@ package mesh
 // constrained Delaunay property (Lawson's flip algorithm).
 
 // findEdge returns the triangle t and local edge k whose edge runs from u to
-// v (counter-clockwise in t), or t = -1.
+// v (counter-clockwise in t), or t = -1. It rotates around u, then around v;
+// a vertex where the domain pinches (two fans meeting at one vertex) can hide
+// the edge from both rotations, and a scan of all triangles settles it.
 func (d *cdt) findEdge(u, v int32) (int32, int) {
-	t0 := d.vtri[u]
+	if t, k := d.rotateFind(u, v, false); t >= 0 {
+		return t, k
+	}
+	if t, k := d.rotateFind(v, u, true); t >= 0 {
+		return t, k
+	}
+	if d.vtri[u] < 0 || d.vtri[v] < 0 {
+		return -1, 0
+	}
+	for t := int32(0); t < int32(len(d.tri)/3); t++ {
+		if !d.alive(t) {
+			continue
+		}
+		for k := 0; k < 3; k++ {
+			if d.tri[3*t+int32(next3[k])] == u && d.tri[3*t+int32(next3[k+1])] == v {
+				return t, k
+			}
+		}
+	}
+	return -1, 0
+}
+
+// rotateFind rotates around c from vtri[c] looking for the edge c->o
+// (reverse false) or o->c (reverse true).
+func (d *cdt) rotateFind(c, o int32, reverse bool) (int32, int) {
+	t0 := d.vtri[c]
 	if t0 < 0 || !d.alive(t0) {
 		return -1, 0
 	}
-	// Rotate counter-clockwise around u, then clockwise if a boundary stops us.
 	t := t0
 	for dir := 0; dir < 2; dir++ {
 		for steps := 0; steps < 1<<20; steps++ {
-			i := d.cornerOf(t, u)
-			if d.tri[3*t+int32(next3[i])] == v {
+			i := d.cornerOf(t, c)
+			if !reverse && d.tri[3*t+int32(next3[i])] == o {
 				return t, next3[i+1]
+			}
+			if reverse && d.tri[3*t+int32(next3[i+1])] == o {
+				return t, next3[i]
 			}
 			var n int32
 			if dir == 0 {
-				n = d.nbr[3*t+int32(next3[i])] // across (w, u): counter-clockwise
+				n = d.nbr[3*t+int32(next3[i])] // across (w, c): counter-clockwise
 			} else {
-				n = d.nbr[3*t+int32(next3[i+1])] // across (u, next): clockwise
+				n = d.nbr[3*t+int32(next3[i+1])] // across (c, next): clockwise
 			}
 			if n < 0 {
 				break
@@ -104,11 +133,11 @@ type edgeKey struct{ u, v int32 }
 func (d *cdt) insertSegment(a, b, m int32, seg int) error {
 	for a != b {
 		if t, k := d.findEdge(a, b); t >= 0 {
-			d.markEdge(t, k, m)
+			d.markPiece(t, k, m)
 			return nil
 		}
 		if t, k := d.findEdge(b, a); t >= 0 {
-			d.markEdge(t, k, m)
+			d.markPiece(t, k, m)
 			return nil
 		}
 		crossed, stop, err := d.crossings(a, b, seg)
@@ -128,10 +157,23 @@ func (d *cdt) insertSegment(a, b, m int32, seg int) error {
 		if t < 0 {
 			panic("mesh: internal error: segment not recovered")
 		}
-		d.markEdge(t, k, m)
+		d.markPiece(t, k, m)
 		return nil
 	}
 	return nil
+}
+
+// markPiece marks a recovered segment edge and records it as a piece.
+func (d *cdt) markPiece(t int32, k int, m int32) {
+	a, b := d.tri[3*t+int32(next3[k])], d.tri[3*t+int32(next3[k+1])]
+	if d.segOf == nil {
+		d.segOf = make(map[edgeKey]int32)
+	}
+	if _, ok := d.segOf[ekey(a, b)]; !ok {
+		d.segOf[ekey(a, b)] = int32(len(d.segEnds))
+		d.segEnds = append(d.segEnds, [2]int32{a, b})
+	}
+	d.markEdge(t, k, m)
 }
 
 func (d *cdt) markEdge(t int32, k int, m int32) {

@@ -44,9 +44,10 @@ type refiner struct {
 	maxTri  int
 	nIn     int32
 	frozen  []int32
-	vseg    []int32    // per vertex: original segment a split put it on, or -1
-	segEnds [][2]int32 // original segments' end points
+	vseg    []int32    // per vertex: segment piece a split put it on, or -1
+	segEnds [][2]int32 // segment pieces' end points (see cdt.segEnds)
 	segOf   map[edgeKey]int32
+	steps   int
 
 	triQ    []triItem
 	triHead int
@@ -74,12 +75,7 @@ func newRefiner(d *cdt, in *Input, vmap []int32, opt *Options, maxTri int) *refi
 	for i := range r.vseg {
 		r.vseg[i] = -1
 	}
-	r.segOf = make(map[edgeKey]int32, len(in.Segments)/2)
-	for s := 0; s < len(in.Segments)/2; s++ {
-		a, b := vmap[in.Segments[2*s]], vmap[in.Segments[2*s+1]]
-		r.segEnds = append(r.segEnds, [2]int32{a, b})
-		r.segOf[ekey(a, b)] = int32(s)
-	}
+	r.segEnds, r.segOf = d.segEnds, d.segOf
 	return r
 }
 
@@ -116,10 +112,15 @@ func (r *refiner) run() error {
 		if d.numTri() > r.maxTri {
 			return &TooManyTrianglesError{Limit: r.maxTri, Triangles: d.numTri()}
 		}
+		if r.steps++; r.steps > 8*r.maxTri+1_000_000 {
+			return &TooManyTrianglesError{Limit: r.maxTri, Triangles: d.numTri()}
+		}
 		if r.segHead < len(r.segQ) {
 			s := r.segQ[r.segHead]
 			r.segHead++
-			r.splitSegment(s.u, s.v)
+			if err := r.splitSegment(s.u, s.v); err != nil {
+				return err
+			}
 			continue
 		}
 		r.segQ, r.segHead = r.segQ[:0], 0
@@ -257,18 +258,18 @@ func (r *refiner) fanOK(px, py float64) bool {
 	return true
 }
 
-func (r *refiner) splitSegment(u, v int32) {
+func (r *refiner) splitSegment(u, v int32) error {
 	d := r.d
 	t, k := d.findEdge(u, v)
 	if t < 0 {
 		if t, k = d.findEdge(v, u); t < 0 {
-			return // already split
+			return nil // already split
 		}
 		u, v = v, u
 	}
 	m := d.mark[3*t+int32(k)]
 	if m == 0 || r.isFrozen(m) {
-		return
+		return nil
 	}
 	ux, uy, vx, vy := d.x[u], d.y[u], d.x[v], d.y[v]
 	s := 0.5
@@ -289,7 +290,7 @@ func (r *refiner) splitSegment(u, v int32) {
 	}
 	px, py := ux+s*(vx-ux), uy+s*(vy-uy)
 	if (px == ux && py == uy) || (px == vx && py == vy) {
-		return // below floating-point resolution
+		return &ResolutionError{X: px, Y: py}
 	}
 	seg := r.vseg[u]
 	if seg < 0 {
@@ -302,11 +303,12 @@ func (r *refiner) splitSegment(u, v int32) {
 	}
 	su, sv, sm := d.findCavity(px, py, t, k, locEdge)
 	if !r.fanOK(px, py) {
-		return
+		return &ResolutionError{X: px, Y: py}
 	}
 	p := r.newVertex(px, py, seg)
 	d.commit(p, su, sv, sm)
 	r.afterInsert()
+	return nil
 }
 
 func (r *refiner) splitTriangle(t int32) {

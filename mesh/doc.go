@@ -1,0 +1,61 @@
+// Package mesh turns a planar straight-line graph into a quality triangle
+// mesh for the finite-element solver.
+//
+// # Provides
+//
+//   - Orient2D, InCircle, InDiametralCircle: exact geometric predicates
+//     (Shewchuk 1997 adaptive filter with an exact expansion fallback). Every
+//     geometric decision of the package goes through them.
+//   - Triangulate: constrained Delaunay triangulation of an Input (vertices,
+//     marked segments, region seeds), exterior and hole removal, region
+//     tagging, Ruppert/Shewchuk Delaunay refinement to a minimum angle
+//     (default 28 degrees) and a SizeField, optional second-order nodes.
+//   - Mesh.Check: verification of every invariant below; tests and fuzz
+//     targets run it on every mesh they make.
+//   - BuildInput, Stats, Locator, WriteVTU, Elevate: polygons to Input,
+//     quality statistics, point location, VTK export, midside nodes.
+//
+// # Units and conventions
+//
+// Coordinates are metres. Triangles are counter-clockwise. Edge k of a
+// triangle joins corners k+1 and k+2 (mod 3) and faces corner k; Nbr[3t+k]
+// is the triangle across edge k, -1 on the boundary; EdgeMarker[3t+k] is the
+// marker of the input segment the edge lies on, 0 inside a region. Region[t]
+// is the tag of the seed that claimed t, or Input.DefaultRegion.
+//
+//	      v2
+//	      /\
+//	e1   /  \   e0
+//	    /    \
+//	  v0------v1
+//	      e2
+//
+// # Invariants (checked by Mesh.Check)
+//
+//   - indices in range, array lengths consistent, coordinates finite;
+//   - every triangle counter-clockwise with positive area (exact Orient2D);
+//   - neighbour symmetry: Nbr[3t+k] = n means n holds the same edge,
+//     reversed, and points back at t; both sides carry the same EdgeMarker;
+//     every boundary edge carries a marker;
+//   - constrained Delaunay: across every unmarked interior edge the
+//     opposite corner is not strictly inside the circumcircle (exact
+//     InCircle);
+//   - minimum angle at least the bound, except angles imposed by the input
+//     (an angle between two segments at one corner, the triangles refinement
+//     must leave near input angles below about 60 degrees, and triangles next
+//     to frozen segments);
+//   - per-region areas equal the polygons' areas to 1e-9 relative.
+//
+// # Failures
+//
+// Malformed slices (odd Segments, Markers length, indices out of range,
+// markers < 1, Order not 0-2) panic with a "mesh: ..." message. Bad geometry
+// returns a typed error: *InputError (non-finite or degenerate input),
+// *SegmentsCrossError (segments crossing away from a vertex),
+// *TooManyTrianglesError (refinement beyond Options.MaxTriangles). Check
+// returns *CheckError. Duplicate vertices are merged, vertices lying on a
+// segment split it, repeated segments keep their first marker.
+//
+// Triangulate does not modify its Input. Mesh values are plain slices owned
+// by the caller.
+package mesh
