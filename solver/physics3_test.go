@@ -98,14 +98,7 @@ func TestFiniteSolenoid(t *testing.T) {
 func cCore(order int, scale float64) (m *mesh.Mesh, g, NI float64) {
 	const t, W, H = 0.05, 0.2, 0.2
 	g = 0.002
-	h := 0.005 / scale
-	hg := g / 8 / scale
-	xs := joinAxes(graded(-0.2, -0.025, 0.05, h), graded(-0.025, -0.005, h, h), graded(-0.005, 0, h, h),
-		graded(0, t, h, h), graded(t, 0.055, h, h), graded(0.055, 0.075, h, h), graded(0.075, W-t, h, h),
-		graded(W-t, W, h, h), graded(W, 0.4, h, 0.05))
-	ys := joinAxes(graded(-0.2, 0, 0.05, h), graded(0, t, h, h), graded(t, 0.06, h, h), graded(0.06, H/2-g/2, h, hg),
-		graded(H/2-g/2, H/2+g/2, hg, hg), graded(H/2+g/2, 0.14, hg, h), graded(0.14, H-t, h, h), graded(H-t, H, h, h),
-		graded(H, 0.4, h, 0.05))
+	xs, ys := cCoreAxes(scale)
 	m = gridMesh(xs, ys, order, func(x, y float64) int32 {
 		switch {
 		case x > 0.055 && x < 0.075 && y > 0.06 && y < 0.14:
@@ -123,6 +116,20 @@ func cCore(order int, scale float64) (m *mesh.Mesh, g, NI float64) {
 	})
 	NI = 1000
 	return m, g, NI
+}
+
+// cCoreAxes returns the grid lines of the C-core mesh; scale refines it.
+func cCoreAxes(scale float64) (xs, ys []float64) {
+	const t, W, H, g = 0.05, 0.2, 0.2, 0.002
+	h := 0.005 / scale
+	hg := g / 8 / scale
+	xs = joinAxes(graded(-0.2, -0.025, 0.05, h), graded(-0.025, -0.005, h, h), graded(-0.005, 0, h, h),
+		graded(0, t, h, h), graded(t, 0.055, h, h), graded(0.055, 0.075, h, h), graded(0.075, W-t, h, h),
+		graded(W-t, W, h, h), graded(W, 0.4, h, 0.05))
+	ys = joinAxes(graded(-0.2, 0, 0.05, h), graded(0, t, h, h), graded(t, 0.06, h, h), graded(0.06, H/2-g/2, h, hg),
+		graded(H/2-g/2, H/2+g/2, hg, hg), graded(H/2+g/2, 0.14, hg, h), graded(0.14, H-t, h, h), graded(H-t, H, h, h),
+		graded(H, 0.4, h, 0.05))
+	return xs, ys
 }
 
 // Ideal magnetic circuit: with μr = 1e6 iron, ∮H·dl = NI gives
