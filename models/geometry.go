@@ -2,6 +2,7 @@ package models
 
 import (
 	"math"
+	"sort"
 )
 
 // Plain floating-point geometry with a relative tolerance: enough to reject
@@ -170,7 +171,9 @@ func inside(x, y float64, px, py []float64, tol float64) int {
 	in := false
 	for i := 0; i < n; i++ {
 		j := (i + 1) % n
-		if segDist(x, y, px[i], py[i], px[j], py[j]) <= tol {
+		if x >= math.Min(px[i], px[j])-tol && x <= math.Max(px[i], px[j])+tol &&
+			y >= math.Min(py[i], py[j])-tol && y <= math.Max(py[i], py[j])+tol &&
+			segDist(x, y, px[i], py[i], px[j], py[j]) <= tol {
 			return 0
 		}
 		if (py[i] > y) != (py[j] > y) {
@@ -187,36 +190,91 @@ func inside(x, y float64, px, py []float64, tol float64) int {
 }
 
 // selfIntersection looks for two edges of the region that touch other than
-// where consecutive edges meet. It returns the two edge indices, the
-// approximate meeting point and ok = true when it finds one.
+// where consecutive edges meet. It returns the two edge indices (the pair
+// with the smallest indices when there are several), the approximate
+// meeting point and ok = true when it finds one. Candidate pairs come from a
+// sweep over the segments' x-extents, so typical polygons cost O(n log n).
 func (r *Region) selfIntersection(tol float64) (e1, e2 int, x, y float64, ok bool) {
 	px, py, edge := r.outlineEdges(0)
 	n := len(px)
-	for i := 0; i < n; i++ {
-		i1 := (i + 1) % n
+	for i := 0; i < n && n > 2; i++ {
 		// Consecutive segments must not fold back onto each other.
-		i2 := (i + 2) % n
-		if n > 2 {
-			ax, ay := px[i1]-px[i], py[i1]-py[i]
-			bx, by := px[i2]-px[i1], py[i2]-py[i1]
-			cr := ax*by - ay*bx
-			dot := ax*bx + ay*by
-			if dot < 0 && math.Abs(cr) <= 1e-9*math.Hypot(ax, ay)*math.Hypot(bx, by) {
-				return edge[i], edge[i1], px[i1], py[i1], true
-			}
-		}
-		for j := i + 2; j < n; j++ {
-			if i == 0 && j == n-1 {
-				continue // adjacent through the closing vertex
-			}
-			j1 := (j + 1) % n
-			if segsTouch(px[i], py[i], px[i1], py[i1], px[j], py[j], px[j1], py[j1], tol) {
-				mx, my := crossPoint(px[i], py[i], px[i1], py[i1], px[j], py[j], px[j1], py[j1])
-				return edge[i], edge[j], mx, my, true
-			}
+		i1, i2 := (i+1)%n, (i+2)%n
+		ax, ay := px[i1]-px[i], py[i1]-py[i]
+		bx, by := px[i2]-px[i1], py[i2]-py[i1]
+		cr := ax*by - ay*bx
+		if ax*bx+ay*by < 0 && math.Abs(cr) <= 1e-9*math.Hypot(ax, ay)*math.Hypot(bx, by) {
+			return edge[i], edge[i1], px[i1], py[i1], true
 		}
 	}
-	return 0, 0, 0, 0, false
+	best := [2]int{-1, -1}
+	segmentPairs(px, py, nil, tol, func(i, j int) {
+		if j == i+1 || (i == 0 && j == n-1) {
+			return // adjacent segments share a vertex
+		}
+		if best[0] >= 0 && (i > best[0] || (i == best[0] && j > best[1])) {
+			return
+		}
+		i1, j1 := (i+1)%n, (j+1)%n
+		if segsTouch(px[i], py[i], px[i1], py[i1], px[j], py[j], px[j1], py[j1], tol) {
+			best = [2]int{i, j}
+		}
+	})
+	if best[0] < 0 {
+		return 0, 0, 0, 0, false
+	}
+	i, j := best[0], best[1]
+	mx, my := crossPoint(px[i], py[i], px[(i+1)%n], py[(i+1)%n], px[j], py[j], px[(j+1)%n], py[(j+1)%n])
+	return edge[i], edge[j], mx, my, true
+}
+
+// segmentPairs calls fn(i, j), i < j, for every pair of segments of the
+// closed polylines whose bounding boxes, grown by tol, overlap. Segment k
+// runs from point k to point k+1 of its polyline; owner, when not nil, gives
+// each point's polyline (a point and its successor share an owner) and the
+// closing segment of polyline o runs from its last point back to its first.
+// Pairs are found by sorting on x and sweeping (sweep and prune).
+func segmentPairs(px, py []float64, owner []int, tol float64, fn func(i, j int)) {
+	n := len(px)
+	next := make([]int, n)
+	for k := range next {
+		next[k] = k + 1
+		if k == n-1 || (owner != nil && owner[k+1] != owner[k]) {
+			// close the polyline: back to its first point
+			f := k
+			for f > 0 && (owner == nil || owner[f-1] == owner[k]) {
+				f--
+			}
+			next[k] = f
+		}
+	}
+	type box struct {
+		x0, x1, y0, y1 float64
+		k              int
+	}
+	boxes := make([]box, n)
+	for k := 0; k < n; k++ {
+		q := next[k]
+		boxes[k] = box{math.Min(px[k], px[q]) - tol, math.Max(px[k], px[q]) + tol,
+			math.Min(py[k], py[q]) - tol, math.Max(py[k], py[q]) + tol, k}
+	}
+	sort.Slice(boxes, func(a, b int) bool { return boxes[a].x0 < boxes[b].x0 })
+	var active []box
+	for _, b := range boxes {
+		keep := active[:0]
+		for _, a := range active {
+			if a.x1 >= b.x0 {
+				keep = append(keep, a)
+			}
+		}
+		active = keep
+		for _, a := range active {
+			if a.y0 <= b.y1 && b.y0 <= a.y1 {
+				fn(min(a.k, b.k), max(a.k, b.k))
+			}
+		}
+		active = append(active, b)
+	}
 }
 
 // crossPoint returns the intersection of lines a-b and c-d, or the midpoint
@@ -241,16 +299,36 @@ func overlap(a, b *Region, tol float64) (x, y float64, ok bool) {
 	}
 	apx, apy := a.outline(0)
 	bpx, bpy := b.outline(0)
-	na, nb := len(apx), len(bpx)
-	for i := 0; i < na; i++ {
-		i1 := (i + 1) % na
-		for j := 0; j < nb; j++ {
-			j1 := (j + 1) % nb
-			if properCross(apx[i], apy[i], apx[i1], apy[i1], bpx[j], bpy[j], bpx[j1], bpy[j1], tol) {
-				x, y := crossPoint(apx[i], apy[i], apx[i1], apy[i1], bpx[j], bpy[j], bpx[j1], bpy[j1])
-				return x, y, true
-			}
+	na := len(apx)
+	px := append(append([]float64(nil), apx...), bpx...)
+	py := append(append([]float64(nil), apy...), bpy...)
+	owner := make([]int, len(px))
+	for k := na; k < len(px); k++ {
+		owner[k] = 1
+	}
+	nxt := func(k int) int {
+		if k < na {
+			return (k + 1) % na
 		}
+		return na + (k-na+1)%(len(px)-na)
+	}
+	// Report the crossing with the smallest edge indices, for stable messages.
+	best := [2]int{-1, -1}
+	segmentPairs(px, py, owner, tol, func(i, j int) {
+		if owner[i] == owner[j] {
+			return // i < j, so i is on a and j on b below
+		}
+		if best[0] >= 0 && (i > best[0] || (i == best[0] && j > best[1])) {
+			return
+		}
+		i1, j1 := nxt(i), nxt(j)
+		if properCross(px[i], py[i], px[i1], py[i1], px[j], py[j], px[j1], py[j1], tol) {
+			best = [2]int{i, j}
+		}
+	})
+	if i, j := best[0], best[1]; i >= 0 {
+		x, y = crossPoint(px[i], py[i], px[nxt(i)], py[nxt(i)], px[j], py[j], px[nxt(j)], py[nxt(j)])
+		return x, y, true
 	}
 	if x, y, ok := interiorIn(apx, apy, bpx, bpy, tol); ok {
 		return x, y, true
