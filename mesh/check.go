@@ -190,6 +190,20 @@ func (m *Mesh) checkAngles(opt CheckOptions) error {
 			}
 		}
 	}
+	in := opt.Input
+	if in != nil && len(in.Segments) == 0 && len(in.X) >= 3 {
+		// Triangulate bounds a point set by its convex hull.
+		pts := make([]int32, len(in.X))
+		for i := range pts {
+			pts[i] = int32(i)
+		}
+		h := convexHull(in.X, in.Y, pts)
+		hin := &Input{X: in.X, Y: in.Y}
+		for i := range h {
+			hin.Segments = append(hin.Segments, h[i], h[(i+1)%len(h)])
+		}
+		in = hin
+	}
 	bad, first, worst := 0, -1, 180.0
 	// A tolerance of 1e-9 degrees absorbs the rounding of atan2 against the
 	// refiner's sine test.
@@ -204,7 +218,7 @@ func (m *Mesh) checkAngles(opt CheckOptions) error {
 		if m.nearFrozen(t, frozenE) {
 			continue
 		}
-		if opt.Input != nil && m.shellException(t, opt.Input) {
+		if in != nil && m.shellException(t, in) {
 			continue
 		}
 		bad++

@@ -43,7 +43,7 @@ func FuzzTriangulate(f *testing.F) {
 	f.Add([]byte{8, 0, 0, 64, 0, 64, 64, 0, 64})
 	f.Add([]byte{20, 0, 0, 128, 0, 128, 128, 0, 128, 0xFF, 0xFF, 32, 32, 96, 32, 64, 96})
 	f.Add([]byte{3, 0, 0, 200, 0, 100, 10, 0xFF, 0xFF, 50, 1, 150, 1, 100, 5})
-	f.Add([]byte{10, 0, 0, 100, 0, 0, 100, 100, 100})              // bow tie: crossing segments
+	f.Add([]byte{10, 0, 0, 100, 0, 0, 100, 100, 100})               // bow tie: crossing segments
 	f.Add([]byte{10, 0, 0, 100, 0, 100, 0, 100, 100, 0, 100, 0, 0}) // duplicates
 	f.Add([]byte{60, 0, 0, 255, 0, 255, 1, 0, 2})                   // sliver
 	f.Fuzz(func(t *testing.T, data []byte) {

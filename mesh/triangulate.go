@@ -143,8 +143,7 @@ func buildCDT(in *Input) (*cdt, []int32, error) {
 }
 
 // hull returns the convex hull of the distinct input vertices in
-// counter-clockwise order, without collinear points (A. M. Andrew, "Another
-// efficient algorithm for convex hulls in two dimensions", IPL 9, 1979).
+// counter-clockwise order, without collinear points.
 func (d *cdt) hull(vmap []int32) []int32 {
 	var pts []int32
 	for i, v := range vmap {
@@ -152,15 +151,27 @@ func (d *cdt) hull(vmap []int32) []int32 {
 			pts = append(pts, v)
 		}
 	}
+	return convexHull(d.x, d.y, pts)
+}
+
+// convexHull returns the convex hull of the points pts (indices into xs, ys)
+// in counter-clockwise order, without collinear or repeated points
+// (A. M. Andrew, "Another efficient algorithm for convex hulls in two
+// dimensions", IPL 9, 1979).
+func convexHull(xs, ys []float64, pts []int32) []int32 {
+	pts = slices.Clone(pts)
 	slices.SortFunc(pts, func(a, b int32) int {
-		if c := cmpF(d.x[a], d.x[b]); c != 0 {
+		if c := cmpF(xs[a], xs[b]); c != 0 {
 			return c
 		}
-		return cmpF(d.y[a], d.y[b])
+		return cmpF(ys[a], ys[b])
 	})
+	turn := func(a, b, c int32) Orientation {
+		return Orient2D(xs[a], ys[a], xs[b], ys[b], xs[c], ys[c])
+	}
 	h := make([]int32, 0, 2*len(pts))
 	for _, p := range pts {
-		for len(h) >= 2 && d.orient(h[len(h)-2], h[len(h)-1], p) != CCW {
+		for len(h) >= 2 && turn(h[len(h)-2], h[len(h)-1], p) != CCW {
 			h = h[:len(h)-1]
 		}
 		h = append(h, p)
@@ -168,7 +179,7 @@ func (d *cdt) hull(vmap []int32) []int32 {
 	lo := len(h) + 1
 	for i := len(pts) - 2; i >= 0; i-- {
 		p := pts[i]
-		for len(h) >= lo && d.orient(h[len(h)-2], h[len(h)-1], p) != CCW {
+		for len(h) >= lo && turn(h[len(h)-2], h[len(h)-1], p) != CCW {
 			h = h[:len(h)-1]
 		}
 		h = append(h, p)
