@@ -28,6 +28,7 @@ type templateInfo struct {
 
 var templates = map[string]templateInfo{
 	"c-core":   {Planar, cCoreKeys, expandCCore},
+	"h-core":   {Planar, hCoreKeys, expandHCore},
 	"solenoid": {Axisymmetric, solenoidKeys, expandSolenoid},
 }
 

@@ -41,16 +41,7 @@ var cCoreCoils = []string{"back-leg", "poles"}
 
 func expandCCore(m *Model, t *dims, x *expansion) {
 	d := t.d
-	g := 0.0
-	if v := t.f.get("gap"); v == nil {
-		t.misfit("gap", "template c-core needs dimension \"gap\": the distance between the pole faces")
-	} else if x, ok := d.number(v, t.f.sub("gap")); !ok {
-		t.ok = false
-	} else if x <= 0 {
-		t.misfit("gap", "gap is %s: the pole faces must stand apart, so gap must be greater than zero", v.Value)
-	} else {
-		g = d.m(x)
-	}
+	g := t.gap()
 	wp := t.length("pole-width", 0, true, false)
 	hp := t.length("pole-height", 0, true, false)
 	ta := t.length("arm-thickness", 0, true, false)
@@ -77,19 +68,11 @@ func expandCCore(m *Model, t *dims, x *expansion) {
 
 	// Fit checks, with the relative tolerance used elsewhere.
 	tol := relTol * (wl + ww + wp + g + hp + ta)
-	if wf > wp+tol {
-		t.misfit("pole-face-width", "pole-face-width (%s) must not exceed pole-width (%s)", d.fmtLen(wf), d.fmtLen(wp))
-	}
+	t.poleFit(wp, hp, wf, c, tol)
 	g2, yr := g/2, g/2+hp
 	x0, x1 := wl+ww, wl+ww+wp
 	xc := (x0 + x1) / 2
 	xl, xr := xc-wf/2, xc+wf/2
-	side := math.Hypot((wp-wf)/2, hp) // length of a pole side
-	if 2*c >= wf-tol {
-		t.misfit("chamfer", "two chamfers (2 × %s) must be narrower than the pole face (%s)", d.fmtLen(c), d.fmtLen(wf))
-	} else if c >= side-tol {
-		t.misfit("chamfer", "chamfer (%s) must be shorter than the pole side (%s)", d.fmtLen(c), d.fmtLen(side))
-	}
 	switch place {
 	case "back-leg":
 		if cw+2*clr > ww+tol {
@@ -116,50 +99,111 @@ func expandCCore(m *Model, t *dims, x *expansion) {
 	upperArm := t.poly("upper-arm", steel, []float64{0, wl, x0, x1, x1, 0}, []float64{yr, yr, yr, yr, yt, yt})
 	x.regions = append(x.regions, upperArm, mirrorY(upperArm, "lower-arm"))
 
+	x.regions = append(x.regions, t.poles(steel, x0, x1, wf, c, g2, yr)...)
+
+	coil := Coil{Name: "main", Turns: turns, Current: current, Pos: t.at}
+	switch place {
+	case "back-leg":
+		t.coilSide(x, &coil, "coil-left", -1, -clr-cw, -ch/2, -clr, ch/2)
+		t.coilSide(x, &coil, "coil-right", +1, wl+clr, -ch/2, wl+clr+cw, ch/2)
+	case "poles":
+		t.poleCoils(x, &coil, x0, x1, yr, cw, ch, clr)
+	}
+	x.coils = append(x.coils, coil)
+
+	x.probes = append(x.probes, t.gapProbes(xc, wp, wf, g)...)
+	t.poleRefine(x, xl+c, xr-c, g)
+	t.target(x, "gap-centre")
+}
+
+// gap reads the required, positive dimension "gap".
+func (t *dims) gap() float64 {
+	v := t.f.get("gap")
+	if v == nil {
+		t.misfit("gap", "template %s needs dimension \"gap\": the distance between the pole faces", t.name)
+		return 0
+	}
+	x, ok := t.d.number(v, t.f.sub("gap"))
+	if !ok {
+		t.ok = false
+		return 0
+	}
+	if x <= 0 {
+		t.misfit("gap", "gap is %s: the pole faces must stand apart, so gap must be greater than zero", v.Value)
+		return 0
+	}
+	return t.d.m(x)
+}
+
+// poleFit checks that a pole of root width wp, height hp, face width wf and
+// chamfer c can be built.
+func (t *dims) poleFit(wp, hp, wf, c, tol float64) {
+	d := t.d
+	if wf > wp+tol {
+		t.misfit("pole-face-width", "pole-face-width (%s) must not exceed pole-width (%s)", d.fmtLen(wf), d.fmtLen(wp))
+	}
+	side := math.Hypot((wp-wf)/2, hp) // length of a pole side
+	if 2*c >= wf-tol {
+		t.misfit("chamfer", "two chamfers (2 × %s) must be narrower than the pole face (%s)", d.fmtLen(c), d.fmtLen(wf))
+	} else if c >= side-tol {
+		t.misfit("chamfer", "chamfer (%s) must be shorter than the pole side (%s)", d.fmtLen(c), d.fmtLen(side))
+	}
+}
+
+// poles returns the upper and lower pole pieces between x0 and x1 (root
+// width) with a face pole-face-width wf wide, chamfered by c, faces at
+// y = ±g2 and roots at ±yr, and the air region "gap" between the flat faces.
+func (t *dims) poles(steel string, x0, x1, wf, c, g2, yr float64) []Region {
+	xc := (x0 + x1) / 2
+	xl, xr := xc-wf/2, xc+wf/2
 	// Upper pole, counter-clockwise from the face's left end.
 	ux, uy := sideStep(xr, g2, x1, yr, c)
 	vx, vy := sideStep(xl, g2, x0, yr, c)
 	px, py := dropDuplicates(
 		[]float64{xl + c, xr - c, ux, x1, x0, vx},
 		[]float64{g2, g2, uy, yr, yr, vy})
-	upperPole := t.poly("upper-pole", steel, px, py)
-	x.regions = append(x.regions, upperPole, mirrorY(upperPole, "lower-pole"))
-	x.regions = append(x.regions, t.rect("gap", "air", xl+c, -g2, xr-c, g2))
+	up := t.poly("upper-pole", steel, px, py)
+	return []Region{up, mirrorY(up, "lower-pole"), t.rect("gap", "air", xl+c, -g2, xr-c, g2)}
+}
 
-	coil := Coil{Name: "main", Turns: turns, Current: current, Pos: t.at}
-	addSide := func(name string, sense, ax0, ay0, ax1, ay1 float64) {
-		x.regions = append(x.regions, t.rect(name, "copper", ax0, ay0, ax1, ay1))
-		coil.Sides = append(coil.Sides, CoilSide{Region: name, Sense: sense, Pos: t.at})
+// poleRefine asks for fine elements in the gap (gap/10) and at the four
+// corners xa, xb of the flat faces (gap/20).
+func (t *dims) poleRefine(x *expansion, xa, xb, g float64) {
+	x.refine = append(x.refine, Refine{Near: "gap", Size: g / 10, Pos: t.at})
+	for _, s := range []float64{1, -1} {
+		x.refine = append(x.refine, t.refinePoint(xa, s*g/2, g/20), t.refinePoint(xb, s*g/2, g/20))
 	}
-	switch place {
-	case "back-leg":
-		addSide("coil-left", -1, -clr-cw, -ch/2, -clr, ch/2)
-		addSide("coil-right", +1, wl+clr, -ch/2, wl+clr+cw, ch/2)
-	case "poles":
-		addSide("coil-upper-left", +1, x0-clr-cw, yr-clr-ch, x0-clr, yr-clr)
-		addSide("coil-upper-right", -1, x1+clr, yr-clr-ch, x1+clr+cw, yr-clr)
-		addSide("coil-lower-left", +1, x0-clr-cw, -yr+clr, x0-clr, -yr+clr+ch)
-		addSide("coil-lower-right", -1, x1+clr, -yr+clr, x1+clr+cw, -yr+clr+ch)
-	}
-	x.coils = append(x.coils, coil)
+}
 
-	// Probes. The good-field box reaches to one gap from the face edges
-	// (common practice for a flat pole), but at least half the face width.
+// gapProbes returns gap-centre, midplane and good-field for a pole pair
+// centred on xc. The good-field box reaches to one gap from the face edges
+// (common practice for a flat pole), but at least half the face width.
+func (t *dims) gapProbes(xc, wp, wf, g float64) []Probe {
 	hw := wf/2 - g
 	if hw < wf/4 {
 		hw = wf / 4
 	}
-	x.probes = append(x.probes,
+	return []Probe{
 		t.point("gap-centre", xc, 0),
 		t.line("midplane", xc-wp, 0, xc+wp, 0),
-		t.box("good-field", xc-hw, -g/4, xc+hw, g/4))
-	x.refine = append(x.refine, Refine{Near: "gap", Size: g / 10, Pos: t.at})
-	for _, s := range []float64{1, -1} {
-		x.refine = append(x.refine,
-			t.refinePoint(xl+c, s*g2, g/20),
-			t.refinePoint(xr-c, s*g2, g/20))
+		t.box("good-field", xc-hw, -g/4, xc+hw, g/4),
 	}
-	t.target(x, "gap-centre")
+}
+
+// coilSide adds a copper rectangle and makes it a side of coil.
+func (t *dims) coilSide(x *expansion, coil *Coil, name string, sense, x0, y0, x1, y1 float64) {
+	x.regions = append(x.regions, t.rect(name, "copper", x0, y0, x1, y1))
+	coil.Sides = append(coil.Sides, CoilSide{Region: name, Sense: sense, Pos: t.at})
+}
+
+// poleCoils adds four coil sides around poles spanning x0..x1 whose roots
+// are at y = ±yr: cw × ch each, clr from the pole sides and the arms. The
+// senses drive the gap field along +y.
+func (t *dims) poleCoils(x *expansion, coil *Coil, x0, x1, yr, cw, ch, clr float64) {
+	t.coilSide(x, coil, "coil-upper-left", +1, x0-clr-cw, yr-clr-ch, x0-clr, yr-clr)
+	t.coilSide(x, coil, "coil-upper-right", -1, x1+clr, yr-clr-ch, x1+clr+cw, yr-clr)
+	t.coilSide(x, coil, "coil-lower-left", +1, x0-clr-cw, -yr+clr, x0-clr, -yr+clr+ch)
+	t.coilSide(x, coil, "coil-lower-right", -1, x1+clr, -yr+clr, x1+clr+cw, -yr+clr+ch)
 }
 
 // sideStep returns the point at distance c from (ax, ay) towards (bx, by).

@@ -97,6 +97,33 @@ func TestCCoreAreas(t *testing.T) {
 	}
 }
 
+func TestHCoreAreas(t *testing.T) {
+	src := `units: mm
+depth: 100
+template: h-core
+dimensions: {gap: 40, pole-width: 200, pole-height: 80, yoke-thickness: 150, leg-width: 100,
+  window-width: 120, coil-width: 100, coil-height: 60, turns: 160, current: 100}
+`
+	mm2 := 1e-6
+	// Hand computation: legs 100 × (40 + 2·80); yokes span 2·(100 + 120 +
+	// 100) = 640 by 150; poles 200 × 80; gap 200 × 40; coil sides 100 × 60.
+	m := mustParse(t, "h-core", src)
+	checkNoOverlap(t, "h-core", m)
+	checkAreas(t, "h-core", m, map[string]float64{
+		"left-leg": 100 * 200 * mm2, "right-leg": 100 * 200 * mm2,
+		"upper-yoke": 640 * 150 * mm2, "lower-yoke": 640 * 150 * mm2,
+		"upper-pole": 200 * 80 * mm2, "lower-pole": 200 * 80 * mm2, "gap": 200 * 40 * mm2,
+		"coil-upper-left": 100 * 60 * mm2, "coil-upper-right": 100 * 60 * mm2,
+		"coil-lower-left": 100 * 60 * mm2, "coil-lower-right": 100 * 60 * mm2,
+	})
+	x0, y0, x1, y1 := m.Extent()
+	if x0 != -0.32 || x1 != 0.32 || y0 != -0.25 || y1 != 0.25 {
+		t.Errorf("h-core extent %g %g %g %g", x0, y0, x1, y1)
+	}
+	runErrCases(t, []errCase{{"coil too wide", strings.Replace(src, "coil-width: 100", "coil-width: 110", 1),
+		`m.yaml:5:22: dimensions.coil-width: a coil side in the window needs coil-width + 2·clearance = 132, but window-width is 120`}})
+}
+
 func TestSolenoidAreas(t *testing.T) {
 	src := `units: mm
 geometry: axisymmetric
