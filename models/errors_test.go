@@ -163,7 +163,7 @@ dimensions: {gap: 40, pole-width: 200, pole-height: 80, arm-thickness: 180, leg-
 		{"unknown dimension", replace(t, cc, "gap: 40", "gap: 40, gpa: 3"), `m.yaml:4:23: dimensions.gpa: unknown key "gpa" in the c-core dimensions; did you mean "gap"?`},
 		{"placement", replace(t, cc, "gap: 40", "gap: 40, coil: arms"), `m.yaml:4:29: dimensions.coil: unknown coil placement "arms"; use back-leg or poles`},
 		{"chamfer", replace(t, cc, "gap: 40", "gap: 40, chamfer: 100"), `m.yaml:4:23: dimensions.chamfer: two chamfers (2 × 100) must be narrower than the pole face (200)`},
-		{"unknown template", replace(t, cc, "c-core", "e-core"), `m.yaml:3:11: template: unknown template "e-core"; did you mean "c-core"? (allowed: c-core, h-core or solenoid)`},
+		{"unknown template", replace(t, cc, "c-core", "e-core"), `m.yaml:3:11: template: unknown template "e-core"; did you mean "c-core"? (allowed: c-core, h-core, round-pole or solenoid)`},
 		{"solenoid planar", replace(t, cc, "c-core", "solenoid"), `m.yaml:3:11: template: template solenoid is axisymmetric; set geometry: axisymmetric`},
 		{"dimensions alone", replace(t, cc, "template: c-core\n", ""), `m.yaml:3:1: dimensions: dimensions need a template; add template: c-core (or solenoid) or remove dimensions`},
 	})

@@ -27,9 +27,10 @@ type templateInfo struct {
 }
 
 var templates = map[string]templateInfo{
-	"c-core":   {Planar, cCoreKeys, expandCCore},
-	"h-core":   {Planar, hCoreKeys, expandHCore},
-	"solenoid": {Axisymmetric, solenoidKeys, expandSolenoid},
+	"c-core":     {Planar, cCoreKeys, expandCCore},
+	"h-core":     {Planar, hCoreKeys, expandHCore},
+	"round-pole": {Axisymmetric, roundPoleKeys, expandRoundPole},
+	"solenoid":   {Axisymmetric, solenoidKeys, expandSolenoid},
 }
 
 func templateNames() []string {

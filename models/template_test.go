@@ -124,6 +124,40 @@ dimensions: {gap: 40, pole-width: 200, pole-height: 80, yoke-thickness: 150, leg
 		`m.yaml:5:22: dimensions.coil-width: a coil side in the window needs coil-width + 2·clearance = 132, but window-width is 120`}})
 }
 
+func TestRoundPoleAreas(t *testing.T) {
+	src := `units: mm
+geometry: axisymmetric
+template: round-pole
+dimensions: {gap: 30, pole-diameter: 160, pole-height: 90, plate-thickness: 70, window-width: 90,
+  return-thickness: 60, coil-width: 70, coil-height: 70, turns: 200, current: 60, field: 1.0}
+`
+	mm2 := 1e-6
+	// Hand computation (r-z half-plane areas): pole 80 × 90; plates reach
+	// r = 80 + 90 + 60 = 230, 70 thick; return shell 60 × 2·(15 + 90);
+	// gap 80 × 30; coils 70 × 70.
+	m := mustParse(t, "round-pole", src)
+	checkNoOverlap(t, "round-pole", m)
+	checkAreas(t, "round-pole", m, map[string]float64{
+		"upper-pole": 80 * 90 * mm2, "lower-pole": 80 * 90 * mm2,
+		"upper-plate": 230 * 70 * mm2, "lower-plate": 230 * 70 * mm2,
+		"return-yoke": 60 * 210 * mm2, "gap": 80 * 30 * mm2,
+		"upper-coil": 70 * 70 * mm2, "lower-coil": 70 * 70 * mm2,
+	})
+	if m.Geometry != Axisymmetric || m.Target.Probe != "gap-centre" {
+		t.Errorf("geometry %v target %+v", m.Geometry, m.Target)
+	}
+	// A conical face with a chamfer: frustum section (80 + 60)/2 × 90 less
+	// the chamfer triangle ½·c²·sin φ, sin φ = 90/√(20² + 90²).
+	tp := strings.Replace(src, "gap: 30,", "gap: 30, pole-face-diameter: 120, chamfer: 5,", 1)
+	m = mustParse(t, "round-pole tapered", tp)
+	checkNoOverlap(t, "round-pole tapered", m)
+	p, _ := m.Region("upper-pole")
+	want := ((80+60)/2*90 - 0.5*25*90/math.Sqrt(20*20+90*90)) * mm2
+	if math.Abs(p.Area()-want) > 1e-12*want {
+		t.Errorf("tapered pole area %.15g want %.15g", p.Area(), want)
+	}
+}
+
 func TestSolenoidAreas(t *testing.T) {
 	src := `units: mm
 geometry: axisymmetric
