@@ -44,14 +44,14 @@
 //
 // # Templates
 //
-// A model may name a template (c-core, solenoid) with dimensions instead of,
-// or beside, drawing polygons. The template expands into regions, one coil
+// A model may name a template (c-core, h-core, round-pole, solenoid) with
+// dimensions instead of, or beside, drawing polygons. The template expands into regions, one coil
 // "main", default probes, default mesh refinement and, when dimensions give
 // field, a target. The user's own regions, coils and probes are added after
 // the template's; one with the same name as a template entry replaces it,
 // a mesh refine list replaces the template's and a target replaces its
-// target. The sketches in template_ccore.go and template_solenoid.go, and
-// REFERENCE.md, define every dimension.
+// target. The sketches in template_*.go and REFERENCE.md define every
+// dimension.
 //
 // # Keys
 //
