@@ -17,12 +17,24 @@ type Discretization struct {
 	Input    *mesh.Input
 	Options  mesh.Options
 	Mesh     *mesh.Mesh
+	// Kelvin is the exterior disk of an open boundary, nil otherwise. Its
+	// triangles in Mesh carry KelvinTag(model).
+	Kelvin *mesh.KelvinExterior
 }
+
+// KelvinTag returns the region tag of the exterior disk of an open boundary.
+func KelvinTag(m *models.Model) int32 { return int32(len(m.Regions) + 1) }
+
+// Open reports whether the model asks for an open (far-field) boundary.
+func Open(m *models.Model) bool { return m.Boundary.Condition == "open" }
 
 // RegionName returns the model name of a region tag ("air" for AirTag).
 func (d *Discretization) RegionName(tag int32) string {
-	if tag == AirTag || int(tag) > len(d.Model.Regions) {
+	if tag == AirTag {
 		return "air"
+	}
+	if int(tag) > len(d.Model.Regions) {
+		return "air (exterior, Kelvin)"
 	}
 	return d.Model.Regions[tag-1].Name
 }
@@ -44,6 +56,29 @@ func SizeField(m *models.Model) mesh.SizeField {
 			f.Lines = append(f.Lines, mesh.SizeLine{X0: x[i], Y0: y[i], X1: x[j], Y1: y[j], Size: size})
 		}
 	}
+	addProbe := func(p *models.Probe, size float64) {
+		switch p.Kind {
+		case models.ProbePoint:
+			f.Points = append(f.Points, mesh.SizePoint{X: p.Point[0], Y: p.Point[1], Size: size})
+		case models.ProbeLine:
+			f.Lines = append(f.Lines, mesh.SizeLine{X0: p.Line[0][0], Y0: p.Line[0][1], X1: p.Line[1][0], Y1: p.Line[1][1], Size: size})
+		case models.ProbeBox:
+			b := p.Box
+			addPolygon([]float64{b[0][0], b[1][0], b[1][0], b[0][0]}, []float64{b[0][1], b[0][1], b[1][1], b[1][1]}, size)
+			// and its two centre lines, so the inside is covered too
+			xm, ym := 0.5*(b[0][0]+b[1][0]), 0.5*(b[0][1]+b[1][1])
+			f.Lines = append(f.Lines, mesh.SizeLine{X0: b[0][0], Y0: ym, X1: b[1][0], Y1: ym, Size: size},
+				mesh.SizeLine{X0: xm, Y0: b[0][1], X1: xm, Y1: b[1][1], Size: size})
+		case models.ProbeCircle:
+			const n = 16
+			x, y := make([]float64, n), make([]float64, n)
+			for k := range x {
+				a := 2 * math.Pi * float64(k) / n
+				x[k], y[k] = p.Centre[0]+p.Radius*math.Cos(a), p.Centre[1]+p.Radius*math.Sin(a)
+			}
+			addPolygon(x, y, size)
+		}
+	}
 	// The global size holds in every region and along every region edge;
 	// the air grows from there towards the far-field size.
 	for i, r := range m.Regions {
@@ -54,6 +89,12 @@ func SizeField(m *models.Model) mesh.SizeField {
 		if s > 0 {
 			f.Region[Tag(i)] = s
 			addPolygon(r.X, r.Y, s)
+		}
+	}
+	// Probes get the global size too: they are where the answers are read.
+	if m.Mesh.Size > 0 {
+		for i := range m.Probes {
+			addProbe(&m.Probes[i], m.Mesh.Size)
 		}
 	}
 	for _, rf := range m.Mesh.Refine {
@@ -68,23 +109,7 @@ func SizeField(m *models.Model) mesh.SizeField {
 				continue
 			}
 			if p, ok := m.Probe(rf.Near); ok {
-				switch p.Kind {
-				case "point":
-					f.Points = append(f.Points, mesh.SizePoint{X: p.Point[0], Y: p.Point[1], Size: rf.Size})
-				case "line":
-					f.Lines = append(f.Lines, mesh.SizeLine{X0: p.Line[0][0], Y0: p.Line[0][1], X1: p.Line[1][0], Y1: p.Line[1][1], Size: rf.Size})
-				case "box":
-					b := p.Box
-					addPolygon([]float64{b[0][0], b[1][0], b[1][0], b[0][0]}, []float64{b[0][1], b[0][1], b[1][1], b[1][1]}, rf.Size)
-				case "circle":
-					const n = 16
-					x, y := make([]float64, n), make([]float64, n)
-					for k := range x {
-						a := 2 * math.Pi * float64(k) / n
-						x[k], y[k] = p.Centre[0]+p.Radius*math.Cos(a), p.Centre[1]+p.Radius*math.Sin(a)
-					}
-					addPolygon(x, y, rf.Size)
-				}
+				addProbe(p, rf.Size)
 			}
 		}
 	}
@@ -112,11 +137,39 @@ func Discretize(m *models.Model) (*Discretization, error) {
 	if err != nil {
 		return nil, d.locate(err)
 	}
+	if Open(m) {
+		return d, d.openBoundary()
+	}
 	d.Mesh, err = mesh.Triangulate(d.Input, d.Options)
 	if err != nil {
 		return nil, fmt.Errorf("%s: meshing: %w", m.File, err)
 	}
 	return d, nil
+}
+
+// openBoundary meshes the model to first order, appends the Kelvin
+// transformation's exterior disk and elevates both together.
+func (d *Discretization) openBoundary() error {
+	m := d.Model
+	if m.Boundary.Shape != "circle" || m.Geometry != models.Planar {
+		return m.Errorf(m.Boundary.Pos, "the open boundary needs shape: circle in a planar model; for an axisymmetric model use zero-potential with a margin of 3 or more")
+	}
+	opt := d.Options
+	opt.Order = 1
+	inner, err := mesh.Triangulate(d.Input, opt)
+	if err != nil {
+		return fmt.Errorf("%s: meshing: %w", m.File, err)
+	}
+	cx, cy, r := circle(m)
+	k, err := mesh.AddKelvinDisk(inner, MarkerCircle, cx, cy, r, KelvinTag(m))
+	if err != nil {
+		return fmt.Errorf("%s: open boundary: %w", m.File, err)
+	}
+	if d.Options.Order == 2 {
+		k.ElevateKelvin()
+	}
+	d.Kelvin, d.Mesh = k, k.Mesh
+	return nil
 }
 
 // locate turns a mesher error that names a polygon into an error at that

@@ -42,10 +42,10 @@ func Boundary(m *models.Model) (mesh.Polygon, error) {
 	axi := m.Geometry == models.Axisymmetric
 	switch m.Boundary.Shape {
 	case "circle":
-		cx, cy := 0.5*(xmin+xmax), 0.5*(ymin+ymax)
+		cx, cy, r := circle(m)
 		if axi {
 			// A half disc centred on the axis.
-			r := math.Hypot(xmax, 0.5*dy) + d
+			r = math.Hypot(xmax, 0.5*dy) + d
 			return mesh.Polygon{
 				X:           []float64{0, 0},
 				Y:           []float64{cy - r, cy + r},
@@ -54,7 +54,6 @@ func Boundary(m *models.Model) (mesh.Polygon, error) {
 				EdgeMarkers: []int32{MarkerCircle, MarkerLeft},
 			}, nil
 		}
-		r := 0.5*math.Hypot(dx, dy) + d
 		p := mesh.Polygon{Region: AirTag, Marker: MarkerCircle}
 		for k := 0; k < 4; k++ {
 			a := float64(k) * math.Pi / 2
@@ -98,4 +97,13 @@ func Polygons(m *models.Model) []mesh.Polygon {
 		ps[i] = mesh.Polygon{X: r.X, Y: r.Y, Sweep: r.Sweep, Region: Tag(i), Marker: MarkerInterface}
 	}
 	return ps
+}
+
+// circle returns the centre and radius of a circular boundary: centred on
+// the model's extent, the margin beyond its half diagonal.
+func circle(m *models.Model) (cx, cy, r float64) {
+	xmin, ymin, xmax, ymax := m.Extent()
+	dx, dy := xmax-xmin, ymax-ymin
+	d := m.Boundary.Margin * math.Max(dx, dy)
+	return 0.5 * (xmin + xmax), 0.5 * (ymin + ymax), 0.5*math.Hypot(dx, dy) + d
 }

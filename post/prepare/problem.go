@@ -95,7 +95,7 @@ var Conditions = map[string]solver.Condition{
 // meshed area, so the total current is exact on the mesh.
 func Problem(d *Discretization) (*solver.Problem, error) {
 	m := d.Model
-	n := len(m.Regions) + 1
+	n := len(m.Regions) + 2 // air, the regions, the Kelvin disk
 	p := &solver.Problem{
 		Mesh:           d.Mesh,
 		Depth:          m.Depth,
@@ -107,6 +107,7 @@ func Problem(d *Discretization) (*solver.Problem, error) {
 		p.Formulation = solver.Axisymmetric
 	}
 	p.Materials[AirTag] = materials.Linear{MuR: 1}
+	p.Materials[KelvinTag(m)] = materials.Linear{MuR: 1}
 	var magnets [][2]float64
 	for i := range m.Regions {
 		mat, mag, err := Material(m, &m.Regions[i])
@@ -137,11 +138,17 @@ func Problem(d *Discretization) (*solver.Problem, error) {
 			p.CurrentDensity[Tag(idx)] += c.Turns * c.Current * s.Sense / a
 		}
 	}
+	if d.Kelvin != nil {
+		// The rim of the model and the rim of the exterior disk share
+		// their unknowns; the point at infinity holds A = 0 (and takes up
+		// any net current of the model, whose return path is at infinity).
+		p.Boundary[MarkerCircle] = solver.FluxNormal
+		p.Identify = d.Kelvin.Pairs
+		p.Fixed = []solver.NodeValue{{Node: d.Kelvin.Infinity, A: 0}}
+		return p, nil
+	}
 	cond, ok := Conditions[m.Boundary.Condition]
 	if !ok {
-		if m.Boundary.Condition == "open" {
-			return nil, m.Errorf(m.Boundary.Pos, "the open boundary is not available yet; use zero-potential with a margin of 2 or more")
-		}
 		return nil, m.Errorf(m.Boundary.Pos, "unknown boundary condition %q", m.Boundary.Condition)
 	}
 	for _, mk := range []int32{MarkerLeft, MarkerRight, MarkerBottom, MarkerTop, MarkerCircle} {

@@ -50,7 +50,7 @@ func (s *Study) Solve(opt Options) error {
 		return err
 	}
 	s.Problem, s.Solution = p, sol
-	s.Probes = probes.Evaluate(sol, s.Model.Probes)
+	s.Probes = probes.Evaluate(s.Field(), s.Model.Probes)
 	return nil
 }
 
@@ -62,4 +62,15 @@ func (s *Study) Probe(name string) (probes.Result, bool) {
 		}
 	}
 	return probes.Result{}, false
+}
+
+// Field returns the field the probes read: the solution itself for
+// second-order meshes, and the recovered (corner-averaged) flux density
+// for first-order ones, whose element values are constant.
+func (s *Study) Field() probes.Field {
+	m := s.Disc.Mesh
+	if m.Order() == 2 {
+		return s.Solution
+	}
+	return probes.NewRecovered(s.Solution, m, s.Solution.BTo(nil))
 }

@@ -1,0 +1,184 @@
+package mesh
+
+import (
+	"fmt"
+	"math"
+	"sort"
+)
+
+// KelvinExterior is the result of AddKelvinDisk: the combined mesh and the
+// couplings the solver needs.
+type KelvinExterior struct {
+	// Mesh holds the original triangles followed by those of the disk.
+	Mesh *Mesh
+	// Pairs join each node on the original circular boundary to the node
+	// at the same angle on the disk's rim (and, after ElevateKelvin, the
+	// matching midside nodes); the two share one unknown.
+	Pairs [][2]int32
+	// Infinity is the disk-centre node, the image of the point at infinity.
+	Infinity int32
+	// Centre and Radius describe the disk (metres).
+	CX, CY, Radius float64
+}
+
+// AddKelvinDisk appends the exterior disk of the Kelvin transformation to a
+// first-order mesh whose outer boundary (edges with the given marker) is a
+// polygon inscribed in the circle of radius r about (cx, cy).
+//
+// The region outside a circle of radius R maps onto a disk of the same
+// radius by inversion, x' = R² x/|x|², which keeps angles; in two
+// dimensions the Laplace equation for the vector potential is unchanged
+// by the map, so the exterior air becomes an ordinary air disk whose rim
+// is joined node for node to the original boundary and whose centre is
+// the point at infinity (E. M. Freeman and D. A. Lowther, "A novel
+// mapping technique for open boundary finite element solutions to Poisson's
+// equation", IEEE Trans. Magn. 24(6), 1988, and "An open boundary technique
+// for axisymmetric and three dimensional magnetic and electric field
+// problems", IEEE Trans. Magn. 25(5), 1989).
+//
+// The disk is meshed beside the model (its centre 2.5 r to the right of
+// (cx, cy)) with the same rim vertices (the rim is frozen) and quality
+// refinement; its triangles carry region tag region and its rim edges the
+// same marker, which the solver must treat as a natural (flux-normal)
+// edge since the pair coupling replaces it. The original mesh is not
+// modified.
+func AddKelvinDisk(m *Mesh, marker int32, cx, cy, r float64, region int32) (*KelvinExterior, error) {
+	if m.Mid != nil {
+		panic("mesh: AddKelvinDisk needs a first-order mesh; elevate afterwards with ElevateKelvin")
+	}
+	// The rim nodes, sorted by angle.
+	onRim := map[int32]bool{}
+	for t := 0; t < m.NumTriangles(); t++ {
+		for k := 0; k < 3; k++ {
+			if m.Nbr[3*t+k] == -1 && m.EdgeMarker[3*t+k] == marker {
+				onRim[m.Tri[3*t+(k+1)%3]] = true
+				onRim[m.Tri[3*t+(k+2)%3]] = true
+			}
+		}
+	}
+	if len(onRim) < 3 {
+		return nil, fmt.Errorf("mesh: Kelvin disk: the boundary with marker %d has %d nodes, need a closed circle", marker, len(onRim))
+	}
+	rim := make([]int32, 0, len(onRim))
+	for v := range onRim {
+		rim = append(rim, v)
+	}
+	ang := func(v int32) float64 { return math.Atan2(m.Y[v]-cy, m.X[v]-cx) }
+	sort.Slice(rim, func(i, j int) bool { return ang(rim[i]) < ang(rim[j]) })
+	for _, v := range rim {
+		// Refinement splits rim chords at their midpoints, so nodes lie on
+		// the circle or on its chords: allow the sagitta of a 30° chord.
+		if d := math.Hypot(m.X[v]-cx, m.Y[v]-cy); math.Abs(d-r) > 0.035*r {
+			return nil, fmt.Errorf("mesh: Kelvin disk: boundary node %d lies %g m from the centre, not on the circle of radius %g m", v, d, r)
+		}
+	}
+	// The disk's input: rim vertices at the same angles, plus its centre.
+	dx := 2.5 * r
+	n := len(rim)
+	in := &Input{DefaultRegion: region}
+	for _, v := range rim {
+		in.X = append(in.X, m.X[v]+dx)
+		in.Y = append(in.Y, m.Y[v])
+	}
+	in.X = append(in.X, cx+dx)
+	in.Y = append(in.Y, cy)
+	for i := 0; i < n; i++ {
+		in.Segments = append(in.Segments, int32(i), int32((i+1)%n))
+		in.Markers = append(in.Markers, marker)
+	}
+	disk, err := Triangulate(in, Options{Frozen: []int32{marker}})
+	if err != nil {
+		return nil, fmt.Errorf("mesh: Kelvin disk: %w", err)
+	}
+	// Find the disk's rim and centre nodes by their exact coordinates.
+	type key struct{ x, y float64 }
+	where := make(map[key]int32, disk.NumNodes())
+	for i := range disk.X {
+		where[key{disk.X[i], disk.Y[i]}] = int32(i)
+	}
+	off := int32(m.NumNodes())
+	out := &KelvinExterior{CX: cx + dx, CY: cy, Radius: r}
+	for i, v := range rim {
+		d, ok := where[key{in.X[i], in.Y[i]}]
+		if !ok {
+			return nil, fmt.Errorf("mesh: Kelvin disk: rim vertex %d lost in meshing", i)
+		}
+		out.Pairs = append(out.Pairs, [2]int32{v, d + off})
+	}
+	c, ok := where[key{in.X[n], in.Y[n]}]
+	if !ok {
+		return nil, fmt.Errorf("mesh: Kelvin disk: centre vertex lost in meshing")
+	}
+	out.Infinity = c + off
+	out.Mesh = appendMesh(m, disk)
+	return out, nil
+}
+
+// appendMesh returns a new first-order mesh with b's nodes and triangles
+// after a's (no nodes are merged; neighbours stay within each part).
+func appendMesh(a, b *Mesh) *Mesh {
+	off := int32(a.NumNodes())
+	toff := int32(a.NumTriangles())
+	out := &Mesh{
+		X:           append(append([]float64(nil), a.X...), b.X...),
+		Y:           append(append([]float64(nil), a.Y...), b.Y...),
+		Tri:         append([]int32(nil), a.Tri...),
+		Nbr:         append([]int32(nil), a.Nbr...),
+		Region:      append(append([]int32(nil), a.Region...), b.Region...),
+		EdgeMarker:  append(append([]int32(nil), a.EdgeMarker...), b.EdgeMarker...),
+		NumVertices: a.NumNodes() + b.NumNodes(),
+	}
+	for _, v := range b.Tri {
+		out.Tri = append(out.Tri, v+off)
+	}
+	for _, t := range b.Nbr {
+		if t >= 0 {
+			t += toff
+		}
+		out.Nbr = append(out.Nbr, t)
+	}
+	return out
+}
+
+// ElevateKelvin makes the combined mesh second order and adds the pairs of
+// matching midside nodes on the two rims.
+func (k *KelvinExterior) ElevateKelvin() {
+	m := k.Mesh
+	Elevate(m)
+	partner := make(map[int32]int32, len(k.Pairs))
+	for _, p := range k.Pairs {
+		partner[p[0]] = p[1]
+	}
+	// Midside node of each boundary edge, keyed by its sorted end nodes.
+	type edge struct{ a, b int32 }
+	mid := map[edge]int32{}
+	for t := 0; t < m.NumTriangles(); t++ {
+		for e := 0; e < 3; e++ {
+			if m.Nbr[3*t+e] != -1 {
+				continue
+			}
+			a, b := m.Tri[3*t+(e+1)%3], m.Tri[3*t+(e+2)%3]
+			if a > b {
+				a, b = b, a
+			}
+			mid[edge{a, b}] = m.Mid[3*t+e]
+		}
+	}
+	n := len(k.Pairs)
+	for i := 0; i < n; i++ {
+		p, q := k.Pairs[i], k.Pairs[(i+1)%n]
+		a, b := p[0], q[0]
+		c, d := partner[a], partner[b]
+		if a > b {
+			a, b = b, a
+		}
+		if c > d {
+			c, d = d, c
+		}
+		m1, ok1 := mid[edge{a, b}]
+		m2, ok2 := mid[edge{c, d}]
+		if ok1 && ok2 {
+			k.Pairs = append(k.Pairs, [2]int32{m1, m2})
+		}
+	}
+}
