@@ -45,6 +45,9 @@ type cdt struct {
 	// piece of each piece's edge.
 	segEnds [][2]int32
 	segOf   map[edgeKey]int32
+	// pinch holds the vertices where the domain touches itself (more than
+	// one fan of triangles), found after the exterior is removed.
+	pinch map[int32]bool
 }
 
 // bndEdge is an edge (a, b) of the cavity boundary, seen CCW from the new

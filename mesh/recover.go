@@ -17,7 +17,7 @@ func (d *cdt) findEdge(u, v int32) (int32, int) {
 	if t, k := d.rotateFind(v, u, true); t >= 0 {
 		return t, k
 	}
-	if d.vtri[u] < 0 || d.vtri[v] < 0 {
+	if d.vtri[u] < 0 || d.vtri[v] < 0 || (!d.pinch[u] && !d.pinch[v]) {
 		return -1, 0
 	}
 	for t := int32(0); t < int32(len(d.tri)/3); t++ {

@@ -332,11 +332,21 @@ func (d *cdt) classify(in *Input, vmap []int32) {
 			d.killTri(t)
 		}
 	}
+	bcount := map[int32]int{}
 	for t := int32(0); t < int32(nt); t++ {
 		if d.alive(t) {
 			for k := int32(0); k < 3; k++ {
 				d.vtri[d.tri[3*t+k]] = t
+				if d.nbr[3*t+k] < 0 {
+					bcount[d.tri[3*t+int32(next3[k])]]++
+				}
 			}
+		}
+	}
+	d.pinch = map[int32]bool{}
+	for v, c := range bcount {
+		if c > 1 {
+			d.pinch[v] = true
 		}
 	}
 }
