@@ -18,7 +18,8 @@ type decoder struct {
 	units string
 
 	generated   map[string]bool
-	targetProbe Pos // where target.probe was written // "region:name", "coil:name", "probe:name" made by a template
+	targetProbe Pos // where target.probe was written
+	depth       int // nesting of merge keys being expanded // "region:name", "coil:name", "probe:name" made by a template
 }
 
 // fail records an error at node n (at the start of the file when n is nil).
@@ -126,6 +127,7 @@ func (d *decoder) mapping(n *yaml.Node, path string, known []string, what string
 	}
 	f := &fields{node: n, path: path, val: map[string]*yaml.Node{}, key: map[string]*yaml.Node{}}
 	ok := true
+	var merges []*yaml.Node // "<<: *anchor" sources, applied after the explicit keys
 	for i := 0; i+1 < len(n.Content); i += 2 {
 		kn, vn := resolve(n.Content[i]), resolve(n.Content[i+1])
 		if kn == nil || vn == nil {
@@ -139,6 +141,10 @@ func (d *decoder) mapping(n *yaml.Node, path string, known []string, what string
 			continue
 		}
 		k := kn.Value
+		if kn.ShortTag() == "!!merge" {
+			merges = append(merges, vn)
+			continue
+		}
 		if _, dup := f.val[k]; dup {
 			d.fail(kn, join(path, k), "duplicate key %q (first at line %d); keep one", k, f.key[k].Line)
 			ok = false
@@ -157,6 +163,34 @@ func (d *decoder) mapping(n *yaml.Node, path string, known []string, what string
 		}
 		f.val[k], f.key[k] = vn, kn
 		f.keys = append(f.keys, k)
+	}
+	// YAML merge keys: keys of the merged mappings that the mapping does not
+	// set itself, first source first.
+	for _, src := range merges {
+		list := []*yaml.Node{src}
+		if src.Kind == yaml.SequenceNode {
+			list = src.Content
+		}
+		for _, mn := range list {
+			if d.depth > 16 {
+				d.fail(mn, path, "merge keys nested too deeply")
+				return f, false
+			}
+			d.depth++
+			mf, mok := d.mapping(mn, path, known, what)
+			d.depth--
+			ok = ok && mok
+			if mf == nil {
+				ok = false
+				continue
+			}
+			for _, k := range mf.keys {
+				if _, set := f.val[k]; !set {
+					f.val[k], f.key[k] = mf.val[k], mf.key[k]
+					f.keys = append(f.keys, k)
+				}
+			}
+		}
 	}
 	return f, ok
 }

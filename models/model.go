@@ -150,6 +150,9 @@ type MeshControls struct {
 	Pos      Pos
 }
 
+// MinAngleDegrees returns MinAngle in degrees, the unit package mesh takes.
+func (c *MeshControls) MinAngleDegrees() float64 { return c.MinAngle * 180 / math.Pi }
+
 // Refine asks for elements no larger than Size near one thing: the edges of a
 // region or a probe's geometry (Near), a point, or a line segment.
 type Refine struct {

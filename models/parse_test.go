@@ -279,3 +279,27 @@ func TestManyErrorsSorted(t *testing.T) {
 		}
 	}
 }
+
+// TestMergeKeys: YAML merge keys (<<: *anchor) fill in keys a mapping does
+// not set itself; unknown keys in the merged mapping are still errors.
+func TestMergeKeys(t *testing.T) {
+	src := `units: mm
+depth: 10
+regions:
+  - &r {name: a, material: air, polygon: [[0, 0], [10, 0], [10, 10]], mesh-size: 2}
+  - <<: *r
+    name: b
+    polygon: [[20, 0], [30, 0], [30, 10]]
+`
+	m := mustParse(t, "merge", src)
+	b, _ := m.Region("b")
+	if b.Material != "air" || b.MeshSize != 0.002 || b.X[0] != 0.02 {
+		t.Errorf("merged region %+v", b)
+	}
+	if m.Mesh.MinAngleDegrees() != 28 {
+		t.Errorf("MinAngleDegrees %g", m.Mesh.MinAngleDegrees())
+	}
+	bad := strings.Replace(src, "mesh-size: 2}", "mesh-size: 2, colour: red}", 1)
+	runErrCases(t, []errCase{{"merged unknown key", bad,
+		`m.yaml:4:85: regions[0].colour: unknown key "colour" in a region; known keys are name, material, polygon or mesh-size`}})
+}
