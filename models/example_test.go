@@ -88,6 +88,7 @@ func ExampleExamples() {
 	// bench-dipole
 	// calibration-solenoid
 	// mineral-separator
+	// relaxometry-magnet
 }
 
 func ExampleModel_Errorf() {

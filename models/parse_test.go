@@ -16,6 +16,7 @@ func TestExamplesLoad(t *testing.T) {
 	gaps := map[string]float64{
 		"bench-dipole":         0.040,
 		"calibration-solenoid": 0.020,
+		"relaxometry-magnet":   0.030,
 	}
 	// The separator's upper pole face is a 40° arc on a 60 mm chord: its
 	// sagitta is R(1 - cos 20°) with R = 30/sin 20°, so the gap at the centre
