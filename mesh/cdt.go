@@ -59,6 +59,24 @@ type bndEdge struct {
 	region int32
 }
 
+// reserve grows the capacities for about nt triangles and nv vertices so
+// that insertion does not copy the arrays repeatedly.
+func (d *cdt) reserve(nt, nv int) {
+	if extra := 3*nt - cap(d.tri); extra > 0 {
+		d.tri = append(make([]int32, 0, 3*nt), d.tri...)
+		d.nbr = append(make([]int32, 0, 3*nt), d.nbr...)
+		d.mark = append(make([]int32, 0, 3*nt), d.mark...)
+		d.reg = append(make([]int32, 0, nt), d.reg...)
+		d.stamp = append(make([]uint32, 0, nt), d.stamp...)
+	}
+	if nv > cap(d.x) {
+		d.x = append(make([]float64, 0, nv), d.x...)
+		d.y = append(make([]float64, 0, nv), d.y...)
+		d.vtri = append(make([]int32, 0, nv), d.vtri...)
+		d.link = append(make([]int32, 0, nv), d.link...)
+	}
+}
+
 func (d *cdt) numTri() int { return len(d.tri)/3 - len(d.free) }
 
 func (d *cdt) addVertex(x, y float64) int32 {

@@ -104,6 +104,7 @@ func buildCDT(in *Input) (*cdt, []int32, error) {
 	b1 := d.addVertex(maxX+span, minY-span)
 	b2 := d.addVertex(maxX+span, maxY+span)
 	b3 := d.addVertex(minX-span, maxY+span)
+	d.reserve(2*n+8, n+4)
 	t0 := d.newTri(b0, b1, b2)
 	t1 := d.newTri(b0, b2, b3)
 	d.nbr[3*t0+1] = t1 // edge (b2, b0)
