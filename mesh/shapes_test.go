@@ -275,3 +275,69 @@ func TestTriangulateRandomPolygons(t *testing.T) {
 		segmentsCovered(t, "random-polygons", in, m)
 	}
 }
+
+// TestTriangulateStrictAngles: inputs without angles below 90 degrees need
+// no angle exception at all (Ruppert 1995, Theorem 1 covers input angles of
+// 90 degrees and more for bounds up to about 20.7 degrees; 28 degrees holds
+// in practice). Also checks that the Input is not modified.
+func TestTriangulateStrictAngles(t *testing.T) {
+	for _, p := range [][]float64{
+		boxPoly(0, 0, 3, 1),
+		{0, 0, 2, 0, 2, 1, 1, 1, 1, 2, 0, 2},
+		{0, 0, 4, 0, 4, 3, 3, 3, 3, 1, 1, 1, 1, 3, 0, 3},
+	} {
+		in := polyInput(p)
+		x0 := append([]float64(nil), in.X...)
+		s0 := append([]int32(nil), in.Segments...)
+		m := mustMesh(t, "strict", in, Options{Size: SizeField{Global: 0.2}}, CheckOptions{RegionAreas: map[int32]float64{0: shoelaceArea(p)}})
+		for tr := 0; tr < m.NumTriangles(); tr++ {
+			if a, _ := m.minAngle(tr); a < 28-1e-9 {
+				t.Fatalf("strict: triangle %d has angle %g < 28", tr, a)
+			}
+		}
+		for i := range x0 {
+			if in.X[i] != x0[i] {
+				t.Fatal("strict: Input.X modified")
+			}
+		}
+		for i := range s0 {
+			if in.Segments[i] != s0[i] {
+				t.Fatal("strict: Input.Segments modified")
+			}
+		}
+	}
+}
+
+func TestTriangulateOrder2(t *testing.T) {
+	in := polyInput(boxPoly(0, 0, 1, 1))
+	m, err := Triangulate(in, Options{Order: 2, Size: SizeField{Global: 0.3}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if m.Order() != 2 || len(m.Mid) != len(m.Tri) || m.NumNodes() <= m.NumVertices {
+		t.Fatalf("order 2: Order %d, %d Mid, %d nodes, %d vertices", m.Order(), len(m.Mid), m.NumNodes(), m.NumVertices)
+	}
+	if err := m.Check(CheckOptions{MinAngle: 28, RegionAreas: map[int32]float64{0: 1}}); err != nil {
+		t.Fatal(err)
+	}
+}
+
+// TestTriangulatePanics: malformed slices are programmer errors.
+func TestTriangulatePanics(t *testing.T) {
+	for name, in := range map[string]*Input{
+		"odd":     {X: []float64{0, 1, 0}, Y: []float64{0, 0, 1}, Segments: []int32{0}, Markers: nil},
+		"markers": {X: []float64{0, 1, 0}, Y: []float64{0, 0, 1}, Segments: []int32{0, 1}, Markers: nil},
+		"index":   {X: []float64{0, 1, 0}, Y: []float64{0, 0, 1}, Segments: []int32{0, 3}, Markers: []int32{1}},
+		"marker0": {X: []float64{0, 1, 0}, Y: []float64{0, 0, 1}, Segments: []int32{0, 1}, Markers: []int32{0}},
+		"xy":      {X: []float64{0, 1, 0}, Y: []float64{0, 0}},
+	} {
+		func() {
+			defer func() {
+				if r := recover(); r == nil {
+					t.Errorf("%s: no panic", name)
+				}
+			}()
+			Triangulate(in, Options{})
+		}()
+	}
+}
