@@ -131,6 +131,8 @@ func TestErrReferences(t *testing.T) {
 		{"refine near", base + "mesh: {refine: [{near: cor, size: 1}]}\n", `m.yaml:21:24: mesh.refine[0].near: refine near "cor" names no region or probe; did you mean "core"?`},
 		{"material", edit(t, "    material: steel", "    material: steal"), `m.yaml:8:15: regions[0].material: material "steal" is not defined; define it under materials (air and copper are built in); did you mean "steel"?`},
 		{"air defined", edit(t, "steel: {mu-r: 1000}", "steel: {mu-r: 1000}\n  air: {mu-r: 1}"), `m.yaml:6:3: materials.air: "air" is built in (relative permeability 1); use it without defining it`},
+		{"table file", edit(t, "{mu-r: 1000}", "{table-file: no/such.csv}"), `m.yaml:5:23: materials.steel.table-file: cannot read B-H table file no/such.csv; paths are relative to the model file`},
+		{"probe name", edit(t, "  p: {point: [50, 60]}", "  p: {point: [50, 60]}\n  \"\": {point: [0, 0]}"), `m.yaml:20:3: probes.: a probe needs a name`},
 		{"two kinds", edit(t, "{mu-r: 1000}", "{mu-r: 1000, curve: x}"), `m.yaml:5:10: materials.steel: a material needs exactly one of curve, table, table-file, mu-r or remanence (got curve and mu-r)`},
 	})
 }
@@ -164,7 +166,7 @@ dimensions: {gap: 40, pole-width: 200, pole-height: 80, arm-thickness: 180, leg-
 		{"placement", replace(t, cc, "gap: 40", "gap: 40, coil: arms"), `m.yaml:4:29: dimensions.coil: unknown coil placement "arms"; use back-leg or poles`},
 		{"chamfer", replace(t, cc, "gap: 40", "gap: 40, chamfer: 100"), `m.yaml:4:23: dimensions.chamfer: two chamfers (2 × 100) must be narrower than the pole face (200)`},
 		{"unknown template", replace(t, cc, "c-core", "e-core"), `m.yaml:3:11: template: unknown template "e-core"; did you mean "c-core"? (allowed: c-core, h-core, round-pole or solenoid)`},
-		{"solenoid planar", replace(t, cc, "c-core", "solenoid"), `m.yaml:3:11: template: template solenoid is axisymmetric; set geometry: axisymmetric`},
+		{"solenoid planar", replace(t, cc, "template: c-core", "geometry: planar\ntemplate: solenoid"), `m.yaml:4:11: template: template solenoid is axisymmetric; set geometry: axisymmetric`},
 		{"dimensions alone", replace(t, cc, "template: c-core\n", ""), `m.yaml:3:1: dimensions: dimensions need a template; add template: c-core (or solenoid) or remove dimensions`},
 	})
 }

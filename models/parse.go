@@ -89,6 +89,10 @@ func (d *decoder) parse(data []byte) *Model {
 		if g, ok := d.enum(n, "geometry", "geometry", []string{"planar", "axisymmetric"}); ok && g == "axisymmetric" {
 			m.Geometry = Axisymmetric
 		}
+	} else if n := resolve(top.get("template")); n != nil && n.Kind == yaml.ScalarNode {
+		if info, ok := templates[n.Value]; ok {
+			m.Geometry = info.geometry // a template implies its geometry
+		}
 	}
 	if m.Geometry == Planar {
 		if n := d.need(top, "depth", "a planar model needs depth: the magnet's length into the page, in the model's units"); n != nil {
@@ -200,6 +204,9 @@ func (d *decoder) materials(m *Model, n *yaml.Node) {
 			if p, ok := d.str(mf.get("table-file"), mf.sub("table-file"), "a CSV file path"); ok {
 				if !filepath.IsAbs(p) {
 					p = filepath.Join(filepath.Dir(d.file), p)
+				}
+				if st, err := os.Stat(p); err != nil || st.IsDir() {
+					d.fail(mf.get("table-file"), mf.sub("table-file"), "cannot read B-H table file %s; paths are relative to the model file", p)
 				}
 				mat.TableFile = p
 			}

@@ -2,6 +2,7 @@ package models
 
 import (
 	"math"
+	"os"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -203,7 +204,14 @@ func TestMaterialsDecoded(t *testing.T) {
   tab: {table: [[0, 0], [100, 1.0], [1000, 1.5]]}
   csv: {table-file: curves/m.csv}
   pm: {remanence: 1.2, mu-recoil: 1.05, direction: 90}`)
-	m := mustParse(t, filepath.Join("dir", "model"), src)
+	dir := t.TempDir()
+	if err := os.MkdirAll(filepath.Join(dir, "curves"), 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(filepath.Join(dir, "curves", "m.csv"), []byte("0,0\n100,1\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	m := mustParse(t, filepath.Join(dir, "model"), src)
 	lam, _ := m.Material("lam")
 	tab, _ := m.Material("tab")
 	csv, _ := m.Material("csv")
@@ -214,7 +222,7 @@ func TestMaterialsDecoded(t *testing.T) {
 	if len(tab.Table) != 3 || tab.Table[2] != [2]float64{1000, 1.5} {
 		t.Errorf("tab %+v", tab)
 	}
-	if csv.TableFile != filepath.Join("dir", "curves", "m.csv") {
+	if csv.TableFile != filepath.Join(dir, "curves", "m.csv") {
 		t.Errorf("csv path %q: want it relative to the model file", csv.TableFile)
 	}
 	if pm.Magnet == nil || pm.Magnet.Remanence != 1.2 || pm.Magnet.MuRecoil != 1.05 || math.Abs(pm.Magnet.Direction-math.Pi/2) > 1e-15 {

@@ -2,6 +2,7 @@ package models
 
 import (
 	"math"
+	"strings"
 
 	"gopkg.in/yaml.v3"
 )
@@ -22,6 +23,10 @@ func (d *decoder) probes(m *Model, n *yaml.Node) {
 	}
 	for _, name := range f.keys {
 		path := f.sub(name)
+		if strings.TrimSpace(name) == "" {
+			d.fail(f.key[name], path, "a probe needs a name")
+			continue
+		}
 		pf, _ := d.mapping(f.val[name], path, probeKeys, "a probe")
 		if pf == nil {
 			continue

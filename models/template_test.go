@@ -167,6 +167,10 @@ dimensions: {inner-radius: 40, thickness: 50, length: 100, clearance: 4, turns: 
 	mm2 := 1e-6
 	m := mustParse(t, "air solenoid", src)
 	checkAreas(t, "air solenoid", m, map[string]float64{"winding": 50 * 100 * mm2})
+	// Without a geometry key the template's geometry applies.
+	if m2 := mustParse(t, "implied geometry", strings.Replace(src, "geometry: axisymmetric\n", "", 1)); m2.Geometry != Axisymmetric {
+		t.Errorf("implied geometry %v", m2.Geometry)
+	}
 	if m.Target == nil || m.Target.Probe != "centre" || m.Target.Field != 0.8 {
 		t.Errorf("target %+v", m.Target)
 	}
