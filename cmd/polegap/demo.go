@@ -18,7 +18,7 @@ what a designer reads off it: the field at the gap centre and over the
 good-field region, the stored energy, and how the solve converged. It needs no input file, so it is
 the quickest way to see that polegap works on a new machine.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
-		png := fs.String("png", "", "also draw the mesh to this .png or .svg file")
+		png := fs.String("png", "", "also draw the field map to this .png or .svg file")
 		return func(env *Env, args []string) error {
 			if len(args) != 0 {
 				return usagef("demo takes no arguments")
@@ -35,10 +35,10 @@ the quickest way to see that polegap works on a new machine.`,
 				return err
 			}
 			if *png != "" {
-				if err := drawMesh(*png, s.Disc); err != nil {
+				if err := report.DrawField(s, *png); err != nil {
 					return err
 				}
-				fmt.Fprintf(env.Stdout, "\nmesh drawn to %s\n", *png)
+				fmt.Fprintf(env.Stdout, "\nfield map drawn to %s\n", *png)
 			}
 			return nil
 		}

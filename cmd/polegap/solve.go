@@ -9,7 +9,7 @@ import (
 )
 
 var cmdSolve = &Command{
-	UsageLine: "solve [--json] [--tol R] [--max-iterations N] MODEL",
+	UsageLine: "solve [--json] [--png FILE] [--tol R] [--max-iterations N] MODEL",
 	Short:     "solve a model and print the field at its probes",
 	Long: `Solve meshes the model, solves for the magnetic vector potential (with
 Newton–Raphson when the iron is nonlinear) and prints a summary: the mesh
@@ -24,6 +24,7 @@ with status 1; no result is reported for it.`,
 		asJSON := fs.Bool("json", false, "print the report as JSON")
 		tol := fs.Float64("tol", 1e-8, "relative residual at which Newton stops")
 		maxIter := fs.Int("max-iterations", 30, "limit on Newton steps")
+		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png or .svg file")
 		return func(env *Env, args []string) error {
 			if err := oneModel(args); err != nil {
 				return err
@@ -40,6 +41,11 @@ with status 1; no result is reported for it.`,
 				return err
 			}
 			r := report.New(s)
+			if *png != "" {
+				if err := report.DrawField(s, *png); err != nil {
+					return err
+				}
+			}
 			if *asJSON {
 				return writeJSON(env.Stdout, r)
 			}

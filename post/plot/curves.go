@@ -18,8 +18,8 @@ type Series struct {
 	Points bool // draw markers instead of (or as well as) a line
 }
 
-// palette holds the line colours of curve plots, in order.
-var palette = []color.Color{
+// lineColours holds the line colours of curve plots, in order.
+var lineColours = []color.Color{
 	color.RGBA{R: 30, G: 90, B: 160, A: 255},
 	color.RGBA{R: 200, G: 90, B: 30, A: 255},
 	color.RGBA{R: 60, G: 140, B: 70, A: 255},
@@ -46,7 +46,7 @@ func LineFigure(title, xlabel, ylabel string, series ...Series) (*plot.Plot, err
 			}
 			xy[k].X, xy[k].Y = s.X[k], s.Y[k]
 		}
-		col := palette[i%len(palette)]
+		col := lineColours[i%len(lineColours)]
 		if s.Points {
 			sc, err := plotter.NewScatter(xy)
 			if err != nil {

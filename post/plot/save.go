@@ -59,3 +59,32 @@ func SaveGrid(plots [][]*plot.Plot, width, height vg.Length, path string) error 
 		return err
 	})
 }
+
+// SaveGridWidths writes plots side by side in one row, each given its
+// width in centimetres, height tall overall.
+func SaveGridWidths(plots []*plot.Plot, widths []float64, height vg.Length, path string) error {
+	ext := strings.ToLower(strings.TrimPrefix(filepath.Ext(path), "."))
+	total := 0.0
+	for _, w := range widths {
+		total += w
+	}
+	c, err := draw.NewFormattedCanvas(vg.Length(total)*vg.Centimeter, height, ext)
+	if err != nil {
+		return fmt.Errorf("plot %s: %w", path, err)
+	}
+	dc := draw.New(c)
+	x := vg.Length(0)
+	for i, p := range plots {
+		w := vg.Length(widths[i]) * vg.Centimeter
+		sub := draw.Canvas{Canvas: dc.Canvas, Rectangle: vg.Rectangle{
+			Min: vg.Point{X: dc.Min.X + x, Y: dc.Min.Y},
+			Max: vg.Point{X: dc.Min.X + x + w, Y: dc.Max.Y},
+		}}
+		p.Draw(sub)
+		x += w
+	}
+	return fileout.Write(path, func(w io.Writer) error {
+		_, err := c.WriteTo(w)
+		return err
+	})
+}

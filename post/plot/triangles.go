@@ -49,7 +49,13 @@ func (t *Triangles) Plot(c draw.Canvas, p *plot.Plot) {
 		}
 		pts[3] = pts[0]
 		if t.Fill != nil && t.Fill[i] != nil {
-			c.FillPolygon(t.Fill[i], c.ClipPolygonXY(pts[:3]))
+			poly := c.ClipPolygonXY(pts[:3])
+			c.FillPolygon(t.Fill[i], poly)
+			if t.Edge.Width == 0 && len(poly) > 0 {
+				// Stroke with the fill colour so that anti-aliasing leaves
+				// no hairline gaps between neighbours.
+				c.StrokeLines(draw.LineStyle{Color: t.Fill[i], Width: vg.Points(0.25)}, c.ClipLinesXY(pts)...)
+			}
 		}
 	}
 	if t.Edge.Width > 0 {
