@@ -22,7 +22,7 @@ func BenchmarkTriangulate(b *testing.B) {
 	in := polyInput(box, yoke, wire)
 	in.Seeds = seeds
 	b.Run("c-core-100k", func(b *testing.B) {
-		benchTriangulate(b, in, Options{Size: SizeField{Global: 0.0018, Lines: []SizeLine{{0.16, 0.08, 0.2, 0.08, 0.0005}}}})
+		benchTriangulate(b, in, Options{Size: SizeField{Global: 0.0027, Lines: []SizeLine{{0.16, 0.08, 0.2, 0.08, 0.0005}}}})
 	})
 }
 

@@ -45,6 +45,27 @@ func scalePoly(p []float64, s float64) []float64 {
 	return q
 }
 
+// sizeHonoured checks that no triangle's longest edge exceeds the size
+// field at its centroid: refinement splits every such triangle, so this is
+// exact, not statistical.
+func sizeHonoured(t *testing.T, name string, m *Mesh, f *SizeField) {
+	t.Helper()
+	bad := 0
+	for tr := 0; tr < m.NumTriangles(); tr++ {
+		a, b, c := m.Tri[3*tr], m.Tri[3*tr+1], m.Tri[3*tr+2]
+		h := f.At((m.X[a]+m.X[b]+m.X[c])/3, (m.Y[a]+m.Y[b]+m.Y[c])/3, m.Region[tr])
+		for _, e := range [3][2]int32{{a, b}, {b, c}, {c, a}} {
+			if math.Hypot(m.X[e[0]]-m.X[e[1]], m.Y[e[0]]-m.Y[e[1]]) > h*(1+1e-12) {
+				bad++
+				break
+			}
+		}
+	}
+	if bad > 0 {
+		t.Errorf("%s: %d triangles have an edge longer than the size field", name, bad)
+	}
+}
+
 // regionAt finds a triangle containing (x, y) (interior or edge) by brute
 // force with exact orientation tests and returns its region, or false.
 func regionAt(m *Mesh, x, y float64) (int32, bool) {
@@ -117,6 +138,7 @@ func TestTriangulateShapes(t *testing.T) {
 	for _, c := range cases {
 		m := mustMesh(t, c.name, c.in, c.opt, CheckOptions{MinAngle: 28, RegionAreas: c.areas})
 		segmentsCovered(t, c.name, c.in, m)
+		sizeHonoured(t, c.name, m, &c.opt.Size)
 		for _, p := range c.samples {
 			if r, ok := regionAt(m, p.X, p.Y); !ok || r != p.Region {
 				t.Errorf("%s: region at (%g,%g) = %d (found %v), want %d", c.name, p.X, p.Y, r, ok, p.Region)
