@@ -19,7 +19,8 @@ type decoder struct {
 
 	generated   map[string]bool
 	targetProbe Pos // where target.probe was written
-	depth       int // nesting of merge keys being expanded // "region:name", "coil:name", "probe:name" made by a template
+	depth       int // nesting of merge keys being expanded
+	merges      int // merged mappings expanded so far (bounded by maxMerges) // "region:name", "coil:name", "probe:name" made by a template
 }
 
 // fail records an error at node n (at the start of the file when n is nil).
@@ -172,8 +173,9 @@ func (d *decoder) mapping(n *yaml.Node, path string, known []string, what string
 			list = src.Content
 		}
 		for _, mn := range list {
-			if d.depth > 16 {
-				d.fail(mn, path, "merge keys nested too deeply")
+			d.merges++
+			if d.depth > 16 || d.merges > maxMerges {
+				d.fail(mn, path, "too many or too deeply nested merge keys (<<); write the values out")
 				return f, false
 			}
 			d.depth++
@@ -276,6 +278,10 @@ func (d *decoder) number(n *yaml.Node, path string) (float64, bool) {
 	}
 	return x, true
 }
+
+// maxMerges bounds the merged mappings one file may expand, so that nested
+// merge keys cannot make decoding exponentially slow.
+const maxMerges = 1000
 
 // maxMagnitude bounds every number in a model file, so that no unit
 // conversion or area overflows.

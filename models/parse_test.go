@@ -1,6 +1,7 @@
 package models
 
 import (
+	"fmt"
 	"math"
 	"os"
 	"path/filepath"
@@ -311,4 +312,19 @@ regions:
 	bad := strings.Replace(src, "mesh-size: 2}", "mesh-size: 2, colour: red}", 1)
 	runErrCases(t, []errCase{{"merged unknown key", bad,
 		`m.yaml:4:85: regions[0].colour: unknown key "colour" in a region; known keys are name, material, polygon or mesh-size`}})
+}
+
+// TestMergeBomb: merge keys that fan out at every level must fail fast
+// rather than expand exponentially.
+func TestMergeBomb(t *testing.T) {
+	var sb strings.Builder
+	sb.WriteString("units: mm\ndepth: 1\nmaterials:\n  m0: &a0 {mu-r: 1}\n")
+	for i := 1; i <= 12; i++ {
+		fmt.Fprintf(&sb, "  m%d: &a%d {<<: [*a%d, *a%d, *a%d, *a%d]}\n", i, i, i-1, i-1, i-1, i-1)
+	}
+	sb.WriteString("regions: [{name: a, material: air, polygon: [[0, 0], [1, 0], [0, 1]]}]\n")
+	_, err := Parse("bomb.yaml", []byte(sb.String()))
+	if err == nil || !strings.Contains(err.Error(), "merge keys") {
+		t.Errorf("merge bomb: %v", err)
+	}
 }
