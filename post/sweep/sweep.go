@@ -1,0 +1,258 @@
+package sweep
+
+import (
+	"context"
+	"fmt"
+	"math"
+
+	"polegap/models"
+	"polegap/post/probes"
+	"polegap/post/study"
+	"polegap/solver"
+)
+
+// Point is one solved point of an excitation curve.
+type Point struct {
+	Index       int     // position in the full list of currents (0-based)
+	Current     float64 // A, of the swept coil
+	AmpereTurns float64 // turns × current of the swept coil
+	Field       float64 // T: |B| at a point probe, or the mean |B| over a line, box or circle probe
+	Efficiency  float64 // B g / (μ0 NI) when the gap length is known, else 0
+	MaxIronB    float64 // T, largest element |B| in nonlinear iron (mesh-dependent at re-entrant corners)
+	Energy      float64 // J, stored magnetic energy (planar: times depth)
+	Iterations  int     // Newton steps
+	Residual    float64 // final relative residual
+}
+
+// Options control a sweep.
+type Options struct {
+	// Currents of the swept coil, in the order they are solved.
+	Currents []float64
+	// Coil names the swept coil; empty means the first coil.
+	Coil string
+	// Probe names the probe whose field is reported; empty means the
+	// model's target probe, or else its first probe.
+	Probe string
+	// GapLength (m) gives the ideal-line reference and the efficiency;
+	// 0 leaves the efficiency out.
+	GapLength float64
+	// Shard, Shards select every Shards-th point starting at Shard
+	// (1-based); zero values run all points.
+	Shard, Shards int
+	// Progress, when set, is called after each point.
+	Progress func(done, total int, p Point)
+	// Solver options for each solve (Initial is managed by the sweep).
+	Solver solver.Options
+}
+
+// Range returns n currents evenly spaced from lo to hi inclusive.
+func Range(lo, hi float64, n int) []float64 {
+	if n < 2 {
+		return []float64{hi}
+	}
+	out := make([]float64, n)
+	for i := range out {
+		out[i] = lo + (hi-lo)*float64(i)/float64(n-1)
+	}
+	return out
+}
+
+// InterruptedError reports a sweep stopped by its context; the points
+// finished before it are returned beside it.
+type InterruptedError struct {
+	Done, Total int
+	Err         error
+}
+
+func (e *InterruptedError) Error() string {
+	return fmt.Sprintf("sweep interrupted after %d of %d points: %v", e.Done, e.Total, e.Err)
+}
+
+func (e *InterruptedError) Unwrap() error { return e.Err }
+
+// PointError reports the point at which a sweep failed.
+type PointError struct {
+	Index   int
+	Current float64
+	Err     error
+}
+
+func (e *PointError) Error() string {
+	return fmt.Sprintf("sweep point %d (coil current %g A): %v", e.Index+1, e.Current, e.Err)
+}
+
+func (e *PointError) Unwrap() error { return e.Err }
+
+// Runner solves points of one model on one mesh, warm-starting each solve
+// from the last.
+type Runner struct {
+	Model *models.Model
+	Study *study.Study // the model meshed (and solved at its own currents)
+	coil  int
+	base  []float64 // the model's own coil currents
+	probe string
+	last  []float64
+}
+
+// NewRunner meshes the model and prepares to solve it at other currents.
+func NewRunner(ctx context.Context, m *models.Model, coil, probe string, opt solver.Options) (*Runner, error) {
+	if len(m.Coils) == 0 {
+		return nil, fmt.Errorf("%s: the model has no coil to sweep", m.File)
+	}
+	ci := 0
+	if coil != "" {
+		ci = -1
+		for i := range m.Coils {
+			if m.Coils[i].Name == coil {
+				ci = i
+			}
+		}
+		if ci < 0 {
+			return nil, fmt.Errorf("%s: no coil named %q", m.File, coil)
+		}
+	}
+	if probe == "" {
+		if m.Target != nil {
+			probe = m.Target.Probe
+		} else if len(m.Probes) > 0 {
+			probe = m.Probes[0].Name
+		}
+	}
+	if probe == "" {
+		return nil, fmt.Errorf("%s: the model has no probe to read the field at; add one under probes", m.File)
+	}
+	if _, ok := m.Probe(probe); !ok {
+		return nil, fmt.Errorf("%s: no probe named %q", m.File, probe)
+	}
+	r := &Runner{Model: m, coil: ci, probe: probe}
+	for _, c := range m.Coils {
+		r.base = append(r.base, c.Current)
+	}
+	s, err := study.Run(m, study.Options{Solver: opt})
+	if err != nil {
+		return nil, err
+	}
+	r.Study = s
+	r.last = s.Solution.A
+	return r, nil
+}
+
+// ProbeName returns the probe whose field the runner reports.
+func (r *Runner) ProbeName() string { return r.probe }
+
+// Solve solves the model with the swept coil at current (the other coils
+// scaled in proportion) and returns the point. The model's currents are
+// restored afterwards.
+func (r *Runner) Solve(current float64, opt solver.Options) (Point, error) {
+	m := r.Model
+	ref := r.base[r.coil]
+	for i := range m.Coils {
+		switch {
+		case i == r.coil:
+			m.Coils[i].Current = current
+		case ref != 0:
+			m.Coils[i].Current = r.base[i] * current / ref
+		}
+	}
+	defer func() {
+		for i := range m.Coils {
+			m.Coils[i].Current = r.base[i]
+		}
+	}()
+	opt.Initial = r.last
+	if err := r.Study.Solve(study.Options{Solver: opt}); err != nil {
+		return Point{}, err
+	}
+	sol := r.Study.Solution
+	r.last = sol.A
+	res, _ := r.Study.Probe(r.probe)
+	p := Point{
+		Current:     current,
+		AmpereTurns: m.Coils[r.coil].Turns * current,
+		Field:       fieldOf(res),
+		MaxIronB:    maxIronB(r.Study),
+		Energy:      sol.Energy(),
+		Iterations:  sol.Iterations,
+		Residual:    sol.Residual,
+	}
+	if m.Geometry == models.Planar {
+		p.Energy *= m.Depth
+	}
+	return p, nil
+}
+
+// fieldOf is the field a probe reports: |B| at a point, mean |B| otherwise.
+func fieldOf(r probes.Result) float64 {
+	if r.Kind == models.ProbePoint {
+		return r.Point.B()
+	}
+	return r.Stats.Mean
+}
+
+// maxIronB is the largest element |B| in regions whose material is
+// nonlinear (dν/d(B²) != 0 somewhere), a quick saturation indicator.
+func maxIronB(s *study.Study) float64 {
+	b := s.Solution.BTo(nil)
+	mats := s.Problem.Materials
+	nonlinear := make([]bool, len(mats))
+	for i, m := range mats {
+		if m == nil {
+			continue
+		}
+		_, d1 := m.Nu(1)
+		_, d2 := m.Nu(4)
+		nonlinear[i] = d1 != 0 || d2 != 0
+	}
+	mx := 0.0
+	for t, reg := range s.Disc.Mesh.Region {
+		if int(reg) < len(nonlinear) && nonlinear[reg] {
+			mx = math.Max(mx, math.Hypot(b[t][0], b[t][1]))
+		}
+	}
+	return mx
+}
+
+// Run solves the selected points in order. On a cancelled context it
+// returns the finished points and an *InterruptedError; on a failed
+// solve, the finished points and a *PointError.
+func Run(ctx context.Context, m *models.Model, opt Options) ([]Point, error) {
+	idx := Select(len(opt.Currents), opt.Shard, opt.Shards)
+	r, err := NewRunner(ctx, m, opt.Coil, opt.Probe, opt.Solver)
+	if err != nil {
+		return nil, err
+	}
+	pts := make([]Point, 0, len(idx))
+	for n, i := range idx {
+		if err := ctx.Err(); err != nil {
+			return pts, &InterruptedError{Done: n, Total: len(idx), Err: err}
+		}
+		p, err := r.Solve(opt.Currents[i], opt.Solver)
+		if err != nil {
+			return pts, &PointError{Index: i, Current: opt.Currents[i], Err: err}
+		}
+		p.Index = i
+		if opt.GapLength > 0 && p.AmpereTurns != 0 {
+			p.Efficiency = p.Field * opt.GapLength / (mu0 * math.Abs(p.AmpereTurns))
+		}
+		pts = append(pts, p)
+		if opt.Progress != nil {
+			opt.Progress(n+1, len(idx), p)
+		}
+	}
+	return pts, nil
+}
+
+const mu0 = 4e-7 * math.Pi
+
+// Select returns the indices of the points of shard k of n (1-based k)
+// among total points: k-1, k-1+n, k-1+2n, ... With n = 0 it returns all.
+func Select(total, k, n int) []int {
+	var out []int
+	if n <= 0 {
+		k, n = 1, 1
+	}
+	for i := k - 1; i < total; i += n {
+		out = append(out, i)
+	}
+	return out
+}
