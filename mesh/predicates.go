@@ -8,7 +8,7 @@ package mesh
 // forward error bound (the paper's ccwerrboundA and iccerrboundA) decides
 // almost every call; when the bound cannot certify the sign, the determinant
 // is evaluated exactly with floating-point expansions (Two-Sum, Two-Product,
-// Grow-Expansion, Scale-Expansion of the paper's section 2). The exact stage
+// Fast-Expansion-Sum, Scale-Expansion of the paper's section 2). The exact stage
 // represents every coordinate difference as a two-term expansion, so when the
 // differences are exact (the common case for nearly degenerate inputs) the
 // expansions stay short and the fallback is cheap.
@@ -18,7 +18,10 @@ package mesh
 //
 // Every geometric decision in this package goes through this file.
 
-import "math"
+import (
+	"math"
+	"sync"
+)
 
 // Orientation is the turn direction of an ordered point triple.
 type Orientation int8
@@ -143,12 +146,13 @@ func InDiametralCircle(ax, ay, bx, by, px, py float64) bool {
 	if bound := ccwErrBoundA * perm; d > bound || -d > bound {
 		return d < 0
 	}
-	var b1, b2, b3, b4 [2]float64
-	ue := twoDiffExp(ax, px, b1[:0])
-	ve := twoDiffExp(bx, px, b2[:0])
-	ue2 := twoDiffExp(ay, py, b3[:0])
-	ve2 := twoDiffExp(by, py, b4[:0])
-	s := expansionSum(mulExpansion(ue, ve), mulExpansion(ue2, ve2))
+	a := getArena()
+	defer putArena(a)
+	ue := a.diff(ax, px)
+	ve := a.diff(bx, px)
+	ue2 := a.diff(ay, py)
+	ve2 := a.diff(by, py)
+	s := a.sum(a.mul(ue, ve), a.mul(ue2, ve2))
 	return s[len(s)-1] < 0
 }
 
@@ -165,39 +169,54 @@ func sign(x float64) Orientation {
 // orient2DExact evaluates (ax-cx)(by-cy) - (ay-cy)(bx-cx) exactly and returns
 // its sign.
 func orient2DExact(ax, ay, bx, by, cx, cy float64) int {
-	var b1, b2, b3, b4 [2]float64
-	acx := twoDiffExp(ax, cx, b1[:0])
-	bcy := twoDiffExp(by, cy, b2[:0])
-	acy := twoDiffExp(ay, cy, b3[:0])
-	bcx := twoDiffExp(bx, cx, b4[:0])
-	left := mulExpansion(acx, bcy)
-	right := mulExpansion(acy, bcx)
-	d := expansionSum(left, negate(right))
+	a := getArena()
+	defer putArena(a)
+	left := a.mul(a.diff(ax, cx), a.diff(by, cy))
+	right := a.mul(a.diff(ay, cy), a.diff(bx, cx))
+	d := a.sum(left, negate(right))
 	return int(sign(d[len(d)-1]))
 }
 
 // inCircleExact evaluates the incircle determinant exactly and returns its
 // sign.
 func inCircleExact(ax, ay, bx, by, cx, cy, dx, dy float64) int {
-	var b [6][2]float64
-	adx := twoDiffExp(ax, dx, b[0][:0])
-	ady := twoDiffExp(ay, dy, b[1][:0])
-	bdx := twoDiffExp(bx, dx, b[2][:0])
-	bdy := twoDiffExp(by, dy, b[3][:0])
-	cdx := twoDiffExp(cx, dx, b[4][:0])
-	cdy := twoDiffExp(cy, dy, b[5][:0])
-
-	lift := func(x, y []float64) []float64 {
-		return expansionSum(mulExpansion(x, x), mulExpansion(y, y))
-	}
+	a := getArena()
+	defer putArena(a)
+	adx, ady := a.diff(ax, dx), a.diff(ay, dy)
+	bdx, bdy := a.diff(bx, dx), a.diff(by, dy)
+	cdx, cdy := a.diff(cx, dx), a.diff(cy, dy)
+	lift := func(x, y []float64) []float64 { return a.sum(a.mul(x, x), a.mul(y, y)) }
 	cross := func(x1, y2, x2, y1 []float64) []float64 {
-		return expansionSum(mulExpansion(x1, y2), negate(mulExpansion(x2, y1)))
+		return a.sum(a.mul(x1, y2), negate(a.mul(x2, y1)))
 	}
-	ta := mulExpansion(lift(adx, ady), cross(bdx, cdy, cdx, bdy))
-	tb := mulExpansion(lift(bdx, bdy), cross(cdx, ady, adx, cdy))
-	tc := mulExpansion(lift(cdx, cdy), cross(adx, bdy, bdx, ady))
-	d := expansionSum(expansionSum(ta, tb), tc)
+	ta := a.mul(lift(adx, ady), cross(bdx, cdy, cdx, bdy))
+	tb := a.mul(lift(bdx, bdy), cross(cdx, ady, adx, cdy))
+	tc := a.mul(lift(cdx, cdy), cross(adx, bdy, bdx, ady))
+	d := a.sum(a.sum(ta, tb), tc)
 	return int(sign(d[len(d)-1]))
+}
+
+// arena hands out expansion buffers from one block, so the exact stages do
+// not allocate once the pool is warm. Expansions are nonoverlapping, in
+// increasing magnitude, zero-eliminated, and never empty.
+type arena struct {
+	buf []float64
+	off int
+}
+
+var arenaPool = sync.Pool{New: func() any { return &arena{buf: make([]float64, 1<<15)} }}
+
+func getArena() *arena  { return arenaPool.Get().(*arena) }
+func putArena(a *arena) { a.off = 0; arenaPool.Put(a) }
+
+// get returns an empty slice with capacity n.
+func (a *arena) get(n int) []float64 {
+	if a.off+n > len(a.buf) {
+		return make([]float64, 0, n)
+	}
+	s := a.buf[a.off : a.off : a.off+n]
+	a.off += n
+	return s
 }
 
 // twoSum returns x = fl(a+b) and the exact error y with a+b = x+y
@@ -224,27 +243,65 @@ func twoProduct(a, b float64) (x, y float64) {
 	return
 }
 
-// twoDiffExp appends the exact difference a-b as a zero-eliminated expansion
-// (increasing magnitude) to dst; the result always has at least one term.
-func twoDiffExp(a, b float64, dst []float64) []float64 {
+// diff returns the exact difference a-b as an expansion (Two-Diff).
+func (ar *arena) diff(a, b float64) []float64 {
+	h := ar.get(2)
 	x := a - b
 	bv := a - x
 	av := x + bv
 	y := (a - av) + (bv - b)
 	if y != 0 {
-		dst = append(dst, y)
+		h = append(h, y)
 	}
-	return append(dst, x)
+	return append(h, x)
 }
 
-// growExpansion adds b to the nonoverlapping expansion e (Shewchuk 1997,
-// Figure 6, with zero elimination).
-func growExpansion(e []float64, b float64) []float64 {
-	h := make([]float64, 0, len(e)+1)
-	q := b
-	for _, ei := range e {
+// sum returns e+f (Shewchuk 1997, Fast-Expansion-Sum with zero
+// elimination, Theorem 13).
+func (ar *arena) sum(e, f []float64) []float64 {
+	h := ar.get(len(e) + len(f))
+	ei, fi := 0, 0
+	var q float64
+	if smaller(e[0], f[0]) {
+		q, ei = e[0], 1
+	} else {
+		q, fi = f[0], 1
+	}
+	if ei < len(e) && fi < len(f) {
 		var hh float64
-		q, hh = twoSum(q, ei)
+		if smaller(e[ei], f[fi]) {
+			q, hh = fastTwoSum(e[ei], q)
+			ei++
+		} else {
+			q, hh = fastTwoSum(f[fi], q)
+			fi++
+		}
+		if hh != 0 {
+			h = append(h, hh)
+		}
+		for ei < len(e) && fi < len(f) {
+			if smaller(e[ei], f[fi]) {
+				q, hh = twoSum(q, e[ei])
+				ei++
+			} else {
+				q, hh = twoSum(q, f[fi])
+				fi++
+			}
+			if hh != 0 {
+				h = append(h, hh)
+			}
+		}
+	}
+	for ; ei < len(e); ei++ {
+		var hh float64
+		q, hh = twoSum(q, e[ei])
+		if hh != 0 {
+			h = append(h, hh)
+		}
+	}
+	for ; fi < len(f); fi++ {
+		var hh float64
+		q, hh = twoSum(q, f[fi])
 		if hh != 0 {
 			h = append(h, hh)
 		}
@@ -255,31 +312,26 @@ func growExpansion(e []float64, b float64) []float64 {
 	return h
 }
 
-// expansionSum returns e+f (Shewchuk 1997, Expansion-Sum, Theorem 12: each
-// term of f is grown into the running sum).
-func expansionSum(e, f []float64) []float64 {
-	h := e
-	for _, fi := range f {
-		h = growExpansion(h, fi)
-	}
-	return h
-}
+// smaller reports |e| < |f| in Shewchuk's tie-breaking form
+// ((f > e) == (f > -e)).
+func smaller(e, f float64) bool { return (f > e) == (f > -e) }
 
-// scaleExpansion returns e*b (Shewchuk 1997, Figure 7, zero elimination).
-func scaleExpansion(e []float64, b float64) []float64 {
-	h := make([]float64, 0, 2*len(e))
+// scale returns e*b (Shewchuk 1997, Scale-Expansion with zero elimination,
+// Theorem 19).
+func (ar *arena) scale(e []float64, b float64) []float64 {
+	h := ar.get(2 * len(e))
 	q, hh := twoProduct(e[0], b)
 	if hh != 0 {
 		h = append(h, hh)
 	}
 	for _, ei := range e[1:] {
 		p1, p0 := twoProduct(ei, b)
-		var sum float64
-		sum, hh = twoSum(q, p0)
+		var s float64
+		s, hh = twoSum(q, p0)
 		if hh != 0 {
 			h = append(h, hh)
 		}
-		q, hh = fastTwoSum(p1, sum)
+		q, hh = fastTwoSum(p1, s)
 		if hh != 0 {
 			h = append(h, hh)
 		}
@@ -290,11 +342,11 @@ func scaleExpansion(e []float64, b float64) []float64 {
 	return h
 }
 
-// mulExpansion returns the exact product e*f as an expansion.
-func mulExpansion(e, f []float64) []float64 {
-	h := scaleExpansion(e, f[0])
+// mul returns the exact product e*f: the sum of e scaled by each term of f.
+func (ar *arena) mul(e, f []float64) []float64 {
+	h := ar.scale(e, f[0])
 	for _, fi := range f[1:] {
-		h = expansionSum(h, scaleExpansion(e, fi))
+		h = ar.sum(h, ar.scale(e, fi))
 	}
 	return h
 }
