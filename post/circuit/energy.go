@@ -1,0 +1,161 @@
+package circuit
+
+import (
+	"math"
+
+	"polegap/solver"
+)
+
+const twoPi = 2 * math.Pi
+
+// Degree returns the Dunavant rule degree the solver uses for the
+// stiffness of a mesh of this order and formulation: 1 (P1) or 2 (P2)
+// planar, 4 axisymmetric. The energies here use the same rule, so they
+// are the energies of the discrete problem that was solved (and the
+// identities W = λI/2 of a linear model hold to rounding).
+func Degree(order int, f solver.Formulation) int {
+	switch {
+	case f == solver.Axisymmetric:
+		return 4
+	case order == 2:
+		return 2
+	}
+	return 1
+}
+
+// Panel width (T) of the composite Gauss–Legendre rule of EnergyDensity,
+// and its 3-point nodes and weights on [0, 1] (Abramowitz and Stegun,
+// Handbook of Mathematical Functions, 1964, table 25.4: ±√(3/5), 0 with
+// weights 5/9, 8/9 mapped to [0, 1]).
+const panelB = 0.02
+
+var (
+	gl3x = [3]float64{0.5 - 0.5*0.7745966692414834, 0.5, 0.5 + 0.5*0.7745966692414834}
+	gl3w = [3]float64{5.0 / 18, 8.0 / 18, 5.0 / 18}
+)
+
+// EnergyDensity returns the energy density w = ∫₀^|B| ν(b²) b db and the
+// co-energy density w' = ν(|B|²)|B|² − w (J/m³) of a material at
+// b2 = |B|² (T²). For a linear material w = w' = ν b2 / 2 exactly.
+func EnergyDensity(mat solver.Material, b2 float64) (w, wco float64) {
+	if !(b2 > 0) {
+		return 0, 0
+	}
+	nu, dnu := mat.Nu(b2)
+	if dnu == 0 {
+		// Linear: exact, and no panels.
+		nu0, _ := mat.Nu(0)
+		if nu0 == nu {
+			w = 0.5 * nu * b2
+			return w, w
+		}
+	}
+	b := math.Sqrt(b2)
+	lo := 0.0
+	if tb, ok := mat.(tabled); ok {
+		// Panels break at the table's flux densities, where the
+		// interpolant's second derivative jumps.
+		_, bs := tb.Table()
+		for _, bk := range bs {
+			if bk <= lo {
+				continue
+			}
+			if bk >= b {
+				break
+			}
+			w += glPanels(mat, lo, bk)
+			lo = bk
+		}
+	}
+	w += glPanels(mat, lo, b)
+	return w, nu*b2 - w
+}
+
+// tabled is a B-H curve given by a table (materials.Curve): Table returns
+// its points (A/m, T), increasing.
+type tabled interface {
+	Table() (h, b []float64)
+}
+
+// glPanels returns ∫ ν(b²) b db over [b0, b1] by 3-point Gauss–Legendre
+// on panels of at most panelB.
+func glPanels(mat solver.Material, b0, b1 float64) float64 {
+	n := int(math.Ceil((b1 - b0) / panelB))
+	if n < 1 {
+		n = 1
+	}
+	h := (b1 - b0) / float64(n)
+	var w float64
+	for k := 0; k < n; k++ {
+		lo := b0 + float64(k)*h
+		var s float64
+		for i := range gl3x {
+			bi := lo + gl3x[i]*h
+			ni, _ := mat.Nu(bi * bi)
+			s += gl3w[i] * ni * bi
+		}
+		w += s * h
+	}
+	return w
+}
+
+// Energies returns the stored energy W and the co-energy W' of a solution
+// (J): planar values times the problem's Depth, axisymmetric ones over the
+// full revolution. It returns a *NotFiniteError if either is not finite.
+func Energies(sol *solver.Solution) (w, wco float64, err error) {
+	if sol == nil || sol.Problem == nil || sol.Problem.Mesh == nil {
+		panic(errNilSolution)
+	}
+	p := sol.Problem
+	f := NewField(sol, Degree(p.Mesh.Order(), p.Formulation))
+	var sw, sc sum
+	nq := f.NumPoints()
+	for t := 0; t < p.Mesh.NumTriangles(); t++ {
+		mat := p.Materials[p.Mesh.Region[t]]
+		var et, ct float64
+		for q := 0; q < nq; q++ {
+			pt := f.At(t, q)
+			e, c := EnergyDensity(mat, pt.Bx*pt.Bx+pt.By*pt.By)
+			et += pt.W * e
+			ct += pt.W * c
+		}
+		sw.add(et)
+		sc.add(ct)
+	}
+	scale := depthOf(p)
+	w, wco = sw.value()*scale, sc.value()*scale
+	if !finite(w) {
+		return 0, 0, &NotFiniteError{Quantity: "stored energy", Value: w}
+	}
+	if !finite(wco) {
+		return 0, 0, &NotFiniteError{Quantity: "co-energy", Value: wco}
+	}
+	return w, wco, nil
+}
+
+// depthOf is the factor from the solver's per-metre integrals to the
+// magnet: Depth for planar problems, 1 for axisymmetric ones (whose
+// integrals already carry 2π r).
+func depthOf(p *solver.Problem) float64 {
+	if p.Formulation == solver.Axisymmetric {
+		return 1
+	}
+	return p.Depth
+}
+
+func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
+
+// sum is a Kahan–Babuška (Neumaier) compensated sum.
+type sum struct{ s, c float64 }
+
+func (k *sum) add(x float64) {
+	t := k.s + x
+	if math.Abs(k.s) >= math.Abs(x) {
+		k.c += (k.s - t) + x
+	} else {
+		k.c += (x - t) + k.s
+	}
+	k.s = t
+}
+
+func (k *sum) value() float64 { return k.s + k.c }

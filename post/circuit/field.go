@@ -1,0 +1,96 @@
+package circuit
+
+import (
+	"polegap/mesh"
+	"polegap/solver"
+)
+
+// Field evaluates a solution element by element at the points of a
+// quadrature rule: the potential, the flux density and the integration
+// weight. It is the kernel shared by the integrals of this package and of
+// package post/force; it holds the tabulated shape functions and never
+// allocates after NewField.
+type Field struct {
+	Mesh *mesh.Mesh
+	A    []float64
+	Axi  bool
+	Rule *solver.Rule
+
+	el  solver.Element
+	nn  int
+	val [][solver.MaxNodes]float64
+	rg  [][solver.MaxNodes][2]float64
+}
+
+// Point is the field at one quadrature point of one element.
+type Point struct {
+	W      float64 // integration weight: area share, times 2π r when axisymmetric (m² or m³)
+	X, Y   float64 // position (m); r, z when axisymmetric
+	A      float64 // potential (Wb/m)
+	Bx, By float64 // flux density (T); Br, Bz when axisymmetric
+}
+
+// NewField prepares the evaluation of sol with the Dunavant rule of degree
+// deg (solver.RuleOfDegree). It panics if sol is nil.
+func NewField(sol *solver.Solution, deg int) *Field {
+	if sol == nil || sol.Problem == nil || sol.Problem.Mesh == nil {
+		panic(errNilSolution)
+	}
+	m := sol.Problem.Mesh
+	f := &Field{Mesh: m, A: sol.A, Axi: sol.Problem.Formulation == solver.Axisymmetric, Rule: solver.RuleOfDegree(deg)}
+	if m.Order() == 2 {
+		f.el = solver.P2{}
+	} else {
+		f.el = solver.P1{}
+	}
+	f.nn = f.el.NumNodes()
+	nq := f.Rule.NumPoints()
+	f.val = make([][solver.MaxNodes]float64, nq)
+	f.rg = make([][solver.MaxNodes][2]float64, nq)
+	for q := 0; q < nq; q++ {
+		xi, eta := f.Rule.Point(q)
+		f.el.EvalTo(f.val[q][:], f.rg[q][:], xi, eta)
+	}
+	return f
+}
+
+// Order returns the polynomial degree of the mesh's elements (1 or 2).
+func (f *Field) Order() int { return f.el.Degree() }
+
+// NumPoints returns the number of quadrature points per element.
+func (f *Field) NumPoints() int { return f.Rule.NumPoints() }
+
+// At returns the field at quadrature point q of triangle t.
+func (f *Field) At(t, q int) Point {
+	m := f.Mesh
+	i0, i1, i2 := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
+	x0, y0 := m.X[i0], m.Y[i0]
+	ja, jb := m.X[i1]-x0, m.X[i2]-x0
+	jc, jd := m.Y[i1]-y0, m.Y[i2]-y0
+	det := ja*jd - jb*jc
+	inv := 1 / det
+	xi, eta := f.Rule.Point(q)
+	p := Point{X: x0 + ja*xi + jb*eta, Y: y0 + jc*xi + jd*eta, W: f.Rule.W[q] * 0.5 * det}
+	var nodes [solver.MaxNodes]int32
+	nodes[0], nodes[1], nodes[2] = i0, i1, i2
+	if f.nn == 6 {
+		nodes[3], nodes[4], nodes[5] = m.Mid[3*t], m.Mid[3*t+1], m.Mid[3*t+2]
+	}
+	val, rg := &f.val[q], &f.rg[q]
+	var gx, gy float64
+	for i := 0; i < f.nn; i++ {
+		ai := f.A[nodes[i]]
+		p.A += ai * val[i]
+		gx += ai * (jd*rg[i][0] - jc*rg[i][1]) * inv
+		gy += ai * (-jb*rg[i][0] + ja*rg[i][1]) * inv
+	}
+	if !f.Axi {
+		p.Bx, p.By = gy, -gx
+		return p
+	}
+	// Quadrature points are interior, so r > 0 on every element that
+	// has positive area.
+	p.W *= twoPi * p.X
+	p.Bx, p.By = -gy, gx+p.A/p.X
+	return p
+}
