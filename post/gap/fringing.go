@@ -22,7 +22,7 @@ type FringeOptions struct {
 	PoleWidth float64
 	// Edges is the number of pole edges the line runs past; 0 means 2
 	// (a line across the whole gap). Use 1 for a line from the middle of
-	// a symmetric gap outwards.
+	// a symmetric gap (P) outwards past one edge (Q).
 	Edges int
 	// AmpereTurns is the magnetomotive force across the gap, A (N I of
 	// the coil when the iron takes none of it); 0 leaves GapEff unset.
@@ -50,7 +50,8 @@ type Fringe struct {
 	// GapEff is the effective gap length μ0 NI / B0 (m) when AmpereTurns
 	// is given, else 0. It exceeds g by the iron's share of NI.
 	GapEff float64
-	// EndRatio is max |Bn| at the line's two ends over |B0|.
+	// EndRatio is max |Bn| at the line's two ends over |B0| (at Q alone
+	// when Edges is 1: that line starts in the gap).
 	EndRatio float64
 	// Truncated is true when EndRatio exceeds the end fraction: the line
 	// stops before the fringe field has died away, and Flux, Factor,
@@ -92,7 +93,11 @@ func Fringing(f Field, p, q [2]float64, b0 float64, opt FringeOptions) (Fringe, 
 	}
 	l := math.Hypot(q[0]-p[0], q[1]-p[1])
 	nx, ny := -(q[1]-p[1])/l, (q[0]-p[0])/l
-	for _, pt := range [2][2]float64{p, q} {
+	ends := [][2]float64{p, q}
+	if opt.Edges == 1 {
+		ends = ends[1:] // the line starts inside the gap
+	}
+	for _, pt := range ends {
 		_, bx, by, _ := f.At(pt[0], pt[1]) // inside: Flux succeeded
 		fr.EndRatio = math.Max(fr.EndRatio, math.Abs(bx*nx+by*ny)/math.Abs(b0))
 	}

@@ -85,7 +85,7 @@ func TestUniformExact(t *testing.T) {
 
 // The half-width within tolerance of By = B0 (1 − (x/a)²) is a √tol
 // exactly; linear interpolation of the crossing between samples h apart
-// errs by at most h² f''/(8 f') = h²/(8 x*) for this f (the linear
+// errs by at most h² f”/(8 f') = h²/(8 x*) for this f (the linear
 // interpolation error bound, e.g. Burden and Faires, "Numerical Analysis",
 // theorem 3.3 for n = 1), which is the tolerance used.
 func TestGoodFieldParabola(t *testing.T) {
