@@ -97,8 +97,10 @@ func amdOrder(g *graph) []int32 {
 		// absorbing every element adjacent to p.
 		stamp++
 		mark[p] = stamp
-		if cap(arena)-len(arena) < n {
-			arena = make([]int32, 0, max(1<<20, 2*n))
+		// L_p has at most n entries; take a new chunk when the current
+		// one may not hold it (old chunks die with their elements).
+		if need := min(n, int(nleft)); cap(arena)-len(arena) < need {
+			arena = make([]int32, 0, max(need, len(store)+n, 1024))
 		}
 		start := len(arena)
 		degp := int32(0)

@@ -17,6 +17,9 @@ type CholeskyOptions struct {
 	// Ordering is the fill-reducing ordering; DefaultOrdering picks the
 	// best measured on 2D finite-element matrices.
 	Ordering Ordering
+	// Perm, if not nil, is used instead of Ordering: Perm[k] is the
+	// original index of the k-th pivot. It must be a permutation of 0..N-1.
+	Perm []int32
 	// Workers is the number of goroutines used by Factor; 0 means
 	// runtime.GOMAXPROCS(0) and 1 factors serially.
 	Workers int
@@ -46,6 +49,11 @@ type Cholesky struct {
 	failed    atomic.Bool
 	wg        sync.WaitGroup
 	workerFns []func()
+
+	// Two-way split of one large supernode in the top of the tree.
+	inTop    bool
+	job      splitJob
+	helperFn func()
 }
 
 type cholWork struct {
@@ -64,7 +72,15 @@ func (ch *Cholesky) Analyze(a *CSR) error {
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
 	}
-	perm := Order(a, ch.Options.Ordering)
+	var perm []int32
+	if ch.Options.Perm != nil {
+		if len(ch.Options.Perm) != a.N || !IsPermutation(ch.Options.Perm) {
+			panic("sparse: Options.Perm is not a permutation of 0..N-1")
+		}
+		perm = append([]int32(nil), ch.Options.Perm...)
+	} else {
+		perm = Order(a, ch.Options.Ordering)
+	}
 	ch.sym = analyze(a, perm, workers)
 	s := ch.sym
 	if cap(ch.lx) < s.valPtr[s.ns] {
@@ -77,6 +93,7 @@ func (ch *Cholesky) Analyze(a *CSR) error {
 		ch.work[w] = cholWork{rel: make([]int32, s.n), c: make([]float64, s.maxC)}
 	}
 	ch.errs = make([]error, nw)
+	ch.helperFn = func() { ch.runJob(); ch.wg.Done() }
 	ch.workerFns = ch.workerFns[:0]
 	for w := range s.tasks {
 		ch.workerFns = append(ch.workerFns, func() { ch.runTasks(w) })
@@ -124,11 +141,14 @@ func (ch *Cholesky) Factor(a *CSR) error {
 			return err
 		}
 	}
+	ch.inTop = true
 	for _, t := range s.top {
 		if err := ch.factorSuper(int(t), a, &ch.work[0]); err != nil {
+			ch.inTop = false
 			return err
 		}
 	}
+	ch.inTop = false
 	ch.factored = true
 	return nil
 }
@@ -169,41 +189,65 @@ func (ch *Cholesky) factorSuper(t int, a *CSR, ws *cholWork) error {
 	for q, r := range rows {
 		rel[r] = int32(q)
 	}
-	l := int32(f + nc)
+	if ch.inTop && s.work[t] > parallelSuperWork {
+		return ch.factorSuperPar(t, lt, m, nc)
+	}
+	ch.updateCols(t, rel, ws.c, 0, nc)
+	if k, piv := potrfTrapezoid(lt, m, nc); k >= 0 {
+		return &NotPositiveDefiniteError{Column: int(s.perm[f+k]), Pivot: piv}
+	}
+	return nil
+}
+
+// updateCols subtracts from columns [c0,c1) of supernode t the updates of
+// all descendants in its update list. Disjoint column ranges may run
+// concurrently with separate ws.c buffers and a shared rel map.
+func (ch *Cholesky) updateCols(t int, rel []int32, cbuf []float64, c0, c1 int) {
+	s := ch.sym
+	lx := ch.lx
+	f := s.super[t]
+	m := s.rowPtr[t+1] - s.rowPtr[t]
+	lt := lx[s.valPtr[t]:s.valPtr[t+1]]
+	lo, hi := f+int32(c0), f+int32(c1)
 	for k := s.updPtr[t]; k < s.updPtr[t+1]; k++ {
 		d := s.updSrc[k]
 		p := int(s.updPos[k])
 		drows := s.rows[s.rowPtr[d]:s.rowPtr[d+1]]
 		md := len(drows)
 		nd := int(s.super[d+1] - s.super[d])
-		q := p
-		for q < md && drows[q] < l {
-			q++
+		// Rows p+j0 .. p+j1-1 of d fall in target columns [c0,c1).
+		j0 := p
+		for j0 < md && drows[j0] < lo {
+			j0++
 		}
-		q -= p
-		r := md - p
-		ld := lx[s.valPtr[d]:s.valPtr[d+1]]
-		if q == nc && r == m {
-			// The update covers the whole target: subtract in place.
-			syrkLowerSub(lt, m, ld[p:], md, r, q, nd)
+		j1 := j0
+		for j1 < md && drows[j1] < hi {
+			j1++
+		}
+		if j0 == j1 {
 			continue
 		}
-		c := ws.c[:r*q]
+		q := j1 - j0
+		r := md - j0
+		ld := lx[s.valPtr[d]:s.valPtr[d+1]]
+		if r == m-c0 {
+			// d's rows from j0 are exactly the target's rows from c0 (a
+			// subset of equal size): subtract in place.
+			syrkLowerSub(lt[c0*m+c0:], m, ld[j0:], md, r, q, nd)
+			continue
+		}
+		c := cbuf[:r*q]
 		clear(c)
-		syrkLowerSub(c, r, ld[p:], md, r, q, nd)
-		dr := drows[p:]
+		syrkLowerSub(c, r, ld[j0:], md, r, q, nd)
+		dr := drows[j0:]
 		for j := 0; j < q; j++ {
-			dst := lt[int(dr[j]-int32(f))*m:]
+			dst := lt[int(dr[j]-f)*m:]
 			cj := c[j*r : j*r+r]
 			for i := j; i < r; i++ {
 				dst[rel[dr[i]]] += cj[i]
 			}
 		}
 	}
-	if k, piv := potrfTrapezoid(lt, m, nc); k >= 0 {
-		return &NotPositiveDefiniteError{Column: int(s.perm[f+k]), Pivot: piv}
-	}
-	return nil
 }
 
 // SolveTo solves A x = b with the current factor. x and b must have length

@@ -14,44 +14,46 @@ package sparse
 func syrkLowerSub(d []float64, ldd int, x []float64, ldx, r, q, kk int) {
 	c := 0
 	for ; c+1 < q; c += 2 {
-		d0 := d[c*ldd : c*ldd+r]
-		d1 := d[(c+1)*ldd : (c+1)*ldd+r]
+		n := r - c
+		e0 := d[c*ldd+c : c*ldd+r][:n]
+		e1 := d[(c+1)*ldd+c : (c+1)*ldd+r][:n]
 		k := 0
 		for ; k+3 < kk; k += 4 {
-			x0 := x[k*ldx : k*ldx+r]
-			x1 := x[(k+1)*ldx : (k+1)*ldx+r]
-			x2 := x[(k+2)*ldx : (k+2)*ldx+r]
-			x3 := x[(k+3)*ldx : (k+3)*ldx+r]
-			a0, a1, a2, a3 := x0[c], x1[c], x2[c], x3[c]
-			b0, b1, b2, b3 := x0[c+1], x1[c+1], x2[c+1], x3[c+1]
-			d0[c] -= a0*a0 + a1*a1 + a2*a2 + a3*a3
-			for i := c + 1; i < r; i++ {
+			x0 := x[k*ldx+c : k*ldx+r][:n]
+			x1 := x[(k+1)*ldx+c : (k+1)*ldx+r][:n]
+			x2 := x[(k+2)*ldx+c : (k+2)*ldx+r][:n]
+			x3 := x[(k+3)*ldx+c : (k+3)*ldx+r][:n]
+			a0, a1, a2, a3 := x0[0], x1[0], x2[0], x3[0]
+			b0, b1, b2, b3 := x0[1], x1[1], x2[1], x3[1]
+			e0[0] -= a0*a0 + a1*a1 + a2*a2 + a3*a3
+			for i := 1; i < n; i++ {
 				v0, v1, v2, v3 := x0[i], x1[i], x2[i], x3[i]
-				d0[i] -= a0*v0 + a1*v1 + a2*v2 + a3*v3
-				d1[i] -= b0*v0 + b1*v1 + b2*v2 + b3*v3
+				e0[i] -= a0*v0 + a1*v1 + a2*v2 + a3*v3
+				e1[i] -= b0*v0 + b1*v1 + b2*v2 + b3*v3
 			}
 		}
 		for ; k < kk; k++ {
-			x0 := x[k*ldx : k*ldx+r]
-			a0, b0 := x0[c], x0[c+1]
-			d0[c] -= a0 * a0
-			for i := c + 1; i < r; i++ {
+			x0 := x[k*ldx+c : k*ldx+r][:n]
+			a0, b0 := x0[0], x0[1]
+			e0[0] -= a0 * a0
+			for i := 1; i < n; i++ {
 				v0 := x0[i]
-				d0[i] -= a0 * v0
-				d1[i] -= b0 * v0
+				e0[i] -= a0 * v0
+				e1[i] -= b0 * v0
 			}
 		}
 	}
 	if c < q {
-		d0 := d[c*ldd : c*ldd+r]
+		n := r - c
+		e0 := d[c*ldd+c : c*ldd+r]
 		for k := 0; k < kk; k++ {
-			x0 := x[k*ldx : k*ldx+r]
-			a0 := x0[c]
+			x0 := x[k*ldx+c : k*ldx+r][:n]
+			a0 := x0[0]
 			if a0 == 0 {
 				continue
 			}
-			for i := c; i < r; i++ {
-				d0[i] -= a0 * x0[i]
+			for i, v := range x0 {
+				e0[i] -= a0 * v
 			}
 		}
 	}
@@ -68,33 +70,42 @@ const panelBlock = 48
 func potrfTrapezoid(b []float64, m, nc int) (int, float64) {
 	for k0 := 0; k0 < nc; k0 += panelBlock {
 		k1 := min(k0+panelBlock, nc)
-		// Unblocked right-looking factorization of the panel columns.
-		for k := k0; k < k1; k++ {
-			ck := b[k*m : k*m+m]
-			d := ck[k]
-			if !(d > 0) || d > maxFinite {
-				return k, d
-			}
-			piv := sqrtf(d)
-			ck[k] = piv
-			inv := 1 / piv
-			for i := k + 1; i < m; i++ {
-				ck[i] *= inv
-			}
-			for c := k + 1; c < k1; c++ {
-				cc := b[c*m : c*m+m]
-				l := ck[c]
-				if l == 0 {
-					continue
-				}
-				for i := c; i < m; i++ {
-					cc[i] -= l * ck[i]
-				}
-			}
+		if k, d := potrfPanel(b, m, k0, k1); k >= 0 {
+			return k, d
 		}
 		if k1 < nc {
 			// Trailing update with the whole panel at once.
 			syrkLowerSub(b[k1+k1*m:], m, b[k1+k0*m:], m, m-k1, nc-k1, k1-k0)
+		}
+	}
+	return -1, 0
+}
+
+// potrfPanel factors columns [k0,k1) of the trapezoid b (leading dimension
+// m), whose updates from columns before k0 are already applied, by
+// right-looking rank-1 steps restricted to the panel.
+func potrfPanel(b []float64, m, k0, k1 int) (int, float64) {
+	for k := k0; k < k1; k++ {
+		ck := b[k*m : k*m+m]
+		d := ck[k]
+		if !(d > 0) || d > maxFinite {
+			return k, d
+		}
+		piv := sqrtf(d)
+		ck[k] = piv
+		inv := 1 / piv
+		for i := k + 1; i < m; i++ {
+			ck[i] *= inv
+		}
+		for c := k + 1; c < k1; c++ {
+			cc := b[c*m : c*m+m]
+			l := ck[c]
+			if l == 0 {
+				continue
+			}
+			for i := c; i < m; i++ {
+				cc[i] -= l * ck[i]
+			}
 		}
 	}
 	return -1, 0

@@ -358,33 +358,26 @@ func (nd *ndState) dissect(verts []int32, lo, hi int, id int32, ws *ndWork) {
 	}
 }
 
-// leaf numbers a small subgraph in reverse breadth-first order, which keeps
-// its profile small (the reverse Cuthill-McKee idea).
+// leaf numbers a small subgraph by approximate minimum degree on the
+// subgraph alone (separator vertices around it are already numbered later),
+// as nested-dissection codes commonly do at the bottom of the recursion.
 func (nd *ndState) leaf(verts []int32, lo int, id int32, ws *ndWork) {
-	k := lo + len(verts)
-	ws.mark++
-	mark := ws.mark
-	for _, s := range verts {
-		if ws.stamp[s] == mark {
-			continue
-		}
-		q := ws.queue[:0]
-		q = append(q, s)
-		ws.stamp[s] = mark
-		for h := 0; h < len(q); h++ {
-			v := q[h]
-			for _, u := range nd.g.adj[nd.g.ptr[v]:nd.g.ptr[v+1]] {
-				if nd.part[u] == id && ws.stamp[u] != mark {
-					ws.stamp[u] = mark
-					q = append(q, u)
-				}
+	g := nd.g
+	local := ws.level // reuse as global->local map for this subgraph
+	for k, v := range verts {
+		local[v] = int32(k)
+	}
+	sub := &graph{n: len(verts), ptr: make([]int, len(verts)+1)}
+	for k, v := range verts {
+		for _, u := range g.adj[g.ptr[v]:g.ptr[v+1]] {
+			if nd.part[u] == id {
+				sub.adj = append(sub.adj, local[u])
 			}
 		}
-		for _, v := range q {
-			k--
-			nd.perm[k] = v
-		}
-		ws.queue = q
+		sub.ptr[k+1] = len(sub.adj)
+	}
+	for k, v := range amdOrder(sub) {
+		nd.perm[lo+k] = verts[v]
 	}
 	for _, v := range verts {
 		nd.part[v] = 0
