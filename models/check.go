@@ -33,6 +33,9 @@ func (m *Model) Check() error {
 	if m.Geometry == Axisymmetric && m.Depth != 0 {
 		return bad("axisymmetric model with depth %g", m.Depth)
 	}
+	if !(m.Gap >= 0) || !finite(m.Gap) {
+		return bad("gap %g", m.Gap)
+	}
 	if len(m.Regions) == 0 {
 		return bad("no regions")
 	}

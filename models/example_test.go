@@ -97,5 +97,5 @@ func ExampleModel_Errorf() {
 	pole, _ := m.Material("pole-iron")
 	fmt.Println(m.Errorf(pole.Pos, "B-H table is not monotone at row %d", 3))
 	// Output:
-	// examples/mineral-separator.yaml:21:3: materials.pole-iron: B-H table is not monotone at row 3
+	// examples/mineral-separator.yaml:22:3: materials.pole-iron: B-H table is not monotone at row 3
 }

@@ -64,6 +64,7 @@ type Model struct {
 	Units    string  // unit of lengths in the file: mm, cm, m or in
 	Scale    float64 // metres per file unit
 	Depth    float64 // m, length into the page (planar only, 0 for axisymmetric)
+	Gap      float64 // m, the air gap the design is built around (top-level gap or the template's), 0 when unstated
 
 	Template string // template name the model was expanded from, "" for none
 

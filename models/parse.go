@@ -18,7 +18,7 @@ var (
 	unitScale = map[string]float64{"mm": 1e-3, "cm": 1e-2, "m": 1, "in": 0.0254}
 )
 
-var topKeys = []string{"name", "description", "geometry", "units", "depth", "template", "dimensions",
+var topKeys = []string{"name", "description", "geometry", "units", "depth", "gap", "template", "dimensions",
 	"materials", "regions", "coils", "boundary", "mesh", "probes", "target"}
 
 // Load reads and parses the model file at path.
@@ -114,6 +114,7 @@ func (d *decoder) parse(data []byte) *Model {
 	}
 	if t != nil {
 		m.Template = t.name
+		m.Gap = t.gap
 		m.Regions = t.regions
 		m.Coils = t.coils
 		m.Probes = t.probes
@@ -126,6 +127,9 @@ func (d *decoder) parse(data []byte) *Model {
 		}
 	}
 
+	if n := top.get("gap"); n != nil {
+		m.Gap, _ = d.length(n, "gap", "gap") // the stated gap overrides a template's
+	}
 	if n := top.get("regions"); n != nil {
 		d.regions(m, n)
 	} else if top.get("template") == nil {

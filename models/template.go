@@ -11,6 +11,7 @@ import (
 // expansion is what a template contributes before the user's own entries.
 type expansion struct {
 	name      string
+	gap       float64 // m, the template's air gap
 	regions   []Region
 	coils     []Coil
 	probes    []Probe

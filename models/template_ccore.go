@@ -42,6 +42,7 @@ var cCoreCoils = []string{"back-leg", "poles"}
 func expandCCore(m *Model, t *dims, x *expansion) {
 	d := t.d
 	g := t.gap()
+	x.gap = g
 	wp := t.length("pole-width", 0, true, false)
 	hp := t.length("pole-height", 0, true, false)
 	ta := t.length("arm-thickness", 0, true, false)

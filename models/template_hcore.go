@@ -30,6 +30,7 @@ var hCoreKeys = []string{"gap", "pole-width", "pole-height", "pole-face-width", 
 func expandHCore(m *Model, t *dims, x *expansion) {
 	d := t.d
 	g := t.gap()
+	x.gap = g
 	wp := t.length("pole-width", 0, true, false)
 	hp := t.length("pole-height", 0, true, false)
 	ty := t.length("yoke-thickness", 0, true, false)

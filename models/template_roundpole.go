@@ -33,6 +33,7 @@ var roundPoleKeys = []string{"gap", "pole-diameter", "pole-face-diameter", "pole
 func expandRoundPole(m *Model, t *dims, x *expansion) {
 	d := t.d
 	g := t.gap()
+	x.gap = g
 	rp := t.length("pole-diameter", 0, true, false) / 2
 	rf := t.length("pole-face-diameter", 2*rp, false, false) / 2
 	hp := t.length("pole-height", 0, true, false)

@@ -1,5 +1,7 @@
 package models
 
+import "math"
+
 // The solenoid template: an axisymmetric winding, r = x, z = y, z = 0 at the
 // winding's mid-plane. Lengths in the model's units:
 //
@@ -89,10 +91,20 @@ func expandSolenoid(m *Model, t *dims, x *expansion) {
 			}
 		}
 	}
+	// Good-field box: half the bore each way; between pole pieces, a
+	// quarter of the pole gap axially and out to one gap from the pole edge
+	// (common practice), at least half the pole radius.
+	hr, hz := ri/2, ri/2
+	if ty > 0 && pg > 0 {
+		hr, hz = math.Max(rb-pg, rb/2), pg/4
+	}
 	x.probes = append(x.probes,
 		t.point("centre", 0, 0),
 		t.line("axis", 0, -l, 0, l),
-		t.box("good-field", 0, -ri/2, ri/2, ri/2))
+		t.box("good-field", 0, -hz, hr, hz))
 	x.refine = append(x.refine, Refine{Near: "winding", Size: th / 4, Pos: t.at})
+	if ty > 0 && pg > 0 {
+		x.gap = pg
+	}
 	t.target(x, "centre")
 }

@@ -87,6 +87,13 @@ func TestCCoreAreas(t *testing.T) {
 	if senses["coil-upper-left"] != 1 || senses["coil-lower-left"] != 1 || senses["coil-upper-right"] != -1 || senses["coil-lower-right"] != -1 {
 		t.Errorf("pole coil senses %v", senses)
 	}
+	if m.Gap != 0.04 {
+		t.Errorf("template gap %g m, want 0.04", m.Gap)
+	}
+	// A top-level gap overrides the template's.
+	if m2 := mustParse(t, "gap override", "gap: 41\n"+tp); m2.Gap != 0.041 {
+		t.Errorf("stated gap %g m, want 0.041", m2.Gap)
+	}
 	// Probes: gap-centre at the pole centre on the mid-plane.
 	p, _ := m.Probe("gap-centre")
 	if p.Point != [2]float64{0.4, 0} {
