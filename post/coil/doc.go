@@ -1,0 +1,52 @@
+// Package coil sizes the winding of an electromagnet: given the
+// ampere-turns NI the magnet needs (found elsewhere by nonlinear solves)
+// and the coil window, it proposes windings — wire, turns, current,
+// current density, resistance at temperature, voltage, power, copper mass —
+// and flags those that break the supply or cooling limits. It is pure
+// arithmetic and does not depend on the solver.
+//
+// # Contents
+//
+//   - Copper per IEC 60028: CopperResistivity20 (1/58 Ω·mm²/m),
+//     CopperAlpha20 (0.00393 /K), CopperDensity (8890 kg/m³),
+//     CopperResistivity and CopperResistance at temperature.
+//   - Wire tables (wire_data.go): AWG round wire by the ASTM B258
+//     formula (AWGDiameter, AWGWires), enamelled round winding wire with
+//     IEC 60317 nominal diameters of the R20/R40 series from 0.1 to 5 mm
+//     and grade 1/2 enamel (IECWires), and typical square hollow
+//     conductors for water-cooled coils (HollowWires). Every table names
+//     its source; values from memory say so.
+//   - Window (one coil side's cross-section and mean turn), MeanTurnRect
+//     and MeanTurnRound for the mean turn, Window.CoolingSurface.
+//   - Spec (what the coil must deliver and its limits), Options (every
+//     winding that fits), FitTurns, Best and Explain, and the text and
+//     CSV writers WriteTable and WriteCSV.
+//   - Cautions: the safety notes to print with any coil result.
+//
+// # Units
+//
+// SI throughout: m, m², A, A/m², Ω, V, W, kg, °C (temperatures), K
+// (differences). Only the table writers print engineering units (mm,
+// A/mm²), and the CSV header names each column's unit.
+//
+// # Method
+//
+// A winding of N turns of copper area A and mean turn l carrying the
+// ampere-turns NI has I = NI/N, J = I/A, R = ρ(T) N l/A, V = I R and
+// P = I² R = ρ(T) J² V_Cu with V_Cu = N A l: for a given copper fill the
+// power depends on the window and NI only, and the wire size chooses the
+// voltage-to-current ratio. The turns that fit are counted with a fill
+// factor (default) or by the layer geometry (Packing). The limits on
+// current density and heat are common practice and are stated beside
+// their constants.
+//
+// # Failures and invariants
+//
+// A spec that cannot describe a coil is a *SpecError from Spec.Validate;
+// a wire with unphysical dimensions is a *WireError from Wire.Check; no
+// winding that meets every limit is explained by Explain as a *NoneError.
+// Options panics ("coil: ...") on a spec or wire that fails those checks,
+// and on unknown enum values (programmer misuse). For a valid spec every
+// returned quantity is finite, Turns × Current equals AmpereTurns, and
+// nothing mutates its inputs.
+package coil

@@ -1,0 +1,71 @@
+package coil
+
+import (
+	"fmt"
+	"strings"
+)
+
+// Panic messages for programmer misuse.
+const (
+	errBadTemperature = "coil: temperature below the zero-resistance point of the linear law, or not finite"
+	errBadConductor   = "coil: conductor length must be finite and >= 0, area finite and > 0"
+	errBadAWG         = "coil: AWG number outside 0000 (-3) .. 56"
+	errBadGrade       = "coil: unknown insulation Grade"
+	errBadSeries      = "coil: unknown Series"
+	errBadCriterion   = "coil: unknown Criterion"
+	errBadMeanTurn    = "coil: mean-turn dimensions must be finite and >= 0, build > 0"
+)
+
+// SpecError reports a Spec field with a value that cannot describe a coil.
+// Field is the Go field path ("Window.Width"), so a caller that read the
+// spec from a file can map it back to a position.
+type SpecError struct {
+	Field  string
+	Value  float64
+	Reason string
+}
+
+func (e *SpecError) Error() string {
+	return fmt.Sprintf("coil: Spec.%s = %g: %s", e.Field, e.Value, e.Reason)
+}
+
+// WireError reports a wire whose dimensions are not physical (an overall
+// size smaller than the conductor, a bore larger than the bar, ...).
+type WireError struct {
+	Name   string
+	Reason string
+}
+
+func (e *WireError) Error() string {
+	return fmt.Sprintf("coil: wire %q: %s", e.Name, e.Reason)
+}
+
+// NoneError explains why no winding meets every limit: how many candidate
+// windings were found and how many break each limit (a winding may break
+// several).
+type NoneError struct {
+	Windings    int // windings that fit the window
+	OverVoltage int // above Spec.SupplyVoltage
+	OverCurrent int // above Spec.SupplyCurrent
+	OverDensity int // current density above the cooling's limit
+	OverHeat    int // power above what the cooling removes
+}
+
+func (e *NoneError) Error() string {
+	if e.Windings == 0 {
+		return "coil: no wire fits the requested turns in the coil window; enlarge the window, lower the turns or add finer wires"
+	}
+	var parts, fixes []string
+	add := func(n int, what, fix string) {
+		if n > 0 {
+			parts = append(parts, fmt.Sprintf("%d %s", n, what))
+			fixes = append(fixes, fix)
+		}
+	}
+	add(e.OverVoltage, "exceed the supply voltage", "a higher supply voltage")
+	add(e.OverCurrent, "exceed the supply current", "a higher supply current")
+	add(e.OverDensity, "exceed the current-density limit", "stronger cooling")
+	add(e.OverHeat, "dissipate more than the cooling removes", "a larger window or stronger cooling")
+	return fmt.Sprintf("coil: none of %d windings meets every limit: %s; consider %s",
+		e.Windings, strings.Join(parts, ", "), strings.Join(fixes, ", or "))
+}

@@ -1,0 +1,119 @@
+package coil
+
+import (
+	"fmt"
+	"math"
+)
+
+// Shape is the cross-section of a conductor.
+type Shape uint8
+
+const (
+	Round       Shape = iota // solid round wire, enamelled
+	Rectangular              // solid rectangular strip or bar with rounded corners
+	Hollow                   // rectangular bar with a round cooling bore (water-cooled coils)
+)
+
+func (s Shape) String() string {
+	switch s {
+	case Round:
+		return "round"
+	case Rectangular:
+		return "rectangular"
+	case Hollow:
+		return "hollow"
+	}
+	return fmt.Sprintf("Shape(%d)", uint8(s))
+}
+
+// Wire is one conductor size. All lengths are metres.
+//
+// A Round wire has its bare Diameter and its insulated Overall diameter.
+// A Rectangular or Hollow bar has bare Width × Height with corner radius
+// Corner, insulated OverallWidth × OverallHeight, and (Hollow) a round
+// cooling Bore. The Width lies along the window's Width (the radial build).
+type Wire struct {
+	Name   string
+	Shape  Shape
+	Source string // where the dimensions come from
+
+	Diameter float64 // bare conductor (Round)
+	Overall  float64 // insulated (Round)
+
+	Width, Height               float64 // bare conductor (Rectangular, Hollow)
+	Corner                      float64 // corner radius of the bare bar
+	Bore                        float64 // cooling-hole diameter (Hollow)
+	OverallWidth, OverallHeight float64 // insulated (Rectangular, Hollow)
+}
+
+// Area returns the copper cross-section (m²): π d²/4 for a round wire,
+// w h − (4 − π) r² for a bar with corner radius r, less π b²/4 for a bore b.
+func (w *Wire) Area() float64 {
+	switch w.Shape {
+	case Round:
+		return math.Pi / 4 * w.Diameter * w.Diameter
+	case Rectangular, Hollow:
+		a := w.Width*w.Height - (4-math.Pi)*w.Corner*w.Corner
+		if w.Shape == Hollow {
+			a -= math.Pi / 4 * w.Bore * w.Bore
+		}
+		return a
+	}
+	return 0
+}
+
+// Envelope returns the insulated outer width and height of the conductor
+// (m); for a round wire both are the overall diameter.
+func (w *Wire) Envelope() (width, height float64) {
+	if w.Shape == Round {
+		return w.Overall, w.Overall
+	}
+	return w.OverallWidth, w.OverallHeight
+}
+
+// BoreArea returns the cross-section of the cooling bore (m²), 0 unless
+// the wire is Hollow.
+func (w *Wire) BoreArea() float64 {
+	if w.Shape != Hollow {
+		return 0
+	}
+	return math.Pi / 4 * w.Bore * w.Bore
+}
+
+// Check reports a wire whose dimensions are not physical: a non-finite or
+// non-positive size, insulation thinner than nothing, a corner radius over
+// half the bar, a bore that leaves no wall.
+func (w *Wire) Check() error {
+	bad := func(format string, a ...any) error {
+		return &WireError{Name: w.Name, Reason: fmt.Sprintf(format, a...)}
+	}
+	pos := func(v float64) bool { return v > 0 && !math.IsInf(v, 0) }
+	switch w.Shape {
+	case Round:
+		if !pos(w.Diameter) || !pos(w.Overall) {
+			return bad("diameter %g m and overall %g m must be finite and > 0", w.Diameter, w.Overall)
+		}
+		if w.Overall < w.Diameter {
+			return bad("overall diameter %g m is smaller than the conductor %g m", w.Overall, w.Diameter)
+		}
+	case Rectangular, Hollow:
+		if !pos(w.Width) || !pos(w.Height) || !pos(w.OverallWidth) || !pos(w.OverallHeight) {
+			return bad("width, height and overall sizes must be finite and > 0")
+		}
+		if w.OverallWidth < w.Width || w.OverallHeight < w.Height {
+			return bad("overall %g x %g m is smaller than the conductor %g x %g m", w.OverallWidth, w.OverallHeight, w.Width, w.Height)
+		}
+		if !(w.Corner >= 0) || 2*w.Corner > math.Min(w.Width, w.Height) {
+			return bad("corner radius %g m must be >= 0 and at most half the smaller side", w.Corner)
+		}
+		if w.Shape == Hollow && (!pos(w.Bore) || w.Bore >= math.Min(w.Width, w.Height)) {
+			return bad("bore %g m must be > 0 and leave a wall inside %g x %g m", w.Bore, w.Width, w.Height)
+		}
+	default:
+		return bad("unknown shape %v", w.Shape)
+	}
+	if !(w.Area() > 0) {
+		return bad("no copper cross-section")
+	}
+	return nil
+}
