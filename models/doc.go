@@ -7,7 +7,9 @@
 // # Contract
 //
 // Parse and Load decode a file through yaml.Node, so that every value keeps
-// its line and column, then validate everything and fill in defaults. On
+// its line and column, then validate everything and fill in defaults.
+// YAML anchors, aliases and merge keys (<<) are allowed; merge expansion is
+// bounded. A table-file must exist when the model is parsed. On
 // any mistake they return a nil *Model and an ErrorList, sorted by position,
 // whose entries read "file:line:col: path: what is wrong and what to do".
 // They never panic and never return a NaN or an infinity, whatever the
