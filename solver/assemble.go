@@ -29,6 +29,7 @@ type assembler struct {
 	d     dofMap
 	pat   *pattern
 	rtol  float64 // nodes with |r| <= rtol lie on the axis
+	errs  []error // per worker
 
 	// source, when set (tests only), adds a space-dependent current
 	// density J(x, y) to the region's.
@@ -210,7 +211,10 @@ func (as *assembler) assemble(A, r []float64, wantK bool) error {
 		}
 	}
 	parts := as.pat.parts
-	errs := make([]error, len(parts))
+	if len(as.errs) != len(parts) {
+		as.errs = make([]error, len(parts))
+	}
+	errs := as.errs
 	if len(parts) == 1 {
 		errs[0] = as.assemblePart(&parts[0], A, r, wantK)
 	} else {

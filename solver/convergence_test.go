@@ -175,6 +175,7 @@ func TestPatch(t *testing.T) {
 			}
 			p := &Problem{Mesh: m, Materials: []Material{linear{1}}, Fixed: fixed}
 			s, err := Solve(p, Options{})
+			checkSolution(t, s, err)
 			if err != nil {
 				t.Fatalf("%s: %v", name, err)
 			}

@@ -28,6 +28,7 @@ func TestEnergyIdentity(t *testing.T) {
 			p := &Problem{Mesh: m, Formulation: form, Materials: []Material{linear{1}, linear{1}, linear{500}},
 				CurrentDensity: []float64{0, 1e6, 0}}
 			s, err := Solve(p, Options{})
+			checkSolution(t, s, err)
 			if err != nil {
 				t.Fatalf("%s: %v", name, err)
 			}
@@ -70,6 +71,7 @@ func TestZeroAndSingular(t *testing.T) {
 	m := rectMesh(4, 4, 0, 1, 0, 1, 1, nil)
 	p := &Problem{Mesh: m, Materials: []Material{linear{1}}}
 	s, err := Solve(p, Options{})
+	checkSolution(t, s, err)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -115,3 +117,27 @@ func TestZeroAndSingular(t *testing.T) {
 type nanMaterial struct{}
 
 func (nanMaterial) Nu(float64) (float64, float64) { return math.NaN(), 0 }
+
+// Assembly allocates nothing per element (STYLE.md habit 6): with one
+// worker a whole re-assembly allocates nothing at all.
+func TestAssemblyAllocations(t *testing.T) {
+	for order := 1; order <= 2; order++ {
+		m := rectMesh(30, 30, 0, 1, 0, 1, order, nil)
+		p := &Problem{Mesh: m, Materials: []Material{linear{1}}, CurrentDensity: []float64{1}}
+		d, err := buildDofMap(p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		as := newAssembler(p, d, 1)
+		A := make([]float64, m.NumNodes())
+		r := make([]float64, d.n)
+		allocs := testing.AllocsPerRun(5, func() {
+			if err := as.assemble(A, r, true); err != nil {
+				t.Fatal(err)
+			}
+		})
+		if allocs != 0 {
+			t.Errorf("P%d: %g allocations per assembly, want 0", order, allocs)
+		}
+	}
+}

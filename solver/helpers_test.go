@@ -2,6 +2,7 @@ package solver
 
 import (
 	"math"
+	"testing"
 
 	"polegap/mesh"
 )
@@ -293,4 +294,14 @@ func boundaryNodes(m *mesh.Mesh) []int32 {
 		}
 	}
 	return out
+}
+
+// checkSolution runs Solution.Check after a successful solve.
+func checkSolution(t *testing.T, s *Solution, err error) {
+	t.Helper()
+	if err == nil && s != nil {
+		if cerr := s.Check(); cerr != nil {
+			t.Fatal(cerr)
+		}
+	}
 }

@@ -41,6 +41,7 @@ func TestMagnetizedCylinder(t *testing.T) {
 		p := &Problem{Mesh: m, Materials: []Material{linear{1}, linear{1}},
 			Magnetization: [][2]float64{{}, {M, 0}}, Fixed: fixed}
 		s, err := Solve(p, Options{})
+		checkSolution(t, s, err)
 		if err != nil {
 			t.Fatalf("%s: %v", name, err)
 		}
@@ -94,6 +95,7 @@ func TestPeriodicIdentify(t *testing.T) {
 		p := &Problem{Mesh: m, Materials: []Material{linear{1}}, CurrentDensity: []float64{J},
 			Boundary: map[int32]Condition{2: FluxNormal, 4: FluxNormal}, Identify: pairs}
 		s, err := Solve(p, Options{})
+		checkSolution(t, s, err)
 		if err != nil {
 			t.Fatalf("%s: %v", name, err)
 		}

@@ -54,6 +54,7 @@ func TestIdealCCoreMeshed(t *testing.T) {
 		p := &Problem{Mesh: m, Materials: []Material{linear{1}, linear{1e6}, linear{1}, linear{1}},
 			CurrentDensity: []float64{0, 0, J, -J}}
 		s, err := Solve(p, Options{})
+		checkSolution(t, s, err)
 		if err != nil {
 			t.Fatalf("%s: %v", name, err)
 		}

@@ -59,10 +59,10 @@ func TestSaturatingMaterialDerivative(t *testing.T) {
 // R. B. Schnabel, "Numerical Methods for Unconstrained Optimization and
 // Nonlinear Equations", 1983, thm 5.2.1).
 func TestNewtonNonlinearRing(t *testing.T) {
-	const I, r1, r2, R = 6000.0, 0.2, 0.3, 1.0
+	const I, r1, r2, R = 6000.0, 0.2, 0.3, 0.5
 	mat := saturating{1000, 1.5}
 	const nth = 96
-	radii := geometricRadii(0.02, r1, nth)
+	radii := geometricRadii(0.1, r1, nth)
 	radii = append(radii, geometricRadii(r1, r2, nth)[1:]...)
 	radii = append(radii, geometricRadii(r2, R, nth)[1:]...)
 	m := diskMesh(radii, nth, 2, func(r float64) int32 {
@@ -74,6 +74,7 @@ func TestNewtonNonlinearRing(t *testing.T) {
 	p := &Problem{Mesh: m, Materials: []Material{linear{1}, mat},
 		PointCurrents: []PointCurrent{{Node: 0, Current: I}}}
 	s, err := Solve(p, Options{})
+	checkSolution(t, s, err)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -152,6 +153,7 @@ func TestLinearOneStep(t *testing.T) {
 	p := &Problem{Mesh: m, Materials: []Material{linear{1}, linear{1000}, linear{1}, linear{1}},
 		CurrentDensity: []float64{0, 0, J, -J}}
 	s, err := Solve(p, Options{})
+	checkSolution(t, s, err)
 	if err != nil {
 		t.Fatal(err)
 	}

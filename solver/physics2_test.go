@@ -48,6 +48,7 @@ func TestIronCylinderUniformField(t *testing.T) {
 		}
 		p := &Problem{Mesh: m, Materials: []Material{linear{1}, linear{c.mur}}, Fixed: fixed}
 		s, err := Solve(p, Options{})
+		checkSolution(t, s, err)
 		if err != nil {
 			t.Fatalf("%s: %v", name, err)
 		}
@@ -78,7 +79,7 @@ func TestLineCurrentInIronRing(t *testing.T) {
 		order int
 		nth   int
 		tol   float64 // DESIGN.md: 0.5 % P1 (smoothed), 0.1 % P2
-	}{{1, 128, 5e-3}, {2, 128, 1e-3}} {
+	}{{1, 96, 5e-3}, {2, 96, 1e-3}} {
 		name := fmt.Sprintf("P%d", c.order)
 		radii := geometricRadii(0.02, r1, c.nth)
 		radii = append(radii, geometricRadii(r1, r2, c.nth)[1:]...)
@@ -92,6 +93,7 @@ func TestLineCurrentInIronRing(t *testing.T) {
 		p := &Problem{Mesh: m, Materials: []Material{linear{1}, linear{mur}},
 			PointCurrents: []PointCurrent{{Node: 0, Current: I}}}
 		s, err := Solve(p, Options{})
+		checkSolution(t, s, err)
 		if err != nil {
 			t.Fatalf("%s: %v", name, err)
 		}
@@ -105,11 +107,13 @@ func TestLineCurrentInIronRing(t *testing.T) {
 				xc := (m.X[m.Tri[3*e]] + m.X[m.Tri[3*e+1]] + m.X[m.Tri[3*e+2]]) / 3
 				yc := (m.Y[m.Tri[3*e]] + m.Y[m.Tri[3*e+1]] + m.Y[m.Tri[3*e+2]]) / 3
 				rc := math.Hypot(xc, yc)
-				// The first layers of elements at the polygonal
-				// (nth-sided) interfaces carry the error of the polygon,
-				// not of the solver (0.2 % here, 1e-5 in the bulk): they
-				// are left out.
-				if rc < r1+0.1*(r2-r1) || rc > r2-0.1*(r2-r1) {
+				// The elements near the polygonal (nth-sided) interfaces
+				// carry the error of the polygon, not of the solver
+				// (0.3 % in the first layer, 1e-5 in the bulk): its
+				// perturbation has period 2πr/nth and decays like
+				// exp(−nth·d/r) at depth d (Laplace equation), so the
+				// outer 20 % on each side (exp(−9.6) at r1) are left out.
+				if rc < r1+0.2*(r2-r1) || rc > r2-0.2*(r2-r1) {
 					continue
 				}
 				want := I / (2 * math.Pi * rc)

@@ -38,9 +38,13 @@ func TestFiniteSolenoid(t *testing.T) {
 		tol   float64 // DESIGN.md: 0.5 % P1, 0.1 % P2
 	}{{1, 5e-3}, {2, 1e-3}} {
 		name := fmt.Sprintf("P%d", c.order)
-		rs := joinAxes(graded(0, a, 0.0025, 0.0025), graded(a, a+th, 0.001, 0.001), graded(a+th, R, 0.0025, 0.4))
-		zs := joinAxes(graded(-R, -0.4, 0.4, 0.01), graded(-0.4, -L/2, 0.01, 0.004), graded(-L/2, L/2, 0.004, 0.004),
-			graded(L/2, 0.4, 0.004, 0.01), graded(0.4, R, 0.01, 0.4))
+		// Same grid for both orders: P2's on-axis Bz is the linear
+		// interpolant of the field along the axis edges, so 4 mm cells
+		// are needed for 0.1 % where the field bends past the coil ends.
+		k := 1.0
+		rs := joinAxes(graded(0, a, 0.0025*k, 0.0025*k), graded(a, a+th, 0.001*k, 0.001*k), graded(a+th, R, 0.0025*k, 0.4))
+		zs := joinAxes(graded(-R, -0.4, 0.4, 0.01*k), graded(-0.4, -L/2, 0.01*k, 0.004*k), graded(-L/2, L/2, 0.004*k, 0.004*k),
+			graded(L/2, 0.4, 0.004*k, 0.01*k), graded(0.4, R, 0.01*k, 0.4))
 		m := gridMesh(rs, zs, c.order, func(r, z float64) int32 {
 			if r > a && r < a+th && math.Abs(z) < L/2 {
 				return 1
@@ -50,6 +54,7 @@ func TestFiniteSolenoid(t *testing.T) {
 		p := &Problem{Mesh: m, Formulation: Axisymmetric, Materials: []Material{linear{1}, linear{1}},
 			CurrentDensity: []float64{0, J}}
 		s, err := Solve(p, Options{})
+		checkSolution(t, s, err)
 		if err != nil {
 			t.Fatalf("%s: %v", name, err)
 		}
@@ -61,23 +66,24 @@ func TestFiniteSolenoid(t *testing.T) {
 		}
 		var worst float64
 		checked := 0
-		for i := range m.X {
-			z := m.Y[i]
-			if m.X[i] != 0 || math.Abs(z) > 0.15 || math.Mod(math.Abs(z)+1e-9, 0.02) > 2e-9 {
-				continue // axis nodes every 20 mm within 150 mm of the centre
-			}
+		for z := -0.15; z <= 0.15+1e-9; z += 0.01 {
 			want := solenoidAxisField(J, a, a+th, -L/2, L/2, z)
 			var bz float64
 			if c.order == 1 {
-				bz = nb[i][1]
+				// the axis node nearest to z
+				best, bi := math.Inf(1), -1
+				for i := range m.X {
+					if m.X[i] == 0 && math.Abs(m.Y[i]-z) < best {
+						best, bi = math.Abs(m.Y[i]-z), i
+					}
+				}
+				want = solenoidAxisField(J, a, a+th, -L/2, L/2, m.Y[bi])
+				bz = nb[bi][1]
 			} else {
 				_, _, bz, _ = s.At(0, z)
 			}
 			worst = math.Max(worst, math.Abs(bz-want)/want)
 			checked++
-		}
-		if checked < 10 {
-			t.Fatalf("%s: only %d axis nodes checked", name, checked)
 		}
 		_, _, b0, _ := s.At(0, 0)
 		thin := mu0 * N * I / math.Hypot(L, 2*(a+th/2))
@@ -149,6 +155,7 @@ func TestIdealCCore(t *testing.T) {
 		p := &Problem{Mesh: m, Materials: []Material{linear{1}, linear{1e6}, linear{1}, linear{1}},
 			CurrentDensity: []float64{0, 0, J, -J}}
 		s, err := Solve(p, Options{})
+		checkSolution(t, s, err)
 		if err != nil {
 			t.Fatalf("%s: %v", name, err)
 		}

@@ -38,6 +38,7 @@ func TestLineCurrentInAir(t *testing.T) {
 		p := &Problem{Mesh: m, Materials: []Material{linear{1}},
 			PointCurrents: []PointCurrent{{Node: 0, Current: I}}}
 		s, err := Solve(p, Options{})
+		checkSolution(t, s, err)
 		if err != nil {
 			t.Fatalf("%s: %v", name, err)
 		}
