@@ -33,22 +33,27 @@ var csvHeader = []string{
 }
 
 // WriteCSV writes opts as CSV (RFC 4180) with a header row naming every
-// column and its unit; numbers are full precision, in the units named.
+// column and its unit. SI values are written exactly (shortest form that
+// reads back to the same float64); values scaled to mm, mm², A/mm² or
+// l/min carry 12 significant figures.
 func WriteCSV(w io.Writer, opts []Option) error {
 	cw := csv.NewWriter(w)
 	if err := cw.Write(csvHeader); err != nil {
 		return err
 	}
+	// g is exact (shortest round-trip form); u is for values scaled to
+	// engineering units, 12 figures, so 3.275e-3 m prints as 3.275 mm.
 	g := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
+	u := func(v, scale float64) string { return strconv.FormatFloat(v*scale, 'g', 12, 64) }
 	rec := make([]string, len(csvHeader))
 	for i := range opts {
 		o := &opts[i]
 		ow, oh := o.Wire.Envelope()
 		rec = append(rec[:0],
-			o.Wire.Name, o.Wire.Shape.String(), g(o.Wire.Area()*1e6), g(ow*1e3), g(oh*1e3),
-			strconv.Itoa(o.Turns), strconv.Itoa(o.MaxTurns), g(o.Current), g(o.CurrentDensity*1e-6),
+			o.Wire.Name, o.Wire.Shape.String(), u(o.Wire.Area(), 1e6), u(ow, 1e3), u(oh, 1e3),
+			strconv.Itoa(o.Turns), strconv.Itoa(o.MaxTurns), g(o.Current), u(o.CurrentDensity, 1e-6),
 			g(o.Resistance), g(o.Voltage), g(o.Power), g(o.Mass), g(o.Length),
-			g(o.CopperFill), g(o.CoolingPower), g(o.WaterFlow*6e4), g(o.WaterSpeed), o.Flags.String())
+			g(o.CopperFill), g(o.CoolingPower), u(o.WaterFlow, 6e4), g(o.WaterSpeed), o.Flags.String())
 		if err := cw.Write(rec); err != nil {
 			return err
 		}

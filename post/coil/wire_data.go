@@ -143,8 +143,8 @@ func IECDiameters(s Series) []float64 {
 }
 
 // IECWires returns enamelled round copper winding wires per IEC 60317
-// (nominal diameters of series s from 0.1 mm to 5 mm) with the overall
-// diameter of grade g, thinnest first.
+// (nominal diameters of series s from 0.1 mm to 5 mm) with the maximum
+// overall diameter of grade g rounded to the micrometre, thinnest first.
 func IECWires(s Series, g Grade) []Wire {
 	ds := IECDiameters(s)
 	out := make([]Wire, len(ds))
@@ -154,11 +154,15 @@ func IECWires(s Series, g Grade) []Wire {
 			Shape:    Round,
 			Source:   fmt.Sprintf("IEC 60317-0-1 nominal diameter (ISO 3 R%d), grade %d build typical (from memory)", s, g),
 			Diameter: d,
-			Overall:  d + EnamelBuild(d, g),
+			Overall:  roundMicron(d + EnamelBuild(d, g)),
 		}
 	}
 	return out
 }
+
+// roundMicron rounds a length (m) to the micrometre, the resolution of
+// the IEC 60317 dimension tables.
+func roundMicron(x float64) float64 { return math.Round(x*1e6) / 1e6 }
 
 // AWGWires returns enamelled round copper wires in the AWG sizes 5 to 38
 // (4.62 mm to 0.101 mm, the span of the enamel table), thinnest first. The
@@ -174,7 +178,7 @@ func AWGWires(g Grade) []Wire {
 			Shape:    Round,
 			Source:   fmt.Sprintf("ASTM B258 formula; grade %d build typical (from memory)", g),
 			Diameter: d,
-			Overall:  d + EnamelBuild(d, g),
+			Overall:  roundMicron(d + EnamelBuild(d, g)),
 		})
 	}
 	return out
