@@ -29,6 +29,7 @@ func BenchmarkTriangulate(b *testing.B) {
 func benchTriangulate(b *testing.B, in *Input, opt Options) {
 	b.ReportAllocs()
 	nt := 0
+	cpu0 := cpuSeconds()
 	for i := 0; i < b.N; i++ {
 		m, err := Triangulate(in, opt)
 		if err != nil {
@@ -38,6 +39,9 @@ func benchTriangulate(b *testing.B, in *Input, opt Options) {
 	}
 	b.ReportMetric(float64(nt), "triangles")
 	b.ReportMetric(float64(nt)*float64(b.N)/b.Elapsed().Seconds(), "triangles/s")
+	// CPU seconds per run (all threads, GC included): on a loaded shared
+	// machine this is the steadier figure.
+	b.ReportMetric((cpuSeconds()-cpu0)/float64(b.N), "cpu-s/op")
 }
 
 // BenchmarkCDT measures the constrained Delaunay triangulation of 100k

@@ -204,26 +204,42 @@ func cmpF(a, b float64) int {
 func hilbertOrder(xs, ys []float64, minX, minY, span float64) []int32 {
 	const bits = 16
 	const side = 1 << bits
-	keys := make([]uint64, len(xs))
-	idx := make([]int32, len(xs))
+	n := len(xs)
+	idx := make([]int32, n)
 	scale := float64(side-1) / span
+	key := func(i int) uint64 {
+		return hilbertKey(uint32((xs[i]-minX)*scale), uint32((ys[i]-minY)*scale), side)
+	}
+	if n < 1<<24 {
+		// Pack the 32-bit curve index and the 24-bit vertex index into one
+		// word and sort plain integers.
+		keys := make([]uint64, n)
+		for i := range keys {
+			keys[i] = key(i)<<24 | uint64(i)
+		}
+		slices.Sort(keys)
+		for i, k := range keys {
+			idx[i] = int32(k & (1<<24 - 1))
+		}
+		return idx
+	}
+	keys := make([]uint64, n)
 	for i := range xs {
-		hx := uint32((xs[i] - minX) * scale)
-		hy := uint32((ys[i] - minY) * scale)
-		keys[i] = hilbertKey(hx, hy, side)<<24 | uint64(i&(1<<24-1))
+		keys[i] = key(i)
 		idx[i] = int32(i)
 	}
-	slices.SortFunc(idx, func(a, b int32) int {
-		ka, kb := keys[a], keys[b]
-		switch {
-		case ka < kb:
-			return -1
-		case ka > kb:
-			return 1
-		}
-		return int(a - b)
-	})
+	slices.SortStableFunc(idx, func(a, b int32) int { return cmpU(keys[a], keys[b]) })
 	return idx
+}
+
+func cmpU(a, b uint64) int {
+	switch {
+	case a < b:
+		return -1
+	case a > b:
+		return 1
+	}
+	return 0
 }
 
 // hilbertKey maps (x, y) in [0, n)^2 to its index along the Hilbert curve of

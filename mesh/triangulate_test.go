@@ -118,3 +118,22 @@ func TestTriangulateCrossing(t *testing.T) {
 		t.Fatalf("crossing segments: got %v, want *SegmentsCrossError", err)
 	}
 }
+
+// TestTriangulateAllocations: refinement inserts ~5,000 vertices here; the
+// allocation count must not grow with them (hot loops allocate nothing, only
+// array growth and setup allocate). 400 is about 4x what we measure.
+func TestTriangulateAllocations(t *testing.T) {
+	in := polyInput([]float64{0, 0, 1, 0, 1, 1, 0, 1})
+	opt := Options{Size: SizeField{Global: 0.0224}}
+	var nt int
+	allocs := testing.AllocsPerRun(1, func() {
+		m, err := Triangulate(in, opt)
+		if err != nil {
+			t.Fatal(err)
+		}
+		nt = m.NumTriangles()
+	})
+	if allocs > 400 {
+		t.Errorf("%d triangles took %.0f allocations, want <= 400", nt, allocs)
+	}
+}
