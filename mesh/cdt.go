@@ -43,8 +43,9 @@ type cdt struct {
 	// Recovered segment pieces (an input segment split at the input
 	// vertices lying on it gives one piece per part): end points, and the
 	// piece of each piece's edge.
-	segEnds [][2]int32
-	segOf   map[edgeKey]int32
+	segEnds  [][2]int32
+	segOf    map[edgeKey]int32
+	pieceSeg []int32 // input segment of each piece (-1 for hull edges)
 	// pinch holds the vertices where the domain touches itself (more than
 	// one fan of triangles), found after the exterior is removed.
 	pinch map[int32]bool

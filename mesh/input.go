@@ -8,7 +8,8 @@ type Input struct {
 	Markers  []int32   // one marker (>= 1) per segment, copied to Mesh.EdgeMarker
 	// Seeds claim regions: every triangle reachable from a seed without
 	// crossing a segment gets Seed.Region. A seed with a negative Region
-	// marks a hole: its triangles are removed.
+	// marks a hole: its triangles are removed. When two seeds reach the same
+	// area the first wins; seeds outside the outer boundary are ignored.
 	Seeds []Seed
 	// DefaultRegion is the region of triangles inside the outer boundary
 	// that no seed reaches.

@@ -133,11 +133,11 @@ type edgeKey struct{ u, v int32 }
 func (d *cdt) insertSegment(a, b, m int32, seg int) error {
 	for a != b {
 		if t, k := d.findEdge(a, b); t >= 0 {
-			d.markPiece(t, k, m)
+			d.markPiece(t, k, m, seg)
 			return nil
 		}
 		if t, k := d.findEdge(b, a); t >= 0 {
-			d.markPiece(t, k, m)
+			d.markPiece(t, k, m, seg)
 			return nil
 		}
 		crossed, stop, err := d.crossings(a, b, seg)
@@ -157,14 +157,14 @@ func (d *cdt) insertSegment(a, b, m int32, seg int) error {
 		if t < 0 {
 			panic("mesh: internal error: segment not recovered")
 		}
-		d.markPiece(t, k, m)
+		d.markPiece(t, k, m, seg)
 		return nil
 	}
 	return nil
 }
 
 // markPiece marks a recovered segment edge and records it as a piece.
-func (d *cdt) markPiece(t int32, k int, m int32) {
+func (d *cdt) markPiece(t int32, k int, m int32, seg int) {
 	a, b := d.tri[3*t+int32(next3[k])], d.tri[3*t+int32(next3[k+1])]
 	if d.segOf == nil {
 		d.segOf = make(map[edgeKey]int32)
@@ -172,6 +172,7 @@ func (d *cdt) markPiece(t int32, k int, m int32) {
 	if _, ok := d.segOf[ekey(a, b)]; !ok {
 		d.segOf[ekey(a, b)] = int32(len(d.segEnds))
 		d.segEnds = append(d.segEnds, [2]int32{a, b})
+		d.pieceSeg = append(d.pieceSeg, int32(seg))
 	}
 	d.markEdge(t, k, m)
 }
@@ -263,8 +264,12 @@ func (d *cdt) edgeBetween(t, p, q int32) int {
 }
 
 func (d *cdt) crossError(a, b, l, r int32, seg int) error {
+	other := -1
+	if p, ok := d.segOf[ekey(l, r)]; ok {
+		other = int(d.pieceSeg[p])
+	}
 	return &SegmentsCrossError{
-		Segment: seg, Other: -1,
+		Segment: seg, Other: other,
 		A: [2]float64{d.x[a], d.y[a]}, B: [2]float64{d.x[b], d.y[b]},
 		C: [2]float64{d.x[l], d.y[l]}, D: [2]float64{d.x[r], d.y[r]},
 	}

@@ -248,6 +248,12 @@ func TestTriangulateFrozen(t *testing.T) {
 	if nb != 64 {
 		t.Errorf("frozen-disk: %d boundary edges, want the 64 input edges", nb)
 	}
+	// Input vertices keep their index and exact coordinates.
+	for i := range in.X {
+		if m.X[i] != in.X[i] || m.Y[i] != in.Y[i] {
+			t.Fatalf("frozen-disk: vertex %d moved", i)
+		}
+	}
 }
 
 func TestTriangulateMaxTriangles(t *testing.T) {

@@ -117,6 +117,9 @@ func TestTriangulateCrossing(t *testing.T) {
 	if !errors.As(err, &ce) {
 		t.Fatalf("crossing segments: got %v, want *SegmentsCrossError", err)
 	}
+	if ce.Segment != 1 || ce.Other != 0 {
+		t.Errorf("crossing segments: reported %d and %d, want 1 and 0", ce.Segment, ce.Other)
+	}
 }
 
 // TestTriangulateAllocations: refinement inserts ~5,000 vertices here; the
