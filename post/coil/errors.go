@@ -2,6 +2,7 @@ package coil
 
 import (
 	"fmt"
+	"slices"
 	"strings"
 )
 
@@ -56,16 +57,21 @@ func (e *NoneError) Error() string {
 		return "coil: no wire fits the requested turns in the coil window; enlarge the window, lower the turns or add finer wires"
 	}
 	var parts, fixes []string
-	add := func(n int, what, fix string) {
-		if n > 0 {
-			parts = append(parts, fmt.Sprintf("%d %s", n, what))
-			fixes = append(fixes, fix)
+	add := func(n int, what string, fix ...string) {
+		if n == 0 {
+			return
+		}
+		parts = append(parts, fmt.Sprintf("%d %s", n, what))
+		for _, f := range fix {
+			if !slices.Contains(fixes, f) {
+				fixes = append(fixes, f)
+			}
 		}
 	}
 	add(e.OverVoltage, "exceed the supply voltage", "a higher supply voltage")
 	add(e.OverCurrent, "exceed the supply current", "a higher supply current")
 	add(e.OverDensity, "exceed the current-density limit", "stronger cooling")
-	add(e.OverHeat, "dissipate more than the cooling removes", "a larger window or stronger cooling")
+	add(e.OverHeat, "dissipate more than the cooling removes", "stronger cooling", "a larger window")
 	return fmt.Sprintf("coil: none of %d windings meets every limit: %s; consider %s",
 		e.Windings, strings.Join(parts, ", "), strings.Join(fixes, ", or "))
 }
