@@ -48,7 +48,11 @@
 // difference has an error O(δ²); re-meshing adds a noise of the order of
 // the discretisation error of W' divided by 2δ, so δ should be small
 // against the part but not tiny against the elements (a few per cent of
-// the gap is common practice).
+// the gap is common practice). The outer boundary stays where the
+// unmoved model puts it. With an open boundary the model's net current
+// must be zero: the co-energy of a net line current in open 2D space is
+// infinite (logarithmically), and its finite discrete value depends on
+// the exterior mesh; use Stress then.
 //
 // # Panics and errors
 //

@@ -35,4 +35,6 @@ func (e *RegionError) Error() string { return fmt.Sprintf("force: no region %q i
 // NotFiniteError reports a NaN or infinite force.
 type NotFiniteError struct{ Value [2]float64 }
 
-func (e *NotFiniteError) Error() string { return fmt.Sprintf("force: result is not finite (%v)", e.Value) }
+func (e *NotFiniteError) Error() string {
+	return fmt.Sprintf("force: result is not finite (%v)", e.Value)
+}

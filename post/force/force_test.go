@@ -43,6 +43,8 @@ func tagOf(t *testing.T, m *models.Model, name string) int32 {
 	return -1
 }
 
+var studyOpts = study.Options{}
+
 func ftoa(x float64) string { return strconv.FormatFloat(x, 'f', -1, 64) }
 
 // Two round conductors, 10 mm across, D mm apart, in open space (Kelvin
@@ -88,6 +90,23 @@ func TestParallelWires(t *testing.T) {
 		// (measured 5e-5); the y component is zero by symmetry.
 		if math.Abs(f.F[0]-want) > 1e-3*math.Abs(want) || math.Abs(f.F[1]) > 1e-3*math.Abs(want) {
 			t.Errorf("%s: F = %v N, want (%g, 0) N", c.name, f.F, want)
+		}
+		// Virtual work with the wire moved ±0.5 mm and re-meshed: the
+		// central difference's O(δ²) error is (δ/d)² ≈ 2e-4, plus the
+		// re-meshing noise; 0.5 % (DESIGN.md's P1 target) bounds both.
+		// Only with zero net current: otherwise the co-energy of an open
+		// 2D domain is infinite (the field falls as 1/r) and the finite
+		// value the Kelvin exterior gives depends on its mesh.
+		if c.sign > 0 {
+			continue
+		}
+		fv, err := force.VirtualWork(m, []string{"left"}, [2]float64{1, 0}, 0.5e-3, studyOpts)
+		if err != nil {
+			t.Fatalf("%s: virtual work: %v", c.name, err)
+		}
+		t.Logf("%s: virtual work Fx = %g N", c.name, fv)
+		if math.Abs(fv-want) > 5e-3*math.Abs(want) {
+			t.Errorf("%s: virtual work Fx = %g N, want %g N", c.name, fv, want)
 		}
 	}
 }

@@ -1,7 +1,12 @@
 package force
 
 import (
+	"fmt"
 	"math"
+
+	"polegap/mesh"
+	"polegap/post/prepare"
+	"polegap/solver"
 
 	"polegap/models"
 	"polegap/post/circuit"
@@ -35,21 +40,72 @@ func Moved(m *models.Model, regions []string, dx, dy float64) (*models.Model, er
 	return &c, nil
 }
 
-// CoEnergy meshes and solves m and returns its co-energy (J, whole
-// magnet), the quantity whose derivative at constant current is the force.
-func CoEnergy(m *models.Model, opt study.Options) (float64, error) {
-	s, err := study.Run(m, opt)
+// CoEnergy meshes and solves moved inside the outer boundary of orig (so
+// that moving a part does not move the boundary, which the model file
+// places relative to the regions' extent) and returns its co-energy (J,
+// whole magnet), the quantity whose derivative at constant current is
+// the force.
+func CoEnergy(orig, moved *models.Model, opt study.Options) (float64, error) {
+	d, err := discretize(orig, moved)
 	if err != nil {
 		return 0, err
 	}
-	_, wco, err := circuit.Energies(s.Solution)
+	p, err := prepare.Problem(d)
+	if err != nil {
+		return 0, err
+	}
+	sol, err := solver.Solve(p, opt.Solver)
+	if err != nil {
+		return 0, err
+	}
+	_, wco, err := circuit.Energies(sol)
 	return wco, err
+}
+
+// discretize is prepare.Discretize with the outer boundary of orig.
+func discretize(orig, m *models.Model) (*prepare.Discretization, error) {
+	d := &prepare.Discretization{Model: m, Options: prepare.Options(m)}
+	var err error
+	if d.Boundary, err = prepare.Boundary(orig); err != nil {
+		return nil, err
+	}
+	d.Input, err = mesh.BuildInput(prepare.Polygons(m), d.Boundary, mesh.GraphOptions{ChordTol: m.Mesh.Chord})
+	if err != nil {
+		return nil, fmt.Errorf("%s: moved part: %w", m.File, err)
+	}
+	if !prepare.Open(m) {
+		if d.Mesh, err = mesh.Triangulate(d.Input, d.Options); err != nil {
+			return nil, fmt.Errorf("%s: moved part: meshing: %w", m.File, err)
+		}
+		return d, nil
+	}
+	// The Kelvin disk of the open boundary, as prepare builds it, on the
+	// circle of the unmoved model (prepare's formula: centred on the
+	// extent, radius half its diagonal plus margin × largest side).
+	opt := d.Options
+	opt.Order = 1
+	inner, err := mesh.Triangulate(d.Input, opt)
+	if err != nil {
+		return nil, fmt.Errorf("%s: moved part: meshing: %w", m.File, err)
+	}
+	xmin, ymin, xmax, ymax := orig.Extent()
+	dx, dy := xmax-xmin, ymax-ymin
+	r := 0.5*math.Hypot(dx, dy) + orig.Boundary.Margin*math.Max(dx, dy)
+	k, err := mesh.AddKelvinDisk(inner, prepare.MarkerCircle, 0.5*(xmin+xmax), 0.5*(ymin+ymax), r, prepare.KelvinTag(m))
+	if err != nil {
+		return nil, fmt.Errorf("%s: moved part: open boundary: %w", m.File, err)
+	}
+	if d.Options.Order == 2 {
+		k.ElevateKelvin()
+	}
+	d.Kelvin, d.Mesh = k, k.Mesh
+	return d, nil
 }
 
 // VirtualWork returns the force component (N) along the unit vector of
 // dir on the named regions, by the central difference of the co-energy
 // with the regions moved by ±delta (m) along dir, each position meshed
-// and solved afresh. It panics if delta is not positive or dir is zero.
+// and solved afresh inside the unmoved model's outer boundary. It panics if delta is not positive or dir is zero.
 // Moving a region into another one is an error from the model's mesher.
 func VirtualWork(m *models.Model, regions []string, dir [2]float64, delta float64, opt study.Options) (float64, error) {
 	if !(delta > 0) || math.IsInf(delta, 0) {
@@ -66,7 +122,7 @@ func VirtualWork(m *models.Model, regions []string, dir [2]float64, delta float6
 		if err != nil {
 			return 0, err
 		}
-		if w[k], err = CoEnergy(mm, opt); err != nil {
+		if w[k], err = CoEnergy(m, mm, opt); err != nil {
 			return 0, err
 		}
 	}
