@@ -1,10 +1,12 @@
 package circuit_test
 
 import (
+	"os"
 	"strconv"
 	"testing"
 
 	"polegap/materials"
+	"polegap/models"
 	"polegap/post/circuit"
 )
 
@@ -164,5 +166,42 @@ func TestEnergyDensity(t *testing.T) {
 	w, wco := circuit.EnergyDensity(lin, 4)
 	if want := 4 / (2 * mu0 * 1000); relErr(w, want) > 1e-15 || wco != w {
 		t.Errorf("linear: w = %g, w' = %g, want %g", w, wco, want)
+	}
+}
+
+// TestAxisymmetricIdentity runs the calibration solenoid example
+// (models/examples/calibration-solenoid.yaml, nonlinear steel yoke, on a
+// coarser mesh) and checks W + W' = λ I (Galerkin orthogonality of the
+// converged solution with the r-weighted forms, as in TestSaturating),
+// and W against the solver's own energy.
+func TestAxisymmetricIdentity(t *testing.T) {
+	src, err := os.ReadFile("../../models/examples/calibration-solenoid.yaml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	m, err := models.Parse("calibration-solenoid.yaml", src)
+	if err != nil {
+		t.Fatal(err)
+	}
+	m.Mesh.Size = 0.010
+	s := solve(t, m)
+	coils := circuit.CoilsOf(m)
+	lam, err := circuit.Linkage(s.Solution, &coils[0])
+	if err != nil {
+		t.Fatal(err)
+	}
+	w, wco, err := circuit.Energies(s.Solution)
+	if err != nil {
+		t.Fatal(err)
+	}
+	I := coils[0].Current
+	t.Logf("λ = %.6g Wb, L = %.6g H, W = %.6g J, W' = %.6g J", lam, lam/I, w, wco)
+	// 1e-7: the Newton tolerance (relative residual 1e-8).
+	if e := relErr(w+wco, lam*I); e > 1e-7 {
+		t.Errorf("W + W' = %.9g J, λI = %.9g J (rel %.2g)", w+wco, lam*I, e)
+	}
+	// 3e-3 as in TestSaturating (the solver's single 5-point rule).
+	if e := relErr(w, s.Solution.Energy()); e > 3e-3 {
+		t.Errorf("W = %.9g J, solver %.9g J (rel %.2g)", w, s.Solution.Energy(), e)
 	}
 }
