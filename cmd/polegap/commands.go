@@ -12,6 +12,8 @@ import (
 var commands = []*Command{
 	cmdDemo,
 	cmdSolve,
+	cmdSweep,
+	cmdMerge,
 	cmdMesh,
 	cmdMaterials,
 	cmdExamples,
@@ -73,3 +75,7 @@ prints that model file, so that it can be saved and edited:
 		}
 	},
 }
+
+// modelGap returns the model's gap length in metres, or 0 if the model
+// does not state one.
+func modelGap(m *models.Model) float64 { return m.Gap }

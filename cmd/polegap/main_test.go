@@ -57,7 +57,7 @@ func TestExamplesRoundTrip(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("mesh: code %d, stderr %q", code, errs)
 	}
-	if !strings.Contains(out, "min angle") {
+	if !strings.Contains(out, "smallest angle") {
 		t.Errorf("mesh output lacks the statistics: %q", out)
 	}
 	for _, f := range []string{vtu, png} {

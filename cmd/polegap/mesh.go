@@ -107,7 +107,7 @@ func printMeshStats(w io.Writer, d *prepare.Discretization, elapsed time.Duratio
 	r := meshReport(d)
 	fmt.Fprintf(w, "model      %s (%s)\n", d.Model.Name, d.Model.File)
 	fmt.Fprintf(w, "mesh       %d nodes, %d triangles, order %d, built in %v\n", r.Nodes, r.Triangles, r.Order, elapsed.Round(time.Millisecond))
-	fmt.Fprintf(w, "quality    min angle %.1f°, mean angle %.1f°, worst aspect ratio %.2f\n", r.MinAngle, r.MeanAngle, r.WorstAspect)
+	fmt.Fprintf(w, "quality    smallest angle %.1f°, mean smallest angle per triangle %.1f°, worst aspect ratio %.2f\n", r.MinAngle, r.MeanAngle, r.WorstAspect)
 	fmt.Fprintf(w, "\n%-20s %10s %14s\n", "region", "triangles", "area (mm²)")
 	for _, rs := range r.Regions {
 		fmt.Fprintf(w, "%-20s %10d %14.2f\n", rs.Name, rs.Triangles, rs.Area*1e6)

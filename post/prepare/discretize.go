@@ -119,7 +119,7 @@ func SizeField(m *models.Model) mesh.SizeField {
 // Options returns the mesher options of the model.
 func Options(m *models.Model) mesh.Options {
 	return mesh.Options{
-		MinAngle: m.Mesh.MinAngle,
+		MinAngle: m.Mesh.MinAngleDegrees(),
 		Size:     SizeField(m),
 		Order:    m.Mesh.Order,
 	}

@@ -1,0 +1,280 @@
+package main
+
+import (
+	"context"
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"os"
+	"os/signal"
+	"strconv"
+	"strings"
+
+	gplot "gonum.org/v1/plot"
+	"gonum.org/v1/plot/vg"
+
+	"polegap/internal/fileout"
+	"polegap/models"
+	"polegap/post/plot"
+	"polegap/post/sweep"
+	"polegap/solver"
+)
+
+var cmdSweep = &Command{
+	UsageLine: "sweep [--from I] [--to I] [--points N | --currents I1,I2,...] [--coil NAME] [--probe NAME] [--gap LENGTH] [--csv FILE] [--png FILE] [--shard K/N] MODEL",
+	Short:     "compute the excitation curve: gap field against ampere-turns",
+	Long: `Sweep solves the model at a range of coil currents on one mesh, each
+solve starting from the previous one, and reports the field at the probe
+(the model's target probe unless --probe names another) against
+ampere-turns, with the magnet efficiency B g/(μ0 NI) when the gap length
+is known (--gap, or the model's template), the largest |B| in the iron,
+the stored energy and the Newton steps of each point.
+
+The default range is --points 20 currents from a twentieth of --to up to
+--to, which defaults to twice the model's own coil current.
+
+--csv writes the table (a partial table, marked "# partial", if the sweep
+is interrupted with Ctrl-C or a point fails); --png draws the curve with
+the ideal line μ0 NI/g and the efficiency.
+
+--shard K/N runs only points K, K+N, K+2N, ... so that a batch scheduler's
+job array can run a long sweep in parallel; join the shards' tables with
+'polegap merge'.`,
+	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
+		from := fs.String("from", "", "first coil current (e.g. 5A)")
+		to := fs.String("to", "", "last coil current (default twice the model's)")
+		points := fs.Int("points", 20, "number of currents")
+		list := fs.String("currents", "", "comma-separated coil currents, instead of a range")
+		coil := fs.String("coil", "", "the swept coil (default the first)")
+		probe := fs.String("probe", "", "the probe whose field is reported")
+		gap := fs.String("gap", "", "gap length for the ideal line and the efficiency (e.g. 40mm)")
+		csvOut := fs.String("csv", "", "write the table to this CSV file")
+		png := fs.String("png", "", "draw the curve to this .png or .svg file")
+		shard := fs.String("shard", "", "run shard K of N (e.g. 2/8)")
+		return func(env *Env, args []string) error {
+			if err := oneModel(args); err != nil {
+				return err
+			}
+			m, err := loadModel(args[0])
+			if err != nil {
+				return err
+			}
+			opt := sweep.Options{Coil: *coil, Probe: *probe, Solver: solver.Options{}}
+			if opt.Currents, err = sweepCurrents(m, *coil, *from, *to, *list, *points); err != nil {
+				return err
+			}
+			if opt.Shard, opt.Shards, err = parseShard(*shard); err != nil {
+				return err
+			}
+			if opt.GapLength, err = gapLength(m, *gap); err != nil {
+				return err
+			}
+			opt.Progress = progressBar(env.Stderr)
+			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
+			defer stop()
+			pts, runErr := sweep.Run(ctx, m, opt)
+			meta := sweep.Meta{Model: m.Name, Probe: probeFor(m, *probe), Shard: *shard}
+			if runErr != nil {
+				meta.Partial = runErr.Error()
+			}
+			if *csvOut != "" && (len(pts) > 0 || runErr == nil) {
+				if err := fileout.Write(*csvOut, func(w io.Writer) error { return sweep.WriteCSV(w, meta, pts) }); err != nil {
+					return err
+				}
+			}
+			if runErr != nil {
+				var ie *sweep.InterruptedError
+				if errors.As(runErr, &ie) && *csvOut != "" {
+					return fmt.Errorf("%v; the %d finished points are in %s, marked partial", runErr, len(pts), *csvOut)
+				}
+				return runErr
+			}
+			if *png != "" {
+				if err := drawSweep(*png, m.Name, pts, opt.GapLength); err != nil {
+					return err
+				}
+			}
+			return sweep.WriteCSV(env.Stdout, meta, pts)
+		}
+	},
+}
+
+var cmdMerge = &Command{
+	UsageLine: "merge --csv OUT [--png FILE] [--gap LENGTH] SHARD.csv...",
+	Short:     "join the tables of a sharded sweep",
+	Long: `Merge reads the CSV tables written by 'polegap sweep --shard K/N' and
+writes one table with every point in order. It refuses tables of
+different models or probes and points present twice, and marks the result
+partial (listing what is missing) when points are missing.`,
+	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
+		out := fs.String("csv", "", "write the merged table here (required)")
+		png := fs.String("png", "", "draw the merged curve to this .png or .svg file")
+		gap := fs.String("gap", "", "gap length for the ideal line and the efficiency (e.g. 40mm)")
+		return func(env *Env, args []string) error {
+			if *out == "" || len(args) == 0 {
+				return usagef("merge needs --csv OUT and at least one shard table")
+			}
+			var metas []sweep.Meta
+			var pts [][]sweep.Point
+			for _, a := range args {
+				f, err := os.Open(a)
+				if err != nil {
+					return err
+				}
+				meta, p, err := sweep.ReadCSV(f, a)
+				f.Close()
+				if err != nil {
+					return err
+				}
+				metas, pts = append(metas, meta), append(pts, p)
+			}
+			meta, all, missing, err := sweep.Merge(metas, pts)
+			if err != nil {
+				return err
+			}
+			if err := fileout.Write(*out, func(w io.Writer) error { return sweep.WriteCSV(w, meta, all) }); err != nil {
+				return err
+			}
+			fmt.Fprintf(env.Stdout, "merged %d points from %d tables into %s\n", len(all), len(args), *out)
+			if len(missing) > 0 {
+				fmt.Fprintf(env.Stdout, "missing points (1-based): %v\n", plusOne(missing))
+			}
+			if *png != "" {
+				g := 0.0
+				if *gap != "" {
+					if g, err = models.ParseQuantity(*gap, "length"); err != nil {
+						return usagef("--gap: %v", err)
+					}
+				}
+				return drawSweep(*png, meta.Model, all, g)
+			}
+			return nil
+		}
+	},
+}
+
+func plusOne(v []int) []int {
+	out := make([]int, len(v))
+	for i, x := range v {
+		out[i] = x + 1
+	}
+	return out
+}
+
+func drawSweep(path, name string, pts []sweep.Point, gap float64) error {
+	bp, ep, err := sweep.Figures(name, pts, gap)
+	if err != nil {
+		return err
+	}
+	row := []*gplot.Plot{bp}
+	width := 14 * vg.Centimeter
+	if ep != nil {
+		row = append(row, ep)
+		width = 26 * vg.Centimeter
+	}
+	return plot.SaveGrid([][]*gplot.Plot{row}, width, 10*vg.Centimeter, path)
+}
+
+// sweepCurrents builds the list of currents from the flags.
+func sweepCurrents(m *models.Model, coil, from, to, list string, n int) ([]float64, error) {
+	if list != "" {
+		var out []float64
+		for _, f := range strings.Split(list, ",") {
+			v, err := models.ParseQuantity(f, "current")
+			if err != nil {
+				return nil, usagef("--currents: %v", err)
+			}
+			out = append(out, v)
+		}
+		return out, nil
+	}
+	if n < 1 {
+		return nil, usagef("--points must be at least 1")
+	}
+	base := 0.0
+	for _, c := range m.Coils {
+		if coil == "" || c.Name == coil {
+			base = c.Current
+			break
+		}
+	}
+	hi := 2 * base
+	if to != "" {
+		v, err := models.ParseQuantity(to, "current")
+		if err != nil {
+			return nil, usagef("--to: %v", err)
+		}
+		hi = v
+	}
+	lo := hi / float64(n)
+	if from != "" {
+		v, err := models.ParseQuantity(from, "current")
+		if err != nil {
+			return nil, usagef("--from: %v", err)
+		}
+		lo = v
+	}
+	if hi == 0 {
+		return nil, usagef("the model's coil carries no current: give --to")
+	}
+	return sweep.Range(lo, hi, n), nil
+}
+
+func parseShard(s string) (k, n int, err error) {
+	if s == "" {
+		return 0, 0, nil
+	}
+	a, b, ok := strings.Cut(s, "/")
+	k, err1 := strconv.Atoi(a)
+	n, err2 := strconv.Atoi(b)
+	if !ok || err1 != nil || err2 != nil || n < 1 || k < 1 || k > n {
+		return 0, 0, usagef("--shard %q: write K/N with 1 <= K <= N, e.g. 3/8", s)
+	}
+	return k, n, nil
+}
+
+// gapLength is the --gap flag, or the model's own gap length, or 0.
+func gapLength(m *models.Model, flagValue string) (float64, error) {
+	if flagValue != "" {
+		v, err := models.ParseQuantity(flagValue, "length")
+		if err != nil {
+			return 0, usagef("--gap: %v", err)
+		}
+		return v, nil
+	}
+	return modelGap(m), nil
+}
+
+func probeFor(m *models.Model, probe string) string {
+	if probe != "" {
+		return probe
+	}
+	if m.Target != nil {
+		return m.Target.Probe
+	}
+	if len(m.Probes) > 0 {
+		return m.Probes[0].Name
+	}
+	return ""
+}
+
+// progressBar draws the sweep's progress on a terminal and stays silent
+// otherwise (a pipe or a file gets no control characters).
+func progressBar(w io.Writer) func(done, total int, p sweep.Point) {
+	f, ok := w.(*os.File)
+	if !ok {
+		return nil
+	}
+	if st, err := f.Stat(); err != nil || st.Mode()&os.ModeCharDevice == 0 {
+		return nil
+	}
+	return func(done, total int, p sweep.Point) {
+		const width = 30
+		n := done * width / total
+		fmt.Fprintf(w, "\r[%s%s] %d/%d  I = %.4g A  B = %.4f T ", strings.Repeat("#", n), strings.Repeat(".", width-n), done, total, p.Current, p.Field)
+		if done == total {
+			fmt.Fprintln(w)
+		}
+	}
+}
