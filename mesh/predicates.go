@@ -16,6 +16,11 @@ package mesh
 // Two-Product uses math.FMA, which rounds once, so the low half of a product
 // is exact without Dekker's splitting.
 //
+// Range: the results are exact as long as no product of four coordinate
+// differences, nor its rounding error, overflows or underflows: coordinates
+// up to about 1e70 in magnitude and nonzero coordinate differences above
+// about 1e-60. Triangulate rejects larger coordinates.
+//
 // Every geometric decision in this package goes through this file.
 
 import (

@@ -226,3 +226,33 @@ func BenchmarkInCircleDegenerate(b *testing.B) {
 	}
 	_ = sum
 }
+
+// FuzzPredicates compares Orient2D and InCircle with math/big exact
+// evaluation on finite inputs inside the documented range: magnitudes up to
+// 1e60 and nonzero coordinate differences of at least 1e-60, where no
+// product of four differences (nor its rounding error) overflows or
+// underflows.
+func FuzzPredicates(f *testing.F) {
+	f.Add(0.5, 0.5, 12.0, 12.0, 24.0, 24.0, 0.0, 0.0)
+	f.Add(0.0, 0.0, 1.0, 0.0, 1.0, 1.0, 0.0, 1.0)
+	f.Add(1e-9, 2e-9, 3e-9, 4e-9, 5e-9, 6.000000000000001e-9, 1e-9, 0.0)
+	f.Fuzz(func(t *testing.T, ax, ay, bx, by, cx, cy, dx, dy float64) {
+		vs := []float64{ax, ay, bx, by, cx, cy, dx, dy}
+		for i, v := range vs {
+			if math.IsNaN(v) || math.IsInf(v, 0) || math.Abs(v) > 1e60 {
+				return
+			}
+			for j := i % 2; j < len(vs); j += 2 {
+				if d := math.Abs(v - vs[j]); d != 0 && d < 1e-60 {
+					return
+				}
+			}
+		}
+		if got, want := int(Orient2D(ax, ay, bx, by, cx, cy)), bigOrient(ax, ay, bx, by, cx, cy); got != want {
+			t.Fatalf("Orient2D = %d, exact %d", got, want)
+		}
+		if got, want := InCircle(ax, ay, bx, by, cx, cy, dx, dy), bigInCircle(ax, ay, bx, by, cx, cy, dx, dy); got != want {
+			t.Fatalf("InCircle = %d, exact %d", got, want)
+		}
+	})
+}

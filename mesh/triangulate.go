@@ -50,8 +50,8 @@ func Triangulate(in *Input, opt Options) (*Mesh, error) {
 		if math.IsNaN(in.X[i]) || math.IsInf(in.X[i], 0) || math.IsNaN(in.Y[i]) || math.IsInf(in.Y[i], 0) {
 			return nil, &InputError{Reason: "coordinate is not finite", Vertex: i}
 		}
-		if math.Abs(in.X[i]) > 1e150 || math.Abs(in.Y[i]) > 1e150 {
-			return nil, &InputError{Reason: "coordinate magnitude above 1e150 (predicates would overflow)", Vertex: i}
+		if math.Abs(in.X[i]) > 1e60 || math.Abs(in.Y[i]) > 1e60 {
+			return nil, &InputError{Reason: "coordinate magnitude above 1e60 m (exact predicates would overflow)", Vertex: i}
 		}
 	}
 	if n < 3 {
