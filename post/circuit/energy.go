@@ -38,6 +38,20 @@ var (
 // co-energy density w' = ν(|B|²)|B|² − w (J/m³) of a material at
 // b2 = |B|² (T²). For a linear material w = w' = ν b2 / 2 exactly.
 func EnergyDensity(mat solver.Material, b2 float64) (w, wco float64) {
+	return energyDensity(mat, breaks(mat), b2)
+}
+
+// breaks returns the flux densities of a tabled curve's points, or nil.
+func breaks(mat solver.Material) []float64 {
+	if tb, ok := mat.(tabled); ok {
+		_, bs := tb.Table()
+		return bs
+	}
+	return nil
+}
+
+// energyDensity is EnergyDensity with the curve's break points given.
+func energyDensity(mat solver.Material, bs []float64, b2 float64) (w, wco float64) {
 	if !(b2 > 0) {
 		return 0, 0
 	}
@@ -52,20 +66,17 @@ func EnergyDensity(mat solver.Material, b2 float64) (w, wco float64) {
 	}
 	b := math.Sqrt(b2)
 	lo := 0.0
-	if tb, ok := mat.(tabled); ok {
-		// Panels break at the table's flux densities, where the
-		// interpolant's second derivative jumps.
-		_, bs := tb.Table()
-		for _, bk := range bs {
-			if bk <= lo {
-				continue
-			}
-			if bk >= b {
-				break
-			}
-			w += glPanels(mat, lo, bk)
-			lo = bk
+	// Panels break at the table's flux densities, where the
+	// interpolant's second derivative jumps.
+	for _, bk := range bs {
+		if bk <= lo {
+			continue
 		}
+		if bk >= b {
+			break
+		}
+		w += glPanels(mat, lo, bk)
+		lo = bk
 	}
 	w += glPanels(mat, lo, b)
 	return w, nu*b2 - w
@@ -110,12 +121,19 @@ func Energies(sol *solver.Solution) (w, wco float64, err error) {
 	f := NewField(sol, Degree(p.Mesh.Order(), p.Formulation))
 	var sw, sc sum
 	nq := f.NumPoints()
+	bs := make([][]float64, len(p.Materials))
+	for r, mat := range p.Materials {
+		if mat != nil {
+			bs[r] = breaks(mat)
+		}
+	}
 	for t := 0; t < p.Mesh.NumTriangles(); t++ {
-		mat := p.Materials[p.Mesh.Region[t]]
+		reg := p.Mesh.Region[t]
+		mat := p.Materials[reg]
 		var et, ct float64
 		for q := 0; q < nq; q++ {
 			pt := f.At(t, q)
-			e, c := EnergyDensity(mat, pt.Bx*pt.Bx+pt.By*pt.By)
+			e, c := energyDensity(mat, bs[reg], pt.Bx*pt.Bx+pt.By*pt.By)
 			et += pt.W * e
 			ct += pt.W * c
 		}
