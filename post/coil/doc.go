@@ -38,7 +38,10 @@
 // voltage-to-current ratio. The turns that fit are counted with a fill
 // factor (default) or by the layer geometry (Packing). The limits on
 // current density and heat are common practice and are stated beside
-// their constants.
+// their constants. For water cooling the flow follows from the power and
+// the water's temperature rise; in a hollow conductor the bore speed,
+// Reynolds number and the pressure drop of each parallel circuit follow
+// by Darcy–Weisbach with the Blasius (1913) or laminar friction factor.
 //
 // # Failures and invariants
 //

@@ -45,11 +45,12 @@ func (e *WireError) Error() string {
 // windings were found and how many break each limit (a winding may break
 // several).
 type NoneError struct {
-	Windings    int // windings that fit the window
-	OverVoltage int // above Spec.SupplyVoltage
-	OverCurrent int // above Spec.SupplyCurrent
-	OverDensity int // current density above the cooling's limit
-	OverHeat    int // power above what the cooling removes
+	Windings     int // windings that fit the window
+	OverVoltage  int // above Spec.SupplyVoltage
+	OverCurrent  int // above Spec.SupplyCurrent
+	OverDensity  int // current density above the cooling's limit
+	OverHeat     int // power above what the cooling removes
+	OverPressure int // water pressure drop above the supply's
 }
 
 func (e *NoneError) Error() string {
@@ -72,6 +73,7 @@ func (e *NoneError) Error() string {
 	add(e.OverCurrent, "exceed the supply current", "a higher supply current")
 	add(e.OverDensity, "exceed the current-density limit", "stronger cooling")
 	add(e.OverHeat, "dissipate more than the cooling removes", "stronger cooling", "a larger window")
+	add(e.OverPressure, "need more water pressure than the supply gives", "more parallel water circuits")
 	return fmt.Sprintf("coil: none of %d windings meets every limit: %s; consider %s",
 		e.Windings, strings.Join(parts, ", "), strings.Join(fixes, ", or "))
 }

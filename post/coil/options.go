@@ -10,14 +10,15 @@ import (
 type Flags uint8
 
 const (
-	OverVoltage Flags = 1 << iota // voltage above Spec.SupplyVoltage
-	OverCurrent                   // current above Spec.SupplyCurrent
-	OverDensity                   // current density above the cooling's limit
-	OverHeat                      // power above what air cooling removes (not for Water)
+	OverVoltage  Flags = 1 << iota // voltage above Spec.SupplyVoltage
+	OverCurrent                    // current above Spec.SupplyCurrent
+	OverDensity                    // current density above the cooling's limit
+	OverHeat                       // power above what air cooling removes (not for Water)
+	OverPressure                   // water pressure drop above Spec.MaxWaterPressure
 )
 
-// String lists the flags as short words ("volts,amps,density,heat"), or
-// "ok" for none.
+// String lists the flags as short words ("volts,amps,density,heat,water"),
+// or "ok" for none.
 func (f Flags) String() string {
 	if f == 0 {
 		return "ok"
@@ -26,7 +27,7 @@ func (f Flags) String() string {
 	for _, p := range []struct {
 		f Flags
 		w string
-	}{{OverVoltage, "volts"}, {OverCurrent, "amps"}, {OverDensity, "density"}, {OverHeat, "heat"}} {
+	}{{OverVoltage, "volts"}, {OverCurrent, "amps"}, {OverDensity, "density"}, {OverHeat, "heat"}, {OverPressure, "water"}} {
 		if f&p.f != 0 {
 			s = append(s, p.w)
 		}
@@ -50,9 +51,11 @@ type Option struct {
 	Length         float64 // m of conductor, Turns × MeanTurn
 	CopperFill     float64 // copper area over window area, Turns × area / (Width × Height)
 
-	CoolingPower float64 // W the air cooling removes at the allowed rise; 0 for Water
-	WaterFlow    float64 // m³/s of water to carry Power at Spec.WaterRise; 0 for air
-	WaterSpeed   float64 // m/s in the bore with all turns in one water circuit; 0 unless Hollow
+	CoolingPower  float64 // W the air cooling removes at the allowed rise; 0 for Water
+	WaterFlow     float64 // m³/s of water to carry Power at Spec.WaterRise; 0 for air
+	WaterSpeed    float64 // m/s in the bore, flow shared by Spec.WaterCircuits; 0 unless Hollow
+	Reynolds      float64 // Reynolds number of the bore flow; 0 unless Hollow
+	WaterPressure float64 // Pa, pressure drop along one circuit's bore; 0 unless Hollow
 
 	Flags Flags
 }
@@ -144,10 +147,7 @@ func Options(s Spec, wires []Wire) []Option {
 		case AirForced:
 			o.CoolingPower = HAirForced * s.CoolingSurface * rise
 		case Water:
-			o.WaterFlow = o.Power / (waterHeatPerVolume * s.WaterRise)
-			if ab := w.BoreArea(); ab > 0 {
-				o.WaterSpeed = o.WaterFlow / ab
-			}
+			waterCircuit(&o, &s)
 		}
 		if s.SupplyVoltage > 0 && o.Voltage > s.SupplyVoltage {
 			o.Flags |= OverVoltage
@@ -160,6 +160,9 @@ func Options(s Spec, wires []Wire) []Option {
 		}
 		if s.Cooling != Water && o.Power > o.CoolingPower {
 			o.Flags |= OverHeat
+		}
+		if s.MaxWaterPressure > 0 && o.WaterPressure > s.MaxWaterPressure {
+			o.Flags |= OverPressure
 		}
 		out = append(out, o)
 	}
@@ -228,6 +231,9 @@ func Explain(opts []Option) error {
 		}
 		if f&OverHeat != 0 {
 			e.OverHeat++
+		}
+		if f&OverPressure != 0 {
+			e.OverPressure++
 		}
 	}
 	return e

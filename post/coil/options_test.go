@@ -49,7 +49,7 @@ func checkIdentities(t *testing.T, name string, s Spec, opts []Option) {
 		a := o.Wire.Area()
 		vcu := float64(o.Turns) * a * s.Window.MeanTurn
 		if !finite(o.Current, o.CurrentDensity, o.Resistance, o.Voltage, o.Power, o.Mass,
-			o.Length, o.CopperFill, o.CoolingPower, o.WaterFlow, o.WaterSpeed) {
+			o.Length, o.CopperFill, o.CoolingPower, o.WaterFlow, o.WaterSpeed, o.Reynolds, o.WaterPressure) {
 			t.Fatalf("%s %s: non-finite result %+v", name, o.Wire.Name, *o)
 		}
 		if o.Turns < 1 || o.Turns > o.MaxTurns {
@@ -121,6 +121,7 @@ func TestOptionsRandom(t *testing.T) {
 			Cooling:       Cooling(r.IntN(3)),
 			SupplyVoltage: 400 * r.Float64(),
 			SupplyCurrent: 200 * r.Float64(),
+			WaterCircuits: r.IntN(4),
 		}
 		if r.IntN(3) == 0 {
 			s.Turns = 1 + r.IntN(2000)
@@ -385,6 +386,8 @@ func TestValidate(t *testing.T) {
 		{"MaxCurrentDensity", func(s *Spec) { s.MaxCurrentDensity = -1 }},
 		{"CoolingSurface", func(s *Spec) { s.CoolingSurface = -1 }},
 		{"WaterRise", func(s *Spec) { s.WaterRise = math.Inf(1) }},
+		{"WaterCircuits", func(s *Spec) { s.WaterCircuits = -1 }},
+		{"MaxWaterPressure", func(s *Spec) { s.MaxWaterPressure = math.NaN() }},
 	} {
 		s := bench()
 		c.edit(&s)

@@ -49,10 +49,6 @@ const (
 	HAirForced  = 40.0 // W/(m²·K), common practice
 )
 
-// Water near 20-40 °C (from memory: density 995 kg/m³, specific heat
-// 4.18 kJ/(kg·K)).
-const waterHeatPerVolume = 995 * 4180.0 // J/(m³·K)
-
 // JMax returns the common-practice current-density limit (A/m²) of the
 // cooling.
 func (c Cooling) JMax() float64 {
@@ -108,6 +104,8 @@ type Spec struct {
 	MaxCurrentDensity float64 // A/m²; 0 = Cooling.JMax()
 	CoolingSurface    float64 // m² for the air heat check; 0 = Window.CoolingSurface()
 	WaterRise         float64 // K, water temperature rise; 0 = DefaultWaterRise (20 K)
+	WaterCircuits     int     // parallel water circuits in the coil (Hollow); 0 = 1
+	MaxWaterPressure  float64 // Pa, pressure drop the water supply provides; 0 = no limit
 }
 
 // withDefaults returns s with its zero fields replaced by the defaults.
@@ -129,6 +127,9 @@ func (s Spec) withDefaults() Spec {
 	}
 	if s.WaterRise == 0 {
 		s.WaterRise = DefaultWaterRise
+	}
+	if s.WaterCircuits == 0 {
+		s.WaterCircuits = 1
 	}
 	return s
 }
@@ -171,6 +172,10 @@ func (s Spec) Validate() error {
 		return bad("CoolingSurface", s.CoolingSurface, "must be finite and >= 0 m² (0 = estimate from the window)")
 	case !fin(s.WaterRise) || s.WaterRise < 0:
 		return bad("WaterRise", s.WaterRise, "must be finite and >= 0 K (0 = 20 K)")
+	case s.WaterCircuits < 0:
+		return bad("WaterCircuits", float64(s.WaterCircuits), "must be >= 0 (0 = one circuit)")
+	case !fin(s.MaxWaterPressure) || s.MaxWaterPressure < 0:
+		return bad("MaxWaterPressure", s.MaxWaterPressure, "must be finite and >= 0 Pa (0 = no limit)")
 	}
 	d := s.withDefaults()
 	switch {

@@ -29,7 +29,7 @@ var csvHeader = []string{
 	"wire", "shape", "conductor_mm2", "overall_width_mm", "overall_height_mm",
 	"turns", "max_turns", "current_A", "current_density_A_per_mm2",
 	"resistance_ohm", "voltage_V", "power_W", "copper_mass_kg", "conductor_length_m",
-	"copper_fill", "cooling_power_W", "water_flow_l_per_min", "water_speed_m_per_s", "limits",
+	"copper_fill", "cooling_power_W", "water_flow_l_per_min", "water_speed_m_per_s", "reynolds", "water_pressure_bar", "limits",
 }
 
 // WriteCSV writes opts as CSV (RFC 4180) with a header row naming every
@@ -53,7 +53,8 @@ func WriteCSV(w io.Writer, opts []Option) error {
 			o.Wire.Name, o.Wire.Shape.String(), u(o.Wire.Area(), 1e6), u(ow, 1e3), u(oh, 1e3),
 			strconv.Itoa(o.Turns), strconv.Itoa(o.MaxTurns), g(o.Current), u(o.CurrentDensity, 1e-6),
 			g(o.Resistance), g(o.Voltage), g(o.Power), g(o.Mass), g(o.Length),
-			g(o.CopperFill), g(o.CoolingPower), u(o.WaterFlow, 6e4), g(o.WaterSpeed), o.Flags.String())
+			g(o.CopperFill), g(o.CoolingPower), u(o.WaterFlow, 6e4), g(o.WaterSpeed),
+			g(o.Reynolds), u(o.WaterPressure, 1e-5), o.Flags.String())
 		if err := cw.Write(rec); err != nil {
 			return err
 		}
