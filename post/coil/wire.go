@@ -117,3 +117,25 @@ func (w *Wire) Check() error {
 	}
 	return nil
 }
+
+// RoundWire returns a round wire of bare diameter d and insulated
+// diameter overall (m), for sizes not in the built-in tables. Check it
+// before use.
+func RoundWire(name string, d, overall float64) Wire {
+	return Wire{Name: name, Shape: Round, Source: "user", Diameter: d, Overall: overall}
+}
+
+// BarWire returns a solid rectangular bar w × h with corner radius r and
+// insulation ins on every side (m). Check it before use.
+func BarWire(name string, w, h, r, ins float64) Wire {
+	return Wire{Name: name, Shape: Rectangular, Source: "user", Width: w, Height: h, Corner: r,
+		OverallWidth: w + 2*ins, OverallHeight: h + 2*ins}
+}
+
+// HollowBar returns a hollow bar w × h with corner radius r, a round bore
+// and insulation ins on every side (m). Check it before use.
+func HollowBar(name string, w, h, r, bore, ins float64) Wire {
+	b := BarWire(name, w, h, r, ins)
+	b.Shape, b.Bore = Hollow, bore
+	return b
+}

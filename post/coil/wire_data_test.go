@@ -148,3 +148,31 @@ func TestWireCheck(t *testing.T) {
 		t.Errorf("good wire: %v", err)
 	}
 }
+
+func TestConstructors(t *testing.T) {
+	// A 4 x 10 mm strip with 0.5 mm corners: 40 - (4 - π) 0.25 =
+	// 39.785 mm² (geometry); 0.2 mm insulation makes 4.4 x 10.4 mm.
+	b := BarWire("strip", 4e-3, 10e-3, 0.5e-3, 0.2e-3)
+	if err := b.Check(); err != nil {
+		t.Fatal(err)
+	}
+	if want := 40 - (4-math.Pi)*0.25; math.Abs(b.Area()*1e6-want) > 1e-9 {
+		t.Errorf("strip area %.6f mm², want %.6f", b.Area()*1e6, want)
+	}
+	if w, h := b.Envelope(); math.Abs(w-4.4e-3) > 1e-15 || math.Abs(h-10.4e-3) > 1e-15 {
+		t.Errorf("strip envelope %g x %g", w, h)
+	}
+	h := HollowBar("tube", 10e-3, 10e-3, 1e-3, 6e-3, 0.5e-3)
+	if got, want := h.Area(), HollowWires()[5].Area(); math.Abs(got-want) > 1e-18 || h.Check() != nil {
+		t.Errorf("hollow bar area %g, want %g (%v)", got, want, h.Check())
+	}
+	r := RoundWire("r", 1e-3, 1.05e-3)
+	if r.Check() != nil || math.Abs(r.Area()-math.Pi/4*1e-6) > 1e-20 {
+		t.Errorf("round wire: %v, area %g", r.Check(), r.Area())
+	}
+	// A bar in the bench window goes by layers: 100/4.4 = 22 layers of
+	// 160/10.4 = 15 turns.
+	if n := FitTurns(bench(), &b); n != 22*15 {
+		t.Errorf("strip turns %d, want %d", n, 22*15)
+	}
+}
