@@ -52,7 +52,9 @@
 // markers < 1, Order not 0-2) panic with a "mesh: ..." message. Bad geometry
 // returns a typed error: *InputError (non-finite or degenerate input),
 // *SegmentsCrossError (segments crossing away from a vertex),
-// *TooManyTrianglesError (refinement beyond Options.MaxTriangles). Check
+// *TooManyTrianglesError (refinement beyond Options.MaxTriangles),
+// *ResolutionError and *StallError (refinement reaching floating-point
+// resolution on near-degenerate input). No NaN reaches a Mesh. Check
 // returns *CheckError. Duplicate vertices are merged, vertices lying on a
 // segment split it, repeated segments keep their first marker.
 //

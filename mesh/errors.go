@@ -74,3 +74,14 @@ type ResolutionError struct{ X, Y float64 }
 func (e *ResolutionError) Error() string {
 	return fmt.Sprintf("mesh: refinement reached floating-point resolution near (%g, %g); remove tiny features or near-touching segments there", e.X, e.Y)
 }
+
+// StallError reports that refinement kept working without finishing: more
+// steps than 8 x MaxTriangles + 10^6 (a safety net; it signals a degenerate
+// input such as features at the limit of floating-point resolution).
+type StallError struct {
+	Steps, Triangles int
+}
+
+func (e *StallError) Error() string {
+	return fmt.Sprintf("mesh: refinement stalled after %d steps at %d triangles; look for near-touching segments or tiny features", e.Steps, e.Triangles)
+}

@@ -7,13 +7,23 @@ import (
 
 // fuzzInput decodes polygons from bytes: each pair of bytes is a vertex on a
 // 256x256 grid (scaled to metres), 0xFF 0xFF closes the current polygon.
-// The first byte picks the global size.
+// The first byte picks the global size (low 6 bits), and the top two bits a
+// variant: default options, minimum angle 33 degrees, markers 1 and 2
+// frozen, or size refinement only (quality off).
 func fuzzInput(data []byte) (*Input, Options) {
 	opt := Options{MaxTriangles: 20000}
 	if len(data) == 0 {
 		return nil, opt
 	}
 	opt.Size.Global = float64(data[0]%64+4) / 64
+	switch data[0] >> 6 {
+	case 1:
+		opt.MinAngle = 33
+	case 2:
+		opt.Frozen = []int32{1, 2}
+	case 3:
+		opt.MinAngle = -1
+	}
 	data = data[1:]
 	in := &Input{}
 	var poly []int32
@@ -57,12 +67,20 @@ func FuzzTriangulate(f *testing.F) {
 			var ce *SegmentsCrossError
 			var te *TooManyTrianglesError
 			var re *ResolutionError
-			if !errors.As(err, &ie) && !errors.As(err, &ce) && !errors.As(err, &te) && !errors.As(err, &re) {
+			var se *StallError
+			if !errors.As(err, &ie) && !errors.As(err, &ce) && !errors.As(err, &te) && !errors.As(err, &re) && !errors.As(err, &se) {
 				t.Fatalf("untyped error %T: %v", err, err)
 			}
 			return
 		}
-		if err := m.Check(CheckOptions{MinAngle: 28, Input: in}); err != nil {
+		chk := CheckOptions{MinAngle: 28, Input: in, Frozen: opt.Frozen}
+		switch {
+		case opt.MinAngle > 0:
+			chk.MinAngle = opt.MinAngle
+		case opt.MinAngle < 0:
+			chk.MinAngle = 0
+		}
+		if err := m.Check(chk); err != nil {
 			t.Fatal(err)
 		}
 	})

@@ -133,7 +133,7 @@ func (r *refiner) run() error {
 			return &TooManyTrianglesError{Limit: r.maxTri, Triangles: d.numTri()}
 		}
 		if r.steps++; r.steps > 8*r.maxTri+1_000_000 {
-			return &TooManyTrianglesError{Limit: r.maxTri, Triangles: d.numTri()}
+			return &StallError{Steps: r.steps, Triangles: d.numTri()}
 		}
 		if r.segHead < len(r.segQ) {
 			s := r.segQ[r.segHead]
