@@ -1,0 +1,270 @@
+package saturation
+
+import (
+	"math"
+
+	"polegap/mesh"
+)
+
+// DefaultCornerFraction sets the default corner radius: this fraction of
+// the square root of the region's area (our choice; see the package
+// documentation).
+const DefaultCornerFraction = 0.05
+
+// Region is one iron region to report on.
+type Region struct {
+	Tag  int32  // region tag in the mesh
+	Name string // for the report
+	// Curve gives the knee when Knee is 0. It may be nil if Knee is set.
+	Curve Curve
+	// Knee, T, overrides the curve's knee as the level of AboveKnee.
+	Knee float64
+	// Corners are the points near which the raw maximum is
+	// mesh-dependent: the region's re-entrant corners (ReentrantCorners).
+	Corners [][2]float64
+	// Limit, T, is the largest acceptable MaxAway; 0 means no check.
+	Limit float64
+}
+
+// Options control Analyse. The zero value uses the defaults.
+type Options struct {
+	// CornerRadius, m, is the distance from a corner within which
+	// triangles are left out of MaxAway; 0 means DefaultCornerFraction
+	// times the square root of the region's area.
+	CornerRadius float64
+	// Levels are further flux densities (T) at which to report the
+	// area fraction above.
+	Levels []float64
+}
+
+// Level is the area fraction of a region where |B| exceeds B.
+type Level struct {
+	B        float64 // T
+	Fraction float64 // of the region's area, 0..1
+}
+
+// Report is the saturation of one region.
+type Report struct {
+	Tag       int32
+	Name      string
+	Triangles int
+	Area      float64 // m²
+
+	// Max is the largest |B| (T) of any triangle, at the centroid MaxAt
+	// of triangle MaxTriangle. When MaxAtCorner is true it lies within
+	// CornerRadius of a re-entrant corner, where |B| grows without bound
+	// under refinement (~ r^(−1/3) at a 90° notch): a mesh-dependent
+	// number, not a property of the magnet.
+	Max         float64
+	MaxAt       [2]float64
+	MaxTriangle int
+	MaxAtCorner bool
+
+	// MaxAway is the largest |B| (T) over triangles whose centroid lies
+	// farther than CornerRadius (m) from every corner, at MaxAwayAt; it
+	// equals Max when no corner is listed. AwayTriangles counts those
+	// triangles (0: every triangle is near a corner, MaxAway is 0).
+	MaxAway       float64
+	MaxAwayAt     [2]float64
+	AwayTriangles int
+	CornerRadius  float64
+
+	Mean      float64 // area-weighted mean |B|, T
+	Knee      float64 // T
+	AboveKnee float64 // area fraction with |B| > Knee
+	Levels    []Level
+
+	// Limit (T, 0 for none) and Pass: MaxAway <= Limit.
+	Limit float64
+	Pass  bool
+}
+
+// Analyse reports on each region of regions, in order, from the mesh m and
+// the flux density b per triangle (T). See the package documentation for
+// the definitions and errors.
+func Analyse(m *mesh.Mesh, b [][2]float64, regions []Region, opt Options) ([]Report, error) {
+	if m == nil {
+		panic(errNilMesh)
+	}
+	nt := m.NumTriangles()
+	if len(b) != nt {
+		panic(errBLen)
+	}
+	if opt.CornerRadius < 0 {
+		panic(errNegative)
+	}
+	for _, l := range opt.Levels {
+		if l < 0 {
+			panic(errNegative)
+		}
+	}
+	for t := range b {
+		for _, v := range b[t] {
+			if math.IsNaN(v) || math.IsInf(v, 0) {
+				return nil, &NonFiniteError{What: "B", Triangle: t, Value: v}
+			}
+		}
+	}
+	// Triangles of each tag asked for.
+	want := make(map[int32]int, len(regions))
+	for i, r := range regions {
+		want[r.Tag] = i
+		if r.Limit < 0 || r.Knee < 0 {
+			panic(errNegative)
+		}
+		if r.Knee == 0 && r.Curve == nil {
+			panic(errNoCurve)
+		}
+	}
+	tris := make([][]int32, len(regions))
+	for t := range nt {
+		if i, ok := want[m.Region[t]]; ok {
+			tris[i] = append(tris[i], int32(t))
+		}
+	}
+	out := make([]Report, len(regions))
+	for i := range regions {
+		rep, err := analyseRegion(m, b, &regions[i], tris[i], opt)
+		if err != nil {
+			return nil, err
+		}
+		out[i] = rep
+	}
+	return out, nil
+}
+
+func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Options) (Report, error) {
+	rep := Report{Tag: r.Tag, Name: r.Name, Limit: r.Limit, Knee: r.Knee, Triangles: len(tris), MaxTriangle: -1}
+	if len(tris) == 0 {
+		return rep, &EmptyRegionError{Tag: r.Tag, Name: r.Name}
+	}
+	if rep.Knee == 0 {
+		k, err := Knee(r.Curve)
+		if err != nil {
+			return rep, err
+		}
+		rep.Knee = k
+	}
+	area := make([]float64, len(tris))
+	cx := make([]float64, len(tris))
+	cy := make([]float64, len(tris))
+	var totalS, sumS kahan
+	for j, t := range tris {
+		a, bb, c := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
+		area[j] = 0.5 * ((m.X[bb]-m.X[a])*(m.Y[c]-m.Y[a]) - (m.X[c]-m.X[a])*(m.Y[bb]-m.Y[a]))
+		cx[j] = (m.X[a] + m.X[bb] + m.X[c]) / 3
+		cy[j] = (m.Y[a] + m.Y[bb] + m.Y[c]) / 3
+		totalS.add(area[j])
+		sumS.add(area[j] * babs(b[t]))
+	}
+	total := totalS.value()
+	rep.Area = total
+	rep.Mean = sumS.value() / total
+	rep.CornerRadius = opt.CornerRadius
+	if rep.CornerRadius == 0 {
+		rep.CornerRadius = DefaultCornerFraction * math.Sqrt(total)
+	}
+	rep.Levels = make([]Level, len(opt.Levels))
+	var above kahan
+	aboveL := make([]kahan, len(opt.Levels))
+	rad2 := rep.CornerRadius * rep.CornerRadius
+	rep.Max = -1
+	for j, t := range tris {
+		v := babs(b[t])
+		if v > rep.Knee {
+			above.add(area[j])
+		}
+		for k, l := range opt.Levels {
+			if v > l {
+				aboveL[k].add(area[j])
+			}
+		}
+		near := false
+		for _, c := range r.Corners {
+			dx, dy := cx[j]-c[0], cy[j]-c[1]
+			if dx*dx+dy*dy <= rad2 {
+				near = true
+				break
+			}
+		}
+		if v > rep.Max {
+			rep.Max, rep.MaxAt, rep.MaxTriangle, rep.MaxAtCorner = v, [2]float64{cx[j], cy[j]}, int(t), near
+		}
+		if !near {
+			rep.AwayTriangles++
+			if v > rep.MaxAway || rep.AwayTriangles == 1 {
+				rep.MaxAway, rep.MaxAwayAt = v, [2]float64{cx[j], cy[j]}
+			}
+		}
+	}
+	rep.AboveKnee = above.value() / total
+	for k, l := range opt.Levels {
+		rep.Levels[k] = Level{B: l, Fraction: aboveL[k].value() / total}
+	}
+	rep.Pass = r.Limit == 0 || rep.MaxAway <= r.Limit
+	return rep, nil
+}
+
+func babs(v [2]float64) float64 { return math.Hypot(v[0], v[1]) }
+
+// kahan is a compensated (Kahan-Babuška-Neumaier) sum: A. Neumaier,
+// "Rundungsfehleranalyse einiger Verfahren zur Summation endlicher
+// Summen", ZAMM 54, 1974.
+type kahan struct{ s, c float64 }
+
+func (k *kahan) add(v float64) {
+	t := k.s + v
+	if math.Abs(k.s) >= math.Abs(v) {
+		k.c += (k.s - t) + v
+	} else {
+		k.c += (v - t) + k.s
+	}
+	k.s = t
+}
+
+func (k *kahan) value() float64 { return k.s + k.c }
+
+// DefaultMinTurn is the least turn, in degrees, that makes a polygon
+// vertex a re-entrant corner for ReentrantCorners: interior angles of
+// 180° to 190° (chords of a concave arc, nearly straight joints) carry a
+// weak singularity r^(π/α − 1) with exponent above −0.06 and are skipped.
+const DefaultMinTurn = 10.0
+
+// ReentrantCorners returns the vertices of the polygon (x, y) (either
+// orientation, first vertex not repeated) whose interior angle exceeds
+// 180° + minTurn degrees (0 means DefaultMinTurn): the corners where the
+// field inside a highly permeable region is singular. The orientation of
+// each vertex is decided by mesh.Orient2D. It panics if the polygon has
+// fewer than 3 vertices or minTurn is outside [0, 180).
+func ReentrantCorners(x, y []float64, minTurn float64) [][2]float64 {
+	n := len(x)
+	if n != len(y) || n < 3 {
+		panic(errPolygonLen)
+	}
+	if !(minTurn >= 0 && minTurn < 180) {
+		panic(errMinTurn)
+	}
+	if minTurn == 0 {
+		minTurn = DefaultMinTurn
+	}
+	ccw := mesh.PolygonArea(x, y) > 0
+	cosMax := math.Cos(minTurn * math.Pi / 180)
+	var out [][2]float64
+	for i := range n {
+		p, q := (i+n-1)%n, (i+1)%n
+		o := mesh.Orient2D(x[p], y[p], x[i], y[i], x[q], y[q])
+		// A right turn on a counter-clockwise polygon is a reflex vertex.
+		reflex := (ccw && o == mesh.CW) || (!ccw && o == mesh.CCW)
+		if !reflex {
+			continue
+		}
+		// The turn angle between the incoming and outgoing edges.
+		ux, uy := x[i]-x[p], y[i]-y[p]
+		vx, vy := x[q]-x[i], y[q]-y[i]
+		cos := (ux*vx + uy*vy) / (math.Hypot(ux, uy) * math.Hypot(vx, vy))
+		if cos < cosMax {
+			out = append(out, [2]float64{x[i], y[i]})
+		}
+	}
+	return out
+}
