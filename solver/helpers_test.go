@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"polegap/mesh"
+	"polegap/solver/sparse"
 )
 
 // Test meshes built by hand (structured grids), with neighbours, boundary
@@ -303,5 +304,16 @@ func checkSolution(t *testing.T, s *Solution, err error) {
 		if cerr := s.Check(); cerr != nil {
 			t.Fatal(cerr)
 		}
+	}
+}
+
+// mulVecTo sets dst = a x.
+func mulVecTo(dst []float64, a *sparse.CSR, x []float64) {
+	for i := 0; i < a.N; i++ {
+		var s float64
+		for p := a.RowPtr[i]; p < a.RowPtr[i+1]; p++ {
+			s += a.Val[p] * x[a.Col[p]]
+		}
+		dst[i] = s
 	}
 }

@@ -86,7 +86,7 @@ func newton(as *assembler, opt Options, s *Solution) error {
 	res := norm2(R) / ref
 	s.History = append(s.History, res)
 
-	lin := opt.linearSolver()
+	lin := opt.linearSolver(n)
 	t0 = time.Now()
 	if err := lin.Analyze(as.pat.k); err != nil {
 		return &LinearSolveError{Stage: "analyze", Err: err}

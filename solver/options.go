@@ -10,12 +10,14 @@ import (
 type LinearMethod int
 
 const (
-	// Auto picks the direct solver.
+	// Auto lets the sparse package pick by size (sparse.Auto: Cholesky
+	// for 2D systems up to a few million unknowns).
 	Auto LinearMethod = iota
 	// Direct: fill-reducing ordering and sparse Cholesky; the symbolic
 	// analysis is reused across Newton steps.
 	Direct
-	// Iterative: preconditioned conjugate gradients.
+	// Iterative: conjugate gradients with an incomplete Cholesky
+	// preconditioner, to Options.LinearTol.
 	Iterative
 )
 
@@ -66,13 +68,15 @@ func (o Options) withDefaults() Options {
 	return o
 }
 
-// linearSolver returns the solver that opt asks for.
-func (o Options) linearSolver() sparse.Solver {
-	if o.Solver != nil {
+// linearSolver returns the solver that opt asks for, for n unknowns.
+func (o Options) linearSolver(n int) sparse.Solver {
+	switch {
+	case o.Solver != nil:
 		return o.Solver
+	case o.Method == Direct:
+		return &sparse.Cholesky{}
+	case o.Method == Iterative:
+		return &sparse.PCG{Options: sparse.PCGOptions{Tol: o.LinearTol}}
 	}
-	if o.Method == Iterative {
-		return &jacobiCG{tol: o.LinearTol}
-	}
-	return &sparse.Cholesky{}
+	return sparse.Auto(n)
 }
