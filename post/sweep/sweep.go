@@ -92,6 +92,8 @@ type Runner struct {
 	base  []float64 // the model's own coil currents
 	probe string
 	last  []float64
+
+	baseField float64
 }
 
 // NewRunner meshes the model and prepares to solve it at other currents.
@@ -134,8 +136,21 @@ func NewRunner(ctx context.Context, m *models.Model, coil, probe string, opt sol
 	}
 	r.Study = s
 	r.last = s.Solution.A
+	if res, ok := s.Probe(probe); ok {
+		r.baseField = fieldOf(res)
+	}
 	return r, nil
 }
+
+// Turns returns the turns of the swept coil.
+func (r *Runner) Turns() float64 { return r.Model.Coils[r.coil].Turns }
+
+// BaseCurrent returns the swept coil's current in the model file.
+func (r *Runner) BaseCurrent() float64 { return r.base[r.coil] }
+
+// BaseField returns the probe's field at the model's own currents (the
+// solve NewRunner made).
+func (r *Runner) BaseField() float64 { return r.baseField }
 
 // ProbeName returns the probe whose field the runner reports.
 func (r *Runner) ProbeName() string { return r.probe }
