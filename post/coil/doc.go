@@ -16,6 +16,7 @@
 //     and grade 1/2 enamel (IECWires), and typical square hollow
 //     conductors for water-cooled coils (HollowWires). Every table names
 //     its source; values from memory say so.
+//     RoundWire, BarWire and HollowBar build conductors outside the tables.
 //   - Window (one coil side's cross-section and mean turn), MeanTurnRect
 //     and MeanTurnRound for the mean turn, Window.CoolingSurface.
 //   - Spec (what the coil must deliver and its limits), Options (every
