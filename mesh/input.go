@@ -69,6 +69,12 @@ type SizeField struct {
 	Points  []SizePoint       // size at a point, growing away from it
 	Lines   []SizeLine        // size along a segment, growing away from it
 	Grading float64           // growth per metre away from a source; 0 means 0.3
+	// Func, if set, is one more size in metres (+Inf or <= 0 for none) at
+	// (x, y) in region, for example from an error estimate on a previous
+	// solution (adaptive refinement). It must be safe to call repeatedly and
+	// should not decrease by more than Grading per metre, or refinement will
+	// grade poorly around its minima.
+	Func func(x, y float64, region int32) float64
 }
 
 // SizePoint asks for edge length Size at (X, Y).

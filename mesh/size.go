@@ -35,12 +35,17 @@ func (f *SizeField) At(x, y float64, region int32) float64 {
 			h = s
 		}
 	}
+	if f.Func != nil {
+		if s := f.Func(x, y, region); s > 0 && s < h {
+			h = s
+		}
+	}
 	return h
 }
 
 // isZero reports whether the field sets no limit anywhere.
 func (f *SizeField) isZero() bool {
-	if f.Global > 0 {
+	if f.Global > 0 || f.Func != nil {
 		return false
 	}
 	for _, s := range f.Region {

@@ -39,3 +39,29 @@ func TestSizeFieldAt(t *testing.T) {
 		t.Error("isZero wrong")
 	}
 }
+
+// TestSizeFieldFunc refines a square by a size function that asks for 0.02
+// m in the left half only (as an adaptive error estimate would), and checks
+// it is met there while the right half stays coarse.
+func TestSizeFieldFunc(t *testing.T) {
+	f := SizeField{Func: func(x, y float64, _ int32) float64 {
+		if x < 0.5 {
+			return 0.02
+		}
+		return math.Inf(1)
+	}}
+	in := polyInput(boxPoly(0, 0, 1, 1))
+	m := mustMesh(t, "func", in, Options{Size: f}, CheckOptions{MinAngle: 28, RegionAreas: map[int32]float64{0: 1}})
+	sizeHonoured(t, "func", m, &f)
+	left, right := 0, 0
+	for tr := 0; tr < m.NumTriangles(); tr++ {
+		if m.X[m.Tri[3*tr]] < 0.4 {
+			left++
+		} else if m.X[m.Tri[3*tr]] > 0.6 {
+			right++
+		}
+	}
+	if left < 10*right {
+		t.Errorf("func: %d triangles left of x=0.4, %d right of 0.6; want the left much finer", left, right)
+	}
+}
