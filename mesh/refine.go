@@ -201,7 +201,13 @@ func (r *refiner) bad(t int32) bool {
 	l1 := (cx-ax)*(cx-ax) + (cy-ay)*(cy-ay) // opposite b
 	l2 := (ax-bx)*(ax-bx) + (ay-by)*(ay-by) // opposite c
 	if r.size != nil {
-		lmax := math.Max(l0, math.Max(l1, l2))
+		lmax := l0 // lengths are finite: plain comparisons, not math.Max
+		if l1 > lmax {
+			lmax = l1
+		}
+		if l2 > lmax {
+			lmax = l2
+		}
 		h := r.size.At((ax+bx+cx)/3, (ay+by+cy)/3, d.reg[t])
 		if lmax > h*h {
 			return true

@@ -368,62 +368,57 @@ func (d *cdt) classify(in *Input, vmap []int32) {
 	}
 }
 
-// export compacts the live triangles and used vertices into a Mesh.
+// export compacts the live triangles and used vertices into a Mesh, in
+// place: the working arrays become the Mesh's arrays (stamp and link serve
+// as the renumbering tables), so a large mesh is not copied.
 func (d *cdt) export() *Mesh {
 	nv := len(d.x)
-	vnew := make([]int32, nv)
-	for i := range vnew {
-		vnew[i] = -1
-	}
+	vnew := d.link[:nv] // all -1 between insertions
 	ntAll := len(d.tri) / 3
-	tnew := make([]int32, ntAll)
-	nt := int32(0)
+	tnew := d.stamp[:ntAll]
+	nt := uint32(0)
 	for t := 0; t < ntAll; t++ {
-		tnew[t] = -1
 		if d.tri[3*t] >= 0 {
 			tnew[t] = nt
 			nt++
-			for k := 0; k < 3; k++ {
-				vnew[d.tri[3*t+k]] = 0
-			}
+			vnew[d.tri[3*t]], vnew[d.tri[3*t+1]], vnew[d.tri[3*t+2]] = 0, 0, 0
+		} else {
+			tnew[t] = math.MaxUint32
 		}
 	}
 	nUsed := int32(0)
-	for v := range vnew {
+	for v := 0; v < nv; v++ {
 		if vnew[v] == 0 {
 			vnew[v] = nUsed
+			d.x[nUsed], d.y[nUsed] = d.x[v], d.y[v]
 			nUsed++
 		}
 	}
-	m := &Mesh{
-		X:          make([]float64, nUsed),
-		Y:          make([]float64, nUsed),
-		Tri:        make([]int32, 3*nt),
-		Nbr:        make([]int32, 3*nt),
-		Region:     make([]int32, nt),
-		EdgeMarker: make([]int32, 3*nt),
-	}
-	m.NumVertices = int(nUsed)
-	for v, nv := range vnew {
-		if nv >= 0 {
-			m.X[nv], m.Y[nv] = d.x[v], d.y[v]
-		}
-	}
 	for t := 0; t < ntAll; t++ {
-		j := tnew[t]
-		if j < 0 {
+		j := int(tnew[t])
+		if tnew[t] == math.MaxUint32 {
 			continue
 		}
-		m.Region[j] = d.reg[t]
+		d.reg[j] = d.reg[t]
 		for k := 0; k < 3; k++ {
-			m.Tri[3*j+int32(k)] = vnew[d.tri[3*t+k]]
+			d.tri[3*j+k] = vnew[d.tri[3*t+k]]
 			if n := d.nbr[3*t+k]; n >= 0 {
-				m.Nbr[3*j+int32(k)] = tnew[n]
+				d.nbr[3*j+k] = int32(tnew[n])
 			} else {
-				m.Nbr[3*j+int32(k)] = -1
+				d.nbr[3*j+k] = -1
 			}
-			m.EdgeMarker[3*j+int32(k)] = d.mark[3*t+k]
+			d.mark[3*j+k] = d.mark[3*t+k]
 		}
 	}
+	m := &Mesh{
+		X:           d.x[:nUsed:nUsed],
+		Y:           d.y[:nUsed:nUsed],
+		NumVertices: int(nUsed),
+		Tri:         d.tri[: 3*nt : 3*nt],
+		Nbr:         d.nbr[: 3*nt : 3*nt],
+		Region:      d.reg[:nt:nt],
+		EdgeMarker:  d.mark[: 3*nt : 3*nt],
+	}
+	*d = cdt{} // the arrays now belong to the Mesh
 	return m
 }
