@@ -62,13 +62,19 @@ func buildPattern(m *mesh.Mesh, d *dofMap, workers int) *pattern {
 		est = 14 * n
 	}
 	k := &sparse.CSR{N: n, RowPtr: make([]int, n+1), Col: make([]int32, 0, est)}
-	mark := fill // reuse: mark[c] == r+1... use a separate stamp
+	p := &pattern{k: k, nn: nn, pos: make([]int32, nt*nn*nn)}
+	for i := range p.pos {
+		p.pos[i] = -1
+	}
+	mark := fill // reused: mark[c] == r once column c is in row r
 	for i := range mark {
 		mark[i] = -1
 	}
+	where := make([]int32, n) // where[c]: position of column c in the current row
 	for r := 0; r < n; r++ {
 		start := len(k.Col)
-		for _, t := range elemOf[cnt[r]:cnt[r+1]] {
+		elems := elemOf[cnt[r]:cnt[r+1]]
+		for _, t := range elems {
 			elementNodes(m, int(t), &nodes)
 			for _, v := range nodes[:nn] {
 				c := d.dof[v]
@@ -80,27 +86,27 @@ func buildPattern(m *mesh.Mesh, d *dofMap, workers int) *pattern {
 		}
 		row := k.Col[start:]
 		sortInt32(row)
+		for i, c := range row {
+			where[c] = int32(start + i)
+		}
 		k.RowPtr[r+1] = len(k.Col)
-	}
-	k.Val = make([]float64, len(k.Col))
-	// Element entry -> CSR position.
-	p := &pattern{k: k, nn: nn, pos: make([]int32, nt*nn*nn)}
-	for t := 0; t < nt; t++ {
-		elementNodes(m, t, &nodes)
-		base := t * nn * nn
-		for i := 0; i < nn; i++ {
-			ri := d.dof[nodes[i]]
-			for j := 0; j < nn; j++ {
-				cj := d.dof[nodes[j]]
-				if ri < 0 || cj < 0 {
-					p.pos[base+i*nn+j] = -1
+		// Element entries of this row -> CSR positions.
+		for _, t := range elems {
+			elementNodes(m, int(t), &nodes)
+			base := int(t) * nn * nn
+			for i := 0; i < nn; i++ {
+				if d.dof[nodes[i]] != int32(r) {
 					continue
 				}
-				row := k.Col[k.RowPtr[ri]:k.RowPtr[ri+1]]
-				p.pos[base+i*nn+j] = int32(k.RowPtr[ri] + searchInt32(row, cj))
+				for j := 0; j < nn; j++ {
+					if c := d.dof[nodes[j]]; c >= 0 {
+						p.pos[base+i*nn+j] = where[c]
+					}
+				}
 			}
 		}
 	}
+	k.Val = make([]float64, len(k.Col))
 	p.split(m, d, workers)
 	return p
 }
@@ -172,18 +178,4 @@ func sortInt32(a []int32) {
 		}
 		a[j] = v
 	}
-}
-
-// searchInt32 returns the index of v in the sorted slice a (v present).
-func searchInt32(a []int32, v int32) int {
-	lo, hi := 0, len(a)
-	for lo < hi {
-		h := int(uint(lo+hi) >> 1)
-		if a[h] < v {
-			lo = h + 1
-		} else {
-			hi = h
-		}
-	}
-	return lo
 }
