@@ -12,6 +12,7 @@ import (
 var commands = []*Command{
 	cmdDemo,
 	cmdSolve,
+	cmdSize,
 	cmdSweep,
 	cmdMerge,
 	cmdMesh,

@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
@@ -104,5 +105,34 @@ func TestSolveJSON(t *testing.T) {
 	}
 	if !found {
 		t.Errorf("no point probe in the report: %v", r.Probes)
+	}
+}
+
+// TestSizeJSON: the sizing reaches its target within the search tolerance
+// (1e-4 relative) and proposes a winding whose turns × current deliver
+// the ampere-turns found.
+func TestSizeJSON(t *testing.T) {
+	code, out, errs := runCmd(t, "size", "--json", "--cooling", "water", "--field", "0.8T", "bench-dipole")
+	if code != 0 {
+		t.Fatalf("size: code %d, stderr %q", code, errs)
+	}
+	var r struct {
+		Reached     bool
+		Field       float64 `json:"field_T"`
+		AmpereTurns float64 `json:"ampere_turns_per_winding"`
+		Best        *struct {
+			Turns   int
+			Current float64
+		}
+		Cautions []string
+	}
+	if err := json.Unmarshal([]byte(out), &r); err != nil {
+		t.Fatal(err)
+	}
+	if !r.Reached || math.Abs(r.Field-0.8) > 1e-4*0.8 || r.Best == nil || len(r.Cautions) == 0 {
+		t.Fatalf("sizing: %+v", r)
+	}
+	if ni := float64(r.Best.Turns) * r.Best.Current; math.Abs(ni-r.AmpereTurns) > 1e-9*ni {
+		t.Errorf("best winding gives %g ampere-turns, want %g", ni, r.AmpereTurns)
 	}
 }

@@ -1,0 +1,145 @@
+package main
+
+import (
+	"context"
+	"flag"
+	"fmt"
+	"io"
+	"os"
+	"os/signal"
+
+	"polegap/internal/fileout"
+	"polegap/models"
+	"polegap/post/coil"
+	"polegap/post/prepare"
+	"polegap/post/report"
+	"polegap/post/sweep"
+	"polegap/post/target"
+	"polegap/solver"
+)
+
+var cmdSize = &Command{
+	UsageLine: "size [--field B] [--coil NAME] [--probe NAME] [--fill F] [--temperature T] [--cooling KIND] [--wires TABLE] [--supply-voltage V] [--supply-current I] [--max-ampere-turns NI] [--csv FILE] [--json] MODEL",
+	Short:     "find the ampere-turns for a target field and a coil that delivers them",
+	Long: `Size finds, by nonlinear solves on the model's mesh, the ampere-turns at
+which the target probe reaches the target field (--field, or the model's
+target), to 1e-4 relative. A target beyond reach (more than five times the
+ideal circuit's ampere-turns: the iron is deep in saturation) is reported
+with the highest field reached.
+
+Then it lists the windings that deliver those ampere-turns in the coil's
+window (one side's cross-section from the model; the mean turn from the
+span between the sides and the depth): for each wire of the table
+(--wires iec, awg, hollow or all) the turns that fit at the fill factor,
+current, current density, resistance at the coil temperature, voltage,
+power and copper mass, flagging supply limits and the common-practice
+current-density and heat limits of the cooling (air-natural, air-forced
+or water), and picks the one with the least power.
+
+The currents, voltages and stored energy of a real magnet can injure:
+the cautions printed with the result apply.`,
+	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
+		field := fs.String("field", "", "target field (e.g. 1.2T; default the model's target)")
+		coilName := fs.String("coil", "", "the coil to size (default the first)")
+		probe := fs.String("probe", "", "the probe that must reach the field (default the model's target probe)")
+		fill := fs.Float64("fill", 0, "fill factor: wire envelope area over window area (default 0.6)")
+		temp := fs.Float64("temperature", 0, "coil temperature for the resistance, °C (default 60)")
+		cooling := fs.String("cooling", "air-natural", "air-natural, air-forced or water")
+		wires := fs.String("wires", "auto", "wire table: iec, awg, hollow or all (auto: iec, or hollow for water)")
+		supplyV := fs.String("supply-voltage", "", "supply voltage limit (e.g. 60V)")
+		supplyI := fs.String("supply-current", "", "supply current limit (e.g. 50A)")
+		maxNI := fs.String("max-ampere-turns", "", "give up beyond this (default 5 × the ideal)")
+		csvOut := fs.String("csv", "", "write the winding options to this CSV file")
+		asJSON := fs.Bool("json", false, "print the result as JSON")
+		return func(env *Env, args []string) error {
+			if err := oneModel(args); err != nil {
+				return err
+			}
+			m, err := loadModel(args[0])
+			if err != nil {
+				return err
+			}
+			bt, pname, err := sizeTarget(m, *field, *probe)
+			if err != nil {
+				return err
+			}
+			spec := coil.Spec{FillFactor: *fill, Temperature: *temp}
+			if spec.Cooling, err = report.ParseCooling(*cooling); err != nil {
+				return usagef("--cooling: %v", err)
+			}
+			table, err := report.Wires(*wires, spec.Cooling)
+			if err != nil {
+				return usagef("--wires: %v", err)
+			}
+			for _, q := range []struct {
+				s, kind string
+				dst     *float64
+			}{{*supplyV, "voltage", &spec.SupplyVoltage}, {*supplyI, "current", &spec.SupplyCurrent}} {
+				if q.s != "" {
+					if *q.dst, err = models.ParseQuantity(q.s, q.kind); err != nil {
+						return usagef("%v", err)
+					}
+				}
+			}
+			topt := target.Options{GapLength: m.Gap}
+			if *maxNI != "" {
+				if topt.MaxAmpereTurns, err = models.ParseQuantity(*maxNI, "ampere-turns"); err != nil {
+					return usagef("--max-ampere-turns: %v", err)
+				}
+			}
+			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
+			defer stop()
+			r, err := sweep.NewRunner(ctx, m, *coilName, pname, solver.Options{})
+			if err != nil {
+				return err
+			}
+			res, err := target.Search(ctx, r, bt, topt)
+			if err != nil {
+				return err
+			}
+			c := &m.Coils[0]
+			if *coilName != "" {
+				c, _ = m.Coil(*coilName)
+			}
+			w, err := prepare.CoilWinding(m, c)
+			if err != nil {
+				return err
+			}
+			spec.AmpereTurns, spec.Window = res.AmpereTurns, w.Window
+			if err := spec.Validate(); err != nil {
+				return err
+			}
+			opts := coil.Options(spec, table)
+			s := report.NewSizing(m.Name, pname, &res, w, spec, opts)
+			if *csvOut != "" {
+				if err := fileout.Write(*csvOut, func(w io.Writer) error { return coil.WriteCSV(w, opts) }); err != nil {
+					return err
+				}
+			}
+			if *asJSON {
+				return writeJSON(env.Stdout, s)
+			}
+			return s.WriteText(env.Stdout)
+		}
+	},
+}
+
+// sizeTarget returns the target field and probe from the flags or the model.
+func sizeTarget(m *models.Model, field, probe string) (float64, string, error) {
+	var bt float64
+	if field != "" {
+		v, err := models.ParseQuantity(field, "field")
+		if err != nil {
+			return 0, "", usagef("--field: %v", err)
+		}
+		bt = v
+	} else if m.Target != nil {
+		bt = m.Target.Field
+	} else {
+		return 0, "", fmt.Errorf("%s: no target field: give --field or add target: {probe: ..., field: ...} to the model", m.File)
+	}
+	if probe == "" {
+		probe = probeFor(m, "")
+	}
+	return bt, probe, nil
+}
