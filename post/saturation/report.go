@@ -105,21 +105,40 @@ func Analyse(m *mesh.Mesh, b [][2]float64, regions []Region, opt Options) ([]Rep
 			}
 		}
 	}
-	// Triangles of each tag asked for.
-	want := make(map[int32]int, len(regions))
+	// Triangles of each tag asked for, through a tag -> region index table
+	// (tags are small non-negative integers; others are never asked for).
+	var maxTag int32 = -1
+	for _, r := range m.Region {
+		maxTag = max(maxTag, r)
+	}
+	want := make([]int32, maxTag+1)
+	for i := range want {
+		want[i] = -1
+	}
+	count := make([]int, len(regions))
 	for i, r := range regions {
-		want[r.Tag] = i
 		if r.Limit < 0 || r.Knee < 0 {
 			panic(errNegative)
 		}
 		if r.Knee == 0 && r.Curve == nil {
 			panic(errNoCurve)
 		}
+		if r.Tag >= 0 && r.Tag <= maxTag {
+			want[r.Tag] = int32(i)
+		}
+	}
+	for _, r := range m.Region {
+		if r >= 0 && want[r] >= 0 {
+			count[want[r]]++
+		}
 	}
 	tris := make([][]int32, len(regions))
-	for t := range nt {
-		if i, ok := want[m.Region[t]]; ok {
-			tris[i] = append(tris[i], int32(t))
+	for i := range tris {
+		tris[i] = make([]int32, 0, count[i])
+	}
+	for t, r := range m.Region {
+		if r >= 0 && want[r] >= 0 {
+			tris[want[r]] = append(tris[want[r]], int32(t))
 		}
 	}
 	out := make([]Report, len(regions))
@@ -146,6 +165,7 @@ func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Op
 		rep.Knee = k
 	}
 	area := make([]float64, len(tris))
+	mag := make([]float64, len(tris))
 	cx := make([]float64, len(tris))
 	cy := make([]float64, len(tris))
 	var totalS, sumS kahan
@@ -155,7 +175,8 @@ func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Op
 		cx[j] = (m.X[a] + m.X[bb] + m.X[c]) / 3
 		cy[j] = (m.Y[a] + m.Y[bb] + m.Y[c]) / 3
 		totalS.add(area[j])
-		sumS.add(area[j] * babs(b[t]))
+		mag[j] = babs(b[t])
+		sumS.add(area[j] * mag[j])
 	}
 	total := totalS.value()
 	rep.Area = total
@@ -170,7 +191,7 @@ func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Op
 	rad2 := rep.CornerRadius * rep.CornerRadius
 	rep.Max = -1
 	for j, t := range tris {
-		v := babs(b[t])
+		v := mag[j]
 		if v > rep.Knee {
 			above.add(area[j])
 		}
@@ -205,7 +226,8 @@ func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Op
 	return rep, nil
 }
 
-func babs(v [2]float64) float64 { return math.Hypot(v[0], v[1]) }
+// babs returns |B|; flux densities are far from overflow, so no Hypot.
+func babs(v [2]float64) float64 { return math.Sqrt(v[0]*v[0] + v[1]*v[1]) }
 
 // kahan is a compensated (Kahan-Babuška-Neumaier) sum: A. Neumaier,
 // "Rundungsfehleranalyse einiger Verfahren zur Summation endlicher
