@@ -75,8 +75,22 @@ func NewCurve(h, b []float64) (*Curve, error) {
 	c := &Curve{h: hs, b: bs}
 	c.setSlopes()
 	c.setPieces()
-	c.build()
+	if k, ok := c.build(); !ok {
+		return nil, irregular(k, hs, bs, h[0] != 0)
+	}
 	return c, nil
+}
+
+// irregular reports a table whose reluctivity cannot be tabulated; knot k
+// indexes hs, bs (which include the origin; added says whether NewCurve
+// added it).
+func irregular(k int, hs, bs []float64, added bool) error {
+	row := k + 1 // knot k is user row k+1 when the table held the origin
+	if added {
+		row = k
+	}
+	return &TableError{Row: row, H: hs[k], B: bs[k], Err: ErrSlope,
+		Reason: "the slope of the curve changes too abruptly near this row for a smooth, monotone reluctivity; smooth the table (add rows between, or remove an outlier)"}
 }
 
 // validateTable checks the raw user table; rows are reported 1-based.
@@ -356,6 +370,8 @@ func (c *Curve) Stacked(k float64) (*Curve, error) {
 		s.c3[i] = k * c.c3[i]
 	}
 	s.hl, s.bl = s.h[n-1], s.b[n-1]
-	s.build()
+	if knot, ok := s.build(); !ok {
+		return nil, fmt.Errorf("materials: stacking factor %g: %w", k, irregular(knot, s.h, s.b, true))
+	}
 	return s, nil
 }

@@ -20,24 +20,26 @@ import "math"
 // Past the last knot H = H_l + (B - B_l)/μ0, so ν = 1/μ0 + (H_l - B_l/μ0)/B
 // and dν/db2 = -(H_l - B_l/μ0)/(2 B³), which join the table C1 at B_l.
 //
-// Look-up: a uniform bucket array over [0, B_last²] gives the first cell to
-// try; a short forward scan finishes the search.
+// Look-up: a uniform bucket array over [0, B_last²] gives the range of cells
+// that can hold b2, usually one; a binary search over that range finishes.
 
 const (
 	nuTol      = 1e-9 // relative value tolerance of the ν table
 	nuMaxDepth = 40   // bisections per knot interval
 	nuMinCells = 128  // cells at least over [0, B_last²] (caps cell width)
+	nuMaxCells = 1 << 18
 )
 
 type nuTable struct {
 	x      []float64    // cell boundaries in b2, len = cells+1; x[0] = 0, x[cells] = xmax
 	c      [][4]float64 // ν = c0 + t(c1 + t(c2 + t c3)), t = b2 - x[j]
-	bucket []int32      // bucket[k]: the cell holding b2 = k/bscale
+	bucket []int32      // bucket[k]: the cell holding b2 = k/bscale; len nb+2
 	bscale float64
 	xmax   float64 // B_last²
 	nu0    float64 // ν(0) = 1/initial slope
 	g0     float64 // dν/db2 at 0
 	tail   float64 // H_last - B_last/μ0 (negative for steels)
+	hl, bl float64 // last knot
 }
 
 // Nu returns the reluctivity ν = H/B in m/H at b2 = |B|² in T², and its
@@ -54,12 +56,23 @@ func (c *Curve) Nu(b2 float64) (nu, dnudb2 float64) {
 		return t.nu0, t.g0
 	}
 	if b2 >= t.xmax {
+		if b2 > math.MaxFloat64 {
+			return 1 / Mu0, 0
+		}
 		b := math.Sqrt(b2)
-		return 1/Mu0 + t.tail/b, -t.tail / (2 * b * b2)
+		// ν = (H_l + (B - B_l)/μ0)/B: a sum of positive terms, where
+		// 1/μ0 + tail/B would cancel when ν << 1/μ0.
+		return (t.hl + (b-t.bl)*(1/Mu0)) / b, -t.tail / (2 * b * b2)
 	}
-	j := int(t.bucket[int(b2*t.bscale)])
-	for b2 >= t.x[j+1] {
-		j++
+	k := int(b2 * t.bscale)
+	j, hi := int(t.bucket[k]), int(t.bucket[k+1])
+	for j < hi { // usually no iteration: binary search within the bucket
+		m := int(uint(j+hi+1) >> 1)
+		if t.x[m] <= b2 {
+			j = m
+		} else {
+			hi = m - 1
+		}
 	}
 	s := b2 - t.x[j]
 	p := &t.c[j]
@@ -88,13 +101,16 @@ func (c *Curve) exactNu(b float64) (nu, g float64) {
 	return nu, (1/slope - nu) / (2 * b * b)
 }
 
-// build tabulates ν(b2); it needs the knots and pieces.
-func (c *Curve) build() {
+// build tabulates ν(b2); it needs the knots and pieces. It fails, with the
+// 1-based knot nearest the trouble, only for tables so irregular that ν
+// cannot be tabulated within nuMaxCells cells with positive ν and rising H.
+func (c *Curve) build() (badKnot int, ok bool) {
 	t := &c.nut
 	n := len(c.h)
 	t.xmax = c.bl * c.bl
 	t.nu0, t.g0 = c.exactNu(0)
 	t.tail = c.hl - c.bl/Mu0
+	t.hl, t.bl = c.hl, c.bl
 	t.x = t.x[:0]
 	t.c = t.c[:0]
 	maxW := t.xmax / nuMinCells
@@ -119,16 +135,26 @@ func (c *Curve) build() {
 				pb = xa + (xb-xa)*float64(k)/float64(parts)
 				pfb, pgb = c.exactNu(math.Sqrt(pb))
 			}
-			c.refine(pa, pfa, pga, pb, pfb, pgb, 0)
+			if !c.refine(pa, pfa, pga, pb, pfb, pgb, 0) {
+				return i, false
+			}
 			pa, pfa, pga = pb, pfb, pgb
 		}
 		xa, fa, ga = xb, fb, gb
 	}
 	t.x = append(t.x, t.xmax)
 	cells := len(t.c)
+	if j := t.badShape(); j >= 0 {
+		// Report the knot whose interval holds the bad cell.
+		k := 1
+		for k < n-1 && c.b[k]*c.b[k] <= t.x[j] {
+			k++
+		}
+		return k, false
+	}
 	nb := 2 * cells
 	t.bscale = float64(nb) / t.xmax
-	t.bucket = make([]int32, nb+1)
+	t.bucket = make([]int32, nb+2)
 	j := 0
 	for k := range t.bucket {
 		xk := float64(k) / t.bscale
@@ -137,6 +163,23 @@ func (c *Curve) build() {
 		}
 		t.bucket[k] = int32(j)
 	}
+	return 0, true
+}
+
+// badShape returns the first cell where ν is not positive or H = ν B does
+// not rise (d(νB)/dB = ν + 2 b2 dν/db2 <= 0) at nine sample points, or -1.
+func (t *nuTable) badShape() int {
+	for j := range t.c {
+		w := t.x[j+1] - t.x[j]
+		for q := 0; q <= 8; q++ {
+			s := w * float64(q) / 8
+			f, g := evalCubic(&t.c[j], s)
+			if !(f > 0) || !(f+2*(t.x[j]+s)*g > 0) {
+				return j
+			}
+		}
+	}
+	return -1
 }
 
 // hermite returns the cubic coefficients on [xa, xb] in t = b2 - xa.
@@ -151,37 +194,55 @@ func evalCubic(p *[4]float64, s float64) (v, dv float64) {
 }
 
 // refine appends the cells of [xa, xb], bisecting until the cubic matches
-// exactNu to nuTol at the quarter points.
-func (c *Curve) refine(xa, fa, ga, xb, fb, gb float64, depth int) {
+// exactNu at the quarter points: ν to nuTol relative and dH/dB = ν + 2 b2
+// dν/db2 to 1e-6 relative, each plus the round-off floor of the exact
+// evaluation (ν is ill-conditioned where dH/dB >> H/B) and of the cubic's
+// divided difference. It returns false when the cell budget is spent or a
+// cell cannot be resolved (depth nuMaxDepth or the resolution of b2): ν then
+// has a feature too sharp to tabulate and the table is rejected.
+func (c *Curve) refine(xa, fa, ga, xb, fb, gb float64, depth int) bool {
+	const eps = 0x1p-52
 	t := &c.nut
+	if len(t.c) >= nuMaxCells {
+		return false
+	}
 	p := hermite(xa, fa, ga, xb, fb, gb)
 	w := xb - xa
-	ok := depth >= nuMaxDepth
+	if depth >= nuMaxDepth {
+		return false // a feature finer than 2^-40 of a knot interval
+	}
 	var fm, gm float64
-	if !ok {
-		ok = true
-		for q := 1; q <= 3; q++ {
+	accept := true
+	{
+		for _, q := range [3]int{2, 1, 3} {
 			x := xa + w*float64(q)/4
 			f, g := c.exactNu(math.Sqrt(x))
 			if q == 2 {
 				fm, gm = f, g
 			}
 			v, dv := evalCubic(&p, x-xa)
-			if math.Abs(v-f) > nuTol*f || math.Abs(dv-g) > 1e-6*(math.Abs(g)+f/xb) {
-				ok = false
-				if q < 2 {
-					fm, gm = c.exactNu(math.Sqrt(xa + w/2))
-				}
+			dh := f + 2*x*math.Abs(g) // scale of dH/dB
+			noise := 64 * eps * dh    // round-off of exactNu
+			if math.Abs(v-f) > nuTol*f+noise || 2*x*math.Abs(dv-g) > 1e-6*dh+16*x*noise/w {
+				accept = false
 				break
 			}
 		}
 	}
-	if ok {
+	xm := xa + w/2
+	if !accept && xa > 0 && xb > 4*xa {
+		// Geometric bisection: a knot interval may span many decades of b2,
+		// and ν varies on the scale of xa near its left end.
+		xm = math.Sqrt(xa) * math.Sqrt(xb)
+		fm, gm = c.exactNu(math.Sqrt(xm))
+	}
+	if accept {
 		t.x = append(t.x, xa)
 		t.c = append(t.c, p)
-		return
+		return true
 	}
-	xm := xa + w/2
-	c.refine(xa, fa, ga, xm, fm, gm, depth+1)
-	c.refine(xm, fm, gm, xb, fb, gb, depth+1)
+	if !(xm > xa && xm < xb) {
+		return false // at the resolution of b2
+	}
+	return c.refine(xa, fa, ga, xm, fm, gm, depth+1) && c.refine(xm, fm, gm, xb, fb, gb, depth+1)
 }
