@@ -31,6 +31,9 @@ type assembler struct {
 	rtol  float64 // nodes with |r| <= rtol lie on the axis
 	errs  []error // per worker
 
+	// generic, when set (tests only), disables the closed-form P1 kernel.
+	generic bool
+
 	// source, when set (tests only), adds a space-dependent current
 	// density J(x, y) to the region's.
 	source func(x, y float64) float64
@@ -145,6 +148,9 @@ func (as *assembler) element(t int, w *elemWork, wantK bool) bool {
 	var mg [2]float64
 	if int(reg) < len(as.p.Magnetization) {
 		mg = as.p.Magnetization[reg]
+	}
+	if as.nn == 3 && !as.axi && !as.generic {
+		return as.elementP1(t, w, wantK, reg, mat, jz, mg)
 	}
 	w.re = [MaxNodes]float64{}
 	if wantK {
@@ -272,4 +278,60 @@ func (as *assembler) assemblePart(pt *part, A, r []float64, wantK bool) error {
 		}
 	}
 	return nil
+}
+
+// elementP1 is element for the planar P1 triangle in closed form: constant
+// gradients, one quadrature point (exact for ν constant per element, which
+// it is since B is).
+func (as *assembler) elementP1(t int, w *elemWork, wantK bool, reg int32, mat Material, jz float64, mg [2]float64) bool {
+	m := as.m
+	i0, i1, i2 := w.nodes[0], w.nodes[1], w.nodes[2]
+	x0, y0, x1, y1, x2, y2 := m.X[i0], m.Y[i0], m.X[i1], m.Y[i1], m.X[i2], m.Y[i2]
+	det := (x1-x0)*(y2-y0) - (x2-x0)*(y1-y0)
+	inv := 1 / det
+	// Curl vectors (∂N/∂y, −∂N/∂x).
+	c0x, c0y := (x2-x1)*inv, (y2-y1)*inv
+	c1x, c1y := (x0-x2)*inv, (y0-y2)*inv
+	c2x, c2y := (x1-x0)*inv, (y1-y0)*inv
+	bx := w.a[0]*c0x + w.a[1]*c1x + w.a[2]*c2x
+	by := w.a[0]*c0y + w.a[1]*c1y + w.a[2]*c2y
+	b2 := bx*bx + by*by
+	nu, dnu := mat.Nu(b2)
+	if !(nu > 0) || math.IsInf(nu, 0) || !finite(dnu) {
+		w.err = &MaterialError{Region: reg, B2: b2, Nu: nu, DNu: dnu}
+		return false
+	}
+	area := 0.5 * det
+	if as.source != nil {
+		jz += as.source((x0+x1+x2)/3, (y0+y1+y2)/3)
+	}
+	hx, hy := area*(nu*bx-mg[0]), area*(nu*by-mg[1])
+	f := jz * area / 3
+	w.re[0] = hx*c0x + hy*c0y - f
+	w.re[1] = hx*c1x + hy*c1y - f
+	w.re[2] = hx*c2x + hy*c2y - f
+	if !wantK {
+		return true
+	}
+	an := area * nu
+	k00 := an * (c0x*c0x + c0y*c0y)
+	k01 := an * (c0x*c1x + c0y*c1y)
+	k02 := an * (c0x*c2x + c0y*c2y)
+	k11 := an * (c1x*c1x + c1y*c1y)
+	k12 := an * (c1x*c2x + c1y*c2y)
+	k22 := an * (c2x*c2x + c2y*c2y)
+	if dnu != 0 {
+		g := 2 * dnu * area
+		p0, p1, p2 := bx*c0x+by*c0y, bx*c1x+by*c1y, bx*c2x+by*c2y
+		k00 += g * p0 * p0
+		k01 += g * p0 * p1
+		k02 += g * p0 * p2
+		k11 += g * p1 * p1
+		k12 += g * p1 * p2
+		k22 += g * p2 * p2
+	}
+	w.ke[0][0], w.ke[0][1], w.ke[0][2] = k00, k01, k02
+	w.ke[1][0], w.ke[1][1], w.ke[1][2] = k01, k11, k12
+	w.ke[2][0], w.ke[2][1], w.ke[2][2] = k02, k12, k22
+	return true
 }
