@@ -36,11 +36,11 @@ var curveTables = []curveData{
 	},
 	{
 		// Low-carbon steel, 1010 type (about 0.1 % C), hot-rolled or
-		// machined yoke stock: maximum relative permeability about 2700.
+		// machined yoke stock: maximum relative permeability about 3000.
 		// Source: from memory: typical values.
 		entry: Entry{
 			Name:        "low-carbon-steel",
-			Description: "low-carbon steel of the 1010 type (about 0.1 % C) as used for magnet yokes; mu_r max about 2700, J_sat about 2.11 T",
+			Description: "low-carbon steel of the 1010 type (about 0.1 % C) as used for magnet yokes; mu_r max about 3000, J_sat about 2.11 T",
 			Source:      fromMemory,
 			Kind:        KindNonlinear,
 		},
