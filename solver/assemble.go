@@ -33,6 +33,9 @@ type assembler struct {
 
 	// generic, when set (tests only), disables the closed-form P1 kernel.
 	generic bool
+	// secant makes the matrix K(ν) without the 2ν'(B·c_i)(B·c_j) term
+	// (fixed-point steps).
+	secant bool
 
 	// source, when set (tests only), adds a space-dependent current
 	// density J(x, y) to the region's.
@@ -183,6 +186,9 @@ func (as *assembler) element(t int, w *elemWork, wantK bool) bool {
 			continue
 		}
 		two := 2 * dnu
+		if as.secant {
+			two = 0
+		}
 		for i := 0; i < nn; i++ {
 			ci := w.c[i]
 			bci := bx*ci[0] + by*ci[1]
@@ -320,7 +326,7 @@ func (as *assembler) elementP1(t int, w *elemWork, wantK bool, reg int32, mat Ma
 	k11 := an * (c1x*c1x + c1y*c1y)
 	k12 := an * (c1x*c2x + c1y*c2y)
 	k22 := an * (c2x*c2x + c2y*c2y)
-	if dnu != 0 {
+	if dnu != 0 && !as.secant {
 		g := 2 * dnu * area
 		p0, p1, p2 := bx*c0x+by*c0y, bx*c1x+by*c1y, bx*c2x+by*c2y
 		k00 += g * p0 * p0

@@ -47,8 +47,12 @@
 //
 // Solve runs Newton-Raphson with the exact tangent
 // K_t = K(ν) + 2 ν'(|B|²) (B·c_i)(B·c_j) and a backtracking line search;
-// a linear problem converges in one step. Convergence means relative
-// residual <= Options.Tol and an estimated next update <= Options.UpdateTol.
+// a linear problem converges in one step. Where Newton stalls (no descent
+// along its direction, or a tangent that is not positive definite because
+// a material's derivative is wrong) one damped fixed-point step with the
+// secant matrix K(ν) is taken instead (Solution.FixedPointSteps counts
+// them). Convergence means relative residual <= Options.Tol and an
+// estimated next update <= Options.UpdateTol, never an iteration count.
 // The symbolic factorization is computed once and reused for every step.
 //
 // # What mutates, what panics

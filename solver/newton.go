@@ -94,8 +94,9 @@ func newton(as *assembler, opt Options, s *Solution) error {
 	s.Time.Analyze = time.Since(t0)
 
 	upd := math.Inf(1)
-	for it := 1; it <= opt.MaxIter; it++ {
-		t0 = time.Now()
+	// direction factors the matrix in hand and solves for the step du.
+	direction := func() error {
+		t0 := time.Now()
 		if err := lin.Factor(as.pat.k); err != nil {
 			return &LinearSolveError{Stage: "factor", Err: err}
 		}
@@ -107,17 +108,21 @@ func newton(as *assembler, opt Options, s *Solution) error {
 		lr, err := lin.SolveTo(du, R)
 		s.Time.Solve += time.Since(t0)
 		s.Linear = lr
-		if err != nil || lr.Status != sparse.Converged {
-			return &LinearSolveError{Stage: "solve", Result: lr, Err: err}
-		}
 		for i := range R {
 			R[i] = -R[i]
 		}
-		// Backtracking on ‖R‖.
+		if err != nil || lr.Status != sparse.Converged {
+			return &LinearSolveError{Stage: "solve", Result: lr, Err: err}
+		}
+		return nil
+	}
+	// search backtracks along du until ‖R‖ drops enough (trial, Rt hold
+	// the accepted point).
+	search := func() (bool, error) {
 		rn := res * ref
 		step := 1.0
-		accepted := false
-		t0 = time.Now()
+		t0 := time.Now()
+		defer func() { s.Time.Assemble += time.Since(t0) }()
 		for ls := 0; ls < 20; ls++ {
 			for i := 0; i < nn; i++ {
 				if c := d.dof[i]; c >= 0 {
@@ -130,18 +135,47 @@ func newton(as *assembler, opt Options, s *Solution) error {
 			if err == nil {
 				rt := norm2(Rt)
 				if rt <= (1-1e-4*step)*rn || rt/ref <= opt.Tol {
-					accepted = true
-					break
+					return true, nil
 				}
 			} else if _, ok := err.(*MaterialError); !ok {
-				return err
+				return false, err
 			}
 			step *= 0.5
 		}
-		s.Time.Assemble += time.Since(t0)
-		if !accepted {
-			return &NotConvergedError{Iterations: it, History: s.History, Residual: res, Update: upd,
-				Reason: "the line search found no step that lowers the residual"}
+		return false, nil
+	}
+	for it := 1; it <= opt.MaxIter; it++ {
+		ok := false
+		err := direction()
+		if err == nil {
+			if ok, err = search(); err != nil {
+				return err
+			}
+		}
+		if !ok {
+			// Newton stalled (no descent, or a tangent that is not
+			// positive definite): one damped fixed-point step with the
+			// secant matrix K(ν(A)), which is positive definite for any
+			// positive ν.
+			t0 := time.Now()
+			as.secant = true
+			aerr := as.assemble(A, R, true)
+			as.secant = false
+			s.Time.Assemble += time.Since(t0)
+			if aerr != nil {
+				return aerr
+			}
+			if derr := direction(); derr != nil {
+				return derr
+			}
+			if ok, err = search(); err != nil {
+				return err
+			}
+			if !ok {
+				return &NotConvergedError{Iterations: it, History: s.History, Residual: res, Update: upd,
+					Reason: "neither the Newton nor the fixed-point direction lowers the residual"}
+			}
+			s.FixedPointSteps++
 		}
 		copy(A, trial)
 		R, Rt = Rt, R

@@ -31,6 +31,9 @@ type Solution struct {
 	Converged bool
 	// Iterations is the number of Newton steps (1 for a linear problem).
 	Iterations int
+	// FixedPointSteps counts the damped fixed-point steps taken where
+	// Newton stalled (0 normally).
+	FixedPointSteps int
 	// Residual is the final relative residual ‖R(A)‖/‖R(A₀)‖.
 	Residual float64
 	// History is the relative residual before the first and after each step.
