@@ -3,6 +3,8 @@ package sparse_test
 import (
 	"fmt"
 	"math"
+	"sync"
+	"syscall"
 	"testing"
 	"time"
 
@@ -10,17 +12,168 @@ import (
 )
 
 // benchSizes are grid cell counts per side giving about 10k, 100k and 1M
-// unknowns after removing the boundary.
+// unknowns after removing the boundary (P1 on a jittered structured
+// triangulation of the unit square, see grid_test.go).
 var benchSizes = []int{101, 317, 1001}
 
+var (
+	benchMu   sync.Mutex
+	benchMats = map[int]*sparse.CSR{}
+)
+
+func benchMatrix(nx int) *sparse.CSR {
+	benchMu.Lock()
+	defer benchMu.Unlock()
+	if a, ok := benchMats[nx]; ok {
+		return a
+	}
+	a := gridSystem(nx, 0.3)
+	benchMats[nx] = a
+	return a
+}
+
+func benchRHS(n int) []float64 {
+	b := make([]float64, n)
+	for i := range b {
+		b[i] = math.Sin(float64(i)) + 0.5
+	}
+	return b
+}
+
+// cpuSeconds returns the process's user+system CPU time.
+func cpuSeconds() float64 {
+	var ru syscall.Rusage
+	syscall.Getrusage(syscall.RUSAGE_SELF, &ru)
+	return float64(ru.Utime.Sec+ru.Stime.Sec) + float64(ru.Utime.Usec+ru.Stime.Usec)*1e-6
+}
+
+func forSizes(b *testing.B, fn func(b *testing.B, a *sparse.CSR)) {
+	for _, nx := range benchSizes {
+		a := benchMatrix(nx)
+		b.Run(fmt.Sprintf("n=%d", a.N), func(b *testing.B) { fn(b, a) })
+	}
+}
+
+func BenchmarkOrder(b *testing.B) {
+	for _, o := range []sparse.Ordering{sparse.NestedDissection, sparse.AMD} {
+		b.Run(o.String(), func(b *testing.B) {
+			forSizes(b, func(b *testing.B, a *sparse.CSR) {
+				b.ReportAllocs()
+				for i := 0; i < b.N; i++ {
+					sparse.Order(a, o)
+				}
+			})
+		})
+	}
+}
+
+// BenchmarkAnalyze is ordering plus symbolic factorization.
+func BenchmarkAnalyze(b *testing.B) {
+	for _, o := range []sparse.Ordering{sparse.NestedDissection, sparse.AMD} {
+		b.Run(o.String(), func(b *testing.B) {
+			forSizes(b, func(b *testing.B, a *sparse.CSR) {
+				b.ReportAllocs()
+				ch := &sparse.Cholesky{Options: sparse.CholeskyOptions{Ordering: o}}
+				for i := 0; i < b.N; i++ {
+					ch.Analyze(a)
+				}
+				b.ReportMetric(float64(ch.NNZL()), "nnzL")
+			})
+		})
+	}
+}
+
+func BenchmarkFactor(b *testing.B) {
+	for _, o := range []sparse.Ordering{sparse.NestedDissection, sparse.AMD} {
+		b.Run(o.String(), func(b *testing.B) {
+			forSizes(b, func(b *testing.B, a *sparse.CSR) {
+				ch := &sparse.Cholesky{Options: sparse.CholeskyOptions{Ordering: o}}
+				ch.Analyze(a)
+				b.ReportAllocs()
+				b.ResetTimer()
+				c0 := cpuSeconds()
+				for i := 0; i < b.N; i++ {
+					if err := ch.Factor(a); err != nil {
+						b.Fatal(err)
+					}
+				}
+				b.ReportMetric(float64(ch.NNZL()), "nnzL")
+				b.ReportMetric(ch.Flops(), "madds")
+				b.ReportMetric(ch.Flops()*float64(b.N)/b.Elapsed().Seconds()/1e9, "Gmadd/s")
+				b.ReportMetric((cpuSeconds()-c0)/float64(b.N), "cpu-s/op")
+			})
+		})
+	}
+}
+
+func BenchmarkSolve(b *testing.B) {
+	forSizes(b, func(b *testing.B, a *sparse.CSR) {
+		ch := &sparse.Cholesky{}
+		ch.Analyze(a)
+		ch.Factor(a)
+		rhs := benchRHS(a.N)
+		x := make([]float64, a.N)
+		b.ReportAllocs()
+		b.ResetTimer()
+		for i := 0; i < b.N; i++ {
+			ch.SolveTo(x, rhs)
+		}
+	})
+}
+
+// BenchmarkLinearSolve is the whole linear solve for one matrix: Analyze,
+// Factor and SolveTo for Cholesky; Analyze, Factor (the preconditioner)
+// and SolveTo to 1e-10 for PCG.
+func BenchmarkLinearSolve(b *testing.B) {
+	kinds := []struct {
+		name string
+		new  func() sparse.Solver
+	}{
+		{"cholesky", func() sparse.Solver { return &sparse.Cholesky{} }},
+		{"pcg-ic0", func() sparse.Solver { return &sparse.PCG{} }},
+	}
+	for _, k := range kinds {
+		b.Run(k.name, func(b *testing.B) {
+			forSizes(b, func(b *testing.B, a *sparse.CSR) {
+				rhs := benchRHS(a.N)
+				x := make([]float64, a.N)
+				b.ReportAllocs()
+				b.ResetTimer()
+				c0 := cpuSeconds()
+				var res sparse.Result
+				for i := 0; i < b.N; i++ {
+					s := k.new()
+					s.Analyze(a)
+					if err := s.Factor(a); err != nil {
+						b.Fatal(err)
+					}
+					var err error
+					if res, err = s.SolveTo(x, rhs); err != nil {
+						b.Fatal(err)
+					}
+				}
+				b.ReportMetric(float64(res.Iterations), "iters")
+				b.ReportMetric(res.Residual, "relres")
+				b.ReportMetric((cpuSeconds()-c0)/float64(b.N), "cpu-s/op")
+			})
+		})
+	}
+}
+
+// TestTimingTable prints the phase timings behind the doc.go figures
+// (go test -run TimingTable -timing -v ./solver/sparse).
 func TestTimingTable(t *testing.T) {
-	if testing.Short() || !*timing {
+	if !*timing {
 		t.Skip("timing table only with -timing")
 	}
+	fmt.Printf("%-9s %-17s %11s %9s %9s %9s %9s %9s %9s %8s\n", "n", "method", "nnz(L)", "madds", "analyze", "factor", "solve", "total", "cpu", "iters")
 	for _, nx := range benchSizes {
-		a := gridSystem(nx, 0.3)
+		a := benchMatrix(nx)
+		rhs := benchRHS(a.N)
+		x := make([]float64, a.N)
 		for _, o := range []sparse.Ordering{sparse.NestedDissection, sparse.AMD} {
 			ch := &sparse.Cholesky{Options: sparse.CholeskyOptions{Ordering: o}}
+			c0 := cpuSeconds()
 			t0 := time.Now()
 			ch.Analyze(a)
 			t1 := time.Now()
@@ -28,14 +181,26 @@ func TestTimingTable(t *testing.T) {
 				t.Fatal(err)
 			}
 			t2 := time.Now()
-			b := make([]float64, a.N)
-			for i := range b {
-				b[i] = math.Sin(float64(i))
+			if _, err := ch.SolveTo(x, rhs); err != nil {
+				t.Fatal(err)
 			}
-			x := make([]float64, a.N)
-			res, _ := ch.SolveTo(x, b)
 			t3 := time.Now()
-			fmt.Printf("n=%8d %-18s nnzL=%10d flops=%.3g analyze=%v factor=%v solve=%v res=%.2g\n", a.N, o, ch.NNZL(), ch.Flops(), t1.Sub(t0), t2.Sub(t1), t3.Sub(t2), res.Residual)
+			fmt.Printf("%-9d %-17s %11d %9.3g %9.3f %9.3f %9.3f %9.3f %9.3f %8s\n", a.N, "cholesky/"+o.String(), ch.NNZL(), ch.Flops(),
+				t1.Sub(t0).Seconds(), t2.Sub(t1).Seconds(), t3.Sub(t2).Seconds(), t3.Sub(t0).Seconds(), cpuSeconds()-c0, "-")
 		}
+		p := &sparse.PCG{}
+		c0 := cpuSeconds()
+		t0 := time.Now()
+		p.Analyze(a)
+		t1 := time.Now()
+		p.Factor(a)
+		t2 := time.Now()
+		res, err := p.SolveTo(x, rhs)
+		if err != nil {
+			t.Fatal(err)
+		}
+		t3 := time.Now()
+		fmt.Printf("%-9d %-17s %11s %9s %9.3f %9.3f %9.3f %9.3f %9.3f %8d\n", a.N, "pcg/ic0", "-", "-",
+			t1.Sub(t0).Seconds(), t2.Sub(t1).Seconds(), t3.Sub(t2).Seconds(), t3.Sub(t0).Seconds(), cpuSeconds()-c0, res.Iterations)
 	}
 }

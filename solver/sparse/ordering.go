@@ -131,6 +131,10 @@ func newGraph(a *CSR) *graph {
 // orders the piece by reverse breadth-first search.
 const ndLeaf = 64
 
+// ndHintIters is the number of pseudo-peripheral iterations on a half,
+// whose start vertex is already far from the separator.
+var ndHintIters = 1
+
 // ndParallel is the subgraph size above which the two halves of a
 // dissection are ordered concurrently.
 const ndParallel = 50000
@@ -147,42 +151,50 @@ const ndParallel = 50000
 func nestedDissection(g *graph) []int32 {
 	n := g.n
 	perm := make([]int32, n)
-	part := make([]int32, n) // subgraph label of each vertex
 	verts := make([]int32, n)
 	for i := range verts {
 		verts[i] = int32(i)
 	}
-	nd := &ndState{g: g, perm: perm, part: part}
+	nd := &ndState{g: g, perm: perm, vx: make([]ndVertex, n)}
 	nd.nextID.Store(0)
 	ws := nd.newWork()
-	nd.dissect(verts, 0, n, nd.newID(verts), ws)
+	if n > 0 {
+		nd.dissect(verts, 0, 2, 0, n, nd.newID(verts), ws)
+	}
 	return perm
 }
 
 type ndState struct {
-	g      *graph
-	perm   []int32
-	part   []int32
-	nextID atomic.Int32
+	g        *graph
+	perm     []int32
+	vx       []ndVertex
+	nextID   atomic.Int32
+	nextMark atomic.Int32
 }
 
-// ndWork is per-goroutine scratch: BFS level of each vertex (valid only
-// for vertices stamped with the current visit mark) and a queue.
+// ndVertex keeps a vertex's search state in one place (one cache line
+// touched per visit): the label of the subgraph it belongs to (0 once
+// numbered), the mark of the last search that reached it, and its level in
+// that search. Concurrent dissections own disjoint vertex sets and draw
+// unique marks from nextMark.
+type ndVertex struct {
+	part, stamp, level int32
+}
+
+// ndWork is per-goroutine scratch: the current search mark and queue.
 type ndWork struct {
-	level []int32
-	stamp []int32
 	mark  int32
 	queue []int32
 }
 
 func (nd *ndState) newWork() *ndWork {
-	return &ndWork{level: make([]int32, nd.g.n), stamp: make([]int32, nd.g.n)}
+	return &ndWork{}
 }
 
 func (nd *ndState) newID(verts []int32) int32 {
 	id := nd.nextID.Add(1)
 	for _, v := range verts {
-		nd.part[v] = id
+		nd.vx[v].part = id
 	}
 	return id
 }
@@ -190,21 +202,21 @@ func (nd *ndState) newID(verts []int32) int32 {
 // bfs runs a breadth-first search inside subgraph id from root and returns
 // the visit order (in ws.queue) and the number of levels.
 func (nd *ndState) bfs(root, id int32, ws *ndWork) ([]int32, int) {
-	ws.mark++
+	ws.mark = nd.nextMark.Add(1)
 	g := nd.g
 	q := ws.queue[:0]
 	q = append(q, root)
-	ws.stamp[root] = ws.mark
-	ws.level[root] = 0
+	nd.vx[root].stamp = ws.mark
+	nd.vx[root].level = 0
 	depth := int32(0)
 	for h := 0; h < len(q); h++ {
 		v := q[h]
-		lv := ws.level[v]
+		lv := nd.vx[v].level
 		depth = lv
 		for _, u := range g.adj[g.ptr[v]:g.ptr[v+1]] {
-			if nd.part[u] == id && ws.stamp[u] != ws.mark {
-				ws.stamp[u] = ws.mark
-				ws.level[u] = lv + 1
+			if nd.vx[u].part == id && nd.vx[u].stamp != ws.mark {
+				nd.vx[u].stamp = ws.mark
+				nd.vx[u].level = lv + 1
 				q = append(q, u)
 			}
 		}
@@ -215,15 +227,15 @@ func (nd *ndState) bfs(root, id int32, ws *ndWork) ([]int32, int) {
 
 // pseudoPeripheral returns a vertex of large eccentricity in subgraph id
 // (George and Liu 1979 iteration, minimum-degree vertex of the last level).
-func (nd *ndState) pseudoPeripheral(start, id int32, ws *ndWork) int32 {
+func (nd *ndState) pseudoPeripheral(start int32, iters int, id int32, ws *ndWork) int32 {
 	g := nd.g
 	root := start
 	_, depth := nd.bfs(root, id, ws)
-	for it := 0; it < 2; it++ {
+	for it := 0; it < iters; it++ {
 		q := ws.queue
 		// Pick the minimum-degree vertex of the deepest level.
 		best, bestDeg := int32(-1), 1<<30
-		for k := len(q) - 1; k >= 0 && ws.level[q[k]] == int32(depth-1); k-- {
+		for k := len(q) - 1; k >= 0 && nd.vx[q[k]].level == int32(depth-1); k-- {
 			v := q[k]
 			if d := g.ptr[v+1] - g.ptr[v]; d < bestDeg {
 				best, bestDeg = v, d
@@ -239,30 +251,30 @@ func (nd *ndState) pseudoPeripheral(start, id int32, ws *ndWork) int32 {
 }
 
 // dissect orders verts (all labelled id) into perm[lo:hi].
-func (nd *ndState) dissect(verts []int32, lo, hi int, id int32, ws *ndWork) {
+func (nd *ndState) dissect(verts []int32, start int32, iters int, lo, hi int, id int32, ws *ndWork) {
 	for {
 		if len(verts) <= ndLeaf {
 			nd.leaf(verts, lo, id, ws)
 			return
 		}
-		nd.pseudoPeripheral(verts[0], id, ws)
+		nd.pseudoPeripheral(start, iters, id, ws)
 		q := ws.queue
 		if len(q) < len(verts) {
 			// Disconnected: split off the component of root; no separator.
 			comp := append([]int32(nil), q...)
 			rest := make([]int32, 0, len(verts)-len(comp))
 			for _, v := range verts {
-				if ws.stamp[v] != ws.mark {
+				if nd.vx[v].stamp != ws.mark {
 					rest = append(rest, v)
 				}
 			}
 			idA := nd.newID(comp)
 			idB := nd.newID(rest)
-			nd.dissect(comp, lo, lo+len(comp), idA, ws)
-			verts, lo, id = rest, lo+len(comp), idB
+			nd.dissect(comp, comp[0], ndHintIters, lo, lo+len(comp), idA, ws)
+			verts, start, iters, lo, id = rest, rest[0], 2, lo+len(comp), idB
 			continue
 		}
-		depth := int(ws.level[q[len(q)-1]]) + 1
+		depth := int(nd.vx[q[len(q)-1]].level) + 1
 		if depth < 3 {
 			nd.leaf(verts, lo, id, ws)
 			return
@@ -271,7 +283,7 @@ func (nd *ndState) dissect(verts []int32, lo, hi int, id int32, ws *ndWork) {
 		// while keeping the separator small.
 		cnt := make([]int, depth)
 		for _, v := range q {
-			cnt[ws.level[v]]++
+			cnt[nd.vx[v].level]++
 		}
 		best, bestScore := -1, 0.0
 		below := 0
@@ -312,7 +324,7 @@ func (nd *ndState) dissect(verts []int32, lo, hi int, id int32, ws *ndWork) {
 		b := make([]int32, 0, len(q)/2)
 		s := make([]int32, 0, cnt[best])
 		for _, v := range q {
-			lv := ws.level[v]
+			lv := nd.vx[v].level
 			switch {
 			case lv < m:
 				a = append(a, v)
@@ -322,7 +334,7 @@ func (nd *ndState) dissect(verts []int32, lo, hi int, id int32, ws *ndWork) {
 				// Keep only separator vertices touching the far side.
 				touch := false
 				for _, u := range g.adj[g.ptr[v]:g.ptr[v+1]] {
-					if nd.part[u] == id && ws.stamp[u] == ws.mark && ws.level[u] == m+1 {
+					if nd.vx[u].part == id && nd.vx[u].stamp == ws.mark && nd.vx[u].level == m+1 {
 						touch = true
 						break
 					}
@@ -334,11 +346,14 @@ func (nd *ndState) dissect(verts []int32, lo, hi int, id int32, ws *ndWork) {
 				}
 			}
 		}
+		// The root (level 0) lies in a and the last vertex reached in b:
+		// both are far from the separator, good starts for the halves.
+		aStart, bStart := q[0], q[len(q)-1]
 		// Separator last.
 		sLo := hi - len(s)
 		copy(nd.perm[sLo:hi], s)
 		for _, v := range s {
-			nd.part[v] = 0
+			nd.vx[v].part = 0
 		}
 		idA := nd.newID(a)
 		idB := nd.newID(b)
@@ -347,14 +362,14 @@ func (nd *ndState) dissect(verts []int32, lo, hi int, id int32, ws *ndWork) {
 			wg.Add(1)
 			go func() {
 				defer wg.Done()
-				nd.dissect(b, lo+len(a), sLo, idB, nd.newWork())
+				nd.dissect(b, bStart, ndHintIters, lo+len(a), sLo, idB, nd.newWork())
 			}()
-			nd.dissect(a, lo, lo+len(a), idA, ws)
+			nd.dissect(a, aStart, ndHintIters, lo, lo+len(a), idA, ws)
 			wg.Wait()
 			return
 		}
-		nd.dissect(a, lo, lo+len(a), idA, ws)
-		verts, lo, hi, id = b, lo+len(a), sLo, idB
+		nd.dissect(a, aStart, ndHintIters, lo, lo+len(a), idA, ws)
+		verts, start, iters, lo, hi, id = b, bStart, ndHintIters, lo+len(a), sLo, idB
 	}
 }
 
@@ -363,15 +378,14 @@ func (nd *ndState) dissect(verts []int32, lo, hi int, id int32, ws *ndWork) {
 // as nested-dissection codes commonly do at the bottom of the recursion.
 func (nd *ndState) leaf(verts []int32, lo int, id int32, ws *ndWork) {
 	g := nd.g
-	local := ws.level // reuse as global->local map for this subgraph
 	for k, v := range verts {
-		local[v] = int32(k)
+		nd.vx[v].level = int32(k) // global -> local index
 	}
 	sub := &graph{n: len(verts), ptr: make([]int, len(verts)+1)}
 	for k, v := range verts {
 		for _, u := range g.adj[g.ptr[v]:g.ptr[v+1]] {
-			if nd.part[u] == id {
-				sub.adj = append(sub.adj, local[u])
+			if nd.vx[u].part == id {
+				sub.adj = append(sub.adj, nd.vx[u].level)
 			}
 		}
 		sub.ptr[k+1] = len(sub.adj)
@@ -380,6 +394,6 @@ func (nd *ndState) leaf(verts []int32, lo int, id int32, ws *ndWork) {
 		nd.perm[lo+k] = verts[v]
 	}
 	for _, v := range verts {
-		nd.part[v] = 0
+		nd.vx[v].part = 0
 	}
 }
