@@ -46,6 +46,9 @@ type cdt struct {
 	segEnds  [][2]int32
 	segOf    map[edgeKey]int32
 	pieceSeg []int32 // input segment of each piece (-1 for hull edges)
+	// perm[p] is the input vertex stored as internal vertex p (p < number
+	// of input vertices, Hilbert order); inv is its inverse.
+	perm, inv []int32
 	// pinch holds the vertices where the domain touches itself (more than
 	// one fan of triangles), found after the exterior is removed.
 	pinch map[int32]bool

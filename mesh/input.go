@@ -43,8 +43,9 @@ type Options struct {
 	Order int
 	// Frozen lists segment markers whose segments refinement never splits:
 	// their vertices stay exactly the input vertices. Encroachment of a frozen
-	// segment is tolerated and the triangles next to it may stay below
-	// MinAngle (see CheckOptions.Frozen).
+	// segment is tolerated, and the triangles next to it may stay below
+	// MinAngle (see CheckOptions.Frozen) or above the size field when the
+	// frozen edges themselves are longer than it.
 	Frozen []int32
 }
 

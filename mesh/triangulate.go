@@ -74,7 +74,7 @@ func Triangulate(in *Input, opt Options) (*Mesh, error) {
 	if err := r.run(); err != nil {
 		return nil, err
 	}
-	m := d.export()
+	m := d.export(in)
 	if opt.Order == 2 {
 		Elevate(m)
 	}
@@ -83,7 +83,9 @@ func Triangulate(in *Input, opt Options) (*Mesh, error) {
 
 // buildCDT inserts the input vertices into a triangulation of an enclosing
 // box, then recovers the segments. vmap maps input vertices to triangulation
-// vertices (duplicates share one).
+// vertices (duplicates share one). Internally the input vertices are
+// numbered along the Hilbert curve, so that per-vertex arrays are read in
+// memory order; export restores the input order.
 func buildCDT(in *Input) (*cdt, []int32, error) {
 	n := len(in.X)
 	minX, maxX := slices.Min(in.X), slices.Max(in.X)
@@ -95,8 +97,11 @@ func buildCDT(in *Input) (*cdt, []int32, error) {
 	d := &cdt{seed: 2463534242}
 	d.x = make([]float64, 0, n+4)
 	d.y = make([]float64, 0, n+4)
-	for i := range in.X {
+	d.perm = hilbertOrder(in.X, in.Y, minX, minY, span)
+	d.inv = make([]int32, n)
+	for p, i := range d.perm {
 		d.addVertex(in.X[i], in.Y[i])
+		d.inv[i] = int32(p)
 	}
 	// Box corners, one span away: any enclosing box works because the
 	// predicates are exact, and the box triangles are removed later.
@@ -112,16 +117,15 @@ func buildCDT(in *Input) (*cdt, []int32, error) {
 
 	vmap := make([]int32, n)
 	t := t0
-	for _, i := range hilbertOrder(in.X, in.Y, minX, minY, span) {
-		x, y := in.X[i], in.Y[i]
-		tt, k, loc := d.locate(t, x, y)
+	for p, i := range d.perm {
+		tt, k, loc := d.locate(t, d.x[p], d.y[p])
 		if loc == locVertex {
 			vmap[i] = d.tri[3*tt+int32(k)]
 			t = tt
 			continue
 		}
-		vmap[i] = i
-		d.insertVertex(i, tt, k, loc)
+		vmap[i] = int32(p)
+		d.insertVertex(int32(p), tt, k, loc)
 		t = d.created[0]
 	}
 
@@ -147,9 +151,9 @@ func buildCDT(in *Input) (*cdt, []int32, error) {
 // counter-clockwise order, without collinear points.
 func (d *cdt) hull(vmap []int32) []int32 {
 	var pts []int32
-	for i, v := range vmap {
-		if int(v) == i {
-			pts = append(pts, v)
+	for p, i := range d.perm {
+		if int(vmap[i]) == p {
+			pts = append(pts, int32(p))
 		}
 	}
 	return convexHull(d.x, d.y, pts)
@@ -370,9 +374,11 @@ func (d *cdt) classify(in *Input, vmap []int32) {
 
 // export compacts the live triangles and used vertices into a Mesh, in
 // place: the working arrays become the Mesh's arrays (stamp and link serve
-// as the renumbering tables), so a large mesh is not copied.
-func (d *cdt) export() *Mesh {
+// as the renumbering tables), so a large mesh is not copied. Used input
+// vertices come first, in input order, then the vertices refinement made.
+func (d *cdt) export(in *Input) *Mesh {
 	nv := len(d.x)
+	nIn := len(d.perm)
 	vnew := d.link[:nv] // all -1 between insertions
 	ntAll := len(d.tri) / 3
 	tnew := d.stamp[:ntAll]
@@ -386,12 +392,26 @@ func (d *cdt) export() *Mesh {
 			tnew[t] = math.MaxUint32
 		}
 	}
+	// Internal vertex p < nIn holds input vertex perm[p]; inv is the inverse.
 	nUsed := int32(0)
-	for v := 0; v < nv; v++ {
+	for i := 0; i < nIn; i++ {
+		p := d.inv[i]
+		if vnew[p] == 0 {
+			vnew[p] = nUsed
+			nUsed++
+		}
+	}
+	nUsedIn := nUsed
+	for v := nIn; v < nv; v++ {
 		if vnew[v] == 0 {
 			vnew[v] = nUsed
-			d.x[nUsed], d.y[nUsed] = d.x[v], d.y[v]
+			d.x[nUsed], d.y[nUsed] = d.x[v], d.y[v] // nUsed <= v: in place
 			nUsed++
+		}
+	}
+	for i := 0; i < nIn; i++ {
+		if j := vnew[d.inv[i]]; j >= 0 && j < nUsedIn {
+			d.x[j], d.y[j] = in.X[i], in.Y[i]
 		}
 	}
 	for t := 0; t < ntAll; t++ {
