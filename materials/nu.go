@@ -152,7 +152,7 @@ func (c *Curve) build() (badKnot int, ok bool) {
 		}
 		return k, false
 	}
-	nb := 2 * cells
+	nb := 4 * cells
 	t.bscale = float64(nb) / t.xmax
 	t.bucket = make([]int32, nb+2)
 	j := 0
