@@ -228,14 +228,14 @@ func (as *assembler) assemble(A, r []float64, wantK bool) error {
 	}
 	errs := as.errs
 	if len(parts) == 1 {
-		errs[0] = as.assemblePart(&parts[0], A, r, wantK)
+		errs[0] = as.assemblePart(0, A, r, wantK)
 	} else {
 		var wg sync.WaitGroup
 		for w := range parts {
 			wg.Add(1)
 			go func(w int) {
 				defer wg.Done()
-				errs[w] = as.assemblePart(&parts[w], A, r, wantK)
+				errs[w] = as.assemblePart(w, A, r, wantK)
 			}(w)
 		}
 		wg.Wait()
@@ -253,8 +253,11 @@ func (as *assembler) assemble(A, r []float64, wantK bool) error {
 	return nil
 }
 
-func (as *assembler) assemblePart(pt *part, A, r []float64, wantK bool) error {
+func (as *assembler) assemblePart(wk int, A, r []float64, wantK bool) error {
 	var w elemWork
+	pt := &as.pat.parts[wk]
+	owner := as.pat.owner
+	single := len(as.pat.parts) == 1
 	nn := as.nn
 	val := as.pat.k.Val
 	pos := as.pat.pos
@@ -268,7 +271,7 @@ func (as *assembler) assemblePart(pt *part, A, r []float64, wantK bool) error {
 		base := t * nn * nn
 		for i := 0; i < nn; i++ {
 			ri := dof[w.nodes[i]]
-			if ri < pt.r0 || ri >= pt.r1 {
+			if ri < 0 || !single && int(owner[ri]) != wk {
 				continue
 			}
 			r[ri] += w.re[i]

@@ -91,6 +91,35 @@ func BenchmarkAssemble(b *testing.B) {
 	}
 }
 
+// BenchmarkAssembleWorkers compares one and two assembly workers (row
+// partition) on the 100k-node meshes.
+func BenchmarkAssembleWorkers(b *testing.B) {
+	for _, order := range []int{1, 2} {
+		for _, workers := range []int{1, 2} {
+			b.Run(fmt.Sprintf("P%d/100k/workers=%d", order, workers), func(b *testing.B) {
+				m := benchCCore(order, 1e5)
+				p := benchProblem(m)
+				d, err := buildDofMap(p)
+				if err != nil {
+					b.Fatal(err)
+				}
+				as := newAssembler(p, d, workers)
+				A := make([]float64, m.NumNodes())
+				r := make([]float64, d.n)
+				b.ReportAllocs()
+				b.ResetTimer()
+				c0 := cpuTime()
+				for i := 0; i < b.N; i++ {
+					if err := as.assemble(A, r, true); err != nil {
+						b.Fatal(err)
+					}
+				}
+				b.ReportMetric((cpuTime()-c0)/float64(b.N), "cpu-s/op")
+			})
+		}
+	}
+}
+
 func BenchmarkSolveLinear(b *testing.B) {
 	for _, order := range []int{1, 2} {
 		for _, sz := range benchSizes {

@@ -1,6 +1,7 @@
 package solver
 
 import (
+	"math"
 	"runtime"
 	"sort"
 
@@ -15,14 +16,15 @@ type pattern struct {
 	k   *sparse.CSR
 	nn  int     // nodes per element
 	pos []int32 // nn*nn per element: index into k.Val, or -1 for a fixed row or column
-	// parts split the rows among workers: worker w owns rows [r0, r1) and
-	// assembles the elements that touch them, scattering only into its rows.
+	// parts split the rows among workers: worker w owns the rows c with
+	// owner[c] == w and assembles the elements that touch them,
+	// scattering only into its rows.
 	parts []part
+	owner []uint8
 }
 
 type part struct {
-	r0, r1 int32
-	elems  []int32
+	elems []int32 // elements with at least one unknown owned by the worker
 }
 
 // buildPattern numbers the nonzeros of the reduced stiffness matrix.
@@ -111,34 +113,26 @@ func buildPattern(m *mesh.Mesh, d *dofMap, workers int) *pattern {
 	return p
 }
 
-// split divides the rows into contiguous ranges of about equal nonzero
-// count, one per worker, and lists the elements touching each range.
+// split gives each unknown an owning worker and lists the elements that
+// touch each worker's unknowns. Owners are slabs of equal unknown count
+// across the longer side of the mesh's bounding box, so that only the
+// elements along the slab borders are computed twice, whatever the node
+// numbering (second-order meshes number midside nodes after all corners;
+// refinement appends nodes anywhere). Each worker writes only rows it
+// owns, so no two write the same entry.
 func (p *pattern) split(m *mesh.Mesh, d *dofMap, workers int) {
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
 	}
-	n := p.k.N
-	nnz := p.k.NNZ()
-	if workers > 64 {
-		workers = 64
+	if workers > 255 {
+		workers = 255
 	}
-	if n < 2000 { // small systems: one worker (common practice threshold)
+	n := p.k.N
+	if n < 2000 { // small systems: one worker (thread start-up dominates)
 		workers = 1
 	}
 	p.parts = make([]part, workers)
-	r := 0
-	for w := 0; w < workers; w++ {
-		p.parts[w].r0 = int32(r)
-		target := (w + 1) * nnz / workers
-		for r < n && p.k.RowPtr[r] < target {
-			r++
-		}
-		if w == workers-1 {
-			r = n
-		}
-		p.parts[w].r1 = int32(r)
-	}
-	var nodes [MaxNodes]int32
+	p.owner = make([]uint8, n)
 	nt := m.NumTriangles()
 	if workers == 1 {
 		p.parts[0].elems = make([]int32, nt)
@@ -147,17 +141,60 @@ func (p *pattern) split(m *mesh.Mesh, d *dofMap, workers int) {
 		}
 		return
 	}
+	// Coordinate of each unknown along the longer axis.
+	x0, x1 := math.Inf(1), math.Inf(-1)
+	y0, y1 := math.Inf(1), math.Inf(-1)
+	for i := range m.X {
+		x0, x1 = math.Min(x0, m.X[i]), math.Max(x1, m.X[i])
+		y0, y1 = math.Min(y0, m.Y[i]), math.Max(y1, m.Y[i])
+	}
+	coord, lo, span := m.X, x0, x1-x0
+	if y1-y0 > span {
+		coord, lo, span = m.Y, y0, y1-y0
+	}
+	if !(span > 0) {
+		span = 1
+	}
+	const bins = 4096
+	bin := func(v float64) int {
+		b := int((v - lo) / span * bins)
+		return min(max(b, 0), bins-1)
+	}
+	var hist [bins + 1]int
+	dofBin := make([]int32, n)
+	for i := range dofBin {
+		dofBin[i] = -1
+	}
+	for i := range m.X {
+		if c := d.dof[i]; c >= 0 && dofBin[c] < 0 {
+			dofBin[c] = int32(bin(coord[i]))
+			hist[dofBin[c]+1]++
+		}
+	}
+	for b := 0; b < bins; b++ {
+		hist[b+1] += hist[b]
+	}
+	// Slab of each bin: equal counts of unknowns.
+	var slab [bins]uint8
+	for b := 0; b < bins; b++ {
+		w := hist[b] * workers / n
+		slab[b] = uint8(min(w, workers-1))
+	}
+	for c := range p.owner {
+		p.owner[c] = slab[dofBin[c]]
+	}
+	var nodes [MaxNodes]int32
 	for t := 0; t < nt; t++ {
 		k := elementNodes(m, t, &nodes)
-		var seen uint64
+		var seen [256 / 64]uint64
 		for _, v := range nodes[:k] {
 			c := d.dof[v]
 			if c < 0 {
 				continue
 			}
-			w := sort.Search(workers, func(w int) bool { return p.parts[w].r1 > c })
-			if seen&(1<<uint(w)) == 0 {
-				seen |= 1 << uint(w)
+			w := p.owner[c]
+			if seen[w/64]&(1<<(w%64)) == 0 {
+				seen[w/64] |= 1 << (w % 64)
 				p.parts[w].elems = append(p.parts[w].elems, int32(t))
 			}
 		}
