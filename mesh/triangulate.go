@@ -68,7 +68,7 @@ func Triangulate(in *Input, opt Options) (*Mesh, error) {
 	}
 	d.classify(in, vmap)
 	if d.numTri() == 0 {
-		return nil, &InputError{Reason: "no triangle inside the boundary (collinear or empty graph)", Vertex: -1}
+		return nil, &InputError{Reason: "no triangle inside the boundary: the outer segments do not close, or the vertices are collinear", Vertex: -1}
 	}
 	r := newRefiner(d, in, vmap, &opt, maxTri)
 	if err := r.run(); err != nil {

@@ -140,3 +140,13 @@ func TestTriangulateAllocations(t *testing.T) {
 		t.Errorf("%d triangles took %.0f allocations, want <= 400", nt, allocs)
 	}
 }
+
+// TestTriangulateOpenBoundary: an outer polyline that does not close leaves
+// no inside; that is an *InputError, not an empty mesh.
+func TestTriangulateOpenBoundary(t *testing.T) {
+	in := &Input{X: []float64{0, 1, 1, 0}, Y: []float64{0, 0, 1, 1}, Segments: []int32{0, 1, 1, 2, 2, 3}, Markers: []int32{1, 1, 1}}
+	var ie *InputError
+	if _, err := Triangulate(in, Options{}); !errors.As(err, &ie) {
+		t.Fatalf("open boundary: got %v, want *InputError", err)
+	}
+}
