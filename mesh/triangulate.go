@@ -70,6 +70,9 @@ func Triangulate(in *Input, opt Options) (*Mesh, error) {
 	if d.numTri() == 0 {
 		return nil, &InputError{Reason: "no triangle inside the boundary: the outer segments do not close, or the vertices are collinear", Vertex: -1}
 	}
+	if d.numTri() > maxTri {
+		return nil, &TooManyTrianglesError{Limit: maxTri, Triangles: d.numTri()}
+	}
 	r := newRefiner(d, in, vmap, &opt, maxTri)
 	if err := r.run(); err != nil {
 		return nil, err
