@@ -31,7 +31,7 @@ the quickest way to see that polegap works on a new machine.`,
 			if err != nil {
 				return err
 			}
-			if err := report.New(s).WriteText(env.Stdout); err != nil {
+			if err := report.New(s, report.DesignOptions{Incremental: true}).WriteText(env.Stdout); err != nil {
 				return err
 			}
 			if *png != "" {

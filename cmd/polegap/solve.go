@@ -2,6 +2,11 @@ package main
 
 import (
 	"flag"
+	"io"
+
+	"polegap/internal/fileout"
+	"polegap/models"
+	"polegap/post/export"
 
 	"polegap/post/report"
 	"polegap/post/study"
@@ -9,12 +14,19 @@ import (
 )
 
 var cmdSolve = &Command{
-	UsageLine: "solve [--json] [--png FILE] [--tol R] [--max-iterations N] MODEL",
+	UsageLine: "solve [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tol R] [--max-iterations N] MODEL",
 	Short:     "solve a model and print the field at its probes",
 	Long: `Solve meshes the model, solves for the magnetic vector potential (with
 Newton–Raphson when the iron is nonlinear) and prints a summary: the mesh
 size, how the solve converged, timings, the stored energy and the field at
-each probe. With --json it prints the same as JSON: "mesh" {nodes,
+each probe, and the design quantities: the gap field and the mean field
+across the pole face, the field uniformity (the half-width within 1e-3 and
+1e-4 along a mid-plane line probe, the deviation over a box probe), the
+fringing (factor, effective width w + 2kg, effective gap), each coil's
+flux linkage and apparent and incremental inductance, stored energy and
+co-energy, and the saturation of each iron region (mean |B|, the area
+above the knee of its curve, the largest |B| away from re-entrant
+corners, where the raw maximum is mesh-dependent). With --json it prints the same as JSON: "mesh" {nodes,
 triangles}, "newton" {iterations, residual, converged}, and "probes" keyed
 by name (point probes give a, bx, by and b in tesla).
 
@@ -25,6 +37,8 @@ with status 1; no result is reported for it.`,
 		tol := fs.Float64("tol", 1e-8, "relative residual at which Newton stops")
 		maxIter := fs.Int("max-iterations", 30, "limit on Newton steps")
 		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png or .svg file")
+		satLimit := fs.String("saturation-limit", "", "flag iron regions whose |B| away from corners exceeds this (e.g. 1.8T)")
+		vtu := fs.String("vtu", "", "write the solution (A, B, |B|, H, μr, region) to this VTK .vtu file")
 		return func(env *Env, args []string) error {
 			if err := oneModel(args); err != nil {
 				return err
@@ -36,11 +50,22 @@ with status 1; no result is reported for it.`,
 			if err != nil {
 				return err
 			}
+			dopt := report.DesignOptions{Incremental: true}
+			if *satLimit != "" {
+				if dopt.SaturationLimit, err = models.ParseQuantity(*satLimit, "field"); err != nil {
+					return usagef("--saturation-limit: %v", err)
+				}
+			}
 			s, err := study.Run(m, study.Options{Solver: solver.Options{Tol: *tol, MaxIter: *maxIter}})
 			if err != nil {
 				return err
 			}
-			r := report.New(s)
+			r := report.New(s, dopt)
+			if *vtu != "" {
+				if err := fileout.Write(*vtu, func(w io.Writer) error { return export.WriteVTU(w, s.Solution, export.Options{}) }); err != nil {
+					return err
+				}
+			}
 			if *png != "" {
 				if err := report.DrawField(s, *png); err != nil {
 					return err

@@ -21,7 +21,8 @@ type Report struct {
 	Time     Times            `json:"time_s"`
 	Energy   float64          `json:"energy_j"`
 	Probes   map[string]Probe `json:"probes"`
-	order    []string
+	*Design
+	order []string
 }
 
 // Mesh sizes the discretisation.
@@ -72,8 +73,9 @@ func ptr(v float64) *float64 { return &v }
 
 func seconds(d time.Duration) float64 { return d.Seconds() }
 
-// New builds the report of a solved study.
-func New(s *study.Study) *Report {
+// New builds the report of a solved study, with the design quantities
+// (see NewDesign).
+func New(s *study.Study, opt DesignOptions) *Report {
 	m, sol := s.Model, s.Solution
 	r := &Report{
 		Model:    m.Name,
@@ -94,6 +96,7 @@ func New(s *study.Study) *Report {
 		r.Probes[p.Name] = probe(p)
 		r.order = append(r.order, p.Name)
 	}
+	r.Design = NewDesign(s, opt)
 	return r
 }
 
@@ -145,6 +148,9 @@ func (r *Report) WriteText(w io.Writer) error {
 			continue
 		}
 		ew.printf("%-16s %-6s %10.5f %10.5f %10.5f %10.5f   (mean of %d samples)\n", n, p.Kind, *p.BMean, *p.ByMean, *p.BMin, *p.BMax, p.Samples-p.Outside)
+	}
+	if r.Design != nil {
+		r.Design.writeText(ew)
 	}
 	return ew.err
 }
