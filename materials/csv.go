@@ -20,8 +20,11 @@ const maxCSVLine = 1 << 16
 // semicolons, tabs or spaces) and may be quoted. The first remaining line is
 // a header naming the columns H and B, each optionally with its unit in
 // parentheses or brackets: "H (A/m),B (T)", "H [kA/m], B [mT]", "h,b".
-// Units: A/m or kA/m for H, T or mT for B; none means A/m and T. Other
-// columns are ignored. Each later line is one (H, B) point; the table rules
+// Instead of B, a column J gives the magnetic polarisation J = B - μ0 H
+// (as steel data sheets often do), and B = J + μ0 H is used. Units: A/m or
+// kA/m for H, T or mT for B and J; none means A/m and T. Other columns are
+// ignored. With whitespace as separator, a header field must not contain
+// spaces ("H(A/m) B(T)"). Each later line is one (H, B) point; the table rules
 // of NewCurve apply. Every error is a *CSVError naming the line and what to
 // do.
 func ReadCurveCSV(r io.Reader, name string) (*Curve, error) {
@@ -36,6 +39,7 @@ func ReadCurveCSV(r io.Reader, name string) (*Curve, error) {
 		colH, colB   = -1, -1
 		scaleH       = 1.0
 		scaleB       = 1.0
+		bLabel       = "B" // "J" for a polarisation column
 		hs, bs       []float64
 		lines        []int
 		ncolRequired int
@@ -68,15 +72,16 @@ func ReadCurveCSV(r io.Reader, name string) (*Curve, error) {
 						return nil, lineErr(line, ErrHeader, "unit %q of column H not understood; use A/m or kA/m", unit)
 					}
 					colH, scaleH = k, s
-				case "b":
+				case "b", "j":
+					label := strings.ToUpper(col)
 					if colB >= 0 {
-						return nil, lineErr(line, ErrHeader, "header names column B twice (columns %d and %d); keep one", colB+1, k+1)
+						return nil, lineErr(line, ErrHeader, "header names column %s after column %s (columns %d and %d); give one of B and J", label, bLabel, colB+1, k+1)
 					}
 					s, ok := unitScaleB(unit)
 					if !ok {
-						return nil, lineErr(line, ErrHeader, "unit %q of column B not understood; use T or mT", unit)
+						return nil, lineErr(line, ErrHeader, "unit %q of column %s not understood; use T or mT", unit, label)
 					}
-					colB, scaleB = k, s
+					colB, scaleB, bLabel = k, s, label
 				}
 			}
 			if colH < 0 || colB < 0 {
@@ -107,10 +112,15 @@ func ReadCurveCSV(r io.Reader, name string) (*Curve, error) {
 		}
 		bv, err := parseNumber(fields[colB])
 		if err != nil {
-			return nil, lineErr(line, ErrNumber, "column B: %q is not a number; write plain decimals such as 1.52", fields[colB])
+			return nil, lineErr(line, ErrNumber, "column %s: %q is not a number; write plain decimals such as 1.52", bLabel, fields[colB])
 		}
-		hs = append(hs, hv*scaleH)
-		bs = append(bs, bv*scaleB)
+		hv *= scaleH
+		bv *= scaleB
+		if bLabel == "J" {
+			bv += Mu0 * hv // B = J + μ0 H
+		}
+		hs = append(hs, hv)
+		bs = append(bs, bv)
 		lines = append(lines, line)
 	}
 	if err := sc.Err(); err != nil {

@@ -25,6 +25,7 @@ func TestReadCurveCSV(t *testing.T) {
 		{"quoted", "\"H (A/m)\",\"B (T)\"\n\"200\",\"1\"\n1000,1.5\n10000,1.8\n"},
 		{"semicolon", "H;B\n200;1\n1000;1.5\n10000;1.8\n"},
 		{"tabs", "H\tB\n200\t1\n1000\t1.5\n10000\t1.8\n"},
+		{"polarisation J", "H (A/m),J (T)\n200,0.9997486725877128\n1000,1.498743362938564\n10000,1.7874336293856408\n"},
 		{"CRLF and BOM", "\ufeffH,B\r\n200,1\r\n1000,1.5\r\n10000,1.8\r\n"},
 	}
 	for _, tc := range cases {
@@ -64,10 +65,11 @@ func TestReadCurveCSVErrors(t *testing.T) {
 		{"empty", "", ErrEmpty, "f.csv: no header and no data"},
 		{"comments only", "# nothing\n\n", ErrEmpty, "no header and no data"},
 		{"no header", "0,0\n100,1\n", ErrMissingColumn, "f.csv:1: no header row"},
-		{"no B column", "H (A/m),J (T)\n0,0\n", ErrMissingColumn, "f.csv:1: header has no column B"},
+		{"no B column", "H (A/m),M (A/m)\n0,0\n", ErrMissingColumn, "f.csv:1: header has no column B"},
 		{"no H column", "X,B\n0,0\n", ErrMissingColumn, "header has no column H;"},
 		{"no columns", "x,y\n", ErrMissingColumn, "no column H and B"},
 		{"duplicate", "H,B,H\n", ErrHeader, "names column H twice"},
+		{"B and J", "H,B,J (T)\n", ErrHeader, "column J after column B (columns 2 and 3); give one of B and J"},
 		{"bad unit H", "H (Oe),B (T)\n", ErrHeader, "unit \"Oe\" of column H"},
 		{"bad unit B", "H (A/m),B (G)\n", ErrHeader, "unit \"G\" of column B"},
 		{"bad number", "H,B\n0,0\n100,1.2x\n", ErrNumber, "f.csv:3: column B: \"1.2x\" is not a number"},
