@@ -55,3 +55,85 @@ func ExampleSolve() {
 	// Output:
 	// gap centre: Bx = 0.000 T, By = 0.628 T after 1 Newton step
 }
+
+// Integrate x²y over the reference triangle with the degree-3 rule: the
+// exact value is 2!·1!/5! = 1/60.
+func ExampleRuleOfDegree() {
+	r := solver.RuleOfDegree(3)
+	var sum float64
+	for q := range r.W {
+		x, y := r.Point(q)
+		sum += r.W[q] * x * x * y
+	}
+	sum *= 0.5 // area of the reference triangle
+	fmt.Printf("%d points: %.12f (1/60 = %.12f)\n", r.NumPoints(), sum, 1.0/60)
+	// Output:
+	// 4 points: 0.016666666667 (1/60 = 0.016666666667)
+}
+
+// The quadratic basis at the midpoint of the edge opposite corner 0 is
+// nodal: only the edge function 3 is one there.
+func ExampleP2_EvalTo() {
+	var val [6]float64
+	var grad [6][2]float64
+	solver.P2{}.EvalTo(val[:], grad[:], 0.5, 0.5)
+	for i := range val {
+		val[i] += 0 // print −0 as 0
+	}
+	fmt.Println(val)
+	// Output:
+	// [0 0 0 1 0 0]
+}
+
+// Stored energy per metre of a round conductor (radius a, current I) inside
+// a zero-potential circle of radius b: W = μ0 I²/(4π) (ln(b/a) + 1/4), the
+// coaxial line with a solid inner conductor (e.g. Griffiths, Introduction
+// to Electrodynamics, problem 7.27, plus the internal term μ0/(8π)).
+func ExampleSolution_Energy() {
+	const a, b, I = 0.01, 0.1, 100.0
+	circle := func(r float64, reg, marker int32) mesh.Polygon {
+		return mesh.Polygon{X: []float64{r, 0, -r, 0}, Y: []float64{0, r, 0, -r},
+			Sweep: []float64{math.Pi / 2, math.Pi / 2, math.Pi / 2, math.Pi / 2}, Region: reg, Marker: marker}
+	}
+	in, err := mesh.BuildInput([]mesh.Polygon{circle(a, 1, 2)}, circle(b, 0, 1),
+		mesh.GraphOptions{MaxArcAngle: 3 * math.Pi / 180, ChordTol: 1e-6})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	m, err := mesh.Triangulate(in, mesh.Options{Order: 2, Size: mesh.SizeField{
+		Points: []mesh.SizePoint{{X: 0, Y: 0, Size: a / 5}}, Grading: 0.2}})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	p := &solver.Problem{Mesh: m, Materials: []solver.Material{air{1}, air{1}},
+		CurrentDensity: []float64{0, I / (math.Pi * a * a)}}
+	s, err := solver.Solve(p, solver.Options{})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	want := 4e-7 * math.Pi * I * I / (4 * math.Pi) * (math.Log(b/a) + 0.25)
+	fmt.Printf("W = %.3g J/m (formula %.3g J/m)\n", s.Energy(), want)
+	// Output:
+	// W = 0.00255 J/m (formula 0.00255 J/m)
+}
+
+// The flux density at a point of the solution, found by point location.
+func ExampleSolution_At() {
+	// Planar unit square at A = 0 all round with a uniform current:
+	// the field circulates counter-clockwise about the centre.
+	rect := mesh.Polygon{X: []float64{0, 1, 1, 0}, Y: []float64{0, 0, 1, 1}, Region: 0}
+	in, _ := mesh.BuildInput(nil, rect, mesh.GraphOptions{})
+	m, _ := mesh.Triangulate(in, mesh.Options{Order: 2, Size: mesh.SizeField{Global: 0.05}})
+	p := &solver.Problem{Mesh: m, Materials: []solver.Material{air{1}}, CurrentDensity: []float64{1e6}}
+	s, _ := solver.Solve(p, solver.Options{})
+	_, bx, by, ok := s.At(0.75, 0.5) // right of the centre: B points up
+	fmt.Printf("ok=%v Bx≈0: %v By>0: %v\n", ok, math.Abs(bx) < 1e-3*math.Abs(by), by > 0)
+	_, _, _, ok = s.At(2, 2)
+	fmt.Println("outside:", ok)
+	// Output:
+	// ok=true Bx≈0: true By>0: true
+	// outside: false
+}
