@@ -6,6 +6,7 @@ import (
 	"math"
 
 	"polegap/models"
+	"polegap/post/circuit"
 	"polegap/post/probes"
 	"polegap/post/study"
 	"polegap/solver"
@@ -20,6 +21,9 @@ type Point struct {
 	Efficiency  float64 // B g / (μ0 NI) when the gap length is known, else 0
 	MaxIronB    float64 // T, largest element |B| in nonlinear iron (mesh-dependent at re-entrant corners)
 	Energy      float64 // J, stored magnetic energy (planar: times depth)
+	Linkage     float64 // Wb, flux linkage of the swept coil
+	Apparent    float64 // H, apparent inductance λ/I of the swept coil
+	Incremental float64 // H, dλ/dI from the neighbouring points (0 with fewer than 2 points)
 	Iterations  int     // Newton steps
 	Residual    float64 // final relative residual
 }
@@ -193,6 +197,15 @@ func (r *Runner) Solve(current float64, opt solver.Options) (Point, error) {
 	if m.Geometry == models.Planar {
 		p.Energy *= m.Depth
 	}
+	cs := circuit.CoilsOf(m)
+	lam, err := circuit.Linkage(sol, &cs[r.coil])
+	if err != nil {
+		return Point{}, err
+	}
+	p.Linkage = lam
+	if current != 0 {
+		p.Apparent = circuit.Apparent(lam, current)
+	}
 	return p, nil
 }
 
@@ -254,7 +267,24 @@ func Run(ctx context.Context, m *models.Model, opt Options) ([]Point, error) {
 			opt.Progress(n+1, len(idx), p)
 		}
 	}
+	Differentiate(pts)
 	return pts, nil
+}
+
+// Differentiate fills each point's incremental inductance dλ/dI from its
+// neighbours in list order (a sweep runs its currents in order): central differences inside, one-sided at
+// the ends (second-order accurate on even steps, first order at the ends).
+func Differentiate(pts []Point) {
+	n := len(pts)
+	if n < 2 {
+		return
+	}
+	for i := range pts {
+		a, b := max(i-1, 0), min(i+1, n-1)
+		if di := pts[b].Current - pts[a].Current; di != 0 {
+			pts[i].Incremental = (pts[b].Linkage - pts[a].Linkage) / di
+		}
+	}
 }
 
 const mu0 = 4e-7 * math.Pi

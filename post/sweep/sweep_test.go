@@ -66,6 +66,10 @@ func TestLinearIronScales(t *testing.T) {
 		if math.Abs(p.Field/math.Abs(p.AmpereTurns)-ref) > 1e-7*ref {
 			t.Errorf("I = %g A: B/NI = %.10g, want %.10g", p.Current, p.Field/math.Abs(p.AmpereTurns), ref)
 		}
+		// Linear: λ = L I with one L, so apparent = incremental.
+		if math.Abs(p.Incremental-pts[0].Apparent) > 1e-6*pts[0].Apparent || math.Abs(p.Apparent-pts[0].Apparent) > 1e-6*pts[0].Apparent {
+			t.Errorf("I = %g A: L apparent %g, incremental %g, want both %g", p.Current, p.Apparent, p.Incremental, pts[0].Apparent)
+		}
 	}
 }
 
@@ -120,6 +124,9 @@ func TestCSVRoundTripAndMerge(t *testing.T) {
 		t.Fatal(err)
 	}
 	if !reflect.DeepEqual(pa, pts) || ma.Shard != "1/2" {
+		t.Fatalf("round trip: %+v %+v", ma, pa)
+	}
+	if len(pa) == 0 {
 		t.Fatalf("round trip: %+v %+v", ma, pa)
 	}
 	mb, pb, _ := ReadCSV(&b, "b.csv")

@@ -13,7 +13,7 @@ import (
 
 // Columns is the header of an excitation-curve table, units in the names.
 var Columns = []string{"index", "current_A", "ampere_turns", "field_T", "efficiency",
-	"max_iron_B_T", "energy_J", "iterations", "residual"}
+	"max_iron_B_T", "energy_J", "flux_linkage_Wb", "L_apparent_H", "L_incremental_H", "iterations", "residual"}
 
 // Meta is the comment block at the top of a table.
 type Meta struct {
@@ -38,8 +38,8 @@ func WriteCSV(w io.Writer, meta Meta, pts []Point) error {
 	cw.Write(Columns)
 	for _, p := range pts {
 		row := []string{strconv.Itoa(p.Index), g(p.Current), g(p.AmpereTurns), g(p.Field), g(p.Efficiency),
-			g(p.MaxIronB), g(p.Energy), strconv.Itoa(p.Iterations), g(p.Residual)}
-		for _, v := range []float64{p.Current, p.AmpereTurns, p.Field, p.Efficiency, p.MaxIronB, p.Energy, p.Residual} {
+			g(p.MaxIronB), g(p.Energy), g(p.Linkage), g(p.Apparent), g(p.Incremental), strconv.Itoa(p.Iterations), g(p.Residual)}
+		for _, v := range []float64{p.Current, p.AmpereTurns, p.Field, p.Efficiency, p.MaxIronB, p.Energy, p.Linkage, p.Apparent, p.Incremental, p.Residual} {
 			if math.IsNaN(v) || math.IsInf(v, 0) {
 				return fmt.Errorf("sweep: point %d has a non-finite value", p.Index+1)
 			}
@@ -99,6 +99,9 @@ func ReadCSV(r io.Reader, name string) (Meta, []Point, error) {
 	}
 	var pts []Point
 	for i, row := range rows[1:] {
+		if len(row) != len(Columns) {
+			return meta, nil, fmt.Errorf("%s: data row %d has %d columns, want %d", name, i+1, len(row), len(Columns))
+		}
 		var p Point
 		var perr error
 		num := func(s string) float64 {
@@ -117,7 +120,8 @@ func ReadCSV(r io.Reader, name string) (Meta, []Point, error) {
 		}
 		p.Index = in(row[0])
 		p.Current, p.AmpereTurns, p.Field, p.Efficiency = num(row[1]), num(row[2]), num(row[3]), num(row[4])
-		p.MaxIronB, p.Energy, p.Iterations, p.Residual = num(row[5]), num(row[6]), in(row[7]), num(row[8])
+		p.MaxIronB, p.Energy, p.Linkage, p.Apparent = num(row[5]), num(row[6]), num(row[7]), num(row[8])
+		p.Incremental, p.Iterations, p.Residual = num(row[9]), in(row[10]), num(row[11])
 		if perr != nil {
 			return meta, nil, fmt.Errorf("%s: data row %d: %v", name, i+1, perr)
 		}
