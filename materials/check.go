@@ -12,7 +12,7 @@ import (
 // slope at its end points and at its interior stationary point of slope;
 // the ν table has ordered cells, positive ν, is C1 across cell boundaries,
 // gives increasing H = ν B inside every cell and matches the exact ν at cell
-// midpoints. Check costs O(cells) exact evaluations; tests and fuzz targets
+// midpoints; the energy table starts at 0 and rises. Check costs O(cells) exact evaluations; tests and fuzz targets
 // call it, the solver does not need to.
 func (c *Curve) Check() error {
 	n := len(c.h)
@@ -79,6 +79,14 @@ func (c *Curve) checkNuTable() error {
 	for k, j := range t.bucket {
 		if xk := float64(k) / t.bscale; xk < t.xmax && (t.x[j] > xk || t.x[j+1] <= xk) {
 			return fail("nu-table", "bucket %d points at cell %d [%g, %g) not holding %g", k, j, t.x[j], t.x[j+1], xk)
+		}
+	}
+	if len(t.w) != cells+1 || t.w[0] != 0 {
+		return fail("energy", "bad energy table layout")
+	}
+	for j := 0; j < cells; j++ {
+		if !(t.w[j+1] > t.w[j]) || math.IsInf(t.w[j+1], 0) {
+			return fail("energy", "energy %g at cell %d does not rise from %g", t.w[j+1], j+1, t.w[j])
 		}
 	}
 	for j := 0; j < cells; j++ {

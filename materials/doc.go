@@ -16,6 +16,12 @@
 // step, so it is allocation-free; for a Curve it costs a bucket look-up and
 // one cubic (see BenchmarkCurveNu).
 //
+// *Curve and Linear also give the energy density w = ∫ H dB and co-energy
+// density w' = B H - w in J/m³ as functions of b2 (the Energetic
+// interface), consistent with Nu: dw/db2 = ν/2 exactly, so a Newton line
+// search on the energy functional and virtual-work forces see the same
+// material as the residual.
+//
 // A Curve is built from a table of (H, B) points by NewCurve or
 // ReadCurveCSV. The table is validated (finite, non-negative, strictly
 // rising H and B, starting at or given the origin) and interpolated by

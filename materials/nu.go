@@ -40,6 +40,7 @@ type nuTable struct {
 	g0     float64 // dν/db2 at 0
 	tail   float64 // H_last - B_last/μ0 (negative for steels)
 	hl, bl float64 // last knot
+	w      []float64 // energy density at the cell boundaries, len cells+1 (see energy.go)
 }
 
 // Nu returns the reluctivity ν = H/B in m/H at b2 = |B|² in T², and its
@@ -64,6 +65,14 @@ func (c *Curve) Nu(b2 float64) (nu, dnudb2 float64) {
 		// 1/μ0 + tail/B would cancel when ν << 1/μ0.
 		return (t.hl + (b-t.bl)*(1/Mu0)) / b, -t.tail / (2 * b * b2)
 	}
+	j := t.cell(b2)
+	s := b2 - t.x[j]
+	p := &t.c[j]
+	return p[0] + s*(p[1]+s*(p[2]+s*p[3])), p[1] + s*(2*p[2]+3*s*p[3])
+}
+
+// cell returns the cell holding 0 < b2 < xmax.
+func (t *nuTable) cell(b2 float64) int {
 	k := int(b2 * t.bscale)
 	j, hi := int(t.bucket[k]), int(t.bucket[k+1])
 	for j < hi { // usually no iteration: binary search within the bucket
@@ -74,9 +83,7 @@ func (c *Curve) Nu(b2 float64) (nu, dnudb2 float64) {
 			hi = m - 1
 		}
 	}
-	s := b2 - t.x[j]
-	p := &t.c[j]
-	return p[0] + s*(p[1]+s*(p[2]+s*p[3])), p[1] + s*(2*p[2]+3*s*p[3])
+	return j
 }
 
 // exactNu returns ν and dν/db2 from the interpolant itself (not the table),
@@ -152,6 +159,7 @@ func (c *Curve) build() (badKnot int, ok bool) {
 		}
 		return k, false
 	}
+	t.setEnergy()
 	nb := 4 * cells
 	t.bscale = float64(nb) / t.xmax
 	t.bucket = make([]int32, nb+2)
