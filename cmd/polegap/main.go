@@ -95,6 +95,13 @@ func run(args []string, stdout, stderr io.Writer) int {
 	if err != nil {
 		var ue *usageError
 		var fe flagError
+		var xe exitError
+		if errors.As(err, &xe) {
+			if xe.err != nil {
+				fmt.Fprintf(stderr, "polegap %s: %v\n", name, xe.err)
+			}
+			return xe.code
+		}
 		switch {
 		case errors.As(err, &ue), errors.As(err, &fe):
 			fmt.Fprintf(stderr, "polegap %s: %v\nusage: polegap %s\nRun 'polegap help %s' for details.\n", name, err, c.UsageLine, name)
@@ -107,6 +114,19 @@ func run(args []string, stdout, stderr io.Writer) int {
 }
 
 type flagError struct{ error }
+
+// exitError ends a command with a given status; a nil err prints nothing.
+type exitError struct {
+	code int
+	err  error
+}
+
+func (e exitError) Error() string {
+	if e.err == nil {
+		return ""
+	}
+	return e.err.Error()
+}
 
 // parseInterspersed parses flags that may come before, between or after
 // the positional arguments ("polegap mesh model.yaml --out m.vtu").

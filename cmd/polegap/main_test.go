@@ -136,3 +136,17 @@ func TestSizeJSON(t *testing.T) {
 		t.Errorf("best winding gives %g ampere-turns, want %g", ni, r.AmpereTurns)
 	}
 }
+
+// TestCheckExitCodes: 0 when every check passes, 1 when one fails, 2 on
+// an error (issue: scripts rely on it).
+func TestCheckExitCodes(t *testing.T) {
+	if code, out, errs := runCmd(t, "check", "bench-dipole"); code != 0 || !strings.Contains(out, "all checks pass") {
+		t.Errorf("check bench-dipole: code %d\n%s%s", code, out, errs)
+	}
+	if code, out, _ := runCmd(t, "check", "--saturation-limit", "1.5T", "bench-dipole"); code != 1 || !strings.Contains(out, "FAIL") {
+		t.Errorf("check with a 1.5 T limit: code %d, want 1\n%s", code, out)
+	}
+	if code, _, _ := runCmd(t, "check", "no-such-model.yaml"); code != 2 {
+		t.Errorf("check of a missing model: code %d, want 2", code)
+	}
+}
