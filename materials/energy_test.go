@@ -41,7 +41,7 @@ func TestEnergyIntegral(t *testing.T) {
 }
 
 // TestEnergyDerivative: dw/db2 = ν/2 (dw = H dB = ν B dB), by central
-// differences with δ = 1e-6 b2, to 1e-7 relative (truncation δ²w'''/6 and
+// differences with δ = 1e-6 b2, to 1e-7 relative (truncation δ²w”'/6 and
 // round-off ε w/δ are both below 1e-9 of ν/2 here).
 func TestEnergyDerivative(t *testing.T) {
 	for name, c := range testCurves(t) {

@@ -35,11 +35,11 @@ type nuTable struct {
 	c      [][4]float64 // ν = c0 + t(c1 + t(c2 + t c3)), t = b2 - x[j]
 	bucket []int32      // bucket[k]: the cell holding b2 = k/bscale; len nb+2
 	bscale float64
-	xmax   float64 // B_last²
-	nu0    float64 // ν(0) = 1/initial slope
-	g0     float64 // dν/db2 at 0
-	tail   float64 // H_last - B_last/μ0 (negative for steels)
-	hl, bl float64 // last knot
+	xmax   float64   // B_last²
+	nu0    float64   // ν(0) = 1/initial slope
+	g0     float64   // dν/db2 at 0
+	tail   float64   // H_last - B_last/μ0 (negative for steels)
+	hl, bl float64   // last knot
 	w      []float64 // energy density at the cell boundaries, len cells+1 (see energy.go)
 }
 
