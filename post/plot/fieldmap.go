@@ -7,7 +7,6 @@ import (
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/palette"
-	"gonum.org/v1/plot/palette/moreland"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
@@ -107,9 +106,7 @@ func FieldMap(title string, x, y []float64, tri []int32, bmag []float64, potenti
 	if bmax == 0 {
 		bmax = 1
 	}
-	cm := moreland.SmoothBlueRed()
-	cm.SetMin(0)
-	cm.SetMax(bmax)
+	cm := NewFieldScale(0, bmax)
 	t := NewTriangles(xs, ys, tri)
 	t.Edge.Width = 0
 	t.Fill = make([]color.Color, len(bmag))
