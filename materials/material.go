@@ -117,3 +117,38 @@ func (m Magnet) Check() error {
 	}
 	return nil
 }
+
+// NuTo evaluates m.Nu at every b2[i], writing ν into nu[i] and dν/db2 into
+// dnu[i], and returns the two slices. A destination that is nil or too short
+// is replaced by a new slice of len(b2); otherwise it is resliced to
+// len(b2). *Curve and Linear take fast paths without an interface call per
+// point. NuTo allocates only when it grows a destination.
+func NuTo(nu, dnu []float64, m Material, b2 []float64) ([]float64, []float64) {
+	n := len(b2)
+	if cap(nu) < n {
+		nu = make([]float64, n)
+	}
+	if cap(dnu) < n {
+		dnu = make([]float64, n)
+	}
+	nu, dnu = nu[:n], dnu[:n]
+	switch m := m.(type) {
+	case *Curve:
+		for i, x := range b2 {
+			nu[i], dnu[i] = m.Nu(x)
+		}
+	case Linear:
+		v, _ := m.Nu(0)
+		for i, x := range b2 {
+			if x != x {
+				panic(errNaNArgument)
+			}
+			nu[i], dnu[i] = v, 0
+		}
+	default:
+		for i, x := range b2 {
+			nu[i], dnu[i] = m.Nu(x)
+		}
+	}
+	return nu, dnu
+}

@@ -160,3 +160,39 @@ func TestIrregularTable(t *testing.T) {
 		t.Fatalf("got %v, want ErrSlope at row 2", err)
 	}
 }
+
+// TestNuTo: the batch kernel equals point-wise Nu, grows nil destinations
+// and reuses long enough ones without allocating.
+func TestNuTo(t *testing.T) {
+	b2 := []float64{0, 0.25, 1, 2.25, 4, 9}
+	for _, e := range Library() {
+		m, _, _ := Lookup(e.Name)
+		nu, dnu := NuTo(nil, nil, m, b2)
+		for i, x := range b2 {
+			if v, g := m.Nu(x); nu[i] != v || dnu[i] != g {
+				t.Errorf("%s: NuTo[%d] = (%g, %g), Nu = (%g, %g)", e.Name, i, nu[i], dnu[i], v, g)
+			}
+		}
+		if a := testing.AllocsPerRun(20, func() { NuTo(nu, dnu, m, b2) }); a != 0 {
+			t.Errorf("%s: NuTo with room allocates %v times", e.Name, a)
+		}
+	}
+}
+
+// BenchmarkNuTo evaluates 4096 random b2 values per call through the batch
+// kernel (ns/op divided by 4096 gives the cost per element).
+func BenchmarkNuTo(b *testing.B) {
+	m, _, _ := Lookup("low-carbon-steel")
+	c := m.(*Curve)
+	rng := rand.New(rand.NewPCG(1, 1))
+	xs := make([]float64, 4096)
+	for i := range xs {
+		bv := 1.2 * c.bl * rng.Float64()
+		xs[i] = bv * bv
+	}
+	nu, dnu := NuTo(nil, nil, m, xs)
+	b.ReportAllocs()
+	for b.Loop() {
+		nu, dnu = NuTo(nu, dnu, m, xs)
+	}
+}
