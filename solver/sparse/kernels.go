@@ -26,11 +26,33 @@ func syrkLowerSub(d []float64, ldd int, x []float64, ldx, r, q, kk int) {
 			a0, a1, a2, a3 := x0[0], x1[0], x2[0], x3[0]
 			b0, b1, b2, b3 := x0[1], x1[1], x2[1], x3[1]
 			e0[0] -= a0*a0 + a1*a1 + a2*a2 + a3*a3
+			if useFMA && n > 1 {
+				co := [8]float64{a0, a1, a2, a3, b0, b1, b2, b3}
+				axpy2x4(&e0[1], &e1[1], &x0[1], &x1[1], &x2[1], &x3[1], n-1, &co)
+				continue
+			}
 			for i := 1; i < n; i++ {
 				v0, v1, v2, v3 := x0[i], x1[i], x2[i], x3[i]
 				e0[i] -= a0*v0 + a1*v1 + a2*v2 + a3*v3
 				e1[i] -= b0*v0 + b1*v1 + b2*v2 + b3*v3
 			}
+		}
+		if useFMA && kk-k >= 2 && n > 1 {
+			// Two or three columns left: run the vector kernel with the
+			// missing columns' coefficients set to zero.
+			var co [8]float64
+			var xs [4]*float64
+			for j := 0; j < 4; j++ {
+				xs[j] = &x[k*ldx+c+1]
+				if k+j < kk {
+					xj := x[(k+j)*ldx+c : (k+j)*ldx+r][:n]
+					co[j], co[4+j] = xj[0], xj[1]
+					e0[0] -= xj[0] * xj[0]
+					xs[j] = &xj[1]
+				}
+			}
+			axpy2x4(&e0[1], &e1[1], xs[0], xs[1], xs[2], xs[3], n-1, &co)
+			k = kk
 		}
 		for ; k < kk; k++ {
 			x0 := x[k*ldx+c : k*ldx+r][:n]
@@ -60,7 +82,7 @@ func syrkLowerSub(d []float64, ldd int, x []float64, ldx, r, q, kk int) {
 }
 
 // panelBlock is the panel width of the blocked dense Cholesky.
-const panelBlock = 48
+const panelBlock = 16
 
 // potrfTrapezoid factors in place the m×nc column-major trapezoid b (leading
 // dimension m) of one supernode: the top nc×nc block becomes its Cholesky

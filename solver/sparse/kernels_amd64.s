@@ -1,0 +1,97 @@
+//go:build amd64 && !purego
+
+#include "textflag.h"
+
+// func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
+TEXT ·cpuid(SB), NOSPLIT, $0-24
+	MOVL eaxArg+0(FP), AX
+	MOVL ecxArg+4(FP), CX
+	CPUID
+	MOVL AX, eax+8(FP)
+	MOVL BX, ebx+12(FP)
+	MOVL CX, ecx+16(FP)
+	MOVL DX, edx+20(FP)
+	RET
+
+// func xgetbv() (eax, edx uint32)
+TEXT ·xgetbv(SB), NOSPLIT, $0-8
+	MOVL $0, CX
+	XGETBV
+	MOVL AX, eax+0(FP)
+	MOVL DX, edx+4(FP)
+	RET
+
+// func axpy2x4(e0, e1, x0, x1, x2, x3 *float64, n int, a *[8]float64)
+//
+// For i in [0,n):
+//	e0[i] -= a[0]*x0[i] + a[1]*x1[i] + a[2]*x2[i] + a[3]*x3[i]
+//	e1[i] -= a[4]*x0[i] + a[5]*x1[i] + a[6]*x2[i] + a[7]*x3[i]
+// with fused multiply-adds, four rows per step.
+TEXT ·axpy2x4(SB), NOSPLIT, $0-64
+	MOVQ e0+0(FP), DI
+	MOVQ e1+8(FP), SI
+	MOVQ x0+16(FP), R8
+	MOVQ x1+24(FP), R9
+	MOVQ x2+32(FP), R10
+	MOVQ x3+40(FP), R11
+	MOVQ n+48(FP), CX
+	MOVQ a+56(FP), AX
+	VBROADCASTSD 0(AX), Y0
+	VBROADCASTSD 8(AX), Y1
+	VBROADCASTSD 16(AX), Y2
+	VBROADCASTSD 24(AX), Y3
+	VBROADCASTSD 32(AX), Y4
+	VBROADCASTSD 40(AX), Y5
+	VBROADCASTSD 48(AX), Y6
+	VBROADCASTSD 56(AX), Y7
+	XORQ BX, BX
+	MOVQ CX, DX
+	ANDQ $-4, DX
+
+loop4:
+	CMPQ BX, DX
+	JGE  tail
+	VMOVUPD (R8)(BX*8), Y8
+	VMOVUPD (R9)(BX*8), Y9
+	VMOVUPD (R10)(BX*8), Y10
+	VMOVUPD (R11)(BX*8), Y11
+	VMOVUPD (DI)(BX*8), Y12
+	VMOVUPD (SI)(BX*8), Y13
+	VFNMADD231PD Y8, Y0, Y12
+	VFNMADD231PD Y8, Y4, Y13
+	VFNMADD231PD Y9, Y1, Y12
+	VFNMADD231PD Y9, Y5, Y13
+	VFNMADD231PD Y10, Y2, Y12
+	VFNMADD231PD Y10, Y6, Y13
+	VFNMADD231PD Y11, Y3, Y12
+	VFNMADD231PD Y11, Y7, Y13
+	VMOVUPD Y12, (DI)(BX*8)
+	VMOVUPD Y13, (SI)(BX*8)
+	ADDQ $4, BX
+	JMP  loop4
+
+tail:
+	CMPQ BX, CX
+	JGE  done
+	VMOVSD (R8)(BX*8), X8
+	VMOVSD (R9)(BX*8), X9
+	VMOVSD (R10)(BX*8), X10
+	VMOVSD (R11)(BX*8), X11
+	VMOVSD (DI)(BX*8), X12
+	VMOVSD (SI)(BX*8), X13
+	VFNMADD231SD X8, X0, X12
+	VFNMADD231SD X8, X4, X13
+	VFNMADD231SD X9, X1, X12
+	VFNMADD231SD X9, X5, X13
+	VFNMADD231SD X10, X2, X12
+	VFNMADD231SD X10, X6, X13
+	VFNMADD231SD X11, X3, X12
+	VFNMADD231SD X11, X7, X13
+	VMOVSD X12, (DI)(BX*8)
+	VMOVSD X13, (SI)(BX*8)
+	INCQ BX
+	JMP  tail
+
+done:
+	VZEROUPPER
+	RET
