@@ -98,3 +98,54 @@ func ExampleMagnet() {
 	// Output:
 	// nu = 757881 m/H, Hc = (909, 0) kA/m
 }
+
+func ExampleLibrary() {
+	for _, e := range materials.Library() {
+		fmt.Printf("%-17s %s\n", e.Name, e.Kind)
+	}
+	// Output:
+	// pure-iron         nonlinear
+	// low-carbon-steel  nonlinear
+	// silicon-steel-no  nonlinear
+	// cobalt-iron       nonlinear
+	// cast-iron         nonlinear
+	// air               linear
+	// copper            linear
+	// linear-1000       linear
+	// magnet-ndfeb      magnet
+	// magnet-ferrite    magnet
+}
+
+// The zero Linear is vacuum; ν = 1/(μ0 μr) and the energy density is
+// B²/(2 μ0 μr): 397.9 kJ/m³ at 1 T in air.
+func ExampleLinear() {
+	for _, l := range []materials.Linear{{}, {MuR: 1000}} {
+		nu, _ := l.Nu(1)
+		fmt.Printf("mu_r %g: nu = %.1f m/H, w(1 T) = %.1f J/m³\n", l.MuR, nu, l.Energy(1))
+	}
+	// Output:
+	// mu_r 0: nu = 795774.7 m/H, w(1 T) = 397887.4 J/m³
+	// mu_r 1000: nu = 795.8 m/H, w(1 T) = 397.9 J/m³
+}
+
+// Energy and co-energy densities of the demo steel at 1.5 T; they add up
+// to B H = 1.5 T × 1000 A/m = 1500 J/m³. By hand, w' = ∫ B dH over the two
+// cubic pieces: 118.75 J/m³ (d0 h²/2 + c3 h⁴/4 on [0, 200]) plus 1063.1 J/m³
+// (w (B_a + B_b)/2 + w² (d_a - d_b)/12 on [200, 1000]).
+func ExampleCurve_Energy() {
+	c, _ := materials.NewCurve([]float64{0, 200, 1000, 10000}, []float64{0, 1.0, 1.5, 1.8})
+	w, wc := c.Energy(1.5*1.5), c.CoEnergy(1.5*1.5)
+	fmt.Printf("w = %.1f J/m³, w' = %.1f J/m³, sum = %.1f J/m³\n", w, wc, w+wc)
+	// Output:
+	// w = 318.1 J/m³, w' = 1181.9 J/m³, sum = 1500.0 J/m³
+}
+
+// The solver evaluates ν for all elements of a material at once.
+func ExampleNuTo() {
+	m, _, _ := materials.Lookup("linear-1000")
+	b2 := []float64{0, 1, 4}
+	nu, dnu := materials.NuTo(nil, nil, m, b2)
+	fmt.Printf("%.1f %v\n", nu, dnu)
+	// Output:
+	// [795.8 795.8 795.8] [0 0 0]
+}

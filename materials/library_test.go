@@ -111,3 +111,26 @@ func TestLibraryDescriptions(t *testing.T) {
 		}
 	}
 }
+
+// TestConcurrentUse: curves and the library are safe for concurrent use
+// (run with -race).
+func TestConcurrentUse(t *testing.T) {
+	done := make(chan float64)
+	for g := 0; g < 4; g++ {
+		go func() {
+			s := 0.0
+			for k := 0; k < 200; k++ {
+				m, _, _ := Lookup("cobalt-iron")
+				nu, _ := m.Nu(float64(k) * 0.03)
+				s += nu + m.(*Curve).H(1.5) + m.(*Curve).Energy(2)
+			}
+			done <- s
+		}()
+	}
+	first := <-done
+	for g := 1; g < 4; g++ {
+		if s := <-done; s != first {
+			t.Errorf("goroutine results differ: %g vs %g", s, first)
+		}
+	}
+}
