@@ -45,8 +45,21 @@ func benchTriangulate(b *testing.B, in *Input, opt Options) {
 }
 
 // BenchmarkCDT measures the constrained Delaunay triangulation of 100k
-// random points without refinement.
+// random points, and of 1,600 circles of 64 segments each (102,400
+// segments), without refinement.
 func BenchmarkCDT(b *testing.B) {
+	var polys [][]float64
+	polys = append(polys, boxPoly(-1, -1, 41, 41))
+	for i := 0; i < 40; i++ {
+		for j := 0; j < 40; j++ {
+			polys = append(polys, circlePoly(float64(i)+0.5, float64(j)+0.5, 0.4, 64))
+		}
+	}
+	b.Run("segments-102k", func(b *testing.B) { benchTriangulate(b, polyInput(polys...), Options{MinAngle: -1}) })
+	b.Run("points-100k", func(b *testing.B) { benchCDTPoints(b) })
+}
+
+func benchCDTPoints(b *testing.B) {
 	in := &Input{}
 	s := uint64(1)
 	for i := 0; i < 100_000; i++ {

@@ -6,8 +6,11 @@ package mesh
 // Floating-Point Arithmetic and Fast Robust Geometric Predicates", Discrete &
 // Computational Geometry 18 (1997) 305-363: a floating-point evaluation with a
 // forward error bound (the paper's ccwerrboundA and iccerrboundA) decides
-// almost every call; when the bound cannot certify the sign, the determinant
-// is evaluated exactly with floating-point expansions (Two-Sum, Two-Product,
+// almost every call; for InCircle the paper's intermediate stages B and C
+// (exact determinant of the rounded differences, then a first-order
+// correction for their rounding) settle most of the rest; when no bound can
+// certify the sign, the determinant is evaluated exactly with floating-point
+// expansions (Two-Sum, Two-Product,
 // Fast-Expansion-Sum, Scale-Expansion of the paper's section 2). The exact stage
 // represents every coordinate difference as a two-term expansion, so when the
 // differences are exact (the common case for nearly degenerate inputs) the
@@ -59,6 +62,11 @@ const (
 	ccwErrBoundA = (3 + 16*epsilon) * epsilon
 	// iccErrBoundA is the corresponding bound for incircle (section 4.3).
 	iccErrBoundA = (10 + 96*epsilon) * epsilon
+	// iccErrBoundB and iccErrBoundC bound stages B and C of incircleadapt,
+	// resultErrBound the rounding of an expansion's estimate (section 4.3).
+	iccErrBoundB   = (4 + 48*epsilon) * epsilon
+	iccErrBoundC   = (44 + 576*epsilon) * epsilon * epsilon
+	resultErrBound = (3 + 8*epsilon) * epsilon
 )
 
 // Orient2D reports the orientation of the triangle (a, b, c): CCW when c lies
@@ -124,7 +132,93 @@ func InCircle(ax, ay, bx, by, cx, cy, dx, dy float64) int {
 	if bound := iccErrBoundA * permanent; det > bound || -det > bound {
 		return int(sign(det))
 	}
+	return inCircleAdapt(ax, ay, bx, by, cx, cy, dx, dy, permanent)
+}
+
+// inCircleAdapt is Shewchuk's incircleadapt (1997, section 4.3): stage B
+// evaluates the determinant of the rounded differences exactly; stage C adds
+// the first-order effect of the differences' rounding errors under a
+// tighter bound; only then the fully exact evaluation runs. Near-cocircular
+// points from a discretised arc are typically settled by stage C.
+func inCircleAdapt(ax, ay, bx, by, cx, cy, dx, dy, permanent float64) int {
+	adx, ady := ax-dx, ay-dy
+	bdx, bdy := bx-dx, by-dy
+	cdx, cdy := cx-dx, cy-dy
+	// Stage B on fixed-size stack buffers: cross products have at most 4
+	// terms, lifted terms 32, the sum 96.
+	var bc, ca, ab [4]float64
+	var la, lb, lc [32]float64
+	var lab [64]float64
+	var finBuf [96]float64
+	fin := sumTo(finBuf[:0],
+		sumTo(lab[:0], liftedTo(la[:0], adx, ady, crossTo(bc[:0], bdx, cdy, cdx, bdy)),
+			liftedTo(lb[:0], bdx, bdy, crossTo(ca[:0], cdx, ady, adx, cdy))),
+		liftedTo(lc[:0], cdx, cdy, crossTo(ab[:0], adx, bdy, bdx, ady)))
+	det := estimate(fin)
+	if bound := iccErrBoundB * permanent; det >= bound || -det >= bound {
+		return int(sign(det))
+	}
+	adxt, adyt := diffTail(ax, dx, adx), diffTail(ay, dy, ady)
+	bdxt, bdyt := diffTail(bx, dx, bdx), diffTail(by, dy, bdy)
+	cdxt, cdyt := diffTail(cx, dx, cdx), diffTail(cy, dy, cdy)
+	if adxt == 0 && adyt == 0 && bdxt == 0 && bdyt == 0 && cdxt == 0 && cdyt == 0 {
+		return int(sign(fin[len(fin)-1])) // the differences were exact
+	}
+	bound := iccErrBoundC*permanent + resultErrBound*math.Abs(det)
+	det += ((adx*adx+ady*ady)*((bdx*cdyt+cdy*bdxt)-(bdy*cdxt+cdx*bdyt)) +
+		2*(adx*adxt+ady*adyt)*(bdx*cdy-bdy*cdx)) +
+		((bdx*bdx+bdy*bdy)*((cdx*adyt+ady*cdxt)-(cdy*adxt+adx*cdyt)) +
+			2*(bdx*bdxt+bdy*bdyt)*(cdx*ady-cdy*adx)) +
+		((cdx*cdx+cdy*cdy)*((adx*bdyt+bdy*adxt)-(ady*bdxt+bdx*adyt)) +
+			2*(cdx*cdxt+cdy*cdyt)*(adx*bdy-ady*bdx))
+	if det >= bound || -det >= bound {
+		return int(sign(det))
+	}
 	return inCircleExact(ax, ay, bx, by, cx, cy, dx, dy)
+}
+
+// crossTo writes p1*q1 - p2*q2 exactly into dst (capacity >= 4)
+// (Two-Product twice, then Two-Two-Diff as an expansion sum).
+func crossTo(dst []float64, p1, q1, p2, q2 float64) []float64 {
+	x1, y1 := twoProduct(p1, q1)
+	x2, y2 := twoProduct(p2, q2)
+	e := [2]float64{y1, x1}
+	f := [2]float64{-y2, -x2}
+	return sumTo(dst, zeroElim(e[:]), zeroElim(f[:]))
+}
+
+// zeroElim drops zero terms of a two-term expansion, keeping at least one.
+func zeroElim(e []float64) []float64 {
+	if e[0] == 0 {
+		return e[1:]
+	}
+	return e
+}
+
+// liftedTo writes (x^2 + y^2) * c exactly into dst (capacity >= 16 len(c)/2
+// ... at most 32 for a 4-term c).
+func liftedTo(dst []float64, x, y float64, c []float64) []float64 {
+	var t1, t2 [8]float64
+	var t3, t4 [16]float64
+	xx := scaleTo(t3[:0], scaleTo(t1[:0], c, x), x)
+	yy := scaleTo(t4[:0], scaleTo(t2[:0], c, y), y)
+	return sumTo(dst, xx, yy)
+}
+
+// diffTail returns the rounding error of x = fl(a-b): a-b = x + tail.
+func diffTail(a, b, x float64) float64 {
+	bv := a - x
+	av := x + bv
+	return (a - av) + (bv - b)
+}
+
+// estimate approximates the value of an expansion by summing its terms.
+func estimate(e []float64) float64 {
+	s := 0.0
+	for _, v := range e {
+		s += v
+	}
+	return s
 }
 
 // InCircleDet returns an approximation of the incircle determinant (positive
@@ -261,10 +355,13 @@ func (ar *arena) diff(a, b float64) []float64 {
 	return append(h, x)
 }
 
-// sum returns e+f (Shewchuk 1997, Fast-Expansion-Sum with zero
-// elimination, Theorem 13).
-func (ar *arena) sum(e, f []float64) []float64 {
-	h := ar.get(len(e) + len(f))
+// sum returns e+f in a new arena buffer.
+func (ar *arena) sum(e, f []float64) []float64 { return sumTo(ar.get(len(e)+len(f)), e, f) }
+
+// sumTo writes e+f into dst[:0], which needs capacity len(e)+len(f)
+// (Shewchuk 1997, Fast-Expansion-Sum with zero elimination, Theorem 13).
+func sumTo(h, e, f []float64) []float64 {
+	h = h[:0]
 	ei, fi := 0, 0
 	var q float64
 	if smaller(e[0], f[0]) {
@@ -321,10 +418,13 @@ func (ar *arena) sum(e, f []float64) []float64 {
 // ((f > e) == (f > -e)).
 func smaller(e, f float64) bool { return (f > e) == (f > -e) }
 
-// scale returns e*b (Shewchuk 1997, Scale-Expansion with zero elimination,
-// Theorem 19).
-func (ar *arena) scale(e []float64, b float64) []float64 {
-	h := ar.get(2 * len(e))
+// scale returns e*b in a new arena buffer.
+func (ar *arena) scale(e []float64, b float64) []float64 { return scaleTo(ar.get(2*len(e)), e, b) }
+
+// scaleTo writes e*b into dst[:0], which needs capacity 2 len(e)
+// (Shewchuk 1997, Scale-Expansion with zero elimination, Theorem 19).
+func scaleTo(h, e []float64, b float64) []float64 {
+	h = h[:0]
 	q, hh := twoProduct(e[0], b)
 	if hh != 0 {
 		h = append(h, hh)
