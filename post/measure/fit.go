@@ -85,7 +85,10 @@ func minFitPoints(mode FitMode) (n, distinct int) {
 //     exactly from the residuals: (r·z)²/(z·z) with z the part of x²
 //     orthogonal to the line's basis.
 //  2. Goodness of fit, only when SigmaY is stated: χ² = SSR/σ² on Dof
-//     degrees of freedom (Bevington and Robinson 2003, sec. 11.1).
+//     degrees of freedom (Bevington and Robinson 2003, sec. 11.1). When
+//     the line fails it and a quadratic fails it too, the readings scatter
+//     beyond their stated uncertainty and that is reported rather than
+//     curvature.
 //
 // sigmaY ≤ 0 means not stated. It returns a *ReadingsError for too few
 // readings and a *NotLineError for a rejected fit.
@@ -189,13 +192,17 @@ func fitLine(method string, x, y []float64, sigmaY float64, mode FitMode, alpha 
 			f.CurvatureP = distuv.F{D1: 1, D2: d2}.Survival(f.CurvatureStat)
 		}
 	}
-	if f.CurvatureP < alpha {
-		return f, &NotLineError{Method: method, Test: "curvature", Stat: f.CurvatureStat, P: f.CurvatureP, Alpha: alpha, Fit: f}
-	}
 	if f.Stated {
-		if p := (distuv.ChiSquared{K: float64(f.Dof)}).Survival(f.Chi2); p < alpha {
+		// Scatter beyond the stated sigma makes any added term look
+		// significant: report curvature only if the quadratic fits.
+		p := distuv.ChiSquared{K: float64(f.Dof)}.Survival(f.Chi2)
+		pq := distuv.ChiSquared{K: float64(f.Dof - 1)}.Survival((ssr - drop) / (sigmaY * sigmaY))
+		if p < alpha && pq < alpha {
 			return f, &NotLineError{Method: method, Test: "chi-squared", Stat: f.Chi2, P: p, Alpha: alpha, Fit: f}
 		}
+	}
+	if f.CurvatureP < alpha {
+		return f, &NotLineError{Method: method, Test: "curvature", Stat: f.CurvatureStat, P: f.CurvatureP, Alpha: alpha, Fit: f}
 	}
 	return f, nil
 }
