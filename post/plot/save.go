@@ -36,9 +36,22 @@ func Save(p *plot.Plot, width, height vg.Length, path string) error {
 // width by height overall, in the format named by path's extension.
 func SaveGrid(plots [][]*plot.Plot, width, height vg.Length, path string) error {
 	ext := strings.ToLower(strings.TrimPrefix(filepath.Ext(path), "."))
-	c, err := draw.NewFormattedCanvas(width, height, ext)
+	c, err := RenderGrid(plots, width, height, ext)
 	if err != nil {
 		return fmt.Errorf("plot %s: %w", path, err)
+	}
+	return fileout.Write(path, func(w io.Writer) error {
+		_, err := c.WriteTo(w)
+		return err
+	})
+}
+
+// RenderGrid draws plots arranged in rows and columns on a canvas of the
+// given format (png, svg, pdf), ready to be written out.
+func RenderGrid(plots [][]*plot.Plot, width, height vg.Length, format string) (vg.CanvasWriterTo, error) {
+	c, err := draw.NewFormattedCanvas(width, height, format)
+	if err != nil {
+		return nil, err
 	}
 	rows, cols := len(plots), 0
 	for _, r := range plots {
@@ -54,23 +67,33 @@ func SaveGrid(plots [][]*plot.Plot, width, height vg.Length, path string) error 
 			}
 		}
 	}
-	return fileout.Write(path, func(w io.Writer) error {
-		_, err := c.WriteTo(w)
-		return err
-	})
+	return c, nil
 }
 
 // SaveGridWidths writes plots side by side in one row, each given its
 // width in centimetres, height tall overall.
 func SaveGridWidths(plots []*plot.Plot, widths []float64, height vg.Length, path string) error {
 	ext := strings.ToLower(strings.TrimPrefix(filepath.Ext(path), "."))
+	c, err := RenderRow(plots, widths, height, ext)
+	if err != nil {
+		return fmt.Errorf("plot %s: %w", path, err)
+	}
+	return fileout.Write(path, func(w io.Writer) error {
+		_, err := c.WriteTo(w)
+		return err
+	})
+}
+
+// RenderRow draws plots side by side, each given its width in
+// centimetres, on a canvas of the given format.
+func RenderRow(plots []*plot.Plot, widths []float64, height vg.Length, format string) (vg.CanvasWriterTo, error) {
 	total := 0.0
 	for _, w := range widths {
 		total += w
 	}
-	c, err := draw.NewFormattedCanvas(vg.Length(total)*vg.Centimeter, height, ext)
+	c, err := draw.NewFormattedCanvas(vg.Length(total)*vg.Centimeter, height, format)
 	if err != nil {
-		return fmt.Errorf("plot %s: %w", path, err)
+		return nil, err
 	}
 	dc := draw.New(c)
 	x := vg.Length(0)
@@ -83,8 +106,5 @@ func SaveGridWidths(plots []*plot.Plot, widths []float64, height vg.Length, path
 		p.Draw(sub)
 		x += w
 	}
-	return fileout.Write(path, func(w io.Writer) error {
-		_, err := c.WriteTo(w)
-		return err
-	})
+	return c, nil
 }

@@ -1,7 +1,9 @@
 package report
 
 import (
+	"bytes"
 	"image/color"
+	"io"
 	"math"
 
 	gplot "gonum.org/v1/plot"
@@ -51,11 +53,34 @@ func FieldFigure(s *study.Study) (*gplot.Plot, *gplot.Plot) {
 
 // DrawField saves the field map of a study to path (.png, .svg, .pdf).
 func DrawField(s *study.Study, path string) error {
+	p, bar, h := fieldLayout(s)
+	return plot.SaveGridWidths([]*gplot.Plot{p, bar}, []float64{fieldWidth, 2.5}, h, path)
+}
+
+// FieldImage renders the field map in a format (png, svg).
+func FieldImage(s *study.Study, format string) ([]byte, error) {
+	p, bar, h := fieldLayout(s)
+	c, err := plot.RenderRow([]*gplot.Plot{p, bar}, []float64{fieldWidth, 2.5}, h, format)
+	if err != nil {
+		return nil, err
+	}
+	return bytesOf(c)
+}
+
+const fieldWidth = 18.0 // cm, the map; the bar takes 2.5 more
+
+func fieldLayout(s *study.Study) (*gplot.Plot, *gplot.Plot, vg.Length) {
 	p, bar := FieldFigure(s)
-	const width = 18.0 // cm, the map; the bar takes 2.5 more
 	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = zoom(s)
-	h := plot.EqualAspectHeight(p, cm(width))
-	return plot.SaveGridWidths([]*gplot.Plot{p, bar}, []float64{width, 2.5}, h, path)
+	return p, bar, plot.EqualAspectHeight(p, cm(fieldWidth))
+}
+
+func bytesOf(c io.WriterTo) ([]byte, error) {
+	var buf bytes.Buffer
+	if _, err := c.WriteTo(&buf); err != nil {
+		return nil, err
+	}
+	return buf.Bytes(), nil
 }
 
 // zoom returns the drawing window in millimetres: the model's extent with a

@@ -129,3 +129,22 @@ func Wires(name string, cooling coil.Cooling) ([]coil.Wire, error) {
 	}
 	return nil, fmt.Errorf("unknown wire table %q: use iec, awg, hollow or all", name)
 }
+
+// WriteSummary writes the sizing result in a few lines (no table) with
+// the cautions.
+func (s *Sizing) WriteSummary(w io.Writer) error {
+	ew := &errWriter{w: w}
+	ew.printf("target %.4g T at %s: %.0f ampere-turns per winding (%d in series), %d nonlinear solves, efficiency %.1f %%\n",
+		s.Target, s.Probe, s.AmpereTurns, s.Windings, s.Solves, 100*s.Efficiency)
+	if b := s.Best; b != nil {
+		ew.printf("coil (%s cooling): %s, %d turns at %.4g A (%.2f A/mm²), %.4g V, %.4g W, %.3g kg of copper per winding\n",
+			s.Spec.Cooling, b.Wire.Name, b.Turns, b.Current, b.CurrentDensity*1e-6, b.Voltage, b.Power, b.Mass)
+	} else {
+		ew.printf("no winding meets every limit: %s\n", s.NoneReason)
+	}
+	ew.printf("CAUTION\n")
+	for _, c := range s.Cautions {
+		ew.printf("  - %s\n", c)
+	}
+	return ew.err
+}
