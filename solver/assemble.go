@@ -344,3 +344,13 @@ func (as *assembler) elementP1(t int, w *elemWork, wantK bool, reg int32, mat Ma
 	w.ke[2][0], w.ke[2][1], w.ke[2][2] = k02, k12, k22
 	return true
 }
+
+// withProblem returns a shallow copy of the assembler that reads materials
+// and sources from p (same mesh, numbering and pattern).
+func (as *assembler) withProblem(p *Problem) *assembler {
+	c := *as
+	c.p = p
+	c.errs = nil
+	c.d.value = append([]float64(nil), as.d.value...)
+	return &c
+}

@@ -132,7 +132,7 @@ func solveWithSource(t *testing.T, p *Problem, src func(x, y float64) float64) *
 	as := newAssembler(p, d, opt.Workers)
 	as.source = src
 	s := &Solution{Problem: p, NumUnknowns: d.n, as: as}
-	if err := newton(as, opt, s); err != nil {
+	if err := newton(as, opt, s, opt.linearSolver(d.n), false); err != nil {
 		t.Fatal(err)
 	}
 	return s

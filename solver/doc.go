@@ -55,6 +55,12 @@
 // estimated next update <= Options.UpdateTol, never an iteration count.
 // The symbolic factorization is computed once and reused for every step.
 //
+// Prepare and Prepared.Solve split Solve in two for repeated solves on one
+// mesh (excitation sweeps, target searches): numbering, pattern and the
+// symbolic factorization are built once; currents, magnetisation,
+// materials and fixed potentials may change between solves; a Solution
+// keeps a snapshot of them.
+//
 // # What mutates, what panics
 //
 // Solve never modifies the Problem, the mesh or Options.Initial. Kernels

@@ -12,6 +12,7 @@ type dofMap struct {
 	dof   []int32   // per node: unknown index, or -1 if fixed
 	value []float64 // per node: fixed potential (meaningful when dof < 0)
 	n     int       // number of unknowns
+	root  []int32   // identification class of each node; nil without Identify
 }
 
 // find with path halving.
@@ -133,6 +134,12 @@ func buildDofMap(p *Problem) (dofMap, error) {
 			d.dof[i] = d.dof[r]
 		}
 	}
+	if len(p.Identify) > 0 {
+		d.root = make([]int32, nn)
+		for i := range d.root {
+			d.root[i] = find(parent, int32(i))
+		}
+	}
 	if err := d.checkPinned(p, parent); err != nil {
 		return dofMap{}, err
 	}
@@ -170,6 +177,29 @@ func (d *dofMap) checkPinned(p *Problem, parent []int32) error {
 	}
 	if count > 0 {
 		return &SingularError{Nodes: count, Example: example}
+	}
+	return nil
+}
+
+// setFixed sets the prescribed potential of a fixed node and of the nodes
+// identified with it (all nodes sharing its value).
+func (d *dofMap) setFixed(node int32, a float64) error {
+	old := d.value[node]
+	if old == a {
+		return nil
+	}
+	if d.dof[node] >= 0 {
+		return &ProblemError{Field: "Fixed", Reason: fmt.Sprintf("node %d is not fixed", node)}
+	}
+	d.value[node] = a
+	if d.root == nil {
+		return nil
+	}
+	r := d.root[node]
+	for i, ri := range d.root {
+		if ri == r {
+			d.value[i] = a
+		}
 	}
 	return nil
 }

@@ -8,11 +8,12 @@ import (
 
 // Panic messages for programmer misuse.
 const (
-	errNilMesh    = "solver: nil problem or mesh"
-	errInitialLen = "solver: Options.Initial length differs from the number of nodes"
-	errDstLen     = "solver: destination length differs from the required length"
-	errNoMaterial = "solver: region without a material"
-	errBadWorkers = "solver: negative worker count"
+	errNilMesh      = "solver: nil problem or mesh"
+	errInitialLen   = "solver: Options.Initial length differs from the number of nodes"
+	errDstLen       = "solver: destination length differs from the required length"
+	errNoMaterial   = "solver: region without a material"
+	errBadWorkers   = "solver: negative worker count"
+	errFixedChanged = "solver: the set of Fixed nodes changed after Prepare"
 )
 
 // ProblemError reports inconsistent problem data.

@@ -13,7 +13,10 @@ import (
 // Nonlinear Equations", 1983, sec. 6.3: Armijo condition with α = 1e-4).
 // Convergence: relative residual <= opt.Tol and the next update, estimated
 // with the last factorization, <= opt.UpdateTol relative to max |A|.
-func newton(as *assembler, opt Options, s *Solution) error {
+//
+// lin is the linear solver; Analyze is called on it unless analyzed is
+// true (a Prepared problem solved again on the same pattern).
+func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed bool) error {
 	d := &as.d
 	nn := as.m.NumNodes()
 	n := d.n
@@ -86,12 +89,13 @@ func newton(as *assembler, opt Options, s *Solution) error {
 	res := norm2(R) / ref
 	s.History = append(s.History, res)
 
-	lin := opt.linearSolver(n)
-	t0 = time.Now()
-	if err := lin.Analyze(as.pat.k); err != nil {
-		return &LinearSolveError{Stage: "analyze", Err: err}
+	if !analyzed {
+		t0 = time.Now()
+		if err := lin.Analyze(as.pat.k); err != nil {
+			return &LinearSolveError{Stage: "analyze", Err: err}
+		}
+		s.Time.Analyze = time.Since(t0)
 	}
-	s.Time.Analyze = time.Since(t0)
 
 	upd := math.Inf(1)
 	// direction factors the matrix in hand and solves for the step du.

@@ -1,6 +1,7 @@
 package solver
 
 import (
+	"fmt"
 	"sync"
 	"time"
 
@@ -57,23 +58,89 @@ type Solution struct {
 // *MaterialError, *LinearSolveError or *NotConvergedError) and no Solution.
 // It panics if p or p.Mesh is nil or opt.Initial has the wrong length.
 func Solve(p *Problem, opt Options) (*Solution, error) {
+	pr, err := Prepare(p, opt)
+	if err != nil {
+		return nil, err
+	}
+	return pr.Solve(opt)
+}
+
+// Prepared is a problem ready to be solved repeatedly: the unknown
+// numbering, the sparsity pattern with its element map and the linear
+// solver's symbolic analysis are computed once and reused by every Solve
+// (excitation sweeps, target searches). Between solves the caller may
+// change the values in the Problem's CurrentDensity, Magnetization,
+// PointCurrents currents, Fixed potentials and Materials, but not the
+// mesh, the boundary conditions, Identify, or which nodes are Fixed.
+// A Prepared is not safe for concurrent use.
+type Prepared struct {
+	p        *Problem
+	as       *assembler
+	lin      sparse.Solver
+	analyzed bool
+	fixed    []int32 // the Fixed nodes at Prepare time
+	setup    time.Duration
+}
+
+// Prepare validates p and builds what Solve reuses; see Prepared. Only
+// opt.Workers, opt.Method, opt.Solver and opt.LinearTol matter here.
+func Prepare(p *Problem, opt Options) (*Prepared, error) {
 	if err := p.validate(); err != nil {
 		return nil, err
 	}
 	opt = opt.withDefaults()
-	if opt.Initial != nil && len(opt.Initial) != p.Mesh.NumNodes() {
-		panic(errInitialLen)
-	}
 	start := time.Now()
 	d, err := buildDofMap(p)
 	if err != nil {
 		return nil, err
 	}
-	as := newAssembler(p, d, opt.Workers)
-	s := &Solution{Problem: p, NumUnknowns: d.n, as: as}
-	s.Time.Assemble = time.Since(start)
-	if err := newton(as, opt, s); err != nil {
+	pr := &Prepared{p: p, as: newAssembler(p, d, opt.Workers)}
+	pr.lin = opt.linearSolver(d.n)
+	for _, f := range p.Fixed {
+		pr.fixed = append(pr.fixed, f.Node)
+	}
+	pr.setup = time.Since(start)
+	return pr, nil
+}
+
+// Solve solves the prepared problem with the current values of its
+// Problem. The first call includes the setup time of Prepare in
+// Solution.Time.Assemble. It panics if opt.Initial has the wrong length
+// or the set of Fixed nodes changed since Prepare.
+func (pr *Prepared) Solve(opt Options) (*Solution, error) {
+	p := pr.p
+	opt = opt.withDefaults()
+	if opt.Initial != nil && len(opt.Initial) != p.Mesh.NumNodes() {
+		panic(errInitialLen)
+	}
+	if len(p.Fixed) != len(pr.fixed) {
+		panic(errFixedChanged)
+	}
+	for i, f := range p.Fixed {
+		if f.Node != pr.fixed[i] {
+			panic(errFixedChanged)
+		}
+		if !finite(f.A) {
+			return nil, &ProblemError{Field: "Fixed", Reason: fmt.Sprintf("entry %d: value %g", i, f.A)}
+		}
+		if err := pr.as.d.setFixed(f.Node, f.A); err != nil {
+			return nil, err
+		}
+	}
+	// A snapshot of the problem's slices, so that later edits by the
+	// caller do not change this solution's fields.
+	snap := *p
+	snap.Materials = append([]Material(nil), p.Materials...)
+	snap.CurrentDensity = append([]float64(nil), p.CurrentDensity...)
+	snap.Magnetization = append([][2]float64(nil), p.Magnetization...)
+	s := &Solution{Problem: &snap, NumUnknowns: pr.as.d.n, as: pr.as}
+	s.Time.Assemble = pr.setup
+	pr.setup = 0
+	if err := newton(pr.as, opt, s, pr.lin, pr.analyzed); err != nil {
 		return nil, err
 	}
+	pr.analyzed = true
+	// Fields evaluate materials through the solution's own snapshot.
+	s.as = pr.as.withProblem(&snap)
 	return s, nil
 }
