@@ -24,10 +24,10 @@ import "math"
 // that can hold b2, usually one; a binary search over that range finishes.
 
 const (
-	nuTol      = 1e-9 // relative value tolerance of the ν table
-	nuMaxDepth = 40   // bisections per knot interval
-	nuMinCells = 128  // cells at least over [0, B_last²] (caps cell width)
-	nuMaxCells = 1 << 18
+	nuTol      = 1e-9    // relative value tolerance of the ν table
+	nuMaxDepth = 40      // bisections per knot interval
+	nuMinCells = 128     // cells at least over [0, B_last²] (caps cell width)
+	nuMaxCells = 1 << 15 // the library curves need 1000-2000; wild random tables up to about 6000
 )
 
 type nuTable struct {
