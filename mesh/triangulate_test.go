@@ -94,8 +94,8 @@ func TestTriangulateRandomPoints(t *testing.T) {
 		m := mustMesh(t, "random", in, Options{MinAngle: -1}, CheckOptions{})
 		// Euler's formula V - E + F = 2 gives 2n-2-h triangles for n points
 		// with h hull vertices (de Berg et al., "Computational Geometry",
-		// 3rd ed. 2008, Theorem 9.1). Random points have no collinear hull
-		// points, so h counts the boundary edges.
+		// 3rd ed. 2008, Theorem 9.1; theorem number from memory). Random
+		// points have no collinear hull points, so h counts boundary edges.
 		h := 0
 		for i := range m.Nbr {
 			if m.Nbr[i] < 0 {
