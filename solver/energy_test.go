@@ -106,6 +106,12 @@ func TestZeroAndSingular(t *testing.T) {
 	if !errors.As(err, &me) {
 		t.Errorf("NaN material: got %v, want *MaterialError", err)
 	}
+	// A clockwise triangle is a problem error.
+	cw := rectMesh(2, 2, 0, 1, 0, 1, 1, nil)
+	cw.Tri[1], cw.Tri[2] = cw.Tri[2], cw.Tri[1]
+	if _, err := Solve(&Problem{Mesh: cw, Materials: []Material{linear{1}}}, Options{}); !errors.As(err, new(*ProblemError)) {
+		t.Errorf("clockwise triangle: got %v, want *ProblemError", err)
+	}
 	// A region without a material is a problem error.
 	p = &Problem{Mesh: m}
 	var pe *ProblemError

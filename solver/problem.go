@@ -136,6 +136,16 @@ func (p *Problem) validate() error {
 			return &ProblemError{Field: "Mesh.Mid", Reason: fmt.Sprintf("entry %d refers to node %d of %d", i, v, nn)}
 		}
 	}
+	if nt == 0 {
+		return &ProblemError{Field: "Mesh", Reason: "no triangles"}
+	}
+	for t := 0; t < nt; t++ {
+		i0, i1, i2 := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
+		det := (m.X[i1]-m.X[i0])*(m.Y[i2]-m.Y[i0]) - (m.X[i2]-m.X[i0])*(m.Y[i1]-m.Y[i0])
+		if !(det > 0) {
+			return &ProblemError{Field: "Mesh.Tri", Reason: fmt.Sprintf("triangle %d is not counter-clockwise or has zero area", t)}
+		}
+	}
 	for t, r := range m.Region {
 		if r < 0 || int(r) >= len(p.Materials) || p.Materials[r] == nil {
 			return &ProblemError{Field: "Materials", Reason: fmt.Sprintf("triangle %d has region %d without a material", t, r)}
