@@ -342,8 +342,8 @@ func (c *Curve) MuR(b float64) float64 {
 // standard lamination mixing rule). Flux across the laminations is not
 // modelled. Hermite interpolation is linear in its data, so the result is
 // exactly this mixture of the interpolant, with the same knots; its slope
-// past the last point is still μ0. A k outside (0, 1] gives an error
-// wrapping ErrStacking.
+// past the last point is still μ0. Stacked(1) returns c itself. A k outside
+// (0, 1] gives an error wrapping ErrStacking.
 func (c *Curve) Stacked(k float64) (*Curve, error) {
 	if !(k > 0 && k <= 1) {
 		return nil, fmt.Errorf("materials: stacking factor %g: %w; give the steel fraction of the stack, 0 < k <= 1 (varnished laminations are typically 0.95-0.98, from memory: typical values)", k, ErrStacking)

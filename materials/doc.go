@@ -14,7 +14,8 @@
 //
 // returning ν and dν/d(b2). The solver calls it once per element per Newton
 // step, so it is allocation-free; for a Curve it costs a bucket look-up and
-// one cubic (see BenchmarkCurveNu).
+// one cubic (see BenchmarkCurveNu). NuTo evaluates a whole slice of b2
+// into caller-owned slices.
 //
 // *Curve and Linear also give the energy density w = ∫ H dB and co-energy
 // density w' = B H - w in J/m³ as functions of b2 (the Energetic
@@ -42,13 +43,18 @@
 // # Immutability and concurrency
 //
 // A Curve is read-only after construction. All its methods are safe for
-// concurrent use; Stacked returns a new Curve. Linear and Magnet are small
-// value types.
+// concurrent use; Stacked returns a new Curve (or the curve itself for
+// k = 1). Curves from Lookup are built once and shared. Linear and Magnet
+// are small value types.
 //
 // # Failures
 //
 // No method returns NaN. Bad tables, CSV files and stacking factors give
 // errors (see errors.go) naming the offending row or line and what to do.
+// Besides the plausibility bounds, a table whose slope changes so abruptly
+// that ν cannot be tabulated with positive ν and rising H (in practice
+// only when the slope falls by about five orders of magnitude at one row)
+// is rejected with ErrSlope naming the row.
 // A NaN argument to a method is a programmer error and panics with a
 // "materials: ..." message; a negative b2 is treated as 0. Linear and
 // Magnet values with invalid fields panic in Nu: validate user input with
