@@ -8,17 +8,21 @@ import "math"
 //
 // Nu is on the solver's hot path, so ν(b2) is tabulated once, at
 // construction, as a C1 piecewise cubic Hermite function of b2 on
-// [0, B_last²]. The cells are refined adaptively until the cubic matches the
-// exact ν to nuTol = 1e-9 relative at three interior points; every table knot B_i²
-// is a cell boundary, so the cubic never straddles a kink of d²B/dH². Nu
-// returns the cubic and its own derivative, so the pair is exactly
-// consistent (Newton's Jacobian is exact for the ν the residual uses).
+// [0, B_last²]. The cells are refined adaptively until the cubic matches
+// the exact ν to nuTol = 1e-9 relative at three interior points; every
+// table knot B_i² is a cell boundary, so the cubic never straddles a kink
+// of d²B/dH². Nu returns the cubic and its own derivative, so the pair is
+// exactly consistent (Newton's Jacobian is exact for the ν the residual
+// uses). After the build every cell is sampled at nine points for ν > 0
+// and d(νB)/dB > 0; a table failing that, or needing more than nuMaxCells
+// cells or 40 bisections, is rejected (see irregular in curve.go).
 //
 // Near the origin the first piece is B = d0 H + c3 H³, whose inverse gives
 // ν = 1/(d0 + c3 H²), smooth in b2 with dν/db2(0) = -c3/d0⁴.
 //
-// Past the last knot H = H_l + (B - B_l)/μ0, so ν = 1/μ0 + (H_l - B_l/μ0)/B
-// and dν/db2 = -(H_l - B_l/μ0)/(2 B³), which join the table C1 at B_l.
+// Past the last knot H = H_l + (B - B_l)/μ0, so ν = (H_l + (B - B_l)/μ0)/B
+// = 1/μ0 + (H_l - B_l/μ0)/B and dν/db2 = -(H_l - B_l/μ0)/(2 B³), which join
+// the table C1 at B_l.
 //
 // Look-up: a uniform bucket array over [0, B_last²] gives the range of cells
 // that can hold b2, usually one; a binary search over that range finishes.
@@ -45,7 +49,8 @@ type nuTable struct {
 
 // Nu returns the reluctivity ν = H/B in m/H at b2 = |B|² in T², and its
 // derivative dν/db2 in m/(H·T²). ν is positive, C1 in b2 and tends to 1/μ0
-// as b2 grows; ν·B = H is strictly increasing in B. b2 = 0 gives the initial
+// as b2 grows; ν·B = H rises with B (checked at nine points per table cell
+// when the curve is built). b2 = 0 gives the initial
 // reluctivity and the finite limit of the derivative; a negative b2 counts
 // as 0; a NaN panics. Nu does not allocate.
 func (c *Curve) Nu(b2 float64) (nu, dnudb2 float64) {
