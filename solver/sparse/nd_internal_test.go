@@ -1,28 +1,8 @@
 package sparse
 
 import (
-	"fmt"
 	"testing"
-	"time"
 )
-
-func TestNDVariants(t *testing.T) {
-	if !testing.Verbose() || testing.Short() {
-		t.Skip()
-	}
-	for _, m := range []int{300, 1000} {
-		a := grid5(m)
-		for _, it := range []int{0, 1, 2} {
-			ndHintIters = it
-			c0 := time.Now()
-			p := Order(a, NestedDissection)
-			el := time.Since(c0)
-			s := analyze(a, p, 1)
-			fmt.Printf("m=%d iters=%d order=%v nnzL=%d flops=%.3g\n", m, it, el, s.nnzL, s.flops)
-		}
-	}
-	ndHintIters = 1
-}
 
 func BenchmarkOrderGrid5(b *testing.B) {
 	a := grid5(1000)

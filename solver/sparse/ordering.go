@@ -373,25 +373,36 @@ func (nd *ndState) dissect(verts []int32, start int32, iters int, lo, hi int, id
 	}
 }
 
-// leaf numbers a small subgraph by approximate minimum degree on the
-// subgraph alone (separator vertices around it are already numbered later),
-// as nested-dissection codes commonly do at the bottom of the recursion.
+// leaf numbers a small subgraph in reverse breadth-first order, which keeps
+// its profile small (the reverse Cuthill-McKee idea: A. George and J. W. H.
+// Liu 1981, chapter 4). Ordering leaves by minimum degree instead saved
+// about 6 % of nnz(L) and 1 % of the flops on the 1M grid but cost nearly
+// a second of analysis, so leaves stay cheap.
 func (nd *ndState) leaf(verts []int32, lo int, id int32, ws *ndWork) {
-	g := nd.g
-	for k, v := range verts {
-		nd.vx[v].level = int32(k) // global -> local index
-	}
-	sub := &graph{n: len(verts), ptr: make([]int, len(verts)+1)}
-	for k, v := range verts {
-		for _, u := range g.adj[g.ptr[v]:g.ptr[v+1]] {
-			if nd.vx[u].part == id {
-				sub.adj = append(sub.adj, nd.vx[u].level)
+	k := lo + len(verts)
+	ws.mark = nd.nextMark.Add(1)
+	mark := ws.mark
+	for _, s := range verts {
+		if nd.vx[s].stamp == mark {
+			continue
+		}
+		q := ws.queue[:0]
+		q = append(q, s)
+		nd.vx[s].stamp = mark
+		for h := 0; h < len(q); h++ {
+			v := q[h]
+			for _, u := range nd.g.adj[nd.g.ptr[v]:nd.g.ptr[v+1]] {
+				if x := &nd.vx[u]; x.part == id && x.stamp != mark {
+					x.stamp = mark
+					q = append(q, u)
+				}
 			}
 		}
-		sub.ptr[k+1] = len(sub.adj)
-	}
-	for k, v := range amdOrder(sub) {
-		nd.perm[lo+k] = verts[v]
+		for _, v := range q {
+			k--
+			nd.perm[k] = v
+		}
+		ws.queue = q
 	}
 	for _, v := range verts {
 		nd.vx[v].part = 0

@@ -1,55 +1,8 @@
 package sparse
 
 import (
-	"fmt"
 	"testing"
 )
-
-func TestScheduleInfo(t *testing.T) {
-	if testing.Short() || !testing.Verbose() {
-		t.Skip()
-	}
-	for _, nx := range []int{101, 317} {
-		// 5-point grid: interior nodes of an nx×nx cell grid.
-		m := nx - 1
-		tr := NewTriplet(m*m, 5*m*m)
-		for j := 0; j < m; j++ {
-			for i := 0; i < m; i++ {
-				k := j*m + i
-				tr.Add(k, k, 4)
-				if i > 0 {
-					tr.Add(k, k-1, -1)
-				}
-				if i < m-1 {
-					tr.Add(k, k+1, -1)
-				}
-				if j > 0 {
-					tr.Add(k, k-m, -1)
-				}
-				if j < m-1 {
-					tr.Add(k, k+m, -1)
-				}
-			}
-		}
-		a := tr.ToCSR()
-		s := analyze(a, Order(a, DefaultOrdering), 2)
-		topw := 0.0
-		for _, t := range s.top {
-			topw += s.work[t]
-		}
-		loads := []float64{}
-		for _, b := range s.tasks {
-			l := 0.0
-			for _, r := range b {
-				for t := s.first[r]; t <= r; t++ {
-					l += s.work[t]
-				}
-			}
-			loads = append(loads, l)
-		}
-		fmt.Printf("n=%d ns=%d flops=%.3g top=%.3g (%d supernodes) loads=%.3g\n", a.N, s.ns, s.flops, topw, len(s.top), loads)
-	}
-}
 
 func grid5(m int) *CSR {
 	tr := NewTriplet(m*m, 5*m*m)
@@ -101,6 +54,35 @@ func TestParallelTopSplit(t *testing.T) {
 		for k := range ser.lx {
 			if d := ser.lx[k] - par.lx[k]; d > 1e-12 || d < -1e-12 {
 				t.Fatalf("m=%d: factor entry %d: serial %v parallel %v", m, k, ser.lx[k], par.lx[k])
+			}
+		}
+	}
+}
+
+// TestColCountsGNP compares the nearly-linear column counts with the
+// direct row-subtree walk on grids, random matrices and a disconnected
+// matrix.
+func TestColCountsGNP(t *testing.T) {
+	mats := []*CSR{grid5(1), grid5(7), grid5(40)}
+	tr := NewTriplet(300, 0)
+	for i := 0; i < 300; i++ {
+		tr.Add(i, i, 1)
+		j := (i * 7919) % 300
+		if j != i && i%5 != 0 {
+			tr.Add(i, j, 1)
+			tr.Add(j, i, 1)
+		}
+	}
+	mats = append(mats, tr.ToCSR())
+	for k, a := range mats {
+		for _, o := range []Ordering{Natural, NestedDissection, AMD} {
+			s := analyze(a, Order(a, o), 1)
+			want := s.colCountsNaive(a)
+			got := s.colCountsGNP(a)
+			for j := range want {
+				if got[j] != want[j] {
+					t.Fatalf("matrix %d %v: count of column %d = %d, want %d", k, o, j, got[j], want[j])
+				}
 			}
 		}
 	}
