@@ -83,11 +83,13 @@ type solenoidDoc struct {
 }
 
 type calibrationDoc struct {
-	Solenoid     *solenoidDoc `yaml:"solenoid"`
-	Gain         float64      `yaml:"gain"`
-	GainSigma    float64      `yaml:"gain-sigma"`
-	ReadingSigma float64      `yaml:"reading-sigma"`
-	Readings     [][]float64  `yaml:"readings"`
+	Solenoid               *solenoidDoc `yaml:"solenoid"`
+	FieldPerAmpere         float64      `yaml:"field-per-ampere"`
+	FieldPerAmpereRelSigma float64      `yaml:"field-per-ampere-rel-sigma"`
+	Gain                   float64      `yaml:"gain"`
+	GainSigma              float64      `yaml:"gain-sigma"`
+	ReadingSigma           float64      `yaml:"reading-sigma"`
+	Readings               [][]float64  `yaml:"readings"`
 }
 
 type readingDoc struct {
@@ -447,14 +449,19 @@ func (p *parser) search(d *fileDoc, c *Curve) (func(int, *readingDoc) (Point, er
 	where, wpath := "coil", []any{"coil"}
 	if cal := d.Calibration; cal != nil {
 		where, wpath = "calibration", []any{"calibration"}
-		if cal.Solenoid == nil {
-			return nil, p.errAt(nil, "calibration", wpath, "calibration needs a solenoid section (turns, length, radius)")
+		switch {
+		case cal.Solenoid == nil && cal.FieldPerAmpere == 0:
+			return nil, p.errAt(nil, "calibration", wpath, "calibration needs a solenoid section (turns, length, radius) or field-per-ampere")
+		case cal.Solenoid != nil && cal.FieldPerAmpere != 0:
+			return nil, p.errAt(nil, "calibration", wpath, "calibration gives both a solenoid and field-per-ampere; keep one")
 		}
-		s := cal.Solenoid
 		sc.Calibration = &Calibration{
-			Solenoid: Solenoid{Turns: s.Turns, TurnsSigma: s.TurnsSigma, Length: s.Length, LengthSigma: s.LengthSigma,
-				Radius: s.Radius, RadiusSigma: s.RadiusSigma, CurrentRelSigma: s.CurrentScaleSigma},
+			FieldPerAmpere: cal.FieldPerAmpere, FieldPerAmpereRelSigma: cal.FieldPerAmpereRelSigma,
 			ReadingSigma: cal.ReadingSigma, Gain: cal.Gain, GainSigma: cal.GainSigma,
+		}
+		if s := cal.Solenoid; s != nil {
+			sc.Calibration.Solenoid = Solenoid{Turns: s.Turns, TurnsSigma: s.TurnsSigma, Length: s.Length, LengthSigma: s.LengthSigma,
+				Radius: s.Radius, RadiusSigma: s.RadiusSigma, CurrentRelSigma: s.CurrentScaleSigma}
 		}
 		for j, pair := range cal.Readings {
 			if len(pair) != 2 {

@@ -52,6 +52,11 @@ type Calibration struct {
 	// ReadingSigma is the standard uncertainty of one reading (V or V·s);
 	// zero estimates it from the scatter about the fitted line.
 	ReadingSigma float64
+	// FieldPerAmpere, when > 0, is the solenoid's centre field per ampere
+	// (T/A) found some other way, e.g. from an axisymmetric solve of the
+	// solenoid, with its relative standard uncertainty; it replaces the
+	// finite-solenoid formula and Solenoid is then not used.
+	FieldPerAmpere, FieldPerAmpereRelSigma float64
 	// Gain is the amplifier gain during calibration when it differs from
 	// the gap readings' gain (zero: the same setting, so it cancels from
 	// the field together with the time constant), with its uncertainty.
@@ -137,6 +142,12 @@ func (c SearchCoil) validate() error {
 		!(cal.GainSigma >= 0) || math.IsInf(cal.GainSigma, 0) {
 		return &ReadingsError{Method: "calibration", Index: -1, Msg: "reading uncertainty, gain and gain uncertainty must be finite and >= 0"}
 	}
+	if cal.FieldPerAmpere != 0 || cal.FieldPerAmpereRelSigma != 0 {
+		if !(cal.FieldPerAmpere > 0) || math.IsInf(cal.FieldPerAmpere, 0) || !(cal.FieldPerAmpereRelSigma >= 0) || math.IsInf(cal.FieldPerAmpereRelSigma, 0) {
+			return &ReadingsError{Method: "calibration", Index: -1, Msg: fmt.Sprintf("field per ampere %g T/A must be finite and > 0, its relative uncertainty finite and >= 0", cal.FieldPerAmpere)}
+		}
+		return nil
+	}
 	return cal.Solenoid.validate()
 }
 
@@ -177,7 +188,10 @@ func (c SearchCoil) Calibrate() (CoilConstant, error) {
 	if fit.Slope == 0 {
 		return CoilConstant{}, &ReadingsError{Method: method, Index: -1, Msg: "the readings do not change with the solenoid current; check the coil and integrator connections"}
 	}
-	kSol, relSol := cal.Solenoid.CentreConstant()
+	kSol, relSol := cal.FieldPerAmpere, cal.FieldPerAmpereRelSigma
+	if kSol == 0 {
+		kSol, relSol = cal.Solenoid.CentreConstant()
+	}
 	kCal, relCal := kInt, relInt
 	gainRel := 0.0
 	if cal.Gain > 0 {

@@ -257,3 +257,30 @@ func TestProbe(t *testing.T) {
 		t.Errorf("one reading without a sigma: no error")
 	}
 }
+
+// TestFieldPerAmpere: a calibration given B/I directly (as from an
+// axisymmetric solve) gives the same turns-area as the finite-solenoid
+// formula with the same value, to round-off (1e-14).
+func TestFieldPerAmpere(t *testing.T) {
+	sol := measure.Solenoid{Turns: 1000, Length: 0.5, Radius: 0.02}
+	var rs []measure.CalReading
+	for _, i := range []float64{2, 4, 6, 8} {
+		rs = append(rs, measure.CalReading{Current: i, Reading: 0.05*i + 1e-4*math.Sin(i)})
+	}
+	it := measure.Integrator{TimeConstant: 0.1, Gain: 10}
+	a, err := measure.SearchCoil{Integrator: it, Calibration: &measure.Calibration{Solenoid: sol, Readings: rs}}.Calibrate()
+	if err != nil {
+		t.Fatal(err)
+	}
+	k, _ := sol.CentreConstant()
+	b, err := measure.SearchCoil{Integrator: it, Calibration: &measure.Calibration{FieldPerAmpere: k, Readings: rs}}.Calibrate()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(a.TurnsArea-b.TurnsArea) > 1e-14*a.TurnsArea || math.Abs(a.Sigma-b.Sigma) > 1e-12*a.Sigma {
+		t.Errorf("formula %g ± %g, field per ampere %g ± %g", a.TurnsArea, a.Sigma, b.TurnsArea, b.Sigma)
+	}
+	if _, err := (measure.SearchCoil{Integrator: it, Calibration: &measure.Calibration{FieldPerAmpere: -1, Readings: rs}}).Calibrate(); err == nil {
+		t.Errorf("negative field per ampere: no error")
+	}
+}
