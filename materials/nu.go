@@ -66,11 +66,19 @@ func (c *Curve) Nu(b2 float64) (nu, dnudb2 float64) {
 			return 1 / Mu0, 0
 		}
 		b := math.Sqrt(b2)
+		r := 1 / b
 		// ν = (H_l + (B - B_l)/μ0)/B: a sum of positive terms, where
 		// 1/μ0 + tail/B would cancel when ν << 1/μ0.
-		return (t.hl + (b-t.bl)*(1/Mu0)) / b, -t.tail / (2 * b * b2)
+		return (t.hl + (b-t.bl)*(1/Mu0)) * r, -0.5 * t.tail * r * (r * r)
 	}
-	j := t.cell(b2)
+	// t.cell, written out: the call would not be inlined.
+	k := int(b2 * t.bscale)
+	j, hi := int(t.bucket[k]), int(t.bucket[k+1])
+	if hi-j > 1 {
+		j = t.search(b2, j, hi)
+	} else {
+		j += b2i(t.x[j+1] <= b2)
+	}
 	s := b2 - t.x[j]
 	p := &t.c[j]
 	return p[0] + s*(p[1]+s*(p[2]+s*p[3])), p[1] + s*(2*p[2]+3*s*p[3])
@@ -80,7 +88,24 @@ func (c *Curve) Nu(b2 float64) (nu, dnudb2 float64) {
 func (t *nuTable) cell(b2 float64) int {
 	k := int(b2 * t.bscale)
 	j, hi := int(t.bucket[k]), int(t.bucket[k+1])
-	for j < hi { // usually no iteration: binary search within the bucket
+	if hi-j > 1 {
+		return t.search(b2, j, hi)
+	}
+	// The common case, one or two candidate cells: a conditional move
+	// rather than an unpredictable branch.
+	return j + b2i(t.x[j+1] <= b2)
+}
+
+func b2i(v bool) int {
+	if v {
+		return 1
+	}
+	return 0
+}
+
+// search returns the last cell j in [lo, hi] with x[j] <= b2.
+func (t *nuTable) search(b2 float64, j, hi int) int {
+	for j < hi { // binary search within a crowded bucket
 		m := int(uint(j+hi+1) >> 1)
 		if t.x[m] <= b2 {
 			j = m
