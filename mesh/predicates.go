@@ -62,8 +62,11 @@ const (
 	ccwErrBoundA = (3 + 16*epsilon) * epsilon
 	// iccErrBoundA is the corresponding bound for incircle (section 4.3).
 	iccErrBoundA = (10 + 96*epsilon) * epsilon
-	// iccErrBoundB and iccErrBoundC bound stages B and C of incircleadapt,
-	// resultErrBound the rounding of an expansion's estimate (section 4.3).
+	// The B and C bounds cover stages B and C of orient2dadapt and
+	// incircleadapt, resultErrBound the rounding of an expansion's estimate
+	// (sections 4.2 and 4.3).
+	ccwErrBoundB   = (2 + 12*epsilon) * epsilon
+	ccwErrBoundC   = (9 + 64*epsilon) * epsilon * epsilon
 	iccErrBoundB   = (4 + 48*epsilon) * epsilon
 	iccErrBoundC   = (44 + 576*epsilon) * epsilon * epsilon
 	resultErrBound = (3 + 8*epsilon) * epsilon
@@ -92,6 +95,32 @@ func Orient2D(ax, ay, bx, by, cx, cy float64) Orientation {
 		return sign(det)
 	}
 	if bound := ccwErrBoundA * detSum; det >= bound || -det >= bound {
+		return sign(det)
+	}
+	return orient2DAdapt(ax, ay, bx, by, cx, cy, detSum)
+}
+
+// orient2DAdapt is Shewchuk's orient2dadapt (1997, section 4.2): stage B
+// evaluates the determinant of the rounded differences exactly, stage C adds
+// the first-order effect of their rounding errors, and only then the fully
+// exact evaluation runs.
+func orient2DAdapt(ax, ay, bx, by, cx, cy, detSum float64) Orientation {
+	acx, bcx := ax-cx, bx-cx
+	acy, bcy := ay-cy, by-cy
+	var bb [4]float64
+	fin := crossTo(bb[:0], acx, bcy, acy, bcx)
+	det := estimate(fin)
+	if bound := ccwErrBoundB * detSum; det >= bound || -det >= bound {
+		return sign(det)
+	}
+	acxt, bcxt := diffTail(ax, cx, acx), diffTail(bx, cx, bcx)
+	acyt, bcyt := diffTail(ay, cy, acy), diffTail(by, cy, bcy)
+	if acxt == 0 && acyt == 0 && bcxt == 0 && bcyt == 0 {
+		return sign(fin[len(fin)-1]) // the differences were exact
+	}
+	bound := ccwErrBoundC*detSum + resultErrBound*math.Abs(det)
+	det += (acx*bcyt + bcy*acxt) - (acy*bcxt + bcx*acyt)
+	if det >= bound || -det >= bound {
 		return sign(det)
 	}
 	return Orientation(orient2DExact(ax, ay, bx, by, cx, cy))
