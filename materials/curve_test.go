@@ -61,7 +61,8 @@ func TestCurveKnots(t *testing.T) {
 // [1/2, 3/2] × [0, 2] and the last in [0, 2] × [0, 3] since its end slope is
 // μ0 <= 3 s; all lie in the α, β <= 3 box of F. N. Fritsch and R. E.
 // Carlson, "Monotone piecewise cubic interpolation", SIAM J. Numer. Anal.
-// 17, 1980 (Lemma 2 and Fig. 2), where the cubic is monotone.
+// 17, 1980 (their sufficient condition α, β <= 3), where the cubic is
+// monotone.
 func TestCurveMonotone(t *testing.T) {
 	const per = 400
 	for name, c := range testCurves(t) {
@@ -284,7 +285,7 @@ func TestNaNArgumentPanics(t *testing.T) {
 // error on [2000, 8000] A/m, away from the two end pieces whose slopes are
 // set by our end conditions. Steffen's slope is the derivative of the
 // parabola through three points, O(h²) accurate where the limiter is idle,
-// so the cubic Hermite error is O(h³) (Steffen 1990, sect. 2; de Boor 1978,
+// so the cubic Hermite error is O(h³) (Steffen 1990; de Boor 1978,
 // ch. IV). The least-squares log-log slope must be 3 ± 0.1.
 func TestCurveOrder(t *testing.T) {
 	const js, a, hmax = 2.0, 200.0, 1e4
