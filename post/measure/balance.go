@@ -117,20 +117,10 @@ func (c Balance) Reduce(r []BalanceReading) (BalanceResult, error) {
 	if err := monotone(method, x, y); err != nil {
 		return BalanceResult{}, err
 	}
-	// A first fit gives the slope for the effective variance; the slope
-	// itself does not depend on the (uniform) weights.
-	sigma := c.MassSigma
-	fit, err := fitLine(method, x, y, 0, c.Fit, math.Nextafter(0, 1))
-	if err != nil {
-		return BalanceResult{}, err
-	}
-	if c.MassSigma > 0 || c.CurrentSigma > 0 {
-		sigma = math.Hypot(c.MassSigma, fit.Slope*c.CurrentSigma)
-		if !(sigma > 0) { // a zero slope with only a current uncertainty
-			sigma = 0
-		}
-	}
-	fit, err = fitLine(method, x, y, sigma, c.Fit, c.Alpha)
+	// The slope, which does not depend on the (uniform) weights, sets the
+	// effective variance.
+	sigma := math.Hypot(c.MassSigma, slope(x, y, c.Fit)*c.CurrentSigma)
+	fit, err := fitLine(method, x, y, sigma, c.Fit, c.Alpha)
 	if err != nil {
 		return BalanceResult{}, err
 	}

@@ -129,7 +129,8 @@ type column struct {
 //
 // Separators: comma, or semicolon or tab when the header has no comma.
 // Lines starting with '#' are comments; text after '#' on a data row is
-// ignored; "# key: value" comments before the header fill Curve.Meta.
+// ignored; "# key: value" comments before the header fill Curve.Meta. The
+// curve's name is the "magnet" entry of Meta if there is one, else name.
 //
 // Every bad row is reported (an ErrorList of *InputError, each
 // "name:row N: what is wrong, what to do", N the line in the file): a bad
@@ -255,6 +256,9 @@ func ReadCSV(r io.Reader, name string) (*Curve, error) {
 	}
 	if len(c.Points) < MinPoints {
 		return nil, ErrorList{{File: name, Msg: fmt.Sprintf("%d data rows; a measured curve needs at least %d", len(c.Points), MinPoints)}}
+	}
+	if m := c.Meta["magnet"]; m != "" {
+		c.Name = m
 	}
 	return c, nil
 }

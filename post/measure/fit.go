@@ -207,6 +207,29 @@ func fitLine(method string, x, y []float64, sigmaY float64, mode FitMode, alpha 
 	return f, nil
 }
 
+// slope returns the least-squares slope of y on x (0 when x has no
+// spread).
+func slope(x, y []float64, mode FitMode) float64 {
+	var xm, ym float64
+	if mode == WithIntercept {
+		for i := range x {
+			xm += x[i]
+			ym += y[i]
+		}
+		xm /= float64(len(x))
+		ym /= float64(len(x))
+	}
+	var sxx, sxy float64
+	for i := range x {
+		sxx += (x[i] - xm) * (x[i] - xm)
+		sxy += (x[i] - xm) * (y[i] - ym)
+	}
+	if sxx == 0 {
+		return 0
+	}
+	return sxy / sxx
+}
+
 // distinct counts the distinct values of x, leaving out zero if nonZero.
 func distinct(x []float64, nonZero bool) int {
 	seen := make(map[float64]bool, len(x))

@@ -89,14 +89,14 @@ type calibrationDoc struct {
 	Gain                   float64      `yaml:"gain"`
 	GainSigma              float64      `yaml:"gain-sigma"`
 	ReadingSigma           float64      `yaml:"reading-sigma"`
-	Readings               [][]float64  `yaml:"readings"`
+	Readings               [][]*float64 `yaml:"readings"`
 }
 
 type readingDoc struct {
-	Current *float64    `yaml:"current"`
-	Field   floats      `yaml:"field"`
-	Balance [][]float64 `yaml:"balance"`
-	Flux    floats      `yaml:"flux"`
+	Current *float64     `yaml:"current"`
+	Field   floats       `yaml:"field"`
+	Balance [][]*float64 `yaml:"balance"`
+	Flux    floats       `yaml:"flux"`
 }
 
 // floats decodes one number or a list of numbers.
@@ -111,12 +111,32 @@ func (f *floats) UnmarshalYAML(n *yaml.Node) error {
 		*f = floats{v}
 		return nil
 	}
-	var v []float64
+	var v []*float64
 	if err := n.Decode(&v); err != nil {
 		return err
 	}
-	*f = v
+	*f = make(floats, len(v))
+	for i, x := range v {
+		if x == nil {
+			return fmt.Errorf("line %d: reading %d is empty; give a number", n.Content[i].Line, i+1)
+		}
+		(*f)[i] = *x
+	}
 	return nil
+}
+
+// pair returns the two numbers of a [x, y] reading, or an error at its
+// node.
+func (p *parser) pair(v []*float64, label string, path []any, what string) (x, y float64, err error) {
+	if len(v) != 2 {
+		return 0, 0, p.errAt(nil, label, path, "has %d numbers; give [%s]", len(v), what)
+	}
+	for k, e := range v {
+		if e == nil {
+			return 0, 0, p.errAt(nil, label, append(path, k), "is empty; give [%s]", what)
+		}
+	}
+	return *v[0], *v[1], nil
 }
 
 // Load reads a measured-data file: our YAML format or a plain CSV (see
@@ -411,12 +431,12 @@ func (p *parser) balance(d *fileDoc, c *Curve) (func(int, *readingDoc) (Point, e
 			return Point{}, err
 		}
 		rs := make([]BalanceReading, len(r.Balance))
-		for j, pair := range r.Balance {
-			if len(pair) != 2 {
-				return Point{}, p.errAt(nil, fmt.Sprintf("readings[%d].balance[%d]", i, j), []any{"readings", i, "balance", j},
-					"has %d numbers; give [conductor current A, mass kg]", len(pair))
+		for j, pr := range r.Balance {
+			x, y, err := p.pair(pr, fmt.Sprintf("readings[%d].balance[%d]", i, j), []any{"readings", i, "balance", j}, "conductor current A, mass kg")
+			if err != nil {
+				return Point{}, err
 			}
-			rs[j] = BalanceReading{Current: pair[0], Mass: pair[1]}
+			rs[j] = BalanceReading{Current: x, Mass: y}
 		}
 		res, err := bal.Reduce(rs)
 		if err != nil {
@@ -463,12 +483,12 @@ func (p *parser) search(d *fileDoc, c *Curve) (func(int, *readingDoc) (Point, er
 			sc.Calibration.Solenoid = Solenoid{Turns: s.Turns, TurnsSigma: s.TurnsSigma, Length: s.Length, LengthSigma: s.LengthSigma,
 				Radius: s.Radius, RadiusSigma: s.RadiusSigma, CurrentRelSigma: s.CurrentScaleSigma}
 		}
-		for j, pair := range cal.Readings {
-			if len(pair) != 2 {
-				return nil, p.errAt(nil, fmt.Sprintf("calibration.readings[%d]", j), []any{"calibration", "readings", j},
-					"has %d numbers; give [solenoid current A, integrator reading]", len(pair))
+		for j, pr := range cal.Readings {
+			x, y, err := p.pair(pr, fmt.Sprintf("calibration.readings[%d]", j), []any{"calibration", "readings", j}, "solenoid current A, integrator reading")
+			if err != nil {
+				return nil, err
 			}
-			sc.Calibration.Readings = append(sc.Calibration.Readings, CalReading{Current: pair[0], Reading: pair[1]})
+			sc.Calibration.Readings = append(sc.Calibration.Readings, CalReading{Current: x, Reading: y})
 		}
 	} else if d.Coil == nil {
 		return nil, p.errAt(nil, "coil", nil, "method %s needs a calibration section or a coil section (turns, area)", MethodSearch)

@@ -74,6 +74,9 @@ readings:
 		{"bad pair", strings.Replace(balance, "[3, 0.004]", "[3]", 1), []string{"readings[0].balance[3]: has 1 numbers"}},
 		{"no length", strings.Replace(balance, "{length: 0.05}", "{g: 9.81}", 1), []string{"bad.yaml:3:10: balance: current-balance: conductor length 0 m"}},
 		{"bad fit", strings.Replace(balance, "{length: 0.05}", "{length: 0.05, fit: cubic}", 1), []string{"balance.fit: fit \"cubic\""}},
+		{"null mass", strings.Replace(balance, "[1, 0.002]", "[1, ~]", 1), []string{"bad.yaml:6:31: readings[0].balance[1]: is empty; give [conductor current A, mass kg]"}},
+		{"null field", strings.Replace(directFile, "0.100", "~", 1), []string{"bad.yaml:7:5: readings[0]: no field readings"}},
+		{"null repeat", strings.Replace(directFile, "0.199", "~", 1), []string{"bad.yaml:row 8: reading 1 is empty"}},
 		{"search without coil", "format: polegap-measured/1\nmethod: search-coil\nintegrator: {gain: 1}\nreadings: [{current: 1, flux: 1}, {current: 2, flux: 2}]\n", []string{"needs a calibration section or a coil section"}},
 		{"search one pull", "format: polegap-measured/1\nmethod: search-coil\nintegrator: {gain: 1}\ncoil: {turns: 10, area: 1e-4}\nreadings: [{current: 1, flux: 1}, {current: 2, flux: 2}]\n", []string{"readings[0].flux: at 1 A: search-coil: one reading", "readings[1].flux"}},
 	} {
