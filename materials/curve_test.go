@@ -185,6 +185,19 @@ func TestStacked(t *testing.T) {
 			t.Errorf("Stacked(1e-6): ν(%g T) = %g, want about 1/μ0 = %g", bv, nu, 1/Mu0)
 		}
 	}
+	// The smallest factors still give valid curves, and air in the limit.
+	for _, k := range []float64{1e-300, 5e-324} {
+		s, err := c.Stacked(k)
+		if err != nil {
+			t.Fatalf("Stacked(%g): %v", k, err)
+		}
+		if err := s.Check(); err != nil {
+			t.Fatalf("Stacked(%g): %v", k, err)
+		}
+		if nu, _ := s.Nu(1); !near(nu, 1/Mu0, 1e-12) {
+			t.Errorf("Stacked(%g): ν(1 T) = %g, want 1/μ0", k, nu)
+		}
+	}
 	for _, k := range []float64{0, -0.5, 1.0000001, 2, math.NaN(), math.Inf(1)} {
 		if _, err := c.Stacked(k); !errors.Is(err, ErrStacking) {
 			t.Errorf("Stacked(%g): error %v, want ErrStacking", k, err)
