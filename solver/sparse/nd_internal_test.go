@@ -23,3 +23,17 @@ func BenchmarkBFS(b *testing.B) {
 	}
 	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(len(g.adj)), "ns/edge")
 }
+
+func TestNDCheap(t *testing.T) {
+	if !testing.Verbose() {
+		t.Skip()
+	}
+	for _, a := range []*CSR{grid5(1000), grid5(316)} {
+		for _, c := range []int{0, 5000, 20000} {
+			ndCheapBelow = c
+			s := analyze(a, Order(a, NestedDissection), 1)
+			t.Logf("n=%d cheap below %d: nnzL=%d flops=%.3g", a.N, c, s.nnzL, s.flops)
+		}
+	}
+	ndCheapBelow = 20000
+}

@@ -135,6 +135,10 @@ const ndLeaf = 64
 // whose start vertex is already far from the separator.
 var ndHintIters = 1
 
+// ndCheapBelow is the subgraph size below which the start vertex handed
+// down from the parent is used without further pseudo-peripheral search.
+var ndCheapBelow = 20000
+
 // ndParallel is the subgraph size above which the two halves of a
 // dissection are ordered concurrently.
 const ndParallel = 50000
@@ -256,6 +260,9 @@ func (nd *ndState) dissect(verts []int32, start int32, iters int, lo, hi int, id
 		if len(verts) <= ndLeaf {
 			nd.leaf(verts, lo, id, ws)
 			return
+		}
+		if len(verts) < ndCheapBelow {
+			iters = 0
 		}
 		nd.pseudoPeripheral(start, iters, id, ws)
 		q := ws.queue
