@@ -74,3 +74,29 @@ func FuzzParse(f *testing.F) {
 		}
 	})
 }
+
+// FuzzBalance feeds arbitrary readings and constants to the balance
+// reduction: it returns an error or a finite field with a finite,
+// non-negative uncertainty, and never panics.
+func FuzzBalance(f *testing.F) {
+	f.Add(0.0, 1e-3, 1.0, 2e-3, 2.0, 3e-3, 3.0, 4.1e-3, 0.05, 1e-6, false)
+	f.Add(1.0, 1e-3, 2.0, 2e-3, 3.0, 3e-3, 4.0, 4e-3, 0.05, 0.0, true)
+	f.Fuzz(func(t *testing.T, i0, m0, i1, m1, i2, m2, i3, m3, L, sig float64, origin bool) {
+		bal := measure.Balance{Length: L, MassSigma: sig}
+		if origin {
+			bal.Fit = measure.ThroughOrigin
+		}
+		res, err := bal.Reduce([]measure.BalanceReading{{i0, m0}, {i1, m1}, {i2, m2}, {i3, m3}})
+		if err != nil {
+			return
+		}
+		for _, v := range []float64{res.Field, res.FieldSigma, res.SigmaFit, res.SigmaG, res.SigmaLength} {
+			if v-v != 0 {
+				t.Fatalf("non-finite result %+v", res)
+			}
+		}
+		if res.FieldSigma < 0 {
+			t.Fatalf("negative uncertainty %+v", res)
+		}
+	})
+}

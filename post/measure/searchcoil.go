@@ -242,6 +242,11 @@ func (c SearchCoil) Field(k CoilConstant, readings []float64) (SearchResult, err
 	res.LinkageSigma = math.Abs(res.Linkage) * math.Hypot(relR, relInt)
 	res.Field = res.Linkage / k.TurnsArea
 	res.FieldSigma = math.Abs(res.Field) * math.Hypot(relR, k.fieldRel)
+	for _, v := range [...]float64{res.Field, res.FieldSigma, res.Linkage, res.LinkageSigma} {
+		if !finite(v) {
+			return SearchResult{}, &ReadingsError{Method: method, Index: -1, Msg: "the readings give no finite field; check their units (V or V s)"}
+		}
+	}
 	return res, nil
 }
 
@@ -257,6 +262,9 @@ func meanSigma(method string, v []float64, sigma float64) (mean, u float64, err 
 	}
 	n := float64(len(v))
 	mean /= n
+	if !finite(mean) {
+		return 0, 0, &ReadingsError{Method: method, Index: -1, Msg: "the readings overflow; check their units"}
+	}
 	if sigma > 0 {
 		return mean, sigma / math.Sqrt(n), nil
 	}
