@@ -9,8 +9,12 @@
 //   - Our measured-data YAML file (Parse, Load; see FORMAT.md): a header
 //     (magnet, date, operator, method, instrument constants with their
 //     uncertainties) and raw readings per magnet current, reduced here by
-//     one of three methods: direct (a field probe), current-balance
-//     (Balance.Reduce) or search-coil (SearchCoil.Calibrate, SearchCoil.Field).
+//     one of three methods: direct (a field probe, Probe.Field),
+//     current-balance (Balance.Reduce) or search-coil (SearchCoil.Calibrate
+//     with a Solenoid or a given field per ampere, then SearchCoil.Field).
+//
+// Sample files drawn from a known curve with stated noise are in
+// testdata/measured at the repository root (generator: gen_test.go).
 //
 // # Units and uncertainties
 //

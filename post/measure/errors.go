@@ -91,7 +91,7 @@ func (e *ReadingsError) Error() string {
 }
 
 // NotLineError reports a straight-line fit rejected because its residuals
-// show the readings do not lie on a line (see LineFit for the rules). It
+// show the readings do not lie on a line (the rules are at LineFit). It
 // carries the fit so the caller can show the residuals.
 type NotLineError struct {
 	Method string  // "current-balance" or "calibration"

@@ -48,32 +48,9 @@ const DefaultAlpha = 0.001
 // without), u²(a) = σ²(1/n + x̄²/Sxx) (P. R. Bevington and D. K. Robinson,
 // Data Reduction and Error Analysis for the Physical Sciences, 3rd ed.
 // 2003, eqs. 6.12, 6.21-6.23, from memory).
-type LineFit struct {
-	Mode                      FitMode
-	Slope, SlopeSigma         float64
-	Intercept, InterceptSigma float64
-	N, Dof                    int       // readings, and N minus the parameters fitted
-	SigmaY                    float64   // standard uncertainty of one y reading used
-	Stated                    bool      // SigmaY was stated, not estimated from the residuals
-	Residuals                 []float64 // y − fitted, in reading order
-	Chi2                      float64   // SSR/SigmaY² when Stated, else 0
-	// CurvatureStat and CurvatureP are the statistic and upper-tail
-	// probability of the test for a quadratic term (see fitLine).
-	CurvatureStat, CurvatureP float64
-}
-
-// minDistinct is the fewest distinct x values a fit needs so that a
-// quadratic term can be tested with one residual degree of freedom left.
-func minFitPoints(mode FitMode) (n, distinct int) {
-	if mode == ThroughOrigin {
-		return 3, 2
-	}
-	return 4, 3
-}
-
-// fitLine fits y against x and tests that the readings lie on a line.
 //
-// Two rules reject a fit (each at level alpha):
+// The readings are tested to lie on a line. Two rules reject a fit, each
+// at the rejection level (Alpha of the reduction, DefaultAlpha if zero):
 //
 //  1. Curvature: add a quadratic term c x² and test whether it reduces the
 //     residual sum of squares significantly, by the extra-sum-of-squares
@@ -89,8 +66,31 @@ func minFitPoints(mode FitMode) (n, distinct int) {
 //     the line fails it and a quadratic fails it too, the readings scatter
 //     beyond their stated uncertainty and that is reported rather than
 //     curvature.
-//
-// sigmaY ≤ 0 means not stated. It returns a *ReadingsError for too few
+type LineFit struct {
+	Mode                      FitMode
+	Slope, SlopeSigma         float64
+	Intercept, InterceptSigma float64
+	N, Dof                    int       // readings, and N minus the parameters fitted
+	SigmaY                    float64   // standard uncertainty of one y reading used
+	Stated                    bool      // SigmaY was stated, not estimated from the residuals
+	Residuals                 []float64 // y − fitted, in reading order
+	Chi2                      float64   // SSR/SigmaY² when Stated, else 0
+	// CurvatureStat and CurvatureP are the statistic and upper-tail
+	// probability of the test for a quadratic term.
+	CurvatureStat, CurvatureP float64
+}
+
+// minDistinct is the fewest distinct x values a fit needs so that a
+// quadratic term can be tested with one residual degree of freedom left.
+func minFitPoints(mode FitMode) (n, distinct int) {
+	if mode == ThroughOrigin {
+		return 3, 2
+	}
+	return 4, 3
+}
+
+// fitLine fits y against x and applies the tests described at LineFit.
+// sigmaY <= 0 means not stated. It returns a *ReadingsError for too few
 // readings and a *NotLineError for a rejected fit.
 func fitLine(method string, x, y []float64, sigmaY float64, mode FitMode, alpha float64) (LineFit, error) {
 	if len(x) != len(y) {
