@@ -146,6 +146,24 @@ func TestSearchCoilWorkedExamples(t *testing.T) {
 	if !k.Calibrated {
 		t.Errorf("Calibrated false")
 	}
+
+	// The same, but calibrated at gain 200 ± 0.4 while the gap is read at
+	// gain 10 ± 0.02: B = 0.3 · k_sol/0.1 · 200/10 = 0.1503162 T and the two
+	// gains' relative uncertainties (0.2 % each) no longer cancel:
+	//	(u(B)/B)² = 2.603177e-5 + 4e-6 + 4e-6 = 3.403177e-5
+	//	u(B) = 0.1503162 · 5.833676e-3 = 8.768960e-4 T
+	sc.Integrator.GainSigma = 0.02
+	sc.Calibration.Gain, sc.Calibration.GainSigma = 200, 0.4
+	k, err = sc.Calibrate()
+	if err != nil {
+		t.Fatal(err)
+	}
+	res, err = sc.Field(k, []float64{0.3, 0.3})
+	if err != nil {
+		t.Fatal(err)
+	}
+	check("B, separate gains", res.Field, 0.1503162)
+	check("u(B), separate gains", res.FieldSigma, 8.768960e-4)
 }
 
 // TestSearchCoilRecovers draws calibration and gap readings with random
