@@ -29,8 +29,8 @@ func (q quantity) unitHint() string {
 }
 
 // units maps a unit as written in a header to its quantity and its factor
-// to SI (A, T, Wb). The gauss is 1e-4 T exactly (BIPM, The International
-// System of Units, 9th ed. 2019, Table 9 note on CGS units).
+// to SI (A, T, Wb). The gauss is 1e-4 T (BIPM, The International System
+// of Units, 9th ed. 2019, the CGS units note; location from memory).
 var units = map[string]struct {
 	q      quantity
 	factor float64

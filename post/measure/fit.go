@@ -58,11 +58,13 @@ const DefaultAlpha = 0.001
 //     or, when SigmaY is stated, Δχ² = ΔSSR/σ² with 1 degree of freedom
 //     (Bevington and Robinson 2003, sec. 11.4 "the F test" for an added
 //     term; N. R. Draper and H. Smith, Applied Regression Analysis, 3rd ed.
-//     1998, ch. 6, the extra sum of squares principle). ΔSSR is computed
+//     1998, ch. 6, the extra sum of squares principle; section and chapter
+//     numbers from memory). ΔSSR is computed
 //     exactly from the residuals: (r·z)²/(z·z) with z the part of x²
 //     orthogonal to the line's basis.
 //  2. Goodness of fit, only when SigmaY is stated: χ² = SSR/σ² on Dof
-//     degrees of freedom (Bevington and Robinson 2003, sec. 11.1). When
+//     degrees of freedom (Bevington and Robinson 2003, sec. 11.1, from
+//     memory). When
 //     the line fails it and a quadratic fails it too, the readings scatter
 //     beyond their stated uncertainty and that is reported rather than
 //     curvature.

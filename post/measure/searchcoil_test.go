@@ -60,8 +60,8 @@ func TestSolenoid(t *testing.T) {
 }
 
 // TestSolenoidConstantSigma checks CentreConstant's relative uncertainty
-// against central finite differences of ln k (GUM, JCGM 100:2008, 5.1.3
-// allows sensitivity coefficients evaluated numerically).
+// against central finite differences of ln k (JCGM 100:2008 allows
+// sensitivity coefficients found numerically, 5.1.3 as remembered).
 func TestSolenoidConstantSigma(t *testing.T) {
 	s := measure.Solenoid{Turns: 800, TurnsSigma: 2, Length: 0.3, LengthSigma: 1e-3, Radius: 0.04, RadiusSigma: 5e-4, CurrentRelSigma: 2e-3}
 	_, rel := s.CentreConstant()
