@@ -128,6 +128,9 @@ func Options(m *models.Model) mesh.Options {
 // Discretize builds the model's straight-line graph and meshes it.
 func Discretize(m *models.Model) (*Discretization, error) {
 	d := &Discretization{Model: m, Options: Options(m)}
+	if _, err := CheckFootprint(m, d.Options, Limits{}); err != nil {
+		return nil, err
+	}
 	var err error
 	if d.Boundary, err = Boundary(m); err != nil {
 		return nil, err

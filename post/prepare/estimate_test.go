@@ -1,0 +1,146 @@
+package prepare_test
+
+import (
+	"errors"
+	"strings"
+	"testing"
+	"time"
+
+	"polegap/mesh"
+
+	"polegap/models"
+	"polegap/post/prepare"
+)
+
+// TestEstimateExamples: the triangle estimate lies within a factor 2 of the
+// real count on every embedded example (the brief's requirement), and the
+// node estimate within a factor 2 of the real nodes.
+func TestEstimateExamples(t *testing.T) {
+	for _, name := range models.Examples() {
+		m, err := models.LoadExample(name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		opt := prepare.Options(m)
+		fp, err := prepare.Estimate(m, opt, 0)
+		if err != nil {
+			t.Fatalf("%s: %v", name, err)
+		}
+		d, err := prepare.Discretize(m)
+		if err != nil {
+			t.Fatalf("%s: %v", name, err)
+		}
+		tri, nodes := d.Mesh.NumTriangles(), d.Mesh.NumNodes()
+		rt, rn := float64(fp.Triangles)/float64(tri), float64(fp.Nodes)/float64(nodes)
+		t.Logf("%s: estimate %d triangles %d nodes, real %d triangles %d nodes (ratios %.3f, %.3f), %.3g bytes",
+			name, fp.Triangles, fp.Nodes, tri, nodes, rt, rn, float64(fp.Bytes))
+		if rt < 0.5 || rt > 2 || rn < 0.5 || rn > 2 || fp.Partial {
+			t.Errorf("%s: estimate/real = %.3f triangles, %.3f nodes; want within a factor 2", name, rt, rn)
+		}
+	}
+}
+
+// TestEstimateHalfSize: the same at half the mesh size (four times the
+// triangles), so the calibration is not tuned to one size.
+func TestEstimateHalfSize(t *testing.T) {
+	if testing.Short() {
+		t.Skip("meshes four examples at half size")
+	}
+	for _, name := range models.Examples() {
+		m, err := models.LoadExample(name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		m.Mesh.Size *= 0.5
+		fp, err := prepare.Estimate(m, prepare.Options(m), 0)
+		if err != nil {
+			t.Fatal(err)
+		}
+		d, err := prepare.Discretize(m)
+		if err != nil {
+			t.Fatalf("%s: %v", name, err)
+		}
+		r := float64(fp.Triangles) / float64(d.Mesh.NumTriangles())
+		t.Logf("%s at half size: estimate %d, real %d triangles (ratio %.3f)", name, fp.Triangles, d.Mesh.NumTriangles(), r)
+		if r < 0.5 || r > 2 {
+			t.Errorf("%s at half size: estimate/real = %.3f; want within a factor 2", name, r)
+		}
+	}
+}
+
+// hugeModel is a 1 m C-shaped yoke (an invented test case) asked to mesh at
+// 1 µm: about 10^12 triangles.
+const hugeModel = `name: huge
+units: m
+depth: 1
+materials:
+  steel: {curve: low-carbon-steel}
+regions:
+  - name: yoke
+    material: steel
+    polygon: [[0, 0], [1, 0], [1, 1], [0, 1], [0, 0.55], [0.8, 0.55], [0.8, 0.45], [0, 0.45]]
+  - name: coil
+    material: copper
+    polygon: [[0.2, 0.46], [0.6, 0.46], [0.6, 0.54], [0.2, 0.54]]
+coils:
+  - {name: c, turns: 100, current: 10, sides: [{region: coil, sense: 1}]}
+mesh: {size: 0.000001}
+`
+
+// TestEstimateRefusesHuge: Discretize refuses the model with a
+// *TooLargeError carrying the estimate, before any meshing (the mesher's
+// own limit would give a *mesh.TooManyTrianglesError after minutes).
+func TestEstimateRefusesHuge(t *testing.T) {
+	m, err := models.Parse("huge.yaml", []byte(hugeModel))
+	if err != nil {
+		t.Fatal(err)
+	}
+	start := time.Now()
+	d, err := prepare.Discretize(m)
+	el := time.Since(start)
+	var tl *prepare.TooLargeError
+	if !errors.As(err, &tl) || d != nil {
+		t.Fatalf("Discretize: %v (%T), want a *prepare.TooLargeError and no discretization", err, err)
+	}
+	t.Logf("refused in %v: %v", el, err)
+	msg := err.Error()
+	for _, want := range []string{"huge.yaml: ", "at least ", "triangles", "over the limit of 20000000 triangles", "enlarge mesh.size (now 1e-06 m)"} {
+		if !strings.Contains(msg, want) {
+			t.Errorf("message lacks %q: %s", want, msg)
+		}
+	}
+	if !tl.Footprint.Partial || tl.Footprint.Triangles <= mesh.DefaultMaxTriangles {
+		t.Errorf("footprint %+v: want a partial estimate above the limit", tl.Footprint)
+	}
+}
+
+// TestEstimateMemoryLimit: below the triangle limit but over a small
+// memory limit, the error names the memory.
+func TestEstimateMemoryLimit(t *testing.T) {
+	m, err := models.LoadExample("bench-dipole")
+	if err != nil {
+		t.Fatal(err)
+	}
+	fp, err := prepare.CheckFootprint(m, prepare.Options(m), prepare.Limits{MaxBytes: 1 << 20})
+	var tl *prepare.TooLargeError
+	if !errors.As(err, &tl) {
+		t.Fatalf("CheckFootprint with 1 MiB: %v, want a *prepare.TooLargeError", err)
+	}
+	if msg := err.Error(); !strings.Contains(msg, "over the 1 MiB of memory available") || !strings.Contains(msg, "enlarge mesh.size (now 20 mm)") {
+		t.Errorf("message: %s", msg)
+	}
+	if fp.Bytes <= 1<<20 {
+		t.Errorf("footprint %+v under the limit", fp)
+	}
+	if _, err := prepare.CheckFootprint(m, prepare.Options(m), prepare.Limits{}); err != nil {
+		t.Errorf("bench-dipole refused under the default limits: %v", err)
+	}
+}
+
+// TestAvailableMemory: positive, and at most the 2^50 bytes no machine
+// this runs on has.
+func TestAvailableMemory(t *testing.T) {
+	if b := prepare.AvailableMemory(); b <= 0 || b > 1<<50 {
+		t.Errorf("AvailableMemory = %d", b)
+	}
+}
