@@ -174,3 +174,27 @@ func BenchmarkSolveNonlinear(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkPrepare: validation, unknown numbering, sparsity pattern and
+// element map (the once-per-mesh setup of Prepare, without the linear
+// solver's analysis, which Solve does on first use).
+func BenchmarkPrepare(b *testing.B) {
+	for _, order := range []int{1, 2} {
+		for _, sz := range benchSizes {
+			b.Run(fmt.Sprintf("P%d/%s", order, sz.name), func(b *testing.B) {
+				m := benchCCore(order, sz.nodes)
+				p := benchProblem(m)
+				b.ReportAllocs()
+				b.ResetTimer()
+				c0 := cpuTime()
+				for i := 0; i < b.N; i++ {
+					if _, err := Prepare(p, Options{}); err != nil {
+						b.Fatal(err)
+					}
+				}
+				b.ReportMetric((cpuTime()-c0)/float64(b.N), "cpu-s/op")
+				b.ReportMetric(float64(m.NumNodes()), "nodes")
+			})
+		}
+	}
+}
