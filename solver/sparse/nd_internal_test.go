@@ -35,5 +35,5 @@ func TestNDCheap(t *testing.T) {
 			t.Logf("n=%d cheap below %d: nnzL=%d flops=%.3g", a.N, c, s.nnzL, s.flops)
 		}
 	}
-	ndCheapBelow = 20000
+	ndCheapBelow = 5000
 }
