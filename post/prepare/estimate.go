@@ -154,7 +154,7 @@ func CheckFootprint(m *models.Model, opt mesh.Options, lim Limits) (Footprint, e
 		return fp, err
 	}
 	if fp.Triangles > maxT || fp.Bytes > maxB {
-		return fp, &TooLargeError{File: m.File, Footprint: fp, MaxTriangles: maxT, MaxBytes: maxB, Size: m.Mesh.Size, Units: m.Units}
+		return fp, &TooLargeError{File: m.File, Line: m.Mesh.Pos.Line, Column: m.Mesh.Pos.Column, Footprint: fp, MaxTriangles: maxT, MaxBytes: maxB, Size: m.Mesh.Size, Units: m.Units}
 	}
 	return fp, nil
 }
@@ -163,6 +163,7 @@ func CheckFootprint(m *models.Model, opt mesh.Options, lim Limits) (Footprint, e
 // triangle limit or the machine's memory.
 type TooLargeError struct {
 	File         string
+	Line, Column int // of the mesh controls in the model file; 0 when absent
 	Footprint    Footprint
 	MaxTriangles int
 	MaxBytes     int64
@@ -193,8 +194,12 @@ func (e *TooLargeError) Error() string {
 			fix = fmt.Sprintf("enlarge mesh.size (now %s) about %.3g times, or the regions' mesh-size and refine sizes", formatLength(e.Size, e.Units), 1.2*r)
 		}
 	}
+	where := e.File
+	if e.Line > 0 {
+		where = fmt.Sprintf("%s:%d:%d: mesh", e.File, e.Line, e.Column)
+	}
 	return fmt.Sprintf("%s: the mesh would need %s%.3g triangles, %.3g nodes and about %s of memory, %s; %s",
-		e.File, at, float64(fp.Triangles), float64(fp.Nodes), formatBytes(fp.Bytes), over, fix)
+		where, at, float64(fp.Triangles), float64(fp.Nodes), formatBytes(fp.Bytes), over, fix)
 }
 
 func formatBytes(b int64) string {

@@ -104,7 +104,7 @@ func TestEstimateRefusesHuge(t *testing.T) {
 	}
 	t.Logf("refused in %v: %v", el, err)
 	msg := err.Error()
-	for _, want := range []string{"huge.yaml: ", "at least ", "triangles", "over the limit of 20000000 triangles", "enlarge mesh.size (now 1e-06 m)"} {
+	for _, want := range []string{"huge.yaml:15:7: mesh: the mesh would need at least ", "triangles", "over the limit of 20000000 triangles", "enlarge mesh.size (now 1e-06 m)"} {
 		if !strings.Contains(msg, want) {
 			t.Errorf("message lacks %q: %s", want, msg)
 		}
