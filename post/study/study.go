@@ -12,6 +12,9 @@ import (
 // Options control a run. The zero value uses the solver's defaults.
 type Options struct {
 	Solver solver.Options
+	// Material, when set, replaces the material of each region tag after
+	// the problem is built (calibration uses it to scale an iron curve).
+	Material func(tag int32, m solver.Material) solver.Material
 }
 
 // Study is a solved model.
@@ -44,6 +47,11 @@ func (s *Study) Solve(opt Options) error {
 	p, err := prepare.Problem(s.Disc)
 	if err != nil {
 		return err
+	}
+	if opt.Material != nil {
+		for tag, m := range p.Materials {
+			p.Materials[tag] = opt.Material(int32(tag), m)
+		}
 	}
 	sol, err := solver.Solve(p, opt.Solver)
 	if err != nil {

@@ -47,6 +47,8 @@ type Options struct {
 	Progress func(done, total int, p Point)
 	// Solver options for each solve (Initial is managed by the sweep).
 	Solver solver.Options
+	// Material, when set, replaces region materials (see study.Options).
+	Material func(tag int32, m solver.Material) solver.Material
 }
 
 // Range returns n currents evenly spaced from lo to hi inclusive.
@@ -98,10 +100,17 @@ type Runner struct {
 	last  []float64
 
 	baseField float64
+	material  func(tag int32, m solver.Material) solver.Material
 }
 
 // NewRunner meshes the model and prepares to solve it at other currents.
 func NewRunner(ctx context.Context, m *models.Model, coil, probe string, opt solver.Options) (*Runner, error) {
+	return NewRunnerWith(ctx, m, coil, probe, opt, nil)
+}
+
+// NewRunnerWith is NewRunner with a material replacement applied to every
+// solve (see study.Options.Material); nil means none.
+func NewRunnerWith(ctx context.Context, m *models.Model, coil, probe string, opt solver.Options, material func(tag int32, m solver.Material) solver.Material) (*Runner, error) {
 	if len(m.Coils) == 0 {
 		return nil, fmt.Errorf("%s: the model has no coil to sweep", m.File)
 	}
@@ -130,11 +139,11 @@ func NewRunner(ctx context.Context, m *models.Model, coil, probe string, opt sol
 	if _, ok := m.Probe(probe); !ok {
 		return nil, fmt.Errorf("%s: no probe named %q", m.File, probe)
 	}
-	r := &Runner{Model: m, coil: ci, probe: probe}
+	r := &Runner{Model: m, coil: ci, probe: probe, material: material}
 	for _, c := range m.Coils {
 		r.base = append(r.base, c.Current)
 	}
-	s, err := study.Run(m, study.Options{Solver: opt})
+	s, err := study.Run(m, study.Options{Solver: opt, Material: material})
 	if err != nil {
 		return nil, err
 	}
@@ -179,7 +188,7 @@ func (r *Runner) Solve(current float64, opt solver.Options) (Point, error) {
 		}
 	}()
 	opt.Initial = r.last
-	if err := r.Study.Solve(study.Options{Solver: opt}); err != nil {
+	if err := r.Study.Solve(study.Options{Solver: opt, Material: r.material}); err != nil {
 		return Point{}, err
 	}
 	sol := r.Study.Solution
@@ -245,7 +254,7 @@ func maxIronB(s *study.Study) float64 {
 // solve, the finished points and a *PointError.
 func Run(ctx context.Context, m *models.Model, opt Options) ([]Point, error) {
 	idx := Select(len(opt.Currents), opt.Shard, opt.Shards)
-	r, err := NewRunner(ctx, m, opt.Coil, opt.Probe, opt.Solver)
+	r, err := NewRunnerWith(ctx, m, opt.Coil, opt.Probe, opt.Solver, opt.Material)
 	if err != nil {
 		return nil, err
 	}
