@@ -55,6 +55,11 @@
 // estimated next update <= Options.UpdateTol, never an iteration count.
 // The symbolic factorization is computed once and reused for every step.
 //
+// Fields of a Solution: BTo and HTo per triangle, NodalBTo smoothed for
+// plots, At at any point (through a mesh.Locator), Energy, and
+// ErrorIndicatorTo, a Zienkiewicz-Zhu indicator per triangle for adaptive
+// refinement.
+//
 // Prepare and Prepared.Solve split Solve in two for repeated solves on one
 // mesh (excitation sweeps, target searches): numbering, pattern and the
 // symbolic factorization are built once; currents, magnetisation,
