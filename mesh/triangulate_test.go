@@ -177,3 +177,26 @@ func TestTriangulateConcurrent(t *testing.T) {
 		}
 	}
 }
+
+// TestTriangulateDeterministic: two runs give identical meshes.
+func TestTriangulateDeterministic(t *testing.T) {
+	yoke, box, wire, seeds, _ := cCore(1, 0.002)
+	in := polyInput(box, yoke, wire)
+	in.Seeds = seeds
+	opt := Options{Size: SizeField{Global: 0.01}}
+	m1, err1 := Triangulate(in, opt)
+	m2, err2 := Triangulate(in, opt)
+	if err1 != nil || err2 != nil {
+		t.Fatal(err1, err2)
+	}
+	same := len(m1.X) == len(m2.X) && len(m1.Tri) == len(m2.Tri)
+	for i := 0; same && i < len(m1.X); i++ {
+		same = m1.X[i] == m2.X[i] && m1.Y[i] == m2.Y[i]
+	}
+	for i := 0; same && i < len(m1.Tri); i++ {
+		same = m1.Tri[i] == m2.Tri[i] && m1.Nbr[i] == m2.Nbr[i] && m1.EdgeMarker[i] == m2.EdgeMarker[i]
+	}
+	if !same {
+		t.Error("two runs differ")
+	}
+}
