@@ -40,10 +40,11 @@
 //   - constrained Delaunay: across every unmarked interior edge the
 //     opposite corner is not strictly inside the circumcircle (exact
 //     InCircle);
-//   - minimum angle at least the bound, except angles imposed by the input
-//     (an angle between two segments at one corner, the triangles refinement
-//     must leave near input angles below about 60 degrees, and triangles next
-//     to frozen segments);
+//   - minimum angle at least the bound, except angles imposed by the input:
+//     an angle between two segments at one corner, the triangles refinement
+//     leaves near small input angles (shortest edge joining two segments that
+//     share an input vertex, at equal distances from it), and triangles next
+//     to frozen segments;
 //   - per-region areas equal the polygons' areas to 1e-9 relative.
 //
 // # Failures
@@ -64,7 +65,8 @@
 // predicates are safe for concurrent use on different data.
 //
 // Triangulate is deterministic: the same Input and Options give the same
-// Mesh, bit for bit, on every run and platform with IEEE-754 float64.
+// Mesh, bit for bit, on every run on one architecture (Go may fuse
+// multiply-adds in Steiner point formulas differently on another).
 //
 // Cost: about 1 microsecond of CPU per output triangle for quality meshes
 // (1,000,000 triangles in about 1 s), memory about 110 bytes per triangle.
