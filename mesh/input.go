@@ -9,7 +9,8 @@ type Input struct {
 	// Seeds claim regions: every triangle reachable from a seed without
 	// crossing a segment gets Seed.Region. A seed with a negative Region
 	// marks a hole: its triangles are removed. When two seeds reach the same
-	// area the first wins; seeds outside the outer boundary are ignored.
+	// area the first wins; seeds outside the outer boundary are ignored; a
+	// seed exactly on a segment claims one of its sides.
 	Seeds []Seed
 	// DefaultRegion is the region of triangles inside the outer boundary
 	// that no seed reaches.

@@ -205,6 +205,11 @@ func TestTriangulateDegenerate(t *testing.T) {
 	if _, err := Triangulate(nan, Options{}); !errors.As(err, &ie) {
 		t.Errorf("NaN: got %v, want *InputError", err)
 	}
+	nanSeed := polyInput(boxPoly(0, 0, 1, 1))
+	nanSeed.Seeds = []Seed{{math.Inf(1), 0, 1}}
+	if _, err := Triangulate(nanSeed, Options{}); !errors.As(err, &ie) {
+		t.Errorf("infinite seed: got %v, want *InputError", err)
+	}
 }
 
 // TestTriangulateSmallAngles meshes wedges with input angles from 5 to 60

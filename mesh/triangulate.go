@@ -1,6 +1,7 @@
 package mesh
 
 import (
+	"fmt"
 	"math"
 	"slices"
 )
@@ -52,6 +53,11 @@ func Triangulate(in *Input, opt Options) (*Mesh, error) {
 		}
 		if math.Abs(in.X[i]) > 1e60 || math.Abs(in.Y[i]) > 1e60 {
 			return nil, &InputError{Reason: "coordinate magnitude above 1e60 m (exact predicates would overflow)", Vertex: i}
+		}
+	}
+	for i, s := range in.Seeds {
+		if math.IsNaN(s.X) || math.IsInf(s.X, 0) || math.IsNaN(s.Y) || math.IsInf(s.Y, 0) {
+			return nil, &InputError{Reason: fmt.Sprintf("seed %d is not finite", i), Vertex: -1}
 		}
 	}
 	if n < 3 {
