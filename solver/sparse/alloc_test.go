@@ -60,6 +60,13 @@ func TestMisusePanics(t *testing.T) {
 		"triplet add":  func() { sparse.NewTriplet(2, 0).Add(2, 0, 1) },
 		"elements":     func() { sparse.PatternFromElements(4, []int32{0, 1}, 3) },
 		"kind":         func() { sparse.New(sparse.Kind(99), 3) },
+		"unsymmetric": func() {
+			t := sparse.NewTriplet(2, 3)
+			t.Add(0, 0, 1)
+			t.Add(1, 1, 1)
+			t.Add(0, 1, 1)
+			(&sparse.Cholesky{}).Analyze(t.ToCSR())
+		},
 	}
 	for name, f := range cases {
 		func() {

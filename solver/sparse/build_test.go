@@ -62,7 +62,7 @@ func TestPatternFromElements(t *testing.T) {
 			if !equalPattern(got, want) {
 				t.Errorf("npe=%d n=%d: pattern differs from brute force (nnz %d vs %d)", npe, n, got.NNZ(), want.NNZ())
 			}
-			if !got.IsSymmetric(0) {
+			if !got.IsSymmetric(0) || !got.IsStructurallySymmetric() {
 				t.Errorf("npe=%d n=%d: pattern not symmetric", npe, n)
 			}
 		}
@@ -185,6 +185,34 @@ func TestMatrixMarketRoundTrip(t *testing.T) {
 	} {
 		if _, err := sparse.ReadMatrixMarket(bytes.NewBufferString(in)); err == nil {
 			t.Errorf("ReadMatrixMarket accepted %q", in)
+		}
+	}
+}
+
+func TestIsStructurallySymmetric(t *testing.T) {
+	cases := []struct {
+		entries [][2]int
+		want    bool
+	}{
+		{nil, true},
+		{[][2]int{{0, 0}, {1, 1}, {2, 2}}, true},
+		{[][2]int{{0, 2}, {2, 0}, {1, 2}, {2, 1}}, true},
+		{[][2]int{{0, 2}}, false},
+		{[][2]int{{2, 0}}, false},
+		{[][2]int{{0, 1}, {1, 0}, {0, 2}, {2, 1}}, false},
+		{[][2]int{{1, 0}, {1, 2}, {0, 1}}, false},
+	}
+	for k, c := range cases {
+		tr := sparse.NewTriplet(3, len(c.entries))
+		for _, e := range c.entries {
+			tr.Add(e[0], e[1], 1)
+		}
+		a := tr.ToCSR()
+		if got := a.IsStructurallySymmetric(); got != c.want {
+			t.Errorf("case %d %v: got %v, want %v", k, c.entries, got, c.want)
+		}
+		if got := a.IsSymmetric(0); got != c.want {
+			t.Errorf("case %d %v: IsSymmetric %v, want %v", k, c.entries, got, c.want)
 		}
 	}
 }

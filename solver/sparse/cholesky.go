@@ -68,6 +68,9 @@ func (ch *Cholesky) Analyze(a *CSR) error {
 	if len(a.RowPtr) != a.N+1 {
 		panic(errBadCSR)
 	}
+	if !a.IsStructurallySymmetric() {
+		panic(errUnsymmetric)
+	}
 	workers := ch.Options.Workers
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
@@ -277,9 +280,8 @@ func (ch *Cholesky) SolveTo(x, b []float64) (Result, error) {
 	for k, o := range s.perm {
 		r[o] = y[k]
 	}
-	if s.n > 0 {
-		ch.a.MulVecTo(ax, r)
-	}
+	// Serial product: a few ms even at 1M unknowns, and allocation-free.
+	ch.a.mulRows(ax, r, 0, s.n)
 	rn := 0.0
 	for i := range ax {
 		d := b[i] - ax[i]

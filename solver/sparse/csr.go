@@ -179,6 +179,9 @@ func (a *CSR) Check() error {
 // IsSymmetric reports whether the pattern is structurally symmetric and
 // |a_ij - a_ji| <= tol*max(|a_ij|,|a_ji|) for every stored entry.
 func (a *CSR) IsSymmetric(tol float64) bool {
+	if !a.IsStructurallySymmetric() {
+		return false
+	}
 	for i := 0; i < a.N; i++ {
 		for k := a.RowPtr[i]; k < a.RowPtr[i+1]; k++ {
 			j := int(a.Col[k])
@@ -239,4 +242,31 @@ func (a *CSR) Submatrix(keep []bool) (*CSR, []int32) {
 		}
 	}
 	return b, old
+}
+
+// IsStructurallySymmetric reports whether (j,i) is in the pattern for every
+// stored (i,j). It runs in O(NNZ) time with one pass and N extra ints.
+func (a *CSR) IsStructurallySymmetric() bool {
+	next := make([]int, a.N) // next unmatched entry of each row, left of the diagonal
+	copy(next, a.RowPtr[:a.N])
+	for i := 0; i < a.N; i++ {
+		for k := a.RowPtr[i]; k < a.RowPtr[i+1]; k++ {
+			j := int(a.Col[k])
+			if j <= i {
+				continue
+			}
+			// Row j must hold (j,i) as its next entry left of the diagonal.
+			p := next[j]
+			if p >= a.RowPtr[j+1] || int(a.Col[p]) != i {
+				return false
+			}
+			next[j]++
+		}
+	}
+	for j := 0; j < a.N; j++ {
+		if p := next[j]; p < a.RowPtr[j+1] && int(a.Col[p]) < j {
+			return false // (j,i) with i < j has no partner (i,j)
+		}
+	}
+	return true
 }

@@ -12,6 +12,7 @@ const (
 	errBadCSR      = "sparse: malformed CSR"
 	errNodes       = "sparse: element connectivity length is not a multiple of nodesPerElem"
 	errKind        = "sparse: unknown solver kind"
+	errUnsymmetric = "sparse: matrix pattern is not structurally symmetric (store both triangles)"
 )
 
 // NotPositiveDefiniteError reports a pivot that is not positive (or not

@@ -87,18 +87,9 @@ type graph struct {
 func newGraph(a *CSR) *graph {
 	n := a.N
 	g := &graph{n: n, ptr: make([]int, n+1)}
-	// Count entries of A + A^T off the diagonal; assume structural symmetry
-	// first and check it, falling back to an explicit union.
-	sym := true
-	for i := 0; i < n && sym; i++ {
-		for k := a.RowPtr[i]; k < a.RowPtr[i+1]; k++ {
-			j := int(a.Col[k])
-			if j != i && a.Index(j, i) < 0 {
-				sym = false
-				break
-			}
-		}
-	}
+	// Use the pattern directly when it is structurally symmetric,
+	// otherwise the union of the pattern and its transpose.
+	sym := a.IsStructurallySymmetric()
 	if !sym {
 		t := NewTriplet(n, 2*a.NNZ())
 		for i := 0; i < n; i++ {

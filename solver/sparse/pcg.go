@@ -85,6 +85,9 @@ func (s *PCG) Analyze(a *CSR) error {
 	if len(a.RowPtr) != a.N+1 {
 		panic(errBadCSR)
 	}
+	if !a.IsStructurallySymmetric() {
+		panic(errUnsymmetric)
+	}
 	n := a.N
 	s.n, s.nnzA = n, a.NNZ()
 	s.lPtr = make([]int, n+1)
