@@ -82,6 +82,14 @@ type Result struct {
 	CurvePoints     int     `json:"curve_points"`
 	CurveIterations int     `json:"curve_newton_iterations"` // all points together
 
+	// Process CPU time (user + system, all threads) of the same stages,
+	// medians: less sensitive to the machine's load than the wall time.
+	MeshCPU      float64 `json:"mesh_cpu_s"`
+	LinearCPU    float64 `json:"linear_cpu_s"`
+	PCGCPU       float64 `json:"pcg_cpu_s"`
+	NonlinearCPU float64 `json:"nonlinear_cpu_s"`
+	CurveCPU     float64 `json:"curve_cpu_s"`
+
 	// Memory, from the start of the case to the end of the nonlinear
 	// solve: the Go heap's peak above its level at the start (see the
 	// package doc), the process's peak resident set (0 where unknown) and
@@ -124,17 +132,20 @@ func Run(ctx context.Context, cases []Case, opt Options) (*Table, error) {
 	return t, nil
 }
 
-// stage runs f repeat times and returns the median wall time.
-func stage(repeat int, f func() error) (float64, error) {
+// stage runs f repeat times and returns the median wall time and the
+// median process CPU time (s).
+func stage(repeat int, f func() error) (wall, cpu float64, err error) {
 	ts := make([]float64, 0, repeat)
+	cs := make([]float64, 0, repeat)
 	for i := 0; i < repeat; i++ {
-		start := time.Now()
+		start, c0 := time.Now(), cpuSeconds()
 		if err := f(); err != nil {
-			return 0, err
+			return 0, 0, err
 		}
 		ts = append(ts, time.Since(start).Seconds())
+		cs = append(cs, cpuSeconds()-c0)
 	}
-	return median(ts), nil
+	return median(ts), median(cs), nil
 }
 
 func median(x []float64) float64 {
@@ -193,7 +204,7 @@ func runCase(ctx context.Context, c Case, h float64, opt Options) (Result, error
 		return Result{}, err
 	}
 	var d *prepare.Discretization
-	r.Mesh, err = stage(opt.Repeat, func() error {
+	r.Mesh, r.MeshCPU, err = stage(opt.Repeat, func() error {
 		d = nil
 		var err error
 		d, err = prepare.Discretize(m)
@@ -217,7 +228,7 @@ func runCase(ctx context.Context, c Case, h float64, opt Options) (Result, error
 		return Result{}, err
 	}
 	var asm, ana, fac, sol []float64
-	r.Linear, err = stage(opt.Repeat, func() error {
+	r.Linear, r.LinearCPU, err = stage(opt.Repeat, func() error {
 		ch := &sparse.Cholesky{}
 		s, err := solver.Solve(lp, solver.Options{Solver: ch})
 		if err != nil {
@@ -241,7 +252,7 @@ func runCase(ctx context.Context, c Case, h float64, opt Options) (Result, error
 	if err := progress("pcg"); err != nil {
 		return Result{}, err
 	}
-	r.PCG, err = stage(opt.Repeat, func() error {
+	r.PCG, r.PCGCPU, err = stage(opt.Repeat, func() error {
 		s, err := solver.Solve(lp, solver.Options{Method: solver.Iterative, LinearTol: PCGTol})
 		if err != nil {
 			return err
@@ -258,7 +269,7 @@ func runCase(ctx context.Context, c Case, h float64, opt Options) (Result, error
 		return Result{}, err
 	}
 	var parts []solver.Timings
-	r.Nonlinear, err = stage(opt.Repeat, func() error {
+	r.Nonlinear, r.NonlinearCPU, err = stage(opt.Repeat, func() error {
 		s, err := solver.Solve(p, solver.Options{Solver: &sparse.Cholesky{}, Tol: 1e-8})
 		if err != nil {
 			return err
@@ -311,7 +322,7 @@ func curve(ctx context.Context, m *models.Model, n int, r *Result) error {
 	}
 	i0 := run.BaseCurrent()
 	currents := sweep.Range(0.1*i0, 2*i0, n)
-	start := time.Now()
+	start, c0 := time.Now(), cpuSeconds()
 	for _, i := range currents {
 		if err := ctx.Err(); err != nil {
 			return err
@@ -323,6 +334,7 @@ func curve(ctx context.Context, m *models.Model, n int, r *Result) error {
 		r.CurveIterations += pt.Iterations
 	}
 	r.Curve = time.Since(start).Seconds()
+	r.CurveCPU = cpuSeconds() - c0
 	r.CurvePoints = n
 	return nil
 }
