@@ -16,7 +16,8 @@ type saturating struct{ MuI, Bs float64 }
 func (s saturating) Nu(b2 float64) (float64, float64) {
 	nu0 := 1 / mu0
 	b8 := b2 * b2 * b2 * b2
-	s8 := math.Pow(s.Bs, 8)
+	s2 := s.Bs * s.Bs
+	s8 := s2 * s2 * s2 * s2
 	f := b8 / (b8 + s8)
 	df := 4 * b2 * b2 * b2 * s8 / ((b8 + s8) * (b8 + s8))
 	return nu0 * (1/s.MuI + (1-1/s.MuI)*f), nu0 * (1 - 1/s.MuI) * df

@@ -32,6 +32,9 @@ type Solution struct {
 	Converged bool
 	// Iterations is the number of Newton steps (1 for a linear problem).
 	Iterations int
+	// ResidualEvaluations counts the residual-only assemblies of the line
+	// searches (one per Newton step when no damping was needed).
+	ResidualEvaluations int
 	// FixedPointSteps counts the damped fixed-point steps taken where
 	// Newton stalled (0 normally).
 	FixedPointSteps int
