@@ -105,6 +105,13 @@ type Problem struct {
 	Fixed []NodeValue
 }
 
+// Check reports the first inconsistency of the problem as a
+// *ProblemError: mesh arrays of the wrong length, indices out of range,
+// triangles that are not counter-clockwise, regions without a material,
+// non-finite data, negative radii in an axisymmetric model. Solve runs it
+// first. It panics if p or p.Mesh is nil.
+func (p *Problem) Check() error { return p.validate() }
+
 // validate checks the problem and panics on programmer misuse (nil mesh)
 // and returns a *ProblemError for inconsistent data.
 func (p *Problem) validate() error {
