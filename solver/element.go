@@ -39,11 +39,16 @@ type P1 struct{}
 
 var p1Nodes = [3][2]float64{{0, 0}, {1, 0}, {0, 1}}
 
-func (P1) Degree() int   { return 1 }
+// Degree returns the polynomial degree.
+func (P1) Degree() int { return 1 }
+
+// NumNodes returns the number of basis functions.
 func (P1) NumNodes() int { return 3 }
 
+// RefNode returns the reference coordinates of local node i.
 func (P1) RefNode(i int) (xi, eta float64) { return p1Nodes[i][0], p1Nodes[i][1] }
 
+// EvalTo fills the values and reference gradients at (xi, eta); see Element.
 func (P1) EvalTo(val []float64, grad [][2]float64, xi, eta float64) {
 	if val != nil {
 		_ = val[2]
@@ -65,11 +70,16 @@ type P2 struct{}
 
 var p2Nodes = [6][2]float64{{0, 0}, {1, 0}, {0, 1}, {0.5, 0.5}, {0, 0.5}, {0.5, 0}}
 
-func (P2) Degree() int   { return 2 }
+// Degree returns the polynomial degree.
+func (P2) Degree() int { return 2 }
+
+// NumNodes returns the number of basis functions.
 func (P2) NumNodes() int { return 6 }
 
+// RefNode returns the reference coordinates of local node i.
 func (P2) RefNode(i int) (xi, eta float64) { return p2Nodes[i][0], p2Nodes[i][1] }
 
+// EvalTo fills the values and reference gradients at (xi, eta); see Element.
 func (P2) EvalTo(val []float64, grad [][2]float64, xi, eta float64) {
 	l := [3]float64{1 - xi - eta, xi, eta}
 	// dL/d(ξ,η)

@@ -22,6 +22,7 @@ type ProblemError struct {
 	Reason string
 }
 
+// Error implements error.
 func (e *ProblemError) Error() string { return "solver: problem." + e.Field + ": " + e.Reason }
 
 // SingularError reports a system without a unique solution: a part of the
@@ -33,6 +34,7 @@ type SingularError struct {
 	Example int32 // one node of it
 }
 
+// Error implements error.
 func (e *SingularError) Error() string {
 	return fmt.Sprintf("solver: singular system: %d nodes (node %d among them) form a part whose potential is fixed nowhere; give it a zero-potential boundary edge or a fixed node", e.Nodes, e.Example)
 }
@@ -45,6 +47,7 @@ type MaterialError struct {
 	DNu    float64
 }
 
+// Error implements error.
 func (e *MaterialError) Error() string {
 	return fmt.Sprintf("solver: material of region %d returned ν = %g, dν/db² = %g at |B|² = %g T²; ν must be finite and positive", e.Region, e.Nu, e.DNu, e.B2)
 }
@@ -56,6 +59,7 @@ type LinearSolveError struct {
 	Err    error
 }
 
+// Error implements error.
 func (e *LinearSolveError) Error() string {
 	if e.Err != nil {
 		return fmt.Sprintf("solver: linear %s failed: %v", e.Stage, e.Err)
@@ -63,6 +67,7 @@ func (e *LinearSolveError) Error() string {
 	return fmt.Sprintf("solver: linear %s failed: status %d after %d iterations, residual %g", e.Stage, e.Result.Status, e.Result.Iterations, e.Result.Residual)
 }
 
+// Unwrap returns the linear solver's error.
 func (e *LinearSolveError) Unwrap() error { return e.Err }
 
 // NotConvergedError reports a Newton-Raphson run that did not meet its
@@ -75,6 +80,7 @@ type NotConvergedError struct {
 	Reason     string
 }
 
+// Error implements error.
 func (e *NotConvergedError) Error() string {
 	return fmt.Sprintf("solver: Newton-Raphson did not converge after %d iterations (relative residual %.3g, update %.3g): %s", e.Iterations, e.Residual, e.Update, e.Reason)
 }

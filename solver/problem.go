@@ -25,6 +25,7 @@ const (
 	Axisymmetric
 )
 
+// String returns the formulation's name.
 func (f Formulation) String() string {
 	switch f {
 	case Planar:
@@ -46,6 +47,7 @@ const (
 	FluxNormal
 )
 
+// String returns the condition's name.
 func (c Condition) String() string {
 	switch c {
 	case ZeroPotential:
