@@ -106,6 +106,13 @@ func TestZeroAndSingular(t *testing.T) {
 	if !errors.As(err, &me) {
 		t.Errorf("NaN material: got %v, want *MaterialError", err)
 	}
+	// A non-finite warm start is a problem error, not a NaN solution.
+	bad := make([]float64, m.NumNodes())
+	bad[3] = math.NaN()
+	if _, err := Solve(&Problem{Mesh: m, Materials: []Material{linear{1}}, CurrentDensity: []float64{1}},
+		Options{Initial: bad}); !errors.As(err, new(*ProblemError)) {
+		t.Errorf("NaN warm start: got %v, want *ProblemError", err)
+	}
 	// A clockwise triangle is a problem error.
 	cw := rectMesh(2, 2, 0, 1, 0, 1, 1, nil)
 	cw.Tri[1], cw.Tri[2] = cw.Tri[2], cw.Tri[1]

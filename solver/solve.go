@@ -116,6 +116,11 @@ func (pr *Prepared) Solve(opt Options) (*Solution, error) {
 	if opt.Initial != nil && len(opt.Initial) != p.Mesh.NumNodes() {
 		panic(errInitialLen)
 	}
+	for i, a := range opt.Initial {
+		if !finite(a) {
+			return nil, &ProblemError{Field: "Options.Initial", Reason: fmt.Sprintf("node %d: %g", i, a)}
+		}
+	}
 	if len(p.Fixed) != len(pr.fixed) {
 		panic(errFixedChanged)
 	}
