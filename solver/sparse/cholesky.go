@@ -54,6 +54,7 @@ type Cholesky struct {
 	inTop    bool
 	job      splitJob
 	helperFn func()
+	pool     *pool
 }
 
 type cholWork struct {
@@ -97,6 +98,9 @@ func (ch *Cholesky) Analyze(a *CSR) error {
 	}
 	ch.errs = make([]error, nw)
 	ch.helperFn = func() { ch.runJob(); ch.wg.Done() }
+	if len(s.tasks) > 0 {
+		ch.pool = poolFor(ch, ch.pool, len(s.tasks))
+	}
 	ch.workerFns = ch.workerFns[:0]
 	for w := range s.tasks {
 		ch.workerFns = append(ch.workerFns, func() { ch.runTasks(w) })
@@ -136,7 +140,7 @@ func (ch *Cholesky) Factor(a *CSR) error {
 	}
 	ch.wg.Add(len(s.tasks))
 	for _, fn := range ch.workerFns {
-		go fn() // func values made in Analyze: starting them allocates nothing
+		ch.pool.run(fn)
 	}
 	ch.wg.Wait()
 	for _, err := range ch.errs {

@@ -56,7 +56,7 @@ func (ch *Cholesky) factorSuperPar(t int, lt []float64, m, nc int) error {
 	h := splitCols(m, 0, nc)
 	ch.job = splitJob{update: true, t: t, c0: h, c1: nc}
 	ch.wg.Add(1)
-	go ch.helperFn()
+	ch.pool.run(ch.helperFn)
 	ch.updateCols(t, ch.work[0].rel, ch.work[0].c, 0, h)
 	ch.wg.Wait()
 	for k0 := 0; k0 < nc; k0 += panelBlock {
@@ -74,7 +74,7 @@ func (ch *Cholesky) factorSuperPar(t int, lt []float64, m, nc int) error {
 		}
 		ch.job = splitJob{t: t, lt: lt, m: m, k0: k0, k1: k1, c0: h, c1: nc}
 		ch.wg.Add(1)
-		go ch.helperFn()
+		ch.pool.run(ch.helperFn)
 		trailingCols(lt, m, k0, k1, k1, h)
 		ch.wg.Wait()
 	}

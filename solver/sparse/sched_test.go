@@ -1,7 +1,9 @@
 package sparse
 
 import (
+	"runtime"
 	"testing"
+	"time"
 )
 
 func grid5(m int) *CSR {
@@ -86,4 +88,43 @@ func TestColCountsGNP(t *testing.T) {
 			}
 		}
 	}
+}
+
+// TestParallelFactorAllocs checks that a parallel refactor, with worker
+// subtrees and top supernode splits, allocates nothing (the goroutines
+// come from the solver's pool).
+func TestParallelFactorAllocs(t *testing.T) {
+	old := parallelSuperWork
+	parallelSuperWork = 0
+	defer func() { parallelSuperWork = old }()
+	a := grid5(90)
+	c := &Cholesky{Options: CholeskyOptions{Workers: 2}}
+	c.Analyze(a)
+	if len(c.sym.tasks) == 0 {
+		t.Fatal("no parallel schedule")
+	}
+	c.Factor(a)
+	if n := testing.AllocsPerRun(10, func() { c.Factor(a) }); n != 0 {
+		t.Errorf("parallel Factor allocates %v times per run", n)
+	}
+}
+
+// TestPoolCleanup drops solvers with pools and checks that their
+// goroutines end.
+func TestPoolCleanup(t *testing.T) {
+	a := grid5(90)
+	before := runtime.NumGoroutine()
+	for k := 0; k < 20; k++ {
+		c := &Cholesky{Options: CholeskyOptions{Workers: 2}}
+		c.Analyze(a)
+		c.Factor(a)
+	}
+	for try := 0; try < 100; try++ {
+		runtime.GC()
+		time.Sleep(10 * time.Millisecond)
+		if runtime.NumGoroutine() <= before+2 {
+			return
+		}
+	}
+	t.Errorf("goroutines: %d before, %d after dropping 20 solvers", before, runtime.NumGoroutine())
 }
