@@ -13,6 +13,7 @@ var commands = []*Command{
 	cmdDemo,
 	cmdSolve,
 	cmdSize,
+	cmdCompare,
 	cmdCheck,
 	cmdSweep,
 	cmdMerge,

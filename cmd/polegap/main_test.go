@@ -199,3 +199,35 @@ func TestDemo(t *testing.T) {
 		t.Errorf("report.html has %d embedded pictures (want 2) or contains NaN", n)
 	}
 }
+
+// TestCompare: the sample current-balance readings (drawn from the bench
+// dipole's prediction with a 41.5 mm gap, see testdata/measured/README.md)
+// reduce and compare within a few per cent of the 40 mm model, with the
+// field below the prediction (a wider gap), and a bad CSV row is reported
+// by number.
+func TestCompare(t *testing.T) {
+	code, out, errs := runCmd(t, "compare", "--json", "bench-dipole", "../../testdata/measured/bench-dipole-balance.yaml")
+	if code != 0 {
+		t.Fatalf("compare: code %d\n%s", code, errs)
+	}
+	var r struct {
+		Comparison struct {
+			RMSRel    float64 `json:"rms_relative"`
+			Residuals []struct{ Residual float64 }
+		}
+	}
+	if err := json.Unmarshal([]byte(out), &r); err != nil {
+		t.Fatal(err)
+	}
+	// A 1.5 mm wider gap lowers the field by about 1.5/41.5 = 3.6 % in the
+	// linear range (ideal magnetic circuit): expect an RMS of 1-6 %.
+	if rr := r.Comparison.RMSRel; rr < 0.01 || rr > 0.06 {
+		t.Errorf("RMS relative residual %g, want 1-6 %%", rr)
+	}
+	bad := filepath.Join(t.TempDir(), "bad.csv")
+	os.WriteFile(bad, []byte("current_A,field_T\n10,0.1\n20,abc\n30,0.3\n"), 0o644)
+	code, _, errs = runCmd(t, "compare", "bench-dipole", bad)
+	if code != 1 || !strings.Contains(errs, "row") {
+		t.Errorf("bad CSV: code %d, stderr %q", code, errs)
+	}
+}

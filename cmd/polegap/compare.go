@@ -1,0 +1,95 @@
+package main
+
+import (
+	"context"
+	"flag"
+	"io"
+	"os"
+	"os/signal"
+
+	"gonum.org/v1/plot/vg"
+
+	"polegap/internal/fileout"
+	"polegap/post/compare"
+	"polegap/post/measure"
+	"polegap/post/plot"
+)
+
+var cmdCompare = &Command{
+	UsageLine: "compare [--fit gap|iron|turns] [--turns-area NA] [--coil NAME] [--probe NAME] [--png FILE] [--csv FILE] [--json] MODEL MEASURED",
+	Short:     "compare a measured excitation curve with the prediction, and calibrate",
+	Long: `Compare reads a measured excitation curve and solves the model at the
+measured coil currents, then reports the residuals (measured minus
+predicted, absolute and relative, their RMS and maximum).
+
+MEASURED is a plain CSV with a header row (coil current and field, e.g.
+"current_A,field_T", optionally an uncertainty column "sigma_T"; mT and G
+are converted; or "current_A,flux_Wb" for search-coil flux-linkage
+readings, which need --turns-area), or a raw-readings file in polegap's
+measured-data format (current balance or search coil readings with their
+instrument constants, reduced to B with uncertainties; see
+post/measure/FORMAT.md).
+
+--fit calibrates one model parameter to the measurement: the gap length,
+a scale on the iron's permeability, or the coil's turns, and reports the
+fitted value with its standard uncertainty and whether the change is
+plausible for a built magnet. --png draws both curves with the measured
+points' error bars; --csv writes the residual table.`,
+	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
+		fit := fs.String("fit", "", "calibrate this parameter: gap, iron or turns")
+		na := fs.Float64("turns-area", 0, "search-coil turns × area (m²) for flux-linkage curves")
+		coilName := fs.String("coil", "", "the coil whose current was measured (default the first)")
+		probe := fs.String("probe", "", "the probe where the field was measured (default the target's)")
+		png := fs.String("png", "", "draw the comparison to this .png or .svg file")
+		csvOut := fs.String("csv", "", "write the residuals to this CSV file")
+		asJSON := fs.Bool("json", false, "print the result as JSON")
+		return func(env *Env, args []string) error {
+			if len(args) != 2 {
+				return usagef("compare needs MODEL and MEASURED")
+			}
+			m, err := loadModel(args[0])
+			if err != nil {
+				return err
+			}
+			curve, err := measure.Load(args[1])
+			if err != nil {
+				return err
+			}
+			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
+			defer stop()
+			opt := compare.Options{Coil: *coilName, Probe: *probe, TurnsArea: *na}
+			out := struct {
+				Model    string          `json:"model"`
+				Measured string          `json:"measured"`
+				Result   *compare.Result `json:"comparison"`
+				Fit      *compare.Fit    `json:"calibration,omitempty"`
+			}{Model: m.Name, Measured: args[1]}
+			if out.Result, err = compare.Compare(ctx, m, curve, opt); err != nil {
+				return err
+			}
+			if *fit != "" {
+				if out.Fit, err = compare.Calibrate(ctx, m, curve, compare.Parameter(*fit), opt); err != nil {
+					return err
+				}
+			}
+			if *png != "" {
+				p, err := compare.Figure(m.Name+": measured and predicted", out.Result, out.Fit)
+				if err != nil {
+					return err
+				}
+				if err := plot.Save(p, 16*vg.Centimeter, 11*vg.Centimeter, *png); err != nil {
+					return err
+				}
+			}
+			if *csvOut != "" {
+				if err := fileout.Write(*csvOut, func(w io.Writer) error { return compare.WriteCSV(w, out.Result) }); err != nil {
+					return err
+				}
+			}
+			if *asJSON {
+				return writeJSON(env.Stdout, out)
+			}
+			return compare.WriteText(env.Stdout, m.Name, args[1], out.Result, out.Fit)
+		}
+	},
+}
