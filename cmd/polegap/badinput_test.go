@@ -219,7 +219,7 @@ func TestNotConvergedCLI(t *testing.T) {
 // temporary file and a rename (internal/fileout); when the write fails the
 // run exits 1 and leaves neither the file nor the temporary behind.
 func TestFailedWriteLeavesNothing(t *testing.T) {
-	model := filepath.Join(badDir, "..", "..", "testdata", "bad", "unreachable-field.yaml")
+	model := filepath.Join(badDir, "unreachable-field.yaml")
 	t.Run("missing folder", func(t *testing.T) {
 		dir := t.TempDir()
 		target := filepath.Join(dir, "no-such-dir", "x.vtu")
