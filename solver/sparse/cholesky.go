@@ -298,7 +298,7 @@ func (ch *Cholesky) SolveTo(x, b []float64) (Result, error) {
 	res := Result{Status: Converged, Residual: math.Sqrt(rn) / bn}
 	if math.IsNaN(res.Residual) || math.IsInf(res.Residual, 0) {
 		res.Status = Breakdown
-		return res, &NotPositiveDefiniteError{Column: -1, Pivot: math.NaN()}
+		return res, nonFinite(b, x)
 	}
 	return res, nil
 }
@@ -372,4 +372,19 @@ func (ch *Cholesky) Perm() []int32 {
 		return nil
 	}
 	return ch.sym.perm
+}
+
+// nonFinite names the first non-finite entry of b, else of x.
+func nonFinite(b, x []float64) error {
+	for i, v := range b {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return &NonFiniteError{Vector: "right-hand side", Index: i}
+		}
+	}
+	for i, v := range x {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return &NonFiniteError{Vector: "solution", Index: i}
+		}
+	}
+	return &NonFiniteError{Vector: "residual", Index: -1}
 }

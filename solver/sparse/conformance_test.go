@@ -237,6 +237,24 @@ func testSolver(t *testing.T, sc solverCase) {
 		}
 	}
 
+	// A NaN in the right-hand side is reported, never returned as a
+	// converged solution.
+	{
+		a := gridSystem(6, 0)
+		b := make([]float64, a.N)
+		b[3] = math.NaN()
+		s := sc.new()
+		s.Analyze(a)
+		s.Factor(a)
+		res, err := s.SolveTo(make([]float64, a.N), b)
+		var nf *sparse.NonFiniteError
+		if !errors.As(err, &nf) || res.Status == sparse.Converged {
+			t.Errorf("%s NaN rhs: status %v err %v, want *NonFiniteError", sc.name, res.Status, err)
+		} else if nf.Index != 3 {
+			t.Errorf("%s NaN rhs: index %d, want 3", sc.name, nf.Index)
+		}
+	}
+
 	// 1x1 and empty systems.
 	{
 		a := &sparse.CSR{N: 1, RowPtr: []int{0, 1}, Col: []int32{0}, Val: []float64{4}}

@@ -39,6 +39,18 @@ func (e *NotConvergedError) Error() string {
 		e.Result.Iterations, e.Result.Residual, e.Tol, e.Result.Status)
 }
 
+// NonFiniteError reports a NaN or infinite value met during a solve, for
+// example in the right-hand side. Index is the first offending entry of
+// the vector named by Vector, or -1 when only a norm was not finite.
+type NonFiniteError struct {
+	Vector string
+	Index  int
+}
+
+func (e *NonFiniteError) Error() string {
+	return fmt.Sprintf("sparse: %s is not finite (entry %d)", e.Vector, e.Index)
+}
+
 // FormatError reports malformed Matrix Market input.
 type FormatError struct {
 	Line int

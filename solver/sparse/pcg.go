@@ -156,11 +156,12 @@ func (s *PCG) Factor(a *CSR) error {
 	if s.prec() == IC0 {
 		s.shift = 0
 		for try := 0; ; try++ {
-			if s.ic0(a, s.shift) {
+			row, piv := s.ic0(a, s.shift)
+			if row < 0 {
 				break
 			}
 			if try == 12 {
-				return &NotPositiveDefiniteError{Column: -1, Pivot: math.NaN()}
+				return &NotPositiveDefiniteError{Column: row, Pivot: piv}
 			}
 			if s.shift == 0 {
 				s.shift = 1e-3
@@ -184,8 +185,9 @@ func (s *PCG) prec() Preconditioner {
 func (s *PCG) Shift() float64 { return s.shift }
 
 // ic0 computes the incomplete factor of A + shift*diag(A) on A's lower
-// pattern, row by row; it reports false on a non-positive pivot.
-func (s *PCG) ic0(a *CSR, shift float64) bool {
+// pattern, row by row; it returns the row of the first non-positive pivot
+// and that pivot, or -1.
+func (s *PCG) ic0(a *CSR, shift float64) (int, float64) {
 	lv, lc, pos := s.lVal, s.lCol, s.pos
 	for k, src := range s.lSrc {
 		if src >= 0 {
@@ -216,11 +218,11 @@ func (s *PCG) ic0(a *CSR, shift float64) bool {
 			pos[lc[k]] = -1
 		}
 		if !(d > 0) || d > maxFinite {
-			return false
+			return i, d
 		}
 		lv[hi] = math.Sqrt(d)
 	}
-	return true
+	return -1, 0
 }
 
 // applyTo sets z = M^{-1} r.
@@ -300,6 +302,9 @@ func (s *PCG) SolveTo(x, b []float64) (Result, error) {
 	}
 	var res Result
 	bn := math.Sqrt(dot(b, b))
+	if math.IsNaN(bn) || math.IsInf(bn, 0) {
+		return Result{Status: Breakdown, Residual: math.NaN()}, nonFinite(b, nil)
+	}
 	if bn == 0 {
 		clear(x)
 		return Result{Status: Converged}, nil
