@@ -195,6 +195,20 @@ func testSolver(t *testing.T, sc solverCase) {
 		}
 	}
 
+	// A disconnected matrix (three blocks, one a single node): a forest
+	// of elimination trees.
+	{
+		a := blockDiag(gridSystem(9, 0.2), randomSPD(1, 0, rng), randomSPD(70, 2, rng))
+		b := make([]float64, a.N)
+		for i := range b {
+			b[i] = rng.NormFloat64()
+		}
+		_, res := solve(t, sc.name, sc.new(), a, b)
+		if res.Residual > tol {
+			t.Errorf("%s disconnected: residual %.3g > %.3g", sc.name, res.Residual, tol)
+		}
+	}
+
 	// Explicit zeros in the pattern (kept by Triplet.ToCSR).
 	{
 		a0 := randomSPD(30, 2, rng)
