@@ -269,6 +269,24 @@ func testSolver(t *testing.T, sc solverCase) {
 		}
 	}
 
+	// A NaN inside the matrix: Factor or SolveTo fails, never a converged
+	// solve.
+	{
+		a := gridSystem(8, 0.2)
+		a.Val[a.Index(10, 11)] = math.NaN()
+		a.Val[a.Index(11, 10)] = math.NaN()
+		s := sc.new()
+		s.Analyze(a)
+		if err := s.Factor(a); err == nil {
+			b := make([]float64, a.N)
+			b[0] = 1
+			res, err := s.SolveTo(make([]float64, a.N), b)
+			if err == nil || res.Status == sparse.Converged {
+				t.Errorf("%s NaN matrix: status %v err %v, want a failure", sc.name, res.Status, err)
+			}
+		}
+	}
+
 	// 1x1 and empty systems.
 	{
 		a := &sparse.CSR{N: 1, RowPtr: []int{0, 1}, Col: []int32{0}, Val: []float64{4}}
