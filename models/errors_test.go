@@ -23,7 +23,7 @@ func TestErrUnknownKey(t *testing.T) {
 		{"region", edit(t, "    material: steel", "    material: steel\n    meshsize: 3"), `m.yaml:9:5: regions[0].meshsize: unknown key "meshsize" in a region; did you mean "mesh-size"?`},
 		{"side", edit(t, "sense: +1", "sens: +1"), `m.yaml:17:30: coils[0].sides[0].sens: unknown key "sens" in a coil side; did you mean "sense"?`},
 		{"material", edit(t, "{mu-r: 1000}", "{mur: 1000}"), `m.yaml:5:11: materials.steel.mur: unknown key "mur" in a material; did you mean "mu-r"?`},
-		{"far off", edit(t, "depth: 100", "depth: 100\ncolour: red"), `m.yaml:4:1: colour: unknown key "colour" in the model; known keys are name, description, geometry, units, depth, gap, template, dimensions, materials, regions, coils, boundary, mesh, probes or target`},
+		{"far off", edit(t, "depth: 100", "depth: 100\ncolour: red"), `m.yaml:4:1: colour: unknown key "colour" in the model; known keys are name, description, geometry, units, depth, gap, template, dimensions, materials, regions, coils, boundary, mesh, probes, target or forces`},
 		{"duplicate", edit(t, "depth: 100", "depth: 100\ndepth: 50"), `m.yaml:4:1: depth: duplicate key "depth" (first at line 3); keep one`},
 	})
 }

@@ -87,6 +87,7 @@ func ExampleExamples() {
 	// Output:
 	// bench-dipole
 	// calibration-solenoid
+	// holding-magnet
 	// mineral-separator
 	// relaxometry-magnet
 }

@@ -75,6 +75,7 @@ type Model struct {
 	Mesh      MeshControls
 	Probes    []Probe
 	Target    *Target // nil when the model sets no target
+	Forces    []Part  // parts whose force is reported
 }
 
 // Material is a named material definition. Exactly one of Curve, Table,

@@ -19,7 +19,7 @@ var (
 )
 
 var topKeys = []string{"name", "description", "geometry", "units", "depth", "gap", "template", "dimensions",
-	"materials", "regions", "coils", "boundary", "mesh", "probes", "target"}
+	"materials", "regions", "coils", "boundary", "mesh", "probes", "target", "forces"}
 
 // Load reads and parses the model file at path.
 func Load(path string) (*Model, error) {
@@ -149,6 +149,9 @@ func (d *decoder) parse(data []byte) *Model {
 	}
 	if n := top.get("target"); n != nil {
 		d.target(m, n)
+	}
+	if n := top.get("forces"); n != nil {
+		d.forces(m, n)
 	}
 
 	m.Materials = append(m.Materials,

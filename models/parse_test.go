@@ -19,6 +19,7 @@ func TestExamplesLoad(t *testing.T) {
 		"bench-dipole":         0.040,
 		"calibration-solenoid": 0.020,
 		"relaxometry-magnet":   0.030,
+		"holding-magnet":       0.002, // two 1 mm gaps in series
 	}
 	// The separator's upper pole face is a 40° arc on a 60 mm chord: its
 	// sagitta is R(1 - cos 20°) with R = 30/sin 20°, so the gap at the centre

@@ -2,6 +2,7 @@ package models
 
 import (
 	"math"
+	"strings"
 	"testing"
 )
 
@@ -34,5 +35,30 @@ func TestWithGap(t *testing.T) {
 	m2, _ := LoadExample("bench-dipole")
 	if r, _ := m2.Region("gap"); r.Area() != r0.Area() {
 		t.Error("WithGap changed the original model")
+	}
+}
+
+func TestForcesSection(t *testing.T) {
+	src := `name: f
+geometry: planar
+units: mm
+depth: 10
+regions:
+  - {name: a, material: {mu-r: 1000}, polygon: [[0,0],[10,0],[10,10],[0,10]]}
+forces:
+  pull: {regions: [a]}
+`
+	src = strings.Replace(src, "material: {mu-r: 1000}", "material: iron", 1)
+	src = strings.Replace(src, "regions:\n", "materials:\n  iron: {mu-r: 1000}\nregions:\n", 1)
+	m, err := Parse("f.yaml", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(m.Forces) != 1 || m.Forces[0].Name != "pull" || m.Forces[0].Regions[0] != "a" {
+		t.Errorf("forces = %+v", m.Forces)
+	}
+	_, err = Parse("f.yaml", []byte(strings.Replace(src, "[a]", "[b]", 1)))
+	if err == nil || !strings.Contains(err.Error(), `f.yaml:10:`) || !strings.Contains(err.Error(), `no region named "b"`) {
+		t.Errorf("unknown region in a force part: %v", err)
 	}
 }

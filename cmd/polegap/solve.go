@@ -38,6 +38,7 @@ with status 1; no result is reported for it.`,
 		maxIter := fs.Int("max-iterations", 30, "limit on Newton steps")
 		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png or .svg file")
 		satLimit := fs.String("saturation-limit", "", "flag iron regions whose |B| away from corners exceeds this (e.g. 1.8T)")
+		vw := fs.Bool("virtual-work", false, "also compute the forces on the model's parts by virtual work (more solves)")
 		vtu := fs.String("vtu", "", "write the solution (A, B, |B|, H, μr, region) to this VTK .vtu file")
 		return func(env *Env, args []string) error {
 			if err := oneModel(args); err != nil {
@@ -50,7 +51,7 @@ with status 1; no result is reported for it.`,
 			if err != nil {
 				return err
 			}
-			dopt := report.DesignOptions{Incremental: true}
+			dopt := report.DesignOptions{Incremental: true, VirtualWork: *vw}
 			if *satLimit != "" {
 				if dopt.SaturationLimit, err = models.ParseQuantity(*satLimit, "field"); err != nil {
 					return usagef("--saturation-limit: %v", err)

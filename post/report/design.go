@@ -9,6 +9,7 @@ import (
 	"polegap/mesh"
 	"polegap/models"
 	"polegap/post/circuit"
+	"polegap/post/force"
 	"polegap/post/gap"
 	"polegap/post/prepare"
 	"polegap/post/saturation"
@@ -26,7 +27,17 @@ type Design struct {
 	Coils      []CoilReport      `json:"coils"`
 	Energy     EnergyReport      `json:"energy"`
 	Saturation []SatReport       `json:"saturation"`
+	Forces     []ForceReport     `json:"forces,omitempty"`
 	Notes      []string          `json:"notes,omitempty"`
+}
+
+// ForceReport is the force on one part of the model (N; planar models
+// times their depth, axisymmetric: the axial force in Fy).
+type ForceReport struct {
+	Part        string      `json:"part"`
+	Stress      [2]float64  `json:"maxwell_stress_N"`
+	VirtualWork *[2]float64 `json:"virtual_work_N,omitempty"`
+	Error       string      `json:"error,omitempty"`
 }
 
 // GapReport is the field in the gap.
@@ -105,6 +116,10 @@ type DesignOptions struct {
 	// SaturationLimit (T) flags iron regions whose |B| away from corners
 	// exceeds it; 0 means no check.
 	SaturationLimit float64
+	// VirtualWork adds the force by virtual work (co-energy change with
+	// the part moved ±δ in x and in y: four more meshes and solves per
+	// part) beside the Maxwell-stress force.
+	VirtualWork bool
 }
 
 // NewDesign computes the design quantities of a solved study.
@@ -113,7 +128,53 @@ func NewDesign(s *study.Study, opt DesignOptions) *Design {
 	d.gapQuantities(s)
 	d.coils(s, opt)
 	d.saturation(s, opt)
+	d.forces(s, opt)
 	return d
+}
+
+func (d *Design) forces(s *study.Study, opt DesignOptions) {
+	m := s.Model
+	for _, part := range m.Forces {
+		fr := ForceReport{Part: part.Name}
+		var tags []int32
+		for _, name := range part.Regions {
+			for i := range m.Regions {
+				if m.Regions[i].Name == name {
+					tags = append(tags, prepare.Tag(i))
+				}
+			}
+		}
+		f, err := force.Stress(s.Solution, tags, force.StressOptions{})
+		if err != nil {
+			fr.Error = err.Error()
+			d.Forces = append(d.Forces, fr)
+			continue
+		}
+		fr.Stress = f.F
+		if opt.VirtualWork {
+			// δ: a fiftieth of the smallest mesh size near the part, at most
+			// a thousandth of the model; common practice for central
+			// differences of co-energy on re-meshed models.
+			xmin, _, xmax, _ := m.Extent()
+			delta := math.Min(m.Mesh.Size/50, (xmax-xmin)/1000)
+			var vw [2]float64
+			for k, dir := range [][2]float64{{1, 0}, {0, 1}} {
+				if m.Geometry == models.Axisymmetric && k == 0 {
+					continue
+				}
+				v, err := force.VirtualWork(m, part.Regions, dir, delta, study.Options{})
+				if err != nil {
+					fr.Error = "virtual work: " + err.Error()
+					break
+				}
+				vw[k] = v
+			}
+			if fr.Error == "" {
+				fr.VirtualWork = &vw
+			}
+		}
+		d.Forces = append(d.Forces, fr)
+	}
 }
 
 func (d *Design) note(format string, args ...any) {
@@ -385,6 +446,17 @@ func (d *Design) writeText(ew *errWriter) {
 			}
 			ew.printf("%-16s %8.2f %8.3f %11.1f%% %14.3f %12.3f%s\n", s.Region, s.Knee, s.Mean, 100*s.AboveKnee, s.MaxAway, s.Max, flag)
 		}
+	}
+	for _, f := range d.Forces {
+		if f.Error != "" {
+			ew.printf("force on %s: not computed: %s\n", f.Part, f.Error)
+			continue
+		}
+		ew.printf("force on %-8s Maxwell stress (%.5g, %.5g) N", f.Part, f.Stress[0], f.Stress[1])
+		if f.VirtualWork != nil {
+			ew.printf("; virtual work (%.5g, %.5g) N", f.VirtualWork[0], f.VirtualWork[1])
+		}
+		ew.printf("\n")
 	}
 	for _, n := range d.Notes {
 		ew.printf("note: %s\n", n)
