@@ -19,6 +19,7 @@ var commands = []*Command{
 	cmdMerge,
 	cmdMesh,
 	cmdMaterials,
+	cmdBench,
 	cmdExamples,
 }
 

@@ -10,8 +10,16 @@ Usage:
 
 The commands are:
 
-	demo       run the default embedded model end to end
+	demo       run the whole design job on the default embedded model
+	solve      solve a model and print the field and design quantities
+	size       find the ampere-turns for a target field and a coil that delivers them
+	sweep      compute the excitation curve: gap field against ampere-turns
+	merge      join the tables of a sharded sweep
+	compare    compare a measured excitation curve with the prediction, and calibrate
+	check      check saturation, target field and field quality (exit 0 pass, 1 fail)
 	mesh       mesh a model and print the mesh statistics
+	materials  list the built-in materials, or show and plot B-H curves
+	bench      measure the speed of each stage at 10k, 100k and 1M nodes
 	examples   list the embedded example models, or print one
 
 Use "polegap help <command>" for more about a command. MODEL arguments

@@ -270,3 +270,17 @@ func TestHoldingForce(t *testing.T) {
 		t.Errorf("pull %g N against the ideal %g N", fs, ideal)
 	}
 }
+
+// TestDocListsEveryCommand keeps the manual in doc.go in step with the
+// command table.
+func TestDocListsEveryCommand(t *testing.T) {
+	doc, err := os.ReadFile("doc.go")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range commands {
+		if !strings.Contains(string(doc), "\t"+c.Name()+" ") {
+			t.Errorf("doc.go does not list %q", c.Name())
+		}
+	}
+}
