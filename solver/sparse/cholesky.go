@@ -49,6 +49,8 @@ type Cholesky struct {
 	failed    atomic.Bool
 	wg        sync.WaitGroup
 	workerFns []func()
+	fwdFns    []func()
+	bwdFns    []func()
 
 	// Two-way split of one large supernode in the top of the tree.
 	inTop    bool
@@ -60,6 +62,7 @@ type Cholesky struct {
 type cholWork struct {
 	rel []int32
 	c   []float64
+	acc []float64 // forward-solve contributions to top rows (parallel solve)
 }
 
 // Analyze orders a and computes the symbolic factorization. Only the
@@ -102,8 +105,13 @@ func (ch *Cholesky) Analyze(a *CSR) error {
 		ch.pool = poolFor(ch, ch.pool, len(s.tasks))
 	}
 	ch.workerFns = ch.workerFns[:0]
+	ch.fwdFns = ch.fwdFns[:0]
+	ch.bwdFns = ch.bwdFns[:0]
 	for w := range s.tasks {
 		ch.workerFns = append(ch.workerFns, func() { ch.runTasks(w) })
+		ch.fwdFns = append(ch.fwdFns, func() { ch.solveTasks(w, true) })
+		ch.bwdFns = append(ch.bwdFns, func() { ch.solveTasks(w, false) })
+		ch.work[w].acc = make([]float64, s.n)
 	}
 	ch.y = make([]float64, s.n)
 	ch.r = make([]float64, s.n)
@@ -304,47 +312,122 @@ func (ch *Cholesky) SolveTo(x, b []float64) (Result, error) {
 }
 
 // solvePermuted overwrites y with (L L^T)^{-1} y in the permuted numbering.
+// With a parallel schedule the worker subtrees are solved concurrently:
+// forward contributions to rows of the top supernodes go to per-worker
+// buffers summed before the top is solved; the backward solve of a subtree
+// only reads rows of its own subtree and of the (already solved) top.
 func (ch *Cholesky) solvePermuted(y []float64) {
 	s := ch.sym
-	lx := ch.lx
-	for t := 0; t < s.ns; t++ {
-		f := int(s.super[t])
-		nc := int(s.super[t+1]) - f
-		rows := s.rows[s.rowPtr[t]:s.rowPtr[t+1]]
-		m := len(rows)
-		lt := lx[s.valPtr[t]:s.valPtr[t+1]]
-		for k := 0; k < nc; k++ {
-			col := lt[k*m : k*m+m]
-			v := y[f+k] / col[k]
-			y[f+k] = v
-			if v == 0 {
-				continue
-			}
-			for i := k + 1; i < nc; i++ {
-				y[f+i] -= col[i] * v
-			}
-			for i := nc; i < m; i++ {
-				y[rows[i]] -= col[i] * v
+	if len(s.tasks) == 0 {
+		for t := 0; t < s.ns; t++ {
+			ch.forwardSuper(t, y, nil, int32(s.n))
+		}
+		for t := s.ns - 1; t >= 0; t-- {
+			ch.backwardSuper(t, y)
+		}
+		return
+	}
+	ch.wg.Add(len(s.tasks))
+	for _, fn := range ch.fwdFns {
+		ch.pool.run(fn)
+	}
+	ch.wg.Wait()
+	for _, ws := range ch.work {
+		acc := ws.acc
+		for _, t := range s.top {
+			for r := s.super[t]; r < s.super[t+1]; r++ {
+				y[r] -= acc[r]
+				acc[r] = 0
 			}
 		}
 	}
-	for t := s.ns - 1; t >= 0; t-- {
-		f := int(s.super[t])
-		nc := int(s.super[t+1]) - f
-		rows := s.rows[s.rowPtr[t]:s.rowPtr[t+1]]
-		m := len(rows)
-		lt := lx[s.valPtr[t]:s.valPtr[t+1]]
-		for k := nc - 1; k >= 0; k-- {
-			col := lt[k*m : k*m+m]
-			v := y[f+k]
-			for i := k + 1; i < nc; i++ {
-				v -= col[i] * y[f+i]
+	for _, t := range s.top {
+		ch.forwardSuper(int(t), y, nil, int32(s.n))
+	}
+	for k := len(s.top) - 1; k >= 0; k-- {
+		ch.backwardSuper(int(s.top[k]), y)
+	}
+	ch.wg.Add(len(s.tasks))
+	for _, fn := range ch.bwdFns {
+		ch.pool.run(fn)
+	}
+	ch.wg.Wait()
+}
+
+// solveTasks runs worker w's subtrees forward (into its accumulator for
+// rows at or beyond each subtree's end) or backward.
+func (ch *Cholesky) solveTasks(w int, forward bool) {
+	defer ch.wg.Done()
+	s := ch.sym
+	y := ch.y
+	for _, r := range s.tasks[w] {
+		if forward {
+			lim := s.super[r+1]
+			for t := s.first[r]; t <= r; t++ {
+				ch.forwardSuper(int(t), y, ch.work[w].acc, lim)
 			}
-			for i := nc; i < m; i++ {
-				v -= col[i] * y[rows[i]]
+		} else {
+			for t := r; t >= s.first[r]; t-- {
+				ch.backwardSuper(int(t), y)
 			}
-			y[f+k] = v / col[k]
 		}
+	}
+}
+
+// forwardSuper solves the diagonal block of supernode t and subtracts its
+// contributions from the rows below: rows below lim go to y, rows at or
+// beyond lim (top supernodes) are added to acc.
+func (ch *Cholesky) forwardSuper(t int, y, acc []float64, lim int32) {
+	s := ch.sym
+	f := int(s.super[t])
+	nc := int(s.super[t+1]) - f
+	rows := s.rows[s.rowPtr[t]:s.rowPtr[t+1]]
+	m := len(rows)
+	lt := ch.lx[s.valPtr[t]:s.valPtr[t+1]]
+	split := m
+	if acc != nil {
+		for split > nc && rows[split-1] >= lim {
+			split--
+		}
+	}
+	for k := 0; k < nc; k++ {
+		col := lt[k*m : k*m+m]
+		v := y[f+k] / col[k]
+		y[f+k] = v
+		if v == 0 {
+			continue
+		}
+		for i := k + 1; i < nc; i++ {
+			y[f+i] -= col[i] * v
+		}
+		for i := nc; i < split; i++ {
+			y[rows[i]] -= col[i] * v
+		}
+		for i := split; i < m; i++ {
+			acc[rows[i]] += col[i] * v
+		}
+	}
+}
+
+// backwardSuper solves supernode t's block of L^T x = y given the solved
+// rows below it.
+func (ch *Cholesky) backwardSuper(t int, y []float64) {
+	s := ch.sym
+	f := int(s.super[t])
+	nc := int(s.super[t+1]) - f
+	rows := s.rows[s.rowPtr[t]:s.rowPtr[t+1]]
+	m := len(rows)
+	lt := ch.lx[s.valPtr[t]:s.valPtr[t+1]]
+	for k := nc - 1; k >= 0; k-- {
+		col := lt[k*m : k*m+m]
+		v := y[f+k]
+		for i := k + 1; i < nc; i++ {
+			v -= col[i] * y[f+i]
+		}
+		for i := nc; i < m; i++ {
+			v -= col[i] * y[rows[i]]
+		}
+		y[f+k] = v / col[k]
 	}
 }
 
