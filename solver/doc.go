@@ -42,8 +42,15 @@
 // reduced system stays symmetric positive definite. Problem.Identify joins
 // nodes into one unknown through a DOF map. The sparsity pattern and the
 // map from element entries to matrix positions are built once; every
-// assembly after that is a pure scatter, split over goroutines by row
-// ranges so that no two write the same entry.
+// assembly after that is a pure scatter, split over goroutines that each
+// own a spatial slab of unknowns (rows), so that no two write the same
+// entry.
+//
+// Open boundary (Kelvin transformation, planar): mesh the model inside a
+// circle whose edges carry a marker m, add the exterior disk with
+// mesh.AddKelvinDisk, and set Boundary[m] = FluxNormal, Identify = the
+// disk's Pairs and Fixed = {Infinity: 0}. A net current then returns at
+// infinity, the fixed node.
 //
 // Solve runs Newton-Raphson with the exact tangent
 // K_t = K(ν) + 2 ν'(|B|²) (B·c_i)(B·c_j) and a backtracking line search;
