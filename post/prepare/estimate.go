@@ -100,8 +100,8 @@ type Limits struct {
 
 // Estimate predicts the footprint of meshing m with opt. It integrates the
 // number of equilateral triangles of the local size, 1/(√3/4·h²), over the
-// domain on an adaptive grid of square cells (a cell is split while the
-// size can vary by more than a quarter across it), and scales the result
+// domain on an adaptive grid of cells (a cell is split while the size may
+// vary by more than a factor 3 across it), and scales the result
 // by the quality-refinement factor. It never meshes. maxTriangles > 0 lets
 // it stop as soon as a lower bound on the count exceeds that (Partial).
 func Estimate(m *models.Model, opt mesh.Options, maxTriangles int) (Footprint, error) {
@@ -191,7 +191,11 @@ func (e *TooLargeError) Error() string {
 			r = b
 		}
 		if r > 1 {
-			fix = fmt.Sprintf("enlarge mesh.size (now %s) about %.3g times, or the regions' mesh-size and refine sizes", formatLength(e.Size, e.Units), 1.2*r)
+			how := "about"
+			if fp.Partial {
+				how = "at least"
+			}
+			fix = fmt.Sprintf("enlarge mesh.size (now %s) %s %.3g times, or the regions' mesh-size and refine sizes", formatLength(e.Size, e.Units), how, 1.2*r)
 		}
 	}
 	where := e.File
@@ -351,23 +355,29 @@ func newEstimator(m *models.Model, f *mesh.SizeField, bd *mesh.Polygon) *estimat
 type cell struct{ x0, y0, x1, y1 float64 }
 
 // density returns the number of equilateral triangles of the local size
-// per unit area at the cell's centre, and a lower bound on it over the
-// whole cell (0 unless the whole cell lies in the domain).
-func (e *estimator) density(c cell) (est, low float64) {
+// per unit area at the cell's centre, a lower bound on it over the whole
+// cell (0 unless the whole cell lies in the domain), and whether the size
+// may vary by more than a factor 3 across the cell (so that it should be
+// split).
+func (e *estimator) density(c cell) (est, low float64, split bool) {
 	x, y := 0.5*(c.x0+c.x1), 0.5*(c.y0+c.y1)
 	if !e.dom.contains(x, y) {
-		return 0, 0
+		return 0, 0, false
 	}
 	rad := 0.5 * math.Hypot(c.x1-c.x0, c.y1-c.y0)
-	// An upper bound on h over the cell: the region-free field is
-	// g-Lipschitz; a region's size counts when the cell lies inside it.
-	hi := e.noReg.At(x, y, AirTag) + e.g*rad
+	// Bounds on h over the cell: the region-free field is g-Lipschitz; a
+	// region's size caps both bounds when the cell lies inside the region,
+	// and the lower one when the cell straddles its edge.
+	hn := e.noReg.At(x, y, AirTag)
+	lo, hi := math.Max(hn-e.g*rad, 0), hn+e.g*rad
 	tag := AirTag
 	for k := range e.regions {
 		if e.regions[k].contains(x, y) {
 			tag = e.tags[k]
-			if s := e.f.Region[tag]; s < hi && e.regions[k].dist(x, y) > rad {
-				hi = s
+			s := e.f.Region[tag]
+			lo = math.Min(lo, s)
+			if e.regions[k].dist(x, y) > rad {
+				hi = math.Min(hi, s)
 			}
 			break
 		}
@@ -380,7 +390,7 @@ func (e *estimator) density(c cell) (est, low float64) {
 	if inside && hi < math.Inf(1) {
 		low = 1 / (eq * hi * hi)
 	}
-	return est, low
+	return est, low, hi > 3*lo
 }
 
 // integrate returns the number of equilateral triangles of the local size
@@ -409,13 +419,10 @@ func (e *estimator) integrate(limit float64) (n float64, partial bool) {
 		var pendLow float64
 		for _, c := range level {
 			area := (c.x1 - c.x0) * (c.y1 - c.y0)
-			est, low := e.density(c)
-			x, y := 0.5*(c.x0+c.x1), 0.5*(c.y0+c.y1)
-			rad := 0.5 * math.Hypot(c.x1-c.x0, c.y1-c.y0)
-			hc := e.f.At(x, y, AirTag)
-			// Split while the size may change by more than half across
-			// the cell, within the cell budget.
-			if est > 0 && e.g*rad > 0.5*math.Min(hc, 1/math.Sqrt(0.4330127018922193*est)) && cells+4 <= maxCells {
+			est, low, split := e.density(c)
+			// Split while the size may change by more than a factor 3
+			// across the cell, within the cell budget.
+			if split && cells+4 <= maxCells {
 				xm := 0.5 * (c.x0 + c.x1)
 				ym := 0.5 * (c.y0 + c.y1)
 				next = append(next, cell{c.x0, c.y0, xm, ym}, cell{xm, c.y0, c.x1, ym},

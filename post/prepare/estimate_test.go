@@ -2,6 +2,7 @@ package prepare_test
 
 import (
 	"errors"
+	"fmt"
 	"strings"
 	"testing"
 	"time"
@@ -142,5 +143,28 @@ func TestEstimateMemoryLimit(t *testing.T) {
 func TestAvailableMemory(t *testing.T) {
 	if b := prepare.AvailableMemory(); b <= 0 || b > 1<<50 {
 		t.Errorf("AvailableMemory = %d", b)
+	}
+}
+
+// BenchmarkEstimate: the estimate's cost on bench-dipole at its own mesh
+// size (about 10^4 triangles) and at an eighth of it (about 10^6).
+func BenchmarkEstimate(b *testing.B) {
+	for _, div := range []float64{1, 8} {
+		m, err := models.LoadExample("bench-dipole")
+		if err != nil {
+			b.Fatal(err)
+		}
+		m.Mesh.Size /= div
+		for i := range m.Mesh.Refine {
+			m.Mesh.Refine[i].Size /= div
+		}
+		opt := prepare.Options(m)
+		b.Run(fmt.Sprintf("size/%g", div), func(b *testing.B) {
+			var fp prepare.Footprint
+			for range b.N {
+				fp, _ = prepare.Estimate(m, opt, 0)
+			}
+			b.ReportMetric(float64(fp.Triangles), "triangles")
+		})
 	}
 }
