@@ -191,6 +191,9 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 		s.History = append(s.History, res)
 		s.Iterations = it
 		s.Residual = res
+		if opt.Progress != nil {
+			opt.Progress(it, res)
+		}
 		if !finite(res) {
 			return &NotConvergedError{Iterations: it, History: s.History, Residual: res, Update: upd, Reason: "the residual is not finite"}
 		}

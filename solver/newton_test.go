@@ -127,6 +127,20 @@ func TestNewtonNonlinearRing(t *testing.T) {
 		t.Errorf("the test does not saturate the iron: apparent μr %.0f", mur)
 	}
 
+	// Progress reports every step with the residual of History.
+	var seen []float64
+	if _, err := Solve(p, Options{Progress: func(it int, r float64) {
+		if it != len(seen)+1 {
+			t.Errorf("progress: step %d after %d calls", it, len(seen))
+		}
+		seen = append(seen, r)
+	}}); err != nil {
+		t.Fatal(err)
+	}
+	if len(seen) != s.Iterations || seen[len(seen)-1] != s.Residual {
+		t.Errorf("progress: %d calls ending at %g; solve took %d steps to %g", len(seen), seen[len(seen)-1], s.Iterations, s.Residual)
+	}
+
 	// Warm start from the solution: converged after at most one step.
 	s2, err := Solve(p, Options{Initial: s.A})
 	if err != nil {

@@ -44,6 +44,10 @@ type Options struct {
 	// Workers is the number of goroutines used for assembly; 0 means
 	// GOMAXPROCS.
 	Workers int
+	// Progress, when not nil, is called after each Newton step with the
+	// step number (from 1) and the relative residual reached; it must not
+	// modify the problem.
+	Progress func(iteration int, residual float64)
 }
 
 func (o Options) withDefaults() Options {
