@@ -211,8 +211,8 @@ func (as *assembler) element(t int, w *elemWork, wantK bool) bool {
 
 // assemble writes the residual over the unknowns into r (len d.n) and, if
 // wantK, the tangent into the pattern's matrix values, for the nodal
-// potentials A (fixed nodes at their values). Workers own disjoint row
-// ranges, so no two of them write the same entry.
+// potentials A (fixed nodes at their values). Workers own disjoint
+// slabs of rows, so no two of them write the same entry.
 func (as *assembler) assemble(A, r []float64, wantK bool) error {
 	for i := range r {
 		r[i] = 0
