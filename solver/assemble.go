@@ -28,8 +28,9 @@ type assembler struct {
 	rgrad [][MaxNodes][2]float64 // reference gradients at the quadrature points
 	d     dofMap
 	pat   *pattern
-	rtol  float64 // nodes with |r| <= rtol lie on the axis
-	errs  []error // per worker
+	rtol  float64            // nodes with |r| <= rtol lie on the axis
+	ext   map[int32]Exterior // Kelvin image regions (axisymmetric)
+	errs  []error            // per worker
 
 	// generic, when set (tests only), disables the closed-form P1 kernel.
 	generic bool
@@ -63,6 +64,12 @@ func newAssembler(p *Problem, d dofMap, workers int) *assembler {
 	as := &assembler{p: p, m: m, el: elementFor(m.Order()), axi: p.Formulation == Axisymmetric, d: d}
 	as.nn = as.el.NumNodes()
 	as.rtol = axisTol(m)
+	if len(p.Exterior) > 0 {
+		as.ext = make(map[int32]Exterior, len(p.Exterior))
+		for _, e := range p.Exterior {
+			as.ext[e.Region] = e
+		}
+	}
 	deg := quadratureDegree(m.Order(), p.Formulation)
 	if as.axi && deg == 3 {
 		deg = 4 // Dunavant's degree-3 rule has a negative weight; avoid it in a nonlinear tangent
@@ -152,13 +159,14 @@ func (as *assembler) element(t int, w *elemWork, wantK bool) bool {
 	if int(reg) < len(as.p.Magnetization) {
 		mg = as.p.Magnetization[reg]
 	}
-	if as.nn == 3 && !as.axi && !as.generic {
+	if as.nn == 3 && !as.axi && !as.generic && as.ext == nil {
 		return as.elementP1(t, w, wantK, reg, mat, jz, mg)
 	}
 	w.re = [MaxNodes]float64{}
 	if wantK {
 		w.ke = [MaxNodes][MaxNodes]float64{}
 	}
+	ext, isExt := as.ext[reg]
 	x0, y0, a, b, c, d, det := as.affine(t)
 	for q := range as.rule.W {
 		wt, x, y := as.curlAt(t, q, w, x0, y0, a, b, c, d, det)
@@ -172,6 +180,10 @@ func (as *assembler) element(t int, w *elemWork, wantK bool) bool {
 		if !(nu > 0) || math.IsInf(nu, 0) || !finite(dnu) {
 			w.err = &MaterialError{Region: reg, B2: b2, Nu: nu, DNu: dnu}
 			return false
+		}
+		if isExt {
+			f := ((x-ext.CX)*(x-ext.CX) + (y-ext.CY)*(y-ext.CY)) / (ext.Radius * ext.Radius)
+			nu, dnu = nu*f, dnu*f
 		}
 		src := jz
 		if as.source != nil {

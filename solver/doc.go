@@ -50,7 +50,11 @@
 // circle whose edges carry a marker m, add the exterior disk with
 // mesh.AddKelvinDisk, and set Boundary[m] = FluxNormal, Identify = the
 // disk's Pairs and Fixed = {Infinity: 0}. A net current then returns at
-// infinity, the fixed node.
+// infinity, the fixed node. Axisymmetric: the space outside a sphere of
+// radius R about a point of the axis maps into a half-disk of radius R
+// about another point of the axis (shifted along z); list that region in
+// Problem.Exterior, whose reluctivity the solver scales by ρ'²/R², and
+// join the two rims with Identify (rim edges FluxNormal).
 //
 // Solve runs Newton-Raphson with the exact tangent
 // K_t = K(ν) + 2 ν'(|B|²) (B·c_i)(B·c_j) and a backtracking line search;

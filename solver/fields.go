@@ -131,9 +131,13 @@ func (s *Solution) Energy() float64 {
 		as.gather(t, s.A, &w)
 		x0, y0, a, b, c, d, det := as.affine(t)
 		mat := s.Problem.Materials[as.m.Region[t]]
+		ext, isExt := as.ext[as.m.Region[t]]
 		var et float64
 		for q := range as.rule.W {
-			wt, _, _ := as.curlAt(t, q, &w, x0, y0, a, b, c, d, det)
+			wt, x, y := as.curlAt(t, q, &w, x0, y0, a, b, c, d, det)
+			if isExt {
+				wt *= ((x-ext.CX)*(x-ext.CX) + (y-ext.CY)*(y-ext.CY)) / (ext.Radius * ext.Radius)
+			}
 			var bx, by float64
 			for i := 0; i < as.nn; i++ {
 				bx += w.a[i] * w.c[i][0]

@@ -105,6 +105,22 @@ type Problem struct {
 	// Fixed holds nodes at given potentials (for instance a uniform
 	// applied field A = B0 x on an outer boundary).
 	Fixed []NodeValue
+	// Exterior lists the regions that hold the Kelvin image of the space
+	// outside a sphere, for an axisymmetric open boundary. Inversion in a
+	// sphere of radius R is conformal with length scale s = R²/ρ'² (ρ' the
+	// distance from the image centre); the field energy of the pulled-back
+	// potential then carries the factor 1/s, so the solver multiplies the
+	// reluctivity there by ρ'²/R². (A planar Kelvin disk needs no factor:
+	// the 2D energy is invariant; leave this empty.) Fields evaluated in
+	// such a region are those of the image problem.
+	Exterior []Exterior
+}
+
+// Exterior is the Kelvin image of the space outside a sphere of radius
+// Radius: region Region, image centre (CX, CY) on the axis (CX = 0).
+type Exterior struct {
+	Region         int32
+	CX, CY, Radius float64
 }
 
 // Check reports the first inconsistency of the problem as a
@@ -187,6 +203,11 @@ func (p *Problem) validate() error {
 	for i, pc := range p.PointCurrents {
 		if pc.Node < 0 || int(pc.Node) >= nn || !finite(pc.Current) {
 			return &ProblemError{Field: "PointCurrents", Reason: fmt.Sprintf("entry %d: node %d, current %g", i, pc.Node, pc.Current)}
+		}
+	}
+	for i, e := range p.Exterior {
+		if p.Formulation != Axisymmetric || !(e.Radius > 0) || !finite(e.CX) || !finite(e.CY) {
+			return &ProblemError{Field: "Exterior", Reason: fmt.Sprintf("entry %d: an axisymmetric Kelvin image needs a positive radius and a finite centre", i)}
 		}
 	}
 	for i, f := range p.Fixed {
