@@ -76,10 +76,11 @@ func (s *Solution) ErrorIndicatorTo(dst []float64) ([]float64, float64) {
 		// Integrate ν |B* − B_h|² with the element's rule, two degrees up.
 		rule := RuleOfDegree(min(2*as.el.Degree()+2, MaxRuleDegree))
 		mat := s.Problem.Materials[reg]
+		ext, isExt := as.ext[reg]
 		for _, t32 := range group {
 			t := int(t32)
 			k := elementNodes(m, t, &nodes)
-			x0, _, a, b, _, _, det := as.affine(t)
+			x0, y0, a, b, c, d, det := as.affine(t)
 			var e2 float64
 			for q := range rule.W {
 				xi, eta := rule.Point(q)
@@ -92,8 +93,12 @@ func (s *Solution) ErrorIndicatorTo(dst []float64) ([]float64, float64) {
 				_, bx, by := s.evalElement(t, xi, eta)
 				nu, _ := mat.Nu(bx*bx + by*by)
 				w := rule.W[q] * 0.5 * det
+				x, y := x0+a*xi+b*eta, y0+c*xi+d*eta
 				if as.axi {
-					w *= 2 * math.Pi * (x0 + a*xi + b*eta)
+					w *= 2 * math.Pi * x
+				}
+				if isExt {
+					w *= ((x-ext.CX)*(x-ext.CX) + (y-ext.CY)*(y-ext.CY)) / (ext.Radius * ext.Radius)
 				}
 				e2 += w * nu * ((rx-bx)*(rx-bx) + (ry-by)*(ry-by))
 			}
