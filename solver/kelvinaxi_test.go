@@ -140,6 +140,29 @@ func TestKelvinAxisymmetric(t *testing.T) {
 		if err != nil {
 			t.Fatalf("%s: %v", name, err)
 		}
+		if open {
+			// Energy with the image factor equals ½∫A J (the energy
+			// identity of TestEnergyIdentity; 1e-10 relative).
+			as := s.as
+			f := make([]float64, as.d.n)
+			if err := as.assemble(make([]float64, m.NumNodes()), f, false); err != nil {
+				t.Fatal(err)
+			}
+			a := make([]float64, as.d.n) // one value per unknown
+			for i, c := range as.d.dof {
+				if c >= 0 {
+					a[c] = s.A[i]
+				}
+			}
+			var af float64
+			for c := range a {
+				af -= a[c] * f[c]
+			}
+			w, w2 := s.Energy(), 0.5*af*2*math.Pi
+			if math.Abs(w-w2) > 1e-10*w {
+				t.Errorf("%s: Energy %.12g, ½∫AJ %.12g", name, w, w2)
+			}
+		}
 		// Biot-Savart on-axis field of the discrete winding.
 		rule := RuleOfDegree(6)
 		exact := func(z float64) float64 {
