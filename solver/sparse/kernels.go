@@ -104,29 +104,36 @@ func potrfTrapezoid(b []float64, m, nc int) (int, float64) {
 }
 
 // potrfPanel factors columns [k0,k1) of the trapezoid b (leading dimension
-// m), whose updates from columns before k0 are already applied, by
-// right-looking rank-1 steps restricted to the panel.
+// m), whose updates from columns before k0 are already applied. It is
+// left-looking inside the panel: each pair of columns first takes the
+// updates of the panel columns before it through syrkLowerSub (the vector
+// kernel), then the pair is factored.
 func potrfPanel(b []float64, m, k0, k1 int) (int, float64) {
-	for k := k0; k < k1; k++ {
-		ck := b[k*m : k*m+m]
-		d := ck[k]
-		if !(d > 0) || d > maxFinite {
-			return k, d
+	for c := k0; c < k1; c += 2 {
+		q := min(2, k1-c)
+		if c > k0 {
+			syrkLowerSub(b[c+c*m:], m, b[c+k0*m:], m, m-c, q, c-k0)
 		}
-		piv := sqrtf(d)
-		ck[k] = piv
-		inv := 1 / piv
-		for i := k + 1; i < m; i++ {
-			ck[i] *= inv
-		}
-		for c := k + 1; c < k1; c++ {
-			cc := b[c*m : c*m+m]
-			l := ck[c]
-			if l == 0 {
-				continue
+		for k := c; k < c+q; k++ {
+			ck := b[k*m : k*m+m]
+			d := ck[k]
+			if !(d > 0) || d > maxFinite {
+				return k, d
 			}
-			for i := c; i < m; i++ {
-				cc[i] -= l * ck[i]
+			piv := sqrtf(d)
+			ck[k] = piv
+			inv := 1 / piv
+			for i := k + 1; i < m; i++ {
+				ck[i] *= inv
+			}
+			if k+1 < c+q {
+				// Rank-1 update of the pair's second column.
+				cc := b[(k+1)*m : (k+1)*m+m]
+				if l := ck[k+1]; l != 0 {
+					for i := k + 1; i < m; i++ {
+						cc[i] -= l * ck[i]
+					}
+				}
 			}
 		}
 	}
