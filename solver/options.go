@@ -41,8 +41,8 @@ type Options struct {
 	// Initial is a warm start: A per node (len Mesh.NumNodes()), or nil
 	// for zero. Fixed nodes take their prescribed values regardless.
 	Initial []float64
-	// Workers is the number of goroutines used for assembly; 0 means
-	// GOMAXPROCS.
+	// Workers is the number of goroutines used for assembly and for the
+	// Cholesky factorization; 0 means GOMAXPROCS.
 	Workers int
 	// Progress, when not nil, is called after each Newton step with the
 	// step number (from 1) and the relative residual reached; it must not
@@ -78,9 +78,16 @@ func (o Options) linearSolver(n int) sparse.Solver {
 	case o.Solver != nil:
 		return o.Solver
 	case o.Method == Direct:
-		return &sparse.Cholesky{}
+		return &sparse.Cholesky{Options: sparse.CholeskyOptions{Workers: o.Workers}}
 	case o.Method == Iterative:
 		return &sparse.PCG{Options: sparse.PCGOptions{Tol: o.LinearTol}}
 	}
-	return sparse.Auto(n)
+	s := sparse.Auto(n)
+	switch s := s.(type) {
+	case *sparse.Cholesky:
+		s.Options.Workers = o.Workers
+	case *sparse.PCG:
+		s.Options.Tol = o.LinearTol
+	}
+	return s
 }
