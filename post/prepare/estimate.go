@@ -54,7 +54,7 @@ const (
 	// well under one int32 index.
 	bytesPerFactorEntry = 10
 	// maxCells bounds the work of the estimate's quadrature.
-	maxCells = 200_000
+	maxCells = 100_000
 	// rootCells is the number of cells across the longer side of the
 	// domain on the coarsest level.
 	rootCells = 32
@@ -244,6 +244,7 @@ type estimator struct {
 	dom     ring
 	regions []ring
 	tags    []int32
+	feat    []mesh.SizeLine // small features, graded by featureGrading
 	xmin    float64
 	ymin    float64
 	xmax    float64
@@ -341,14 +342,100 @@ func newEstimator(m *models.Model, f *mesh.SizeField, bd *mesh.Polygon) *estimat
 	}
 	e.dom = newRing(bd.X, bd.Y, bd.Sweep)
 	e.xmin, e.ymin, e.xmax, e.ymax = e.dom.xmin, e.dom.ymin, e.dom.xmax, e.dom.ymax
+	all := []ring{e.dom}
 	for i := range m.Regions {
 		r := &m.Regions[i]
+		rg := newRing(r.X, r.Y, r.Sweep)
+		all = append(all, rg)
 		if s := f.Region[Tag(i)]; s > 0 {
-			e.regions = append(e.regions, newRing(r.X, r.Y, r.Sweep))
+			e.regions = append(e.regions, rg)
 			e.tags = append(e.tags, Tag(i))
 		}
 	}
+	e.addFeatures(all)
 	return e
+}
+
+// featureSamples is the number of pieces each edge is cut into when looking
+// for small features.
+const featureSamples = 16
+
+// addFeatures adds to the size field (the estimator's copy) the local
+// feature size of the geometry where it is finer than the field: quality
+// refinement cannot leave triangles much larger than the distance between
+// two edges that do not meet (Ruppert 1995, "A Delaunay refinement
+// algorithm for quality 2-dimensional mesh generation", J. Algorithms 18,
+// Theorem 1: the spacing is proportional to the local feature size). A thin
+// sliver region or a hair-thin air gap between regions thus costs
+// triangles that the model's mesh sizes do not show. Each edge is cut into
+// featureSamples pieces; a piece gets a feature line at the smaller feature
+// size of its ends when that is below half the field there.
+func (e *estimator) addFeatures(rings []ring) {
+	type edge struct{ x0, y0, x1, y1 float64 }
+	var edges []edge
+	for _, r := range rings {
+		n := len(r.x)
+		for i := 0; i < n; i++ {
+			j := (i + 1) % n
+			edges = append(edges, edge{r.x[i], r.y[i], r.x[j], r.y[j]})
+		}
+	}
+	// Edges that share an end point (adjacent edges, or regions meeting at
+	// a vertex) or lie on each other are not features: the mesher joins them.
+	ext := math.Max(e.xmax-e.xmin, e.ymax-e.ymin)
+	touch := 1e-9 * ext
+	lfs := func(x, y float64, self int) float64 {
+		d := math.Inf(1)
+		for k, g := range edges {
+			if k == self {
+				continue
+			}
+			q := segDist(x, y, g.x0, g.y0, g.x1, g.y1)
+			if q <= touch || q >= d {
+				continue
+			}
+			// Skip the edges that reach the sample's own edge.
+			a := edges[self]
+			if segDist(g.x0, g.y0, a.x0, a.y0, a.x1, a.y1) <= touch || segDist(g.x1, g.y1, a.x0, a.y0, a.x1, a.y1) <= touch ||
+				segDist(a.x0, a.y0, g.x0, g.y0, g.x1, g.y1) <= touch || segDist(a.x1, a.y1, g.x0, g.y0, g.x1, g.y1) <= touch {
+				continue
+			}
+			d = q
+		}
+		return d
+	}
+	var added []mesh.SizeLine
+	for k, a := range edges {
+		px, py := a.x0, a.y0
+		pl := lfs(px, py, k)
+		for s := 1; s <= featureSamples; s++ {
+			t := float64(s) / featureSamples
+			qx, qy := a.x0+t*(a.x1-a.x0), a.y0+t*(a.y1-a.y0)
+			ql := lfs(qx, qy, k)
+			size := math.Min(pl, ql)
+			mx, my := 0.5*(px+qx), 0.5*(py+qy)
+			if size < math.Inf(1) && size < 0.5*e.f.At(mx, my, AirTag) {
+				added = append(added, mesh.SizeLine{X0: px, Y0: py, X1: qx, Y1: qy, Size: size})
+			}
+			px, py, pl = qx, qy, ql
+		}
+	}
+	e.feat = added
+}
+
+// featureGrading is the growth of the mesh size per unit distance away
+// from a small feature: the local feature size itself grows with slope 1
+// (Ruppert 1995, Lemma 2), and the measured sliver meshes grade about so.
+const featureGrading = 1.0
+
+// featureSize returns the size the small features ask for at (x, y), +Inf
+// where there are none.
+func (e *estimator) featureSize(x, y float64) float64 {
+	h := math.Inf(1)
+	for _, l := range e.feat {
+		h = math.Min(h, l.Size+featureGrading*segDist(x, y, l.X0, l.Y0, l.X1, l.Y1))
+	}
+	return h
 }
 
 // cell is one rectangle of the adaptive grid.
@@ -370,6 +457,8 @@ func (e *estimator) density(c cell) (est, low float64, split bool) {
 	// and the lower one when the cell straddles its edge.
 	hn := e.noReg.At(x, y, AirTag)
 	lo, hi := math.Max(hn-e.g*rad, 0), hn+e.g*rad
+	hf := e.featureSize(x, y)
+	lo, hi = math.Min(lo, math.Max(hf-featureGrading*rad, 0)), math.Min(hi, hf+featureGrading*rad)
 	tag := AirTag
 	for k := range e.regions {
 		if e.regions[k].contains(x, y) {
@@ -382,7 +471,12 @@ func (e *estimator) density(c cell) (est, low float64, split bool) {
 			break
 		}
 	}
-	h := e.f.At(x, y, tag)
+	// f.At(x, y, tag) without evaluating the lines twice: the region-free
+	// field capped by the region's size.
+	h := math.Min(hn, hf)
+	if s := e.f.Region[tag]; s > 0 && s < h {
+		h = s
+	}
 	const eq = 0.4330127018922193 // √3/4: area of the unit equilateral triangle
 	est = 1 / (eq * h * h)
 	inside := e.dom.contains(c.x0, c.y0) && e.dom.contains(c.x1, c.y0) &&
