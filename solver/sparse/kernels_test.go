@@ -84,7 +84,7 @@ func TestPotrfTrapezoid(t *testing.T) {
 				}
 				// Backward error of Cholesky: |A - LL^T| <= c(n) u |L||L^T|
 				// (Higham, Accuracy and Stability of Numerical Algorithms,
-				// 2002, Thm 10.3); entries here are O(m).
+				// 2002, Thm 10.3, number from memory); entries here are O(m).
 				if math.Abs(s-a[i+c*m]) > 1e-13*float64(m*m) {
 					t.Fatalf("m=%d nc=%d: (LL^T)[%d,%d]=%v, want %v", m, nc, i, c, s, a[i+c*m])
 				}
