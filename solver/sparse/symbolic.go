@@ -253,17 +253,25 @@ func (s *symbolic) supernodes(cc []int32) {
 // practice in the spirit of Ashcraft and Grimes (1989), tuned on the 2D
 // grid benchmarks of this package.
 func relaxMerge(nc int, z float64) bool {
+	r := &relaxLimits
 	switch {
-	case nc <= 4:
+	case nc <= r.always:
 		return true
 	case nc <= 16:
-		return z < 0.5
+		return z < r.z16
 	case nc <= 48:
-		return z < 0.1
+		return z < r.z48
 	default:
-		return z < 0.02
+		return z < r.zBig
 	}
 }
+
+// relaxLimits holds the amalgamation thresholds (a variable so tests can
+// compare settings).
+var relaxLimits = struct {
+	always         int
+	z16, z48, zBig float64
+}{8, 0.5, 0.1, 0.02}
 
 // structure computes the row list of every supernode: its own columns, the
 // rows of A below them and the rows of its children below it.
