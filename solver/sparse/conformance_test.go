@@ -75,6 +75,11 @@ func solve(t *testing.T, name string, s sparse.Solver, a *sparse.CSR, b []float6
 	if err != nil {
 		t.Fatalf("%s: SolveTo: %v", name, err)
 	}
+	if ch, ok := s.(*sparse.Cholesky); ok {
+		if err := ch.Check(); err != nil {
+			t.Fatalf("%s: %v", name, err)
+		}
+	}
 	if res.Status != sparse.Converged {
 		t.Fatalf("%s: status %v", name, res.Status)
 	}

@@ -153,3 +153,27 @@ func TestPoolCleanup(t *testing.T) {
 	}
 	t.Errorf("goroutines: %d before, %d after dropping 20 solvers", before, runtime.NumGoroutine())
 }
+
+// TestCheckCatches corrupts a symbolic factor and expects Check to object.
+func TestCheckCatches(t *testing.T) {
+	a := grid5(12)
+	for name, corrupt := range map[string]func(s *symbolic){
+		"perm":   func(s *symbolic) { s.perm[0] = s.perm[1] },
+		"parent": func(s *symbolic) { s.parent[3] = 1 },
+		"rows": func(s *symbolic) {
+			t := s.ns - 2
+			rs := s.rows[s.rowPtr[t]:s.rowPtr[t+1]]
+			rs[len(rs)-1] = rs[0]
+		},
+	} {
+		c := &Cholesky{}
+		c.Analyze(a)
+		if err := c.Check(); err != nil {
+			t.Fatalf("%s: fresh factor fails Check: %v", name, err)
+		}
+		corrupt(c.sym)
+		if c.Check() == nil {
+			t.Errorf("%s: Check missed the corruption", name)
+		}
+	}
+}
