@@ -4,6 +4,7 @@ import (
 	"bufio"
 	"fmt"
 	"io"
+	"math"
 	"strconv"
 	"strings"
 )
@@ -94,7 +95,10 @@ func ReadMatrixMarket(r io.Reader) (*CSR, error) {
 			if err1 != nil || err2 != nil || err3 != nil || m != n || n < 0 || nz < 0 {
 				return nil, &FormatError{Line: line, Msg: "bad size line (matrix must be square)"}
 			}
-			t = NewTriplet(n, 2*nz)
+			if n > math.MaxInt32 || nz > math.MaxInt32 {
+				return nil, &FormatError{Line: line, Msg: "matrix too large for int32 indices"}
+			}
+			t = NewTriplet(n, min(2*nz, 1<<20)) // grows as entries arrive
 			want = nz
 			continue
 		}
