@@ -266,7 +266,10 @@ func (m *Mesh) shellException(t int, in *Input) bool {
 	onSegXY := func(x, y float64, s int) bool {
 		a, b := in.Segments[2*s], in.Segments[2*s+1]
 		l := math.Hypot(in.X[b]-in.X[a], in.Y[b]-in.Y[a])
-		return distToSegment(x, y, in.X[a], in.Y[a], in.X[b], in.Y[b]) <= 1e-12*l
+		// Split points are rounded to the coordinates' precision: allow a
+		// few ulps of the coordinate magnitude besides 1e-12 of the length.
+		mag := math.Abs(in.X[a]) + math.Abs(in.Y[a]) + math.Abs(in.X[b]) + math.Abs(in.Y[b])
+		return distToSegment(x, y, in.X[a], in.Y[a], in.X[b], in.Y[b]) <= 1e-12*l+1e-14*mag
 	}
 	onSeg := func(p int32, s int) bool { return onSegXY(m.X[p], m.Y[p], s) }
 	ns := len(in.Segments) / 2

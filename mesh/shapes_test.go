@@ -2,6 +2,7 @@ package mesh
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -374,5 +375,52 @@ func TestTriangulatePanics(t *testing.T) {
 			}()
 			Triangulate(in, Options{})
 		}()
+	}
+}
+
+// TestTriangulateOffsetStress replays a random stress run (1,000 polygon
+// sets far from the origin: offsets up to 500 x their size, scales
+// 1e-6..1e6, angle bounds 28 and 33 degrees, with and without a size
+// field) and meshes its first cases plus the three that once failed Check:
+// split points far from the origin carry rounding errors of the offset's
+// magnitude, which Check's on-segment tolerance must absorb.
+func TestTriangulateOffsetStress(t *testing.T) {
+	rng := rand.New(rand.NewPCG(7, 7))
+	keep := map[int]bool{0: true, 1: true, 2: true, 3: true, 4: true, 5: true, 705: true, 741: true, 810: true}
+	for trial := 0; trial <= 810; trial++ {
+		s := math.Pow(10, float64(rng.IntN(13)-6))
+		ox, oy := (rng.Float64()-0.5)*1e3*s, (rng.Float64()-0.5)*1e3*s
+		polys := [][]float64{boxPoly(0, 0, 4, 4)}
+		for i := 0; i < 4; i++ {
+			for j := 0; j < 4; j++ {
+				if rng.IntN(3) == 0 {
+					continue
+				}
+				cx, cy := float64(i)+0.5, float64(j)+0.5
+				n := 3 + rng.IntN(20)
+				var p []float64
+				for k := 0; k < n; k++ {
+					a := 2 * math.Pi * (float64(k) + 0.9*rng.Float64()) / float64(n)
+					r := 0.05 + 0.4499999*rng.Float64()
+					p = append(p, cx+r*math.Cos(a), cy+r*math.Sin(a))
+				}
+				polys = append(polys, p)
+			}
+		}
+		for _, p := range polys {
+			for i := 0; i < len(p); i += 2 {
+				p[i], p[i+1] = p[i]*s+ox, p[i+1]*s+oy
+			}
+		}
+		angles := []float64{28, 33, 34, 33}
+		opt := Options{MinAngle: angles[rng.IntN(4)], MaxTriangles: 400000}
+		if rng.IntN(2) == 0 {
+			opt.Size.Global = s * (0.05 + 0.3*rng.Float64())
+		}
+		if !keep[trial] || opt.MinAngle > 33 {
+			continue
+		}
+		in := polyInput(polys...)
+		mustMesh(t, fmt.Sprintf("offset-stress %d", trial), in, opt, CheckOptions{MinAngle: opt.MinAngle})
 	}
 }

@@ -62,8 +62,9 @@ func segmentsCovered(t *testing.T, name string, in *Input, m *Mesh) {
 			if m.Nbr[i] >= 0 && u > v {
 				continue // count interior edges once
 			}
-			if distToSegment(m.X[u], m.Y[u], ax, ay, bx, by) <= 1e-12*l &&
-				distToSegment(m.X[v], m.Y[v], ax, ay, bx, by) <= 1e-12*l {
+			tol := 1e-12*l + 1e-14*(math.Abs(ax)+math.Abs(ay)+math.Abs(bx)+math.Abs(by))
+			if distToSegment(m.X[u], m.Y[u], ax, ay, bx, by) <= tol &&
+				distToSegment(m.X[v], m.Y[v], ax, ay, bx, by) <= tol {
 				sum += math.Hypot(m.X[v]-m.X[u], m.Y[v]-m.Y[u])
 			}
 		}
