@@ -127,7 +127,15 @@ func Options(m *models.Model) mesh.Options {
 
 // Discretize builds the model's straight-line graph and meshes it.
 func Discretize(m *models.Model) (*Discretization, error) {
+	return DiscretizeSized(m, nil)
+}
+
+// DiscretizeSized is Discretize with one more size limit (metres, at a
+// point of a region; see mesh.SizeField.Func), as adaptive refinement
+// derives from an error estimate on a previous mesh. nil adds none.
+func DiscretizeSized(m *models.Model, size func(x, y float64, region int32) float64) (*Discretization, error) {
 	d := &Discretization{Model: m, Options: Options(m)}
+	d.Options.Size.Func = size
 	if _, err := CheckFootprint(m, d.Options, Limits{}); err != nil {
 		return nil, err
 	}
