@@ -1,11 +1,14 @@
 package main
 
 import (
+	"context"
 	"flag"
+	"fmt"
 	"io"
 
 	"polegap/internal/fileout"
 	"polegap/models"
+	"polegap/post/adapt"
 	"polegap/post/export"
 
 	"polegap/post/report"
@@ -14,7 +17,7 @@ import (
 )
 
 var cmdSolve = &Command{
-	UsageLine: "solve [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tol R] [--max-iterations N] MODEL",
+	UsageLine: "solve [--accuracy R] [--virtual-work] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tol R] [--max-iterations N] MODEL",
 	Short:     "solve a model and print the field at its probes",
 	Long: `Solve meshes the model, solves for the magnetic vector potential (with
 Newton–Raphson when the iron is nonlinear) and prints a summary: the mesh
@@ -30,6 +33,11 @@ corners, where the raw maximum is mesh-dependent). With --json it prints the sam
 triangles}, "newton" {iterations, residual, converged}, and "probes" keyed
 by name (point probes give a, bx, by and b in tesla).
 
+--accuracy R refines the mesh adaptively (goal-oriented on the probe
+field: error indicators of the solution weighted by those of a dual
+solution) and re-solves until the probe field changes by less than R
+between rounds, then reports on the last mesh.
+
 A solve that does not converge prints its residual history and exits
 with status 1; no result is reported for it.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
@@ -38,6 +46,7 @@ with status 1; no result is reported for it.`,
 		maxIter := fs.Int("max-iterations", 30, "limit on Newton steps")
 		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png or .svg file")
 		satLimit := fs.String("saturation-limit", "", "flag iron regions whose |B| away from corners exceeds this (e.g. 1.8T)")
+		accuracy := fs.Float64("accuracy", 0, "refine the mesh adaptively until the probe field changes by less than this between rounds (e.g. 1e-4)")
 		vw := fs.Bool("virtual-work", false, "also compute the forces on the model's parts by virtual work (more solves)")
 		vtu := fs.String("vtu", "", "write the solution (A, B, |B|, H, μr, region) to this VTK .vtu file")
 		return func(env *Env, args []string) error {
@@ -57,8 +66,20 @@ with status 1; no result is reported for it.`,
 					return usagef("--saturation-limit: %v", err)
 				}
 			}
-			s, err := study.Run(m, study.Options{Solver: solver.Options{Tol: *tol, MaxIter: *maxIter}})
-			if err != nil {
+			var s *study.Study
+			if *accuracy > 0 {
+				res, err := adapt.Run(context.Background(), m, adapt.Options{Accuracy: *accuracy, Study: study.Options{Solver: solver.Options{Tol: *tol, MaxIter: *maxIter}},
+					Progress: func(r adapt.Round) {
+						fmt.Fprintf(env.Stderr, "adaptive round: %d nodes, field %.6f T, change %.2e\n", r.Nodes, r.Value, r.Change)
+					}})
+				if err != nil {
+					return err
+				}
+				if !res.Converged {
+					fmt.Fprintf(env.Stderr, "adaptive refinement stopped at its round or node limit before reaching %g\n", *accuracy)
+				}
+				s = res.Study
+			} else if s, err = study.Run(m, study.Options{Solver: solver.Options{Tol: *tol, MaxIter: *maxIter}}); err != nil {
 				return err
 			}
 			r := report.New(s, dopt)
