@@ -79,7 +79,7 @@ func TestRunTiny(t *testing.T) {
 		if r.NewtonResidual > 1e-8 || r.NewtonIterations < 2 {
 			t.Errorf("%s: Newton %d steps to %g", name, r.NewtonIterations, r.NewtonResidual)
 		}
-		if r.PCGIterations < 1 || r.FactorNNZ < r.Unknowns || r.FactorBytes != 8*uint64(r.FactorNNZ) {
+		if r.PCGIterations < 1 || !r.PCGConverged || r.FactorNNZ < r.Unknowns || r.FactorBytes != 8*uint64(r.FactorNNZ) {
 			t.Errorf("%s: PCG %d iterations, factor %d entries (%d bytes)", name, r.PCGIterations, r.FactorNNZ, r.FactorBytes)
 		}
 		if c.Curve != (r.CurvePoints == 3) || (c.Curve && (r.Curve <= 0 || r.CurveIterations < 3)) {

@@ -116,6 +116,11 @@ func checks(rs []Result) []Check {
 		add(r, "mesh", "s", r.Mesh, goalMesh, float64(r.Triangles))
 		add(r, "linear solve (Cholesky)", "s", r.Linear, goalLinear, n)
 		add(r, "linear solve (PCG)", "s", r.PCG, goalLinear, n)
+		if !r.PCGConverged {
+			// Stopped at PCGMaxIter: the time is a lower bound.
+			cs[len(cs)-1].Pass = false
+			cs[len(cs)-1].Figure = fmt.Sprintf("linear solve (PCG, stopped at %d iterations, residual %.1e)", r.PCGIterations, r.PCGResidual)
+		}
 		add(r, "nonlinear solve", "s", r.Nonlinear, goalNonlinear, n)
 		if r.CurvePoints > 0 {
 			// The goal is for 20 points; other counts scale in proportion.
