@@ -47,7 +47,6 @@ probes:
 	return m
 }
 
-
 // ringPolygon draws the cut ring as two outer and two inner arcs (each
 // just under 180°) joined across the gap by straight radial edges.
 func ringPolygon() string {
