@@ -2,6 +2,7 @@ package solver
 
 import (
 	"fmt"
+	"math"
 
 	"polegap/solver/sparse"
 )
@@ -82,5 +83,8 @@ type NotConvergedError struct {
 
 // Error implements error.
 func (e *NotConvergedError) Error() string {
+	if math.IsInf(e.Update, 0) || math.IsNaN(e.Update) {
+		return fmt.Sprintf("solver: Newton-Raphson did not converge after %d iterations (relative residual %.3g): %s", e.Iterations, e.Residual, e.Reason)
+	}
 	return fmt.Sprintf("solver: Newton-Raphson did not converge after %d iterations (relative residual %.3g, update %.3g): %s", e.Iterations, e.Residual, e.Update, e.Reason)
 }

@@ -10,6 +10,8 @@ import (
 	"os"
 	"sort"
 	"strings"
+
+	"polegap/solver"
 )
 
 func main() {
@@ -108,9 +110,24 @@ func run(args []string, stdout, stderr io.Writer) int {
 			return 2
 		}
 		fmt.Fprintf(stderr, "polegap %s: %v\n", name, err)
+		printHistory(stderr, err)
 		return 1
 	}
 	return 0
+}
+
+// printHistory prints the residual history of a Newton run that did not
+// converge, so the user sees whether it stalled, oscillated or diverged.
+func printHistory(w io.Writer, err error) {
+	var nc *solver.NotConvergedError
+	if !errors.As(err, &nc) || len(nc.History) == 0 {
+		return
+	}
+	fmt.Fprintf(w, "residual history (relative, one per Newton step):\n")
+	for i, r := range nc.History {
+		fmt.Fprintf(w, "  %3d  %.3e\n", i, r)
+	}
+	fmt.Fprintf(w, "no result was written. Try a smaller current step (sweep with more points), --max-iterations, or check the B-H curve near the working point.\n")
 }
 
 type flagError struct{ error }

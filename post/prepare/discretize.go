@@ -143,6 +143,9 @@ func DiscretizeSized(m *models.Model, size func(x, y float64, region int32) floa
 	if d.Boundary, err = Boundary(m); err != nil {
 		return nil, err
 	}
+	if err := CheckProbes(m, d.Boundary); err != nil {
+		return nil, err
+	}
 	gopt := mesh.GraphOptions{ChordTol: m.Mesh.Chord}
 	d.Input, err = mesh.BuildInput(Polygons(m), d.Boundary, gopt)
 	if err != nil {

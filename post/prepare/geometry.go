@@ -107,3 +107,51 @@ func circle(m *models.Model) (cx, cy, r float64) {
 	d := m.Boundary.Margin * math.Max(dx, dy)
 	return 0.5 * (xmin + xmax), 0.5 * (ymin + ymax), 0.5*math.Hypot(dx, dy) + d
 }
+
+// CheckProbes returns an error for the first probe with a point outside
+// the outer boundary (where no field is computed): a probe beyond a
+// symmetry side, or one the margin does not reach.
+func CheckProbes(m *models.Model, b mesh.Polygon) error {
+	inside := insideBoundary(m, b)
+	for i := range m.Probes {
+		p := &m.Probes[i]
+		var pts [][2]float64
+		switch p.Kind {
+		case models.ProbePoint:
+			pts = [][2]float64{p.Point}
+		case models.ProbeLine:
+			pts = [][2]float64{p.Line[0], p.Line[1]}
+		case models.ProbeBox:
+			pts = [][2]float64{p.Box[0], p.Box[1], {p.Box[0][0], p.Box[1][1]}, {p.Box[1][0], p.Box[0][1]}}
+		case models.ProbeCircle:
+			c, r := p.Centre, p.Radius
+			pts = [][2]float64{{c[0] - r, c[1]}, {c[0] + r, c[1]}, {c[0], c[1] - r}, {c[0], c[1] + r}}
+		}
+		for _, q := range pts {
+			if !inside(q[0], q[1]) {
+				return m.Errorf(p.Pos, "probe %q reaches (%g, %g) m, outside the model's outer boundary where no field is computed; move it inside, or enlarge boundary.margin", p.Name, q[0], q[1])
+			}
+		}
+	}
+	return nil
+}
+
+// insideBoundary returns a test for points inside (or on) the boundary.
+func insideBoundary(m *models.Model, b mesh.Polygon) func(x, y float64) bool {
+	if m.Boundary.Shape == "circle" {
+		cx, cy, r := circle(m)
+		axi := m.Geometry == models.Axisymmetric
+		return func(x, y float64) bool {
+			if axi {
+				return x >= 0 && math.Hypot(x, y-cy) <= r*(1+1e-9)
+			}
+			return math.Hypot(x-cx, y-cy) <= r*(1+1e-9)
+		}
+	}
+	x0, x1 := math.Min(b.X[0], b.X[1]), math.Max(b.X[0], b.X[1])
+	y0, y1 := math.Min(b.Y[0], b.Y[2]), math.Max(b.Y[0], b.Y[2])
+	tol := 1e-9 * math.Max(x1-x0, y1-y0)
+	return func(x, y float64) bool {
+		return x >= x0-tol && x <= x1+tol && y >= y0-tol && y <= y1+tol
+	}
+}

@@ -56,7 +56,7 @@ func Material(m *models.Model, r *models.Region) (solver.Material, [2]float64, e
 		}
 		c, err := materials.NewCurve(h, b)
 		if err != nil {
-			return nil, zero, m.Errorf(def.Pos, "material %q: B-H table: %v", def.Name, err)
+			return nil, zero, m.Errorf(def.Pos, "material %q: %v", def.Name, err)
 		}
 		curve = c
 	case def.TableFile != "":
