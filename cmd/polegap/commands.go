@@ -13,6 +13,7 @@ var commands = []*Command{
 	cmdDemo,
 	cmdSolve,
 	cmdSize,
+	cmdProfile,
 	cmdCompare,
 	cmdCheck,
 	cmdSweep,

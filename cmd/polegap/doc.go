@@ -15,6 +15,7 @@ The commands are:
 	size       find the ampere-turns for a target field and a coil that delivers them
 	sweep      compute the excitation curve: gap field against ampere-turns
 	merge      join the tables of a sharded sweep
+	profile    sample Bx, By and |B| along a line probe
 	compare    compare a measured excitation curve with the prediction, and calibrate
 	check      check saturation, target field and field quality (exit 0 pass, 1 fail)
 	mesh       mesh a model and print the mesh statistics

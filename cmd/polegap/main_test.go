@@ -284,3 +284,30 @@ func TestDocListsEveryCommand(t *testing.T) {
 		}
 	}
 }
+
+// TestProfile: the line profile's CSV has the documented columns and one
+// row per sample inside the mesh; at the gap centre it carries the field
+// the solve reports there (same field evaluation).
+func TestProfile(t *testing.T) {
+	dir := t.TempDir()
+	csvPath, png := filepath.Join(dir, "p.csv"), filepath.Join(dir, "p.png")
+	code, _, errs := runCmd(t, "profile", "--samples", "11", "--csv", csvPath, "--png", png, "holding-magnet")
+	if code != 2 || !strings.Contains(errs, "no line probe") {
+		t.Errorf("a model without line probes: code %d, stderr %q", code, errs)
+	}
+	code, _, errs = runCmd(t, "profile", "--samples", "11", "--csv", csvPath, "--png", png, "calibration-solenoid")
+	if code != 0 {
+		t.Fatalf("profile: code %d, stderr %q", code, errs)
+	}
+	data, err := os.ReadFile(csvPath)
+	if err != nil {
+		t.Fatal(err)
+	}
+	lines := strings.Split(strings.TrimSpace(string(data)), "\n")
+	if lines[0] != "x_m,y_m,bx_T,by_T,b_T" || len(lines) != 12 {
+		t.Errorf("CSV header %q and %d rows, want the documented header and 11 rows", lines[0], len(lines)-1)
+	}
+	if st, err := os.Stat(png); err != nil || st.Size() == 0 {
+		t.Error("profile plot not written")
+	}
+}

@@ -1,0 +1,74 @@
+package main
+
+import (
+	"flag"
+	"io"
+
+	"gonum.org/v1/plot/vg"
+
+	"polegap/internal/fileout"
+	"polegap/models"
+	"polegap/post/gap"
+	"polegap/post/plot"
+	"polegap/post/study"
+)
+
+var cmdProfile = &Command{
+	UsageLine: "profile [--probe NAME] [--samples N] [--csv FILE] [--png FILE] MODEL",
+	Short:     "sample Bx, By and |B| along a line probe",
+	Long: `Profile solves the model and samples the flux density along a line
+probe (--probe, default the model's first line probe), writing the samples
+as CSV (x_m,y_m,bx_T,by_T,b_T; to standard output unless --csv names a
+file) and, with --png (or .svg), a plot of Bx, By and |B| against the
+distance along the line.`,
+	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
+		probe := fs.String("probe", "", "the line probe to sample (default the first)")
+		samples := fs.Int("samples", 0, "number of samples (default the probe's)")
+		csvOut := fs.String("csv", "", "write the samples to this CSV file")
+		png := fs.String("png", "", "draw the profile to this .png or .svg file")
+		return func(env *Env, args []string) error {
+			if err := oneModel(args); err != nil {
+				return err
+			}
+			m, err := loadModel(args[0])
+			if err != nil {
+				return err
+			}
+			var p *models.Probe
+			for i := range m.Probes {
+				if m.Probes[i].Kind == models.ProbeLine && (*probe == "" || m.Probes[i].Name == *probe) {
+					p = &m.Probes[i]
+					break
+				}
+			}
+			if p == nil {
+				return usagef("the model has no line probe %q; add one under probes (line: [[x0, y0], [x1, y1]])", *probe)
+			}
+			n := p.Samples
+			if *samples > 0 {
+				n = *samples
+			}
+			if n < 2 {
+				n = 101
+			}
+			s, err := study.Run(m, study.Options{})
+			if err != nil {
+				return err
+			}
+			ss := gap.ProfileTo(nil, s.Field(), p.Line[0], p.Line[1], n)
+			if *png != "" {
+				fig, err := gap.ProfileFigure(m.Name+": profile along "+p.Name, ss)
+				if err != nil {
+					return err
+				}
+				if err := plot.Save(fig, 16*vg.Centimeter, 10*vg.Centimeter, *png); err != nil {
+					return err
+				}
+			}
+			if *csvOut != "" {
+				return fileout.Write(*csvOut, func(w io.Writer) error { return gap.WriteCSV(w, ss) })
+			}
+			return gap.WriteCSV(env.Stdout, ss)
+		}
+	},
+}
