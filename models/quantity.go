@@ -14,12 +14,13 @@ var quantityUnits = map[string]map[string]float64{
 	"current":      {"A": 1, "kA": 1e3, "mA": 1e-3},
 	"ampere-turns": {"At": 1, "A": 1, "kAt": 1e3, "kA": 1e3},
 	"voltage":      {"V": 1, "kV": 1e3, "mV": 1e-3},
+	"area":         {"m2": 1, "cm2": 1e-4, "mm2": 1e-6},
 }
 
 // ParseQuantity reads a number with an optional unit suffix, such as
 // "1.2T", "40 mm", "850mT", "12kG" or "32000At", and returns it in SI units
-// (m, T, A, ampere-turns, V). kind is "length", "field", "current",
-// "ampere-turns" or "voltage"; a bare number is taken in SI units. Units
+// (m, T, A, ampere-turns, V, m²). kind is "length", "field", "current",
+// "ampere-turns", "voltage" or "area" (m2, cm2, mm2); a bare number is taken in SI units. Units
 // are case-sensitive (mT is not MT); 1 G = 1e-4 T (the CGS gauss).
 func ParseQuantity(s, kind string) (float64, error) {
 	units, ok := quantityUnits[kind]
@@ -28,7 +29,7 @@ func ParseQuantity(s, kind string) (float64, error) {
 	}
 	t := strings.TrimSpace(s)
 	i := len(t)
-	for i > 0 && (t[i-1] >= 'a' && t[i-1] <= 'z' || t[i-1] >= 'A' && t[i-1] <= 'Z') {
+	for i > 0 && (t[i-1] >= 'a' && t[i-1] <= 'z' || t[i-1] >= 'A' && t[i-1] <= 'Z' || (kind == "area" && t[i-1] == '2' && i > 1 && t[i-2] >= 'a' && t[i-2] <= 'z')) {
 		i--
 	}
 	num, unit := strings.TrimSpace(t[:i]), t[i:]
@@ -65,6 +66,8 @@ func example(kind string) string {
 		return "25A"
 	case "voltage":
 		return "48V"
+	case "area":
+		return "100mm2"
 	}
 	return "32000At"
 }

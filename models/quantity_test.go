@@ -20,6 +20,8 @@ func TestParseQuantity(t *testing.T) {
 		{"3.2kAt", "ampere-turns", 3200},
 		{"25A", "current", 25},
 		{"48V", "voltage", 48},
+		{"100mm2", "area", 1e-4},
+		{"2.5 cm2", "area", 2.5e-4},
 	} {
 		got, err := ParseQuantity(c.in, c.kind)
 		if err != nil || math.Abs(got-c.want) > 1e-15*math.Abs(c.want) {

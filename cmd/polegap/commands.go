@@ -15,6 +15,7 @@ var commands = []*Command{
 	cmdSize,
 	cmdProfile,
 	cmdCompare,
+	cmdSearchCoil,
 	cmdCheck,
 	cmdSweep,
 	cmdMerge,

@@ -17,6 +17,7 @@ The commands are:
 	merge      join the tables of a sharded sweep
 	profile    sample Bx, By and |B| along a line probe
 	compare    compare a measured excitation curve with the prediction, and calibrate
+	searchcoil predict a search coil's flux linkage, to compare with an integrator reading
 	check      check saturation, target field and field quality (exit 0 pass, 1 fail)
 	mesh       mesh a model and print the mesh statistics
 	materials  list the built-in materials, or show and plot B-H curves

@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"fmt"
 	"math"
 	"os"
 	"path/filepath"
@@ -309,5 +310,31 @@ func TestProfile(t *testing.T) {
 	}
 	if st, err := os.Stat(png); err != nil || st.Size() == 0 {
 		t.Error("profile plot not written")
+	}
+}
+
+// TestSearchCoil: a small coil at the gap centre pulled out of the field
+// reads N·S·B (the definition of flux linkage for a coil small against
+// the field's variation), with B the gap-centre field of the solve.
+func TestSearchCoil(t *testing.T) {
+	if code, _, _ := runCmd(t, "searchcoil", "--turns", "200", "--at", "15,-0.5", "holding-magnet"); code != 2 {
+		t.Errorf("a planar search coil without --area: code %d, want 2", code)
+	}
+	code, out, errs := runCmd(t, "searchcoil", "--turns", "200", "--area", "100mm2", "--at", "15,-0.5", "holding-magnet")
+	if code != 0 {
+		t.Fatalf("searchcoil: code %d, stderr %q", code, errs)
+	}
+	_, js, _ := runCmd(t, "solve", "--json", "holding-magnet")
+	var r struct {
+		Probes map[string]struct{ By float64 }
+	}
+	if err := json.Unmarshal([]byte(js), &r); err != nil {
+		t.Fatal(err)
+	}
+	want := 200 * 100e-6 * r.Probes["gap-left"].By
+	var got float64
+	fmt.Sscanf(out[strings.Index(out, ": ")+2:], "%g", &got)
+	if math.Abs(got-want) > 1e-5*math.Abs(want) {
+		t.Errorf("linkage %g Wb-turns, want N·S·By = %g", got, want)
 	}
 }
