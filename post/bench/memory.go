@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"os"
 	"runtime"
+	"runtime/debug"
 	"runtime/metrics"
 	"strconv"
 	"sync"
@@ -79,9 +80,13 @@ func (m *memSampler) finish() uint64 {
 	return m.peak
 }
 
-// resetPeakRSS asks Linux to reset the process's VmHWM (writing 5 to
+// resetPeakRSS returns the freed heap to the system and asks Linux to
+// reset the process's VmHWM to the current resident set (writing 5 to
 // /proc/self/clear_refs, see proc(5)); it reports whether that worked.
+// Without the first step the pages a larger earlier case left behind
+// would count as this case's peak.
 func resetPeakRSS() bool {
+	debug.FreeOSMemory()
 	return os.WriteFile("/proc/self/clear_refs", []byte("5"), 0) == nil
 }
 
