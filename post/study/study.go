@@ -25,6 +25,12 @@ type Study struct {
 	Solution *solver.Solution
 	Probes   []probes.Result
 	MeshTime time.Duration
+
+	// prep keeps the numbering, sparsity pattern and symbolic
+	// factorization of the mesh for later solves (sweep points, target
+	// search): only the problem's values change between them.
+	prep     *solver.Prepared
+	prepProb *solver.Problem
 }
 
 // Run meshes, solves and probes m.
@@ -53,7 +59,18 @@ func (s *Study) Solve(opt Options) error {
 			p.Materials[tag] = opt.Material(int32(tag), m)
 		}
 	}
-	sol, err := solver.Solve(p, opt.Solver)
+	var sol *solver.Solution
+	if s.prep != nil && sameShape(s.prepProb, p) {
+		refill(s.prepProb, p)
+		sol, err = s.prep.Solve(opt.Solver)
+	} else {
+		var pr *solver.Prepared
+		if pr, err = solver.Prepare(p, opt.Solver); err != nil {
+			return err
+		}
+		s.prep, s.prepProb = pr, p
+		sol, err = pr.Solve(opt.Solver)
+	}
 	if err != nil {
 		return err
 	}
@@ -81,4 +98,38 @@ func (s *Study) Field() probes.Field {
 		return s.Solution
 	}
 	return probes.NewRecovered(s.Solution, m, s.Solution.BTo(nil))
+}
+
+// sameShape reports whether q can be solved with the Prepared of p: the
+// same mesh and formulation, the same slices' lengths and the same fixed
+// and point-current nodes (boundary conditions and identifications come
+// from the same discretization).
+func sameShape(p, q *solver.Problem) bool {
+	if p.Mesh != q.Mesh || p.Formulation != q.Formulation || len(p.Materials) != len(q.Materials) ||
+		len(p.CurrentDensity) != len(q.CurrentDensity) || (p.Magnetization == nil) != (q.Magnetization == nil) ||
+		len(p.Magnetization) != len(q.Magnetization) || len(p.PointCurrents) != len(q.PointCurrents) ||
+		len(p.Fixed) != len(q.Fixed) || len(p.Identify) != len(q.Identify) {
+		return false
+	}
+	for i := range p.Fixed {
+		if p.Fixed[i].Node != q.Fixed[i].Node {
+			return false
+		}
+	}
+	for i := range p.PointCurrents {
+		if p.PointCurrents[i].Node != q.PointCurrents[i].Node {
+			return false
+		}
+	}
+	return true
+}
+
+// refill copies q's values into p, which a Prepared holds.
+func refill(p, q *solver.Problem) {
+	copy(p.Materials, q.Materials)
+	copy(p.CurrentDensity, q.CurrentDensity)
+	copy(p.Magnetization, q.Magnetization)
+	copy(p.PointCurrents, q.PointCurrents)
+	copy(p.Fixed, q.Fixed)
+	p.Depth = q.Depth
 }
