@@ -84,6 +84,7 @@ type Material struct {
 	Name      string
 	Curve     string       // name of a built-in B-H curve (resolved by package materials)
 	Table     [][2]float64 // inline B-H table, rows of (H A/m, B T) as given
+	TablePos  []Pos        // where each row of Table was written
 	TableFile string       // CSV path: absolute, or relative to the working directory
 	MuR       float64      // relative permeability of a linear material
 	Stacking  float64      // lamination stacking factor in (0, 1]; 1 when not given

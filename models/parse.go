@@ -206,7 +206,7 @@ func (d *decoder) materials(m *Model, n *yaml.Node) {
 		case "curve":
 			mat.Curve, _ = d.str(mf.get("curve"), mf.sub("curve"), "a built-in B-H curve name")
 		case "table":
-			mat.Table = d.table(mf.get("table"), mf.sub("table"))
+			mat.Table, mat.TablePos = d.table(mf.get("table"), mf.sub("table"))
 		case "table-file":
 			if p, ok := d.str(mf.get("table-file"), mf.sub("table-file"), "a CSV file path"); ok {
 				if !filepath.IsAbs(p) {
@@ -258,34 +258,36 @@ func (d *decoder) materials(m *Model, n *yaml.Node) {
 
 // table reads an inline B-H table: rows [H A/m, B T]. Monotonicity is
 // checked by package materials; here each row must hold two finite numbers.
-func (d *decoder) table(n *yaml.Node, path string) [][2]float64 {
+func (d *decoder) table(n *yaml.Node, path string) ([][2]float64, []Pos) {
 	rows, ok := d.list(n, path, "rows [H, B]")
 	if !ok {
-		return nil
+		return nil, nil
 	}
 	if len(rows) < 2 {
 		d.fail(n, path, "a B-H table needs at least 2 rows [H, B], got %d", len(rows))
-		return nil
+		return nil, nil
 	}
 	out := make([][2]float64, 0, len(rows))
+	var at []Pos
 	for i, r := range rows {
 		p := index(path, i)
 		if r.Kind != yaml.SequenceNode || len(r.Content) != 2 {
 			d.fail(r, p, "expected a row [H, B] (H in A/m, B in T), got %s", describeLen(r))
-			return nil
+			return nil, nil
 		}
 		h, ok1 := d.number(r.Content[0], index(p, 0))
 		b, ok2 := d.number(r.Content[1], index(p, 1))
 		if !ok1 || !ok2 {
-			return nil
+			return nil, nil
 		}
 		if h < 0 || b < 0 {
 			d.fail(r, p, "H and B in a B-H table must not be negative (the curve is given for the first quadrant)")
-			return nil
+			return nil, nil
 		}
 		out = append(out, [2]float64{h, b})
+		at = append(at, pos(r, p))
 	}
-	return out
+	return out, at
 }
 
 var regionKeys = []string{"name", "material", "polygon", "mesh-size"}

@@ -60,9 +60,9 @@ func TestBadInputs(t *testing.T) {
 		{"empty B-H table", []string{"solve", "bh-empty.yaml"}, 1,
 			[]string{"bh-empty.yaml:7:18: materials.steel.table: a B-H table needs at least 2 rows [H, B], got 0"}},
 		{"non-monotone B-H table", []string{"solve", "bh-nonmonotone.yaml"}, 1,
-			[]string{"bh-nonmonotone.yaml:7:3: materials.steel: ", "row 4 (H = 300 A/m, B = 1.1 T)", "B must rise with H"}},
+			[]string{"bh-nonmonotone.yaml:7:51: materials.steel.table[3]: ", "row 4 of the B-H table (H = 300 A/m, B = 1.1 T)", "B must rise with H"}},
 		{"repeated H in a B-H table", []string{"solve", "bh-repeated-h.yaml"}, 1,
-			[]string{"bh-repeated-h.yaml:7:3: materials.steel: ", "row 3 (H = 100 A/m, B = 0.9 T)", "sort the table by H"}},
+			[]string{"bh-repeated-h.yaml:7:39: materials.steel.table[2]: ", "row 3 of the B-H table (H = 100 A/m, B = 0.9 T)", "sort the table by H"}},
 		{"non-monotone B-H file", []string{"solve", "bh-file-nonmonotone.yaml"}, 1,
 			[]string{"bh-file-nonmonotone.yaml:7:3: materials.steel: ", "bh-nonmonotone.csv:5: B is not above", "correct or remove the row"}},
 		{"B-H file with a bad row", []string{"solve", "bh-file-bad-row.yaml"}, 1,
@@ -179,7 +179,6 @@ func TestBadInputsKnownGaps(t *testing.T) {
 		})
 	}
 	t.Run("inline B-H row position", func(t *testing.T) {
-		t.Skip("known: a bad row of an inline B-H table is reported at the material (7:3), not at the row's line:column, and the message repeats 'B-H table: materials: B-H table', owner models")
 		_, _, errs := runCmd(t, "solve", filepath.Join(badDir, "bh-nonmonotone.yaml"))
 		if !strings.Contains(errs, "bh-nonmonotone.yaml:7:") || strings.Contains(errs, "materials.steel: ") || strings.Count(errs, "B-H table") > 1 {
 			t.Errorf("stderr: %s", errs)

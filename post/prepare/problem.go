@@ -1,6 +1,7 @@
 package prepare
 
 import (
+	"errors"
 	"os"
 
 	"polegap/materials"
@@ -56,6 +57,10 @@ func Material(m *models.Model, r *models.Region) (solver.Material, [2]float64, e
 		}
 		c, err := materials.NewCurve(h, b)
 		if err != nil {
+			var te *materials.TableError
+			if errors.As(err, &te) && te.Row >= 1 && te.Row <= len(def.TablePos) {
+				return nil, zero, m.Errorf(def.TablePos[te.Row-1], "material %q: row %d of the B-H table (H = %g A/m, B = %g T): %s", def.Name, te.Row, te.H, te.B, te.Reason)
+			}
 			return nil, zero, m.Errorf(def.Pos, "material %q: %v", def.Name, err)
 		}
 		curve = c
