@@ -140,9 +140,9 @@ func TestBadMeasuredCSV(t *testing.T) {
 		file string
 		want []string
 	}{
-		{"measured-bad-number.csv", []string{`measured-bad-number.csv:row 8: field_T: "0.28x75" is not a number; write a decimal number`}},
-		{"measured-short-row.csv", []string{"measured-short-row.csv:row 9: has 2 values but the header has 3 columns; give one value per column"}},
-		{"measured-negative-sigma.csv", []string{"measured-negative-sigma.csv:row 10: sigma_T: uncertainty -0.002 is negative"}},
+		{"measured-bad-number.csv", []string{`measured-bad-number.csv:8:4: field_T: "0.28x75" is not a number; write a decimal number`}},
+		{"measured-short-row.csv", []string{"measured-short-row.csv:9: has 2 values but the header has 3 columns; give one value per column"}},
+		{"measured-negative-sigma.csv", []string{"measured-negative-sigma.csv:10:16: sigma_T: uncertainty -0.002 is negative"}},
 	}
 	for _, c := range cases {
 		curve, err := measure.Load(filepath.Join(badDir, c.file))
@@ -185,7 +185,6 @@ func TestBadInputsKnownGaps(t *testing.T) {
 		}
 	})
 	t.Run("measured CSV line:column", func(t *testing.T) {
-		t.Skip("known: measured CSV errors read 'file:row N:' rather than file:line:column, owner post/measure")
 		_, err := measure.Load(filepath.Join(badDir, "measured-bad-number.csv"))
 		if err == nil || !strings.Contains(err.Error(), "measured-bad-number.csv:8:4:") {
 			t.Errorf("error: %v", err)

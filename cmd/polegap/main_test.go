@@ -228,7 +228,7 @@ func TestCompare(t *testing.T) {
 	bad := filepath.Join(t.TempDir(), "bad.csv")
 	os.WriteFile(bad, []byte("current_A,field_T\n10,0.1\n20,abc\n30,0.3\n"), 0o644)
 	code, _, errs = runCmd(t, "compare", "bench-dipole", bad)
-	if code != 1 || !strings.Contains(errs, "row") {
+	if code != 1 || !strings.Contains(errs, "bad.csv:3:4: field_T") {
 		t.Errorf("bad CSV: code %d, stderr %q", code, errs)
 	}
 }

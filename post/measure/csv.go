@@ -148,8 +148,9 @@ func ReadCSV(r io.Reader, name string) (*Curve, error) {
 		line   int
 		seen   = map[float64]int{}
 		byRole [6]*column
+		col0   int // 1-based column of the cell being read, 0 for a whole row
 		bad    = func(l int, path, format string, a ...any) {
-			errs = append(errs, &InputError{File: name, Line: l, Path: path, Msg: fmt.Sprintf(format, a...)})
+			errs = append(errs, &InputError{File: name, Line: l, Column: col0, Path: path, Msg: fmt.Sprintf(format, a...)})
 		}
 	)
 	for sc.Scan() {
@@ -186,6 +187,7 @@ func ReadCSV(r io.Reader, name string) (*Curve, error) {
 			continue
 		}
 		cells := strings.Split(text, sep)
+		col0 = 0
 		if len(cells) != ncells {
 			bad(line, "", "has %d values but the header has %d columns; give one value per column (leave an uncertainty empty rather than dropping it)", len(cells), ncells)
 			continue
@@ -194,6 +196,7 @@ func ReadCSV(r io.Reader, name string) (*Curve, error) {
 		p.Row = line
 		ok := true
 		for _, col := range cols {
+			col0 = cellColumn(sc.Text(), sep, col.index)
 			s := strings.Trim(strings.TrimSpace(cells[col.index]), `"`)
 			if s == "" {
 				if col.role == roleFieldSigma || col.role == roleFluxSigma {
@@ -235,6 +238,7 @@ func ReadCSV(r io.Reader, name string) (*Curve, error) {
 				}
 			}
 		}
+		col0 = 0
 		if !ok {
 			continue
 		}
@@ -338,4 +342,21 @@ func parseHeader(text string) ([]column, string, *InputError) {
 		return nil, sep, &InputError{Path: have[roleFluxSigma], Msg: "a flux-linkage uncertainty column without a flux column; add flux_Wb or give the uncertainty in T"}
 	}
 	return cols, sep, nil
+}
+
+// cellColumn returns the 1-based byte column at which cell idx of a raw
+// line starts (its first non-blank character), cells split by sep.
+func cellColumn(raw, sep string, idx int) int {
+	off := 0
+	for i := 0; i < idx; i++ {
+		j := strings.Index(raw[off:], sep)
+		if j < 0 {
+			return 0
+		}
+		off += j + len(sep)
+	}
+	for off < len(raw) && (raw[off] == ' ' || raw[off] == '\t') {
+		off++
+	}
+	return off + 1
 }

@@ -72,14 +72,14 @@ func TestReadCSVErrors(t *testing.T) {
 		t.Fatalf("error %T %v, want an ErrorList", err, err)
 	}
 	want := []string{
-		"lab.csv:row 3: field_T: \"abc\" is not a number",
-		"lab.csv:row 4: field_T: \"NaN\" is not a finite number",
-		"lab.csv:row 5: sigma_T: uncertainty -0.001 is negative",
-		"lab.csv:row 6: field_T: is empty",
-		"lab.csv:row 7: has 2 values but the header has 3 columns",
-		"lab.csv:row 8: current_A: current 1 A repeats row 2",
-		"lab.csv:row 10: field_T: \"Inf\" is not a finite number",
-		"lab.csv:row 11: field_T: \"1e999\" is not a finite number",
+		"lab.csv:3:3: field_T: \"abc\" is not a number",
+		"lab.csv:4:3: field_T: \"NaN\" is not a finite number",
+		"lab.csv:5:7: sigma_T: uncertainty -0.001 is negative",
+		"lab.csv:6:3: field_T: is empty",
+		"lab.csv:7: has 2 values but the header has 3 columns",
+		"lab.csv:8: current_A: current 1 A repeats row 2",
+		"lab.csv:10:3: field_T: \"Inf\" is not a finite number",
+		"lab.csv:11:3: field_T: \"1e999\" is not a finite number",
 	}
 	if len(list) != len(want) {
 		t.Fatalf("%d errors, want %d:\n%v", len(list), len(want), err)

@@ -29,7 +29,7 @@ func (e *InputError) Error() string {
 	case e.Line > 0 && e.Column > 0:
 		fmt.Fprintf(&b, ":%d:%d", e.Line, e.Column)
 	case e.Line > 0:
-		fmt.Fprintf(&b, ":row %d", e.Line)
+		fmt.Fprintf(&b, ":%d", e.Line)
 	}
 	b.WriteString(": ")
 	if e.Path != "" {

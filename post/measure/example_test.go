@@ -33,8 +33,8 @@ func ExampleReadCSV_errors() {
 	_, err := measure.ReadCSV(strings.NewReader(data), "hall.csv")
 	fmt.Println(err)
 	// Output:
-	// hall.csv:row 3: field_T: is empty; give the field
-	// hall.csv:row 4: current_A: current 10 A repeats row 2; keep one reading per current (average repeats, or list rising and falling branches in separate files)
+	// hall.csv:3:4: field_T: is empty; give the field
+	// hall.csv:4: current_A: current 10 A repeats row 2; keep one reading per current (average repeats, or list rising and falling branches in separate files)
 }
 
 // A 50 mm conductor in the gap; the balance is tared at zero conductor

@@ -61,8 +61,8 @@ readings:
 		want       []string // in order: each in one error message
 	}{
 		{"syntax", "format: [\n", []string{"bad.yaml:"}},
-		{"unknown key", strings.Replace(directFile, "probe:", "prob:", 1), []string{"bad.yaml:row 5: unknown key \"prob\""}},
-		{"bad number", strings.Replace(directFile, "0.100", "abc", 1), []string{"bad.yaml:row 7:", "abc"}},
+		{"unknown key", strings.Replace(directFile, "probe:", "prob:", 1), []string{"bad.yaml:5: unknown key \"prob\""}},
+		{"bad number", strings.Replace(directFile, "0.100", "abc", 1), []string{"bad.yaml:7:", "abc"}},
 		{"wrong format", strings.Replace(directFile, "polegap-measured/1", "other", 1), []string{"bad.yaml:1:9: format: format is \"other\""}},
 		{"unknown method", strings.Replace(directFile, "method: direct", "method: guess", 1), []string{"bad.yaml:4:9: method: method \"guess\""}},
 		{"foreign section", directFile + "balance: {length: 0.05}\n", []string{"section balance does not belong to method direct"}},
@@ -76,7 +76,7 @@ readings:
 		{"bad fit", strings.Replace(balance, "{length: 0.05}", "{length: 0.05, fit: cubic}", 1), []string{"balance.fit: fit \"cubic\""}},
 		{"null mass", strings.Replace(balance, "[1, 0.002]", "[1, ~]", 1), []string{"bad.yaml:6:31: readings[0].balance[1]: is empty; give [conductor current A, mass kg]"}},
 		{"null field", strings.Replace(directFile, "0.100", "~", 1), []string{"bad.yaml:7:5: readings[0]: no field readings"}},
-		{"null repeat", strings.Replace(directFile, "0.199", "~", 1), []string{"bad.yaml:row 8: reading 1 is empty"}},
+		{"null repeat", strings.Replace(directFile, "0.199", "~", 1), []string{"bad.yaml:8: reading 1 is empty"}},
 		{"search without coil", "format: polegap-measured/1\nmethod: search-coil\nintegrator: {gain: 1}\nreadings: [{current: 1, flux: 1}, {current: 2, flux: 2}]\n", []string{"needs a calibration section or a coil section"}},
 		{"search one pull", "format: polegap-measured/1\nmethod: search-coil\nintegrator: {gain: 1}\ncoil: {turns: 10, area: 1e-4}\nreadings: [{current: 1, flux: 1}, {current: 2, flux: 2}]\n", []string{"readings[0].flux: at 1 A: search-coil: one reading", "readings[1].flux"}},
 	} {
