@@ -173,9 +173,9 @@ dimensions: {gap: 40, pole-width: 200, pole-height: 80, arm-thickness: 180, leg-
 
 func TestErrMalformedYAML(t *testing.T) {
 	runErrCases(t, []errCase{
-		{"bad indent", "units: mm\ndepth: 100\n  regions: x\n", `m.yaml:3: malformed YAML: mapping values are not allowed in this context`},
-		{"unclosed flow", "units: mm\nregions: [[0, 0], [1, 0]\n", `m.yaml:1: malformed YAML: did not find expected ',' or ']'`},
-		{"tab", "units: mm\n\tdepth: 1\n", `m.yaml:2: malformed YAML: found a tab character that violates indentation`},
+		{"bad indent", "units: mm\ndepth: 100\n  regions: x\n", `m.yaml:3:3: malformed YAML: mapping values are not allowed in this context; check this line's indentation against the line above (a key indented under a value), or quote a value that contains ": "`},
+		{"unclosed flow", "units: mm\nregions: [[0, 0], [1, 0]\n", `m.yaml:1:1: malformed YAML: did not find expected ',' or ']'; a [ ... ] or { ... } that starts here is not closed, or its items lack commas`},
+		{"tab", "units: mm\n\tdepth: 1\n", `m.yaml:2:2: malformed YAML: found a tab character that violates indentation; indent with spaces, not tabs`},
 	})
 }
 

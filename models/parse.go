@@ -53,7 +53,9 @@ func (d *decoder) parse(data []byte) *Model {
 		if sm := yamlLine.FindStringSubmatch(msg); sm != nil {
 			e.Line, _ = strconv.Atoi(sm[1])
 			e.Msg = "malformed YAML: " + strings.TrimSpace(strings.Replace(msg, sm[0]+":", "", 1))
+			e.Column = firstColumn(data, e.Line)
 		}
+		e.Msg += "; " + yamlHint(msg)
 		d.errs = append(d.errs, e)
 		return nil
 	}
@@ -486,3 +488,35 @@ func (d *decoder) coils(m *Model, n *yaml.Node) {
 
 // fmtDeg formats radians as degrees for messages.
 func fmtDeg(a float64) string { return fmt.Sprintf("%g°", a*180/math.Pi) }
+
+// firstColumn returns the 1-based column of the first non-blank character
+// of line n of data (1 when the line is blank or missing): the parser
+// reports only the line of a syntax error.
+func firstColumn(data []byte, n int) int {
+	lines := strings.Split(string(data), "\n")
+	if n < 1 || n > len(lines) {
+		return 0
+	}
+	l := lines[n-1]
+	for i, r := range l {
+		if r != ' ' && r != '\t' {
+			return i + 1
+		}
+	}
+	return 1
+}
+
+// yamlHint says what usually causes a YAML syntax error.
+func yamlHint(msg string) string {
+	switch {
+	case strings.Contains(msg, "mapping values are not allowed"):
+		return "check this line's indentation against the line above (a key indented under a value), or quote a value that contains \": \""
+	case strings.Contains(msg, "did not find expected ',' or ']'"), strings.Contains(msg, "did not find expected ',' or '}'"):
+		return "a [ ... ] or { ... } that starts here is not closed, or its items lack commas"
+	case strings.Contains(msg, "tab character"):
+		return "indent with spaces, not tabs"
+	case strings.Contains(msg, "did not find expected key"):
+		return "check the indentation: keys of one mapping must start in the same column"
+	}
+	return "check the indentation and the quotes on and above this line"
+}

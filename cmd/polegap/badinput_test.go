@@ -30,7 +30,7 @@ type badCase struct {
 func TestBadInputs(t *testing.T) {
 	cases := []badCase{
 		{"malformed YAML", []string{"solve", "malformed.yaml"}, 1,
-			[]string{"malformed.yaml:6: malformed YAML: mapping values are not allowed in this context"}},
+			[]string{"malformed.yaml:6:3: malformed YAML: mapping values are not allowed in this context; check this line's indentation"}},
 		{"wrong type", []string{"solve", "wrong-type.yaml"}, 1,
 			[]string{`wrong-type.yaml:5:8: depth: expected a number, got "deep"`}},
 		{"unknown key", []string{"solve", "unknown-key.yaml"}, 1,
@@ -159,12 +159,12 @@ func TestBadMeasuredCSV(t *testing.T) {
 	}
 }
 
-// TestBadInputsKnownGaps holds the failing checks of bad inputs that other
-// packages still let through or report without a full position. Each
-// skips with the owner; remove the skip once fixed.
+// TestBadInputsKnownGaps holds the checks of bad inputs that were once
+// let through or reported without a full position (all fixed now): a
+// malformed YAML line's column and hint, probes outside the boundary, an
+// inline B-H row's position, a measured CSV cell's line:column.
 func TestBadInputsKnownGaps(t *testing.T) {
 	t.Run("malformed YAML column and fix", func(t *testing.T) {
-		t.Skip("known: malformed YAML is reported as file:line without a column or what to do, owner models")
 		_, _, errs := runCmd(t, "solve", filepath.Join(badDir, "malformed.yaml"))
 		if !strings.Contains(errs, "malformed.yaml:6:3:") || !strings.Contains(errs, "indent") {
 			t.Errorf("stderr: %s", errs)
