@@ -2,14 +2,18 @@ package main
 
 import (
 	"bytes"
+	"context"
 	"encoding/json"
 	"fmt"
+	"io"
 	"math"
 	"os"
 	"path/filepath"
 	"regexp"
 	"strings"
 	"testing"
+
+	"polegap/post/sweep"
 )
 
 func runCmd(t *testing.T, args ...string) (code int, stdout, stderr string) {
@@ -336,5 +340,40 @@ func TestSearchCoil(t *testing.T) {
 	fmt.Sscanf(out[strings.Index(out, ": ")+2:], "%g", &got)
 	if math.Abs(got-want) > 1e-5*math.Abs(want) {
 		t.Errorf("linkage %g Wb-turns, want N·S·By = %g", got, want)
+	}
+}
+
+// TestSweepInterrupted: an interrupted sweep (Ctrl-C, here a cancelled
+// context after two points) exits 1, and its CSV holds the finished points
+// marked partial; no temporary file is left.
+func TestSweepInterrupted(t *testing.T) {
+	ctx, cancel := context.WithCancel(context.Background())
+	oldI, oldP := interruptible, newProgress
+	defer func() { interruptible, newProgress = oldI, oldP }()
+	interruptible = func() (context.Context, context.CancelFunc) { return ctx, cancel }
+	newProgress = func(io.Writer) func(int, int, sweep.Point) {
+		return func(done, _ int, _ sweep.Point) {
+			if done == 2 {
+				cancel()
+			}
+		}
+	}
+	dir := t.TempDir()
+	out := filepath.Join(dir, "curve.csv")
+	code, _, errs := runCmd(t, "sweep", "--points", "6", "--csv", out, "calibration-solenoid")
+	if code != 1 || !strings.Contains(errs, "interrupted") {
+		t.Fatalf("code %d, stderr %q", code, errs)
+	}
+	data, err := os.ReadFile(out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := string(data)
+	rows := strings.Count(s, "\n") - strings.Count(s, "#") - 1
+	if !strings.Contains(s, "# partial:") || rows != 2 {
+		t.Errorf("partial table with %d points:\n%s", rows, s)
+	}
+	if ents, _ := os.ReadDir(dir); len(ents) != 1 {
+		t.Errorf("files left: %v", ents)
 	}
 }

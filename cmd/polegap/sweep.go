@@ -70,8 +70,8 @@ job array can run a long sweep in parallel; join the shards' tables with
 			if opt.GapLength, err = gapLength(m, *gap); err != nil {
 				return err
 			}
-			opt.Progress = progressBar(env.Stderr)
-			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
+			opt.Progress = newProgress(env.Stderr)
+			ctx, stop := interruptible()
 			defer stop()
 			pts, runErr := sweep.Run(ctx, m, opt)
 			meta := sweep.Meta{Model: m.Name, Probe: probeFor(m, *probe), Shard: *shard}
@@ -258,6 +258,15 @@ func probeFor(m *models.Model, probe string) string {
 	}
 	return ""
 }
+
+// interruptible returns the context of a long run: cancelled by Ctrl-C.
+// Tests replace it.
+var interruptible = func() (context.Context, context.CancelFunc) {
+	return signal.NotifyContext(context.Background(), os.Interrupt)
+}
+
+// newProgress makes the sweep's progress reporter; tests replace it.
+var newProgress = progressBar
 
 // progressBar draws the sweep's progress on a terminal and stays silent
 // otherwise (a pipe or a file gets no control characters).
