@@ -142,7 +142,7 @@ func TestBadMeasuredCSV(t *testing.T) {
 	}{
 		{"measured-bad-number.csv", []string{`measured-bad-number.csv:8:4: field_T: "0.28x75" is not a number; write a decimal number`}},
 		{"measured-short-row.csv", []string{"measured-short-row.csv:9: has 2 values but the header has 3 columns; give one value per column"}},
-		{"measured-negative-sigma.csv", []string{"measured-negative-sigma.csv:10:16: sigma_T: uncertainty -0.002 is negative"}},
+		{"measured-negative-sigma.csv", []string{"measured-negative-sigma.csv:10:13: sigma_T: uncertainty -0.002 is negative"}},
 	}
 	for _, c := range cases {
 		curve, err := measure.Load(filepath.Join(badDir, c.file))
