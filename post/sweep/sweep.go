@@ -98,6 +98,10 @@ type Runner struct {
 	base  []float64 // the model's own coil currents
 	probe string
 	last  []float64
+	// The last two solved points (current and potential) for the secant
+	// predictor of the next warm start.
+	prevI, lastI float64
+	prev         []float64
 
 	baseField float64
 	material  func(tag int32, m solver.Material) solver.Material
@@ -149,10 +153,31 @@ func NewRunnerWith(ctx context.Context, m *models.Model, coil, probe string, opt
 	}
 	r.Study = s
 	r.last = s.Solution.A
+	r.lastI = r.base[ci]
 	if res, ok := s.Probe(probe); ok {
 		r.baseField = fieldOf(res)
 	}
 	return r, nil
+}
+
+// predict returns the warm start for a solve at current: the secant
+// extrapolation through the last two solutions when the step continues
+// in the same direction and is no longer than twice the last one (an
+// Euler–secant predictor for a path of nonlinear solutions, e.g. E. L.
+// Allgower and K. Georg, Introduction to Numerical Continuation Methods,
+// SIAM 2003, §2.2), else the last solution.
+func (r *Runner) predict(current float64) []float64 {
+	d0 := r.lastI - r.prevI
+	d1 := current - r.lastI
+	if r.prev == nil || d0 == 0 || d1*d0 <= 0 || math.Abs(d1) > 2*math.Abs(d0) {
+		return r.last
+	}
+	t := d1 / d0
+	out := make([]float64, len(r.last))
+	for i := range out {
+		out[i] = r.last[i] + t*(r.last[i]-r.prev[i])
+	}
+	return out
 }
 
 // Turns returns the turns of the swept coil.
@@ -187,12 +212,13 @@ func (r *Runner) Solve(current float64, opt solver.Options) (Point, error) {
 			m.Coils[i].Current = r.base[i]
 		}
 	}()
-	opt.Initial = r.last
+	opt.Initial = r.predict(current)
 	if err := r.Study.Solve(study.Options{Solver: opt, Material: r.material}); err != nil {
 		return Point{}, err
 	}
 	sol := r.Study.Solution
-	r.last = sol.A
+	r.prev, r.prevI = r.last, r.lastI
+	r.last, r.lastI = sol.A, current
 	res, _ := r.Study.Probe(r.probe)
 	p := Point{
 		Current:     current,
