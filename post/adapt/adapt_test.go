@@ -2,32 +2,16 @@ package adapt
 
 import (
 	"context"
-	"fmt"
 	"math"
 	"testing"
 
 	"polegap/models"
+	"polegap/post/internal/fixture"
 	"polegap/post/study"
 )
 
 func core(t *testing.T, size float64, order int) *models.Model {
-	t.Helper()
-	src := fmt.Sprintf(`name: small-core
-geometry: planar
-units: mm
-depth: 100
-template: c-core
-dimensions: {gap: 40, pole-width: 120, pole-height: 40, arm-thickness: 80, leg-width: 80,
-  window-width: 100, coil: back-leg, coil-width: 60, coil-height: 100, turns: 200, current: 50}
-materials:
-  yoke-steel: {mu-r: 1000}
-mesh: {size: %g, order: %d}
-`, size, order)
-	m, err := models.Parse("small-core.yaml", []byte(src))
-	if err != nil {
-		t.Fatal(err)
-	}
-	return m
+	return fixture.SmallCore(t, "{mu-r: 1000}", size, order)
 }
 
 // TestReachesAccuracy: starting from a coarse first-order mesh, the loop

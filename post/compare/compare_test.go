@@ -6,27 +6,12 @@ import (
 	"testing"
 
 	"polegap/models"
+	"polegap/post/internal/fixture"
 	"polegap/post/measure"
 )
 
 func smallCore(t *testing.T) *models.Model {
-	t.Helper()
-	src := `name: small-core
-geometry: planar
-units: mm
-depth: 100
-template: c-core
-dimensions: {gap: 40, pole-width: 120, pole-height: 40, arm-thickness: 80, leg-width: 80,
-  window-width: 100, coil: back-leg, coil-width: 60, coil-height: 100, turns: 200, current: 50}
-materials:
-  yoke-steel: {curve: low-carbon-steel}
-mesh: {size: 15, order: 1}
-`
-	m, err := models.Parse("small-core.yaml", []byte(src))
-	if err != nil {
-		t.Fatal(err)
-	}
-	return m
+	return fixture.SmallCore(t, "{curve: low-carbon-steel}", 15, 1)
 }
 
 // synthetic makes a "measured" curve from a model (no noise): the field

@@ -2,33 +2,17 @@ package target
 
 import (
 	"context"
-	"fmt"
 	"math"
 	"testing"
 
 	"polegap/models"
+	"polegap/post/internal/fixture"
 	"polegap/post/sweep"
 	"polegap/solver"
 )
 
 func smallCore(t *testing.T, steel string) *models.Model {
-	t.Helper()
-	src := fmt.Sprintf(`name: small-core
-geometry: planar
-units: mm
-depth: 100
-template: c-core
-dimensions: {gap: 40, pole-width: 120, pole-height: 40, arm-thickness: 80, leg-width: 80,
-  window-width: 100, coil: back-leg, coil-width: 60, coil-height: 100, turns: 200, current: 50}
-materials:
-  yoke-steel: %s
-mesh: {size: 15, order: 1}
-`, steel)
-	m, err := models.Parse("small-core.yaml", []byte(src))
-	if err != nil {
-		t.Fatal(err)
-	}
-	return m
+	return fixture.SmallCore(t, steel, 15, 1)
 }
 
 func runner(t *testing.T, m *models.Model) *sweep.Runner {
