@@ -18,7 +18,7 @@ import (
 
 var cmdSolve = &Command{
 	UsageLine: "solve [--accuracy R] [--virtual-work] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tol R] [--max-iterations N] MODEL",
-	Short:     "solve a model and print the field at its probes",
+	Short:     "solve a model and print the field and the design quantities",
 	Long: `Solve meshes the model, solves for the magnetic vector potential (with
 Newton–Raphson when the iron is nonlinear) and prints a summary: the mesh
 size, how the solve converged, timings, the stored energy and the field at
