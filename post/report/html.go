@@ -102,6 +102,11 @@ Produced by polegap{{if not $.When.IsZero}} on {{$.When.Format "2006-01-02 15:04
 <table><tr><th>region</th><th>knee (T)</th><th>mean |B| (T)</th><th>area above knee</th><th>max |B| away from corners (T)</th><th>max raw |B| (T)</th></tr>
 {{range .Saturation}}<tr><td>{{.Region}}</td><td>{{f "%.2f" .Knee}}</td><td>{{f "%.3f" .Mean}}</td><td>{{pct .AboveKnee}} %</td><td>{{f "%.3f" .MaxAway}}</td><td>{{f "%.3f" .Max}}{{if .MaxAtCorner}} (corner, mesh-dependent){{end}}</td></tr>{{end}}
 </table>{{end}}
+{{if .Forces}}<h2>Forces</h2>
+<table><tr><th>part</th><th>Fx by Maxwell stress (N)</th><th>Fy by Maxwell stress (N)</th><th>by virtual work (N)</th></tr>
+{{range .Forces}}<tr><td>{{.Part}}</td>{{if .Error}}<td colspan="3">not computed: {{.Error}}</td>{{else}}<td>{{f "%.5g" (index .Stress 0)}}</td><td>{{f "%.5g" (index .Stress 1)}}</td><td>{{with .VirtualWork}}({{f "%.5g" (index . 0)}}, {{f "%.5g" (index . 1)}}){{end}}</td>{{end}}</tr>{{end}}
+</table>
+<p class="caution">Iron poles attract tools and steel objects with large forces: keep hands and loose steel away from an energised magnet.</p>{{end}}
 {{range .Notes}}<p class="note">Note: {{.}}</p>{{end}}
 {{end}}
 {{end}}
