@@ -3,6 +3,7 @@ package mesh
 import (
 	"fmt"
 	"math"
+	"polegap/internal/compsum"
 	"sort"
 )
 
@@ -161,11 +162,11 @@ func PolygonArea(x, y []float64) float64 {
 	if len(x) != len(y) {
 		panic("mesh: PolygonArea: len(x) != len(y)")
 	}
-	var s sum2
+	var s compsum.Sum
 	for i := 1; i+1 < len(x); i++ {
-		s.add(triArea(x[0], y[0], x[i], y[i], x[i+1], y[i+1]))
+		s.Add(triArea(x[0], y[0], x[i], y[i], x[i+1], y[i+1]))
 	}
-	return s.value()
+	return s.Value()
 }
 
 // DiscretizePolygon returns the vertices of p with every arc replaced by
@@ -735,14 +736,14 @@ func (g *graph) faces() [][]int32 {
 			continue
 		}
 		var cyc []int32
-		var area sum2
+		var area compsum.Sum
 		a := g.from(h0)
 		for h := h0; !seen[h]; h = next(h) {
 			seen[h] = true
 			cyc = append(cyc, h)
-			area.add(triArea(g.x[a], g.y[a], g.x[g.from(h)], g.y[g.from(h)], g.x[g.to(h)], g.y[g.to(h)]))
+			area.Add(triArea(g.x[a], g.y[a], g.x[g.from(h)], g.y[g.from(h)], g.x[g.to(h)], g.y[g.to(h)]))
 		}
-		if area.value() > 0 {
+		if area.Value() > 0 {
 			faces = append(faces, cyc)
 		}
 	}

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"math"
 	"math/rand/v2"
+	"polegap/internal/compsum"
 	"strings"
 	"testing"
 )
@@ -57,14 +58,14 @@ func checkGraph(t *testing.T, name string, in *Input) {
 
 // segLength sums the lengths of the segments carrying marker mk.
 func segLength(in *Input, mk int32) float64 {
-	var s sum2
+	var s compsum.Sum
 	for i := range in.Markers {
 		if in.Markers[i] == mk {
 			a, b := in.Segments[2*i], in.Segments[2*i+1]
-			s.add(math.Hypot(in.X[b]-in.X[a], in.Y[b]-in.Y[a]))
+			s.Add(math.Hypot(in.X[b]-in.X[a], in.Y[b]-in.Y[a]))
 		}
 	}
-	return s.value()
+	return s.Value()
 }
 
 func seedsOf(in *Input) map[int32]int {

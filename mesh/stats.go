@@ -2,6 +2,7 @@ package mesh
 
 import (
 	"math"
+	"polegap/internal/compsum"
 	"sort"
 )
 
@@ -45,20 +46,20 @@ func (m *Mesh) Stats() Stats {
 		return s
 	}
 	s.MinAngle = 180
-	var total, meanMin sum2
+	var total, meanMin compsum.Sum
 	per := make(map[int32]*struct {
 		n int
-		a sum2
+		a compsum.Sum
 	})
 	for t := 0; t < nt; t++ {
 		a, b, c := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
 		q := triShape(m.X[a], m.Y[a], m.X[b], m.Y[b], m.X[c], m.Y[c])
 		s.MinAngle = math.Min(s.MinAngle, q.minAngle)
-		meanMin.add(q.minAngle)
+		meanMin.Add(q.minAngle)
 		if q.aspect > s.WorstAspect || math.IsInf(q.aspect, 1) {
 			s.WorstAspect = q.aspect
 		}
-		total.add(q.area)
+		total.Add(q.area)
 		var r int32
 		if m.Region != nil {
 			r = m.Region[t]
@@ -67,17 +68,17 @@ func (m *Mesh) Stats() Stats {
 		if e == nil {
 			e = &struct {
 				n int
-				a sum2
+				a compsum.Sum
 			}{}
 			per[r] = e
 		}
 		e.n++
-		e.a.add(q.area)
+		e.a.Add(q.area)
 	}
-	s.MeanAngle = meanMin.value() / float64(nt)
-	s.Area = total.value()
+	s.MeanAngle = meanMin.Value() / float64(nt)
+	s.Area = total.Value()
 	for r, e := range per {
-		s.PerRegion = append(s.PerRegion, RegionStats{Region: r, Triangles: e.n, Area: e.a.value()})
+		s.PerRegion = append(s.PerRegion, RegionStats{Region: r, Triangles: e.n, Area: e.a.Value()})
 	}
 	sort.Slice(s.PerRegion, func(i, j int) bool { return s.PerRegion[i].Region < s.PerRegion[j].Region })
 	return s
@@ -87,7 +88,7 @@ func (m *Mesh) Stats() Stats {
 // compensated sum over its triangles. A mesh without Region tags counts as
 // region 0.
 func (m *Mesh) RegionAreas() map[int32]float64 {
-	acc := make(map[int32]*sum2)
+	acc := make(map[int32]*compsum.Sum)
 	for t := 0; t < m.NumTriangles(); t++ {
 		var r int32
 		if m.Region != nil {
@@ -95,15 +96,15 @@ func (m *Mesh) RegionAreas() map[int32]float64 {
 		}
 		s := acc[r]
 		if s == nil {
-			s = new(sum2)
+			s = new(compsum.Sum)
 			acc[r] = s
 		}
 		a, b, c := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
-		s.add(triArea(m.X[a], m.Y[a], m.X[b], m.Y[b], m.X[c], m.Y[c]))
+		s.Add(triArea(m.X[a], m.Y[a], m.X[b], m.Y[b], m.X[c], m.Y[c]))
 	}
 	out := make(map[int32]float64, len(acc))
 	for r, s := range acc {
-		out[r] = s.value()
+		out[r] = s.Value()
 	}
 	return out
 }
@@ -150,20 +151,3 @@ func triShape(ax, ay, bx, by, cx, cy float64) shape {
 	}
 	return shape{area: area, minAngle: minA * 180 / math.Pi, aspect: aspect}
 }
-
-// sum2 is Neumaier's compensated sum (A. Neumaier, "Rundungsfehleranalyse
-// einiger Verfahren zur Summation endlicher Summen", ZAMM 54, 1974): the
-// error is bounded independently of the number of terms, to first order.
-type sum2 struct{ s, c float64 }
-
-func (k *sum2) add(x float64) {
-	t := k.s + x
-	if math.Abs(k.s) >= math.Abs(x) {
-		k.c += (k.s - t) + x
-	} else {
-		k.c += (x - t) + k.s
-	}
-	k.s = t
-}
-
-func (k *sum2) value() float64 { return k.s + k.c }

@@ -96,16 +96,3 @@ func TestStatsRegionsAndDegenerate(t *testing.T) {
 		t.Errorf("empty mesh stats %+v", z)
 	}
 }
-
-func TestSum2(t *testing.T) {
-	// Neumaier's improvement over Kahan: 1 + 1e100 + 1 - 1e100 = 2 exactly,
-	// where naive and Kahan summation give 0 (the standard illustration of
-	// Neumaier 1974, quoted from memory).
-	var s sum2
-	for _, x := range []float64{1, 1e100, 1, -1e100} {
-		s.add(x)
-	}
-	if s.value() != 2 {
-		t.Errorf("compensated sum %g, want 2", s.value())
-	}
-}

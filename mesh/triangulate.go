@@ -79,6 +79,7 @@ func Triangulate(in *Input, opt Options) (*Mesh, error) {
 	if d.numTri() > maxTri {
 		return nil, &TooManyTrianglesError{Limit: maxTri, Triangles: d.numTri()}
 	}
+	opt.Size = opt.Size.indexed(in.X, in.Y)
 	r := newRefiner(d, in, vmap, &opt, maxTri)
 	if err := r.run(); err != nil {
 		return nil, err

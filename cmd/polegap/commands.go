@@ -39,6 +39,15 @@ func loadModel(arg string) (*models.Model, error) {
 	return nil, fmt.Errorf("no model file %q (and no embedded example of that name; 'polegap examples' lists them)", arg)
 }
 
+// modelArg loads the one MODEL argument (a usage error when there is
+// not exactly one).
+func modelArg(args []string) (*models.Model, error) {
+	if err := oneModel(args); err != nil {
+		return nil, err
+	}
+	return loadModel(args[0])
+}
+
 // oneModel checks that exactly one positional argument names the model.
 func oneModel(args []string) error {
 	switch len(args) {
@@ -81,7 +90,3 @@ prints that model file, so that it can be saved and edited:
 		}
 	},
 }
-
-// modelGap returns the model's gap length in metres, or 0 if the model
-// does not state one.
-func modelGap(m *models.Model) float64 { return m.Gap }

@@ -31,10 +31,7 @@ MODEL is a model file or the name of an embedded example.
 		png := fs.String("png", "", "draw the mesh to this .png or .svg file")
 		asJSON := fs.Bool("json", false, "print the statistics as JSON")
 		return func(env *Env, args []string) error {
-			if err := oneModel(args); err != nil {
-				return err
-			}
-			m, err := loadModel(args[0])
+			m, err := modelArg(args)
 			if err != nil {
 				return err
 			}

@@ -27,10 +27,7 @@ distance along the line.`,
 		csvOut := fs.String("csv", "", "write the samples to this CSV file")
 		png := fs.String("png", "", "draw the profile to this .png or .svg file")
 		return func(env *Env, args []string) error {
-			if err := oneModel(args); err != nil {
-				return err
-			}
-			m, err := loadModel(args[0])
+			m, err := modelArg(args)
 			if err != nil {
 				return err
 			}

@@ -52,10 +52,7 @@ the cautions printed with the result apply.`,
 		csvOut := fs.String("csv", "", "write the winding options to this CSV file")
 		asJSON := fs.Bool("json", false, "print the result as JSON")
 		return func(env *Env, args []string) error {
-			if err := oneModel(args); err != nil {
-				return err
-			}
-			m, err := loadModel(args[0])
+			m, err := modelArg(args)
 			if err != nil {
 				return err
 			}

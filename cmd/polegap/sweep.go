@@ -53,10 +53,7 @@ job array can run a long sweep in parallel; join the shards' tables with
 		png := fs.String("png", "", "draw the curve to this .png or .svg file")
 		shard := fs.String("shard", "", "run shard K of N (e.g. 2/8)")
 		return func(env *Env, args []string) error {
-			if err := oneModel(args); err != nil {
-				return err
-			}
-			m, err := loadModel(args[0])
+			m, err := modelArg(args)
 			if err != nil {
 				return err
 			}
@@ -243,20 +240,14 @@ func gapLength(m *models.Model, flagValue string) (float64, error) {
 		}
 		return v, nil
 	}
-	return modelGap(m), nil
+	return m.Gap, nil
 }
 
 func probeFor(m *models.Model, probe string) string {
 	if probe != "" {
 		return probe
 	}
-	if m.Target != nil {
-		return m.Target.Probe
-	}
-	if len(m.Probes) > 0 {
-		return m.Probes[0].Name
-	}
-	return ""
+	return m.MainProbe()
 }
 
 // interruptible returns the context of a long run: cancelled by Ctrl-C.

@@ -185,29 +185,18 @@ func NextSize(m *mesh.Mesh, eta []float64, fraction float64) func(x, y float64, 
 // FieldAt returns the default quantity: |B| at the target probe, the
 // gap-centre probe or the first point probe.
 func FieldAt(m *models.Model) (func(*study.Study) (float64, error), error) {
-	var names []string
-	if m.Target != nil {
-		names = append(names, m.Target.Probe)
+	p, ok := m.CentreProbe()
+	if !ok {
+		return nil, fmt.Errorf("%s: no point probe to converge the field at; add one under probes or give a quantity", m.File)
 	}
-	names = append(names, "gap-centre")
-	for _, p := range m.Probes {
-		if p.Kind == models.ProbePoint {
-			names = append(names, p.Name)
+	name, x, y := p.Name, p.Point[0], p.Point[1]
+	return func(s *study.Study) (float64, error) {
+		_, bx, by, ok := s.Field().At(x, y)
+		if !ok {
+			return 0, fmt.Errorf("probe %s lies outside the mesh", name)
 		}
-	}
-	for _, n := range names {
-		if p, ok := m.Probe(n); ok && p.Kind == models.ProbePoint {
-			x, y := p.Point[0], p.Point[1]
-			return func(s *study.Study) (float64, error) {
-				_, bx, by, ok := s.Field().At(x, y)
-				if !ok {
-					return 0, fmt.Errorf("probe %s lies outside the mesh", n)
-				}
-				return math.Hypot(bx, by), nil
-			}, nil
-		}
-	}
-	return nil, fmt.Errorf("%s: no point probe to converge the field at; add one under probes or give a quantity", m.File)
+		return math.Hypot(bx, by), nil
+	}, nil
 }
 
 // dualIndicator solves the dual problem of the flux across a short
@@ -215,10 +204,11 @@ func FieldAt(m *models.Model) (func(*study.Study) (float64, error), error) {
 // no other source) and returns its error indicator per triangle.
 func dualIndicator(s *study.Study, opt Options) ([]float64, error) {
 	m := s.Model
-	x, y, ok := probePoint(m)
+	cp, ok := m.CentreProbe()
 	if !ok {
 		return nil, fmt.Errorf("%s: goal-oriented refinement needs a point probe", m.File)
 	}
+	x, y := cp.Point[0], cp.Point[1]
 	_, bx, by, inside := s.Field().At(x, y)
 	if !inside {
 		return nil, fmt.Errorf("%s: the probe lies outside the mesh", m.File)
@@ -257,21 +247,4 @@ func dualIndicator(s *study.Study, opt Options) ([]float64, error) {
 	}
 	eta, _ := z.ErrorIndicatorTo(nil)
 	return eta, nil
-}
-
-func probePoint(m *models.Model) (x, y float64, ok bool) {
-	var names []string
-	if m.Target != nil {
-		names = append(names, m.Target.Probe)
-	}
-	names = append(names, "gap-centre")
-	for _, p := range m.Probes {
-		names = append(names, p.Name)
-	}
-	for _, n := range names {
-		if p, found := m.Probe(n); found && p.Kind == models.ProbePoint {
-			return p.Point[0], p.Point[1], true
-		}
-	}
-	return 0, 0, false
 }

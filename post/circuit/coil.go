@@ -1,6 +1,7 @@
 package circuit
 
 import (
+	"polegap/internal/compsum"
 	"polegap/models"
 	"polegap/post/prepare"
 	"polegap/solver"
@@ -72,13 +73,13 @@ func LinkagesTo(dst []float64, sol *solver.Solution, coils []Coil) ([]float64, e
 	m := p.Mesh
 	areas := m.RegionAreas()
 	// ∫ A dΩ (times 2π r) per region tag, over the tags that coils use.
-	want := map[int32]*sum{}
+	want := map[int32]*compsum.Sum{}
 	for ci := range coils {
 		for _, s := range coils[ci].Sides {
 			if !(areas[s.Tag] > 0) {
 				return nil, &SideError{Coil: coils[ci].Name, Tag: s.Tag}
 			}
-			want[s.Tag] = &sum{}
+			want[s.Tag] = &compsum.Sum{}
 		}
 	}
 	deg := 2 // A is of degree 1 or 2
@@ -97,13 +98,13 @@ func LinkagesTo(dst []float64, sol *solver.Solution, coils []Coil) ([]float64, e
 			pt := f.At(t, q)
 			it += pt.W * pt.A
 		}
-		acc.add(it)
+		acc.Add(it)
 	}
 	scale := depthOf(p)
 	for ci := range coils {
 		var l float64
 		for _, s := range coils[ci].Sides {
-			l += s.Sense * coils[ci].Turns / areas[s.Tag] * want[s.Tag].value()
+			l += s.Sense * coils[ci].Turns / areas[s.Tag] * want[s.Tag].Value()
 		}
 		dst[ci] = l * scale
 		if !finite(dst[ci]) {

@@ -2,6 +2,7 @@ package circuit
 
 import (
 	"math"
+	"polegap/internal/compsum"
 
 	"polegap/solver"
 )
@@ -119,7 +120,7 @@ func Energies(sol *solver.Solution) (w, wco float64, err error) {
 	}
 	p := sol.Problem
 	f := NewField(sol, Degree(p.Mesh.Order(), p.Formulation))
-	var sw, sc sum
+	var sw, sc compsum.Sum
 	nq := f.NumPoints()
 	bs := make([][]float64, len(p.Materials))
 	for r, mat := range p.Materials {
@@ -137,11 +138,11 @@ func Energies(sol *solver.Solution) (w, wco float64, err error) {
 			et += pt.W * e
 			ct += pt.W * c
 		}
-		sw.add(et)
-		sc.add(ct)
+		sw.Add(et)
+		sc.Add(ct)
 	}
 	scale := depthOf(p)
-	w, wco = sw.value()*scale, sc.value()*scale
+	w, wco = sw.Value()*scale, sc.Value()*scale
 	if !finite(w) {
 		return 0, 0, &NotFiniteError{Quantity: "stored energy", Value: w}
 	}
@@ -162,18 +163,3 @@ func depthOf(p *solver.Problem) float64 {
 }
 
 func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
-
-// sum is a Kahan–Babuška (Neumaier) compensated sum.
-type sum struct{ s, c float64 }
-
-func (k *sum) add(x float64) {
-	t := k.s + x
-	if math.Abs(k.s) >= math.Abs(x) {
-		k.c += (k.s - t) + x
-	} else {
-		k.c += (x - t) + k.s
-	}
-	k.s = t
-}
-
-func (k *sum) value() float64 { return k.s + k.c }

@@ -246,18 +246,14 @@ func (m scaled) Nu(b2 float64) (nu, dnu float64) {
 	return nu / m.s, dnu / m.s
 }
 
-// midPlane returns the y of the gap centre: the probe's, the target's, or
-// the gap-centre probe's point.
+// midPlane returns the y of the gap centre: the named probe's point, or
+// the model's centre probe's.
 func midPlane(m *models.Model, probe string) (float64, error) {
-	names := []string{probe}
-	if m.Target != nil {
-		names = append(names, m.Target.Probe)
+	if p, ok := m.Probe(probe); ok && p.Kind == models.ProbePoint {
+		return p.Point[1], nil
 	}
-	names = append(names, "gap-centre")
-	for _, n := range names {
-		if p, ok := m.Probe(n); ok && p.Kind == models.ProbePoint {
-			return p.Point[1], nil
-		}
+	if p, ok := m.CentreProbe(); ok {
+		return p.Point[1], nil
 	}
 	return 0, fmt.Errorf("%s: no point probe at the gap centre to find the gap's mid-plane", m.File)
 }

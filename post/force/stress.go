@@ -3,6 +3,7 @@ package force
 import (
 	"container/heap"
 	"math"
+	"polegap/internal/compsum"
 	"sort"
 
 	"polegap/mesh"
@@ -98,7 +99,7 @@ func Stress(sol *solver.Solution, part []int32, opt StressOptions) (Force, error
 	}
 	f := circuit.NewField(sol, deg)
 	nq := f.NumPoints()
-	var fx, fy sum
+	var fx, fy compsum.Sum
 	count := 0
 	for t := 0; t < nt; t++ {
 		i0, i1, i2 := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
@@ -128,14 +129,14 @@ func Stress(sol *solver.Solution, part []int32, opt StressOptions) (Force, error
 			ex += pt.W * (wco*gx - pt.Bx*hg)
 			ey += pt.W * (wco*gy - pt.By*hg)
 		}
-		fx.add(ex)
-		fy.add(ey)
+		fx.Add(ex)
+		fy.Add(ey)
 	}
 	out := Force{Band: band, Elements: count}
 	if p.Formulation == solver.Axisymmetric {
-		out.F = [2]float64{0, fy.value()}
+		out.F = [2]float64{0, fy.Value()}
 	} else {
-		out.F = [2]float64{fx.value() * p.Depth, fy.value() * p.Depth}
+		out.F = [2]float64{fx.Value() * p.Depth, fy.Value() * p.Depth}
 	}
 	if !finite(out.F[0]) || !finite(out.F[1]) {
 		return Force{}, &NotFiniteError{Value: out.F}
@@ -283,18 +284,3 @@ func (h *nodeHeap) Pop() any {
 }
 
 func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
-
-// sum is a Kahan–Babuška (Neumaier) compensated sum.
-type sum struct{ s, c float64 }
-
-func (k *sum) add(x float64) {
-	t := k.s + x
-	if math.Abs(k.s) >= math.Abs(x) {
-		k.c += (k.s - t) + x
-	} else {
-		k.c += (x - t) + k.s
-	}
-	k.s = t
-}
-
-func (k *sum) value() float64 { return k.s + k.c }

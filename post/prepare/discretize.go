@@ -146,7 +146,6 @@ func DiscretizeSized(m *models.Model, size func(x, y float64, region int32) floa
 	if err := CheckProbes(m, d.Boundary); err != nil {
 		return nil, err
 	}
-	d.Options.Size = gridded(d.Options.Size, d.Boundary)
 	gopt := mesh.GraphOptions{ChordTol: m.Mesh.Chord}
 	d.Input, err = mesh.BuildInput(Polygons(m), d.Boundary, gopt)
 	if err != nil {

@@ -22,8 +22,10 @@ type Recovered struct {
 }
 
 // NewRecovered builds the recovered field from a first-order mesh, the
-// flux density of each triangle and the field that supplies A.
-func NewRecovered(base Field, m *mesh.Mesh, b [][2]float64) *Recovered {
+// flux density of each triangle and the field that supplies A. loc
+// locates points in m; nil builds one (callers that recover several
+// solutions on one mesh pass theirs).
+func NewRecovered(base Field, m *mesh.Mesh, b [][2]float64, loc *mesh.Locator) *Recovered {
 	nt := m.NumTriangles()
 	if len(b) != nt {
 		panic("probes: one flux density per triangle needed")
@@ -51,7 +53,10 @@ func NewRecovered(base Field, m *mesh.Mesh, b [][2]float64) *Recovered {
 		a, bb, c := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
 		area[t] = 0.5 * ((m.X[bb]-m.X[a])*(m.Y[c]-m.Y[a]) - (m.X[c]-m.X[a])*(m.Y[bb]-m.Y[a]))
 	}
-	r := &Recovered{base: base, m: m, loc: mesh.NewLocator(m), corner: make([][2]float64, 3*nt)}
+	if loc == nil {
+		loc = mesh.NewLocator(m)
+	}
+	r := &Recovered{base: base, m: m, loc: loc, corner: make([][2]float64, 3*nt)}
 	for t := 0; t < nt; t++ {
 		reg := m.Region[t]
 		for k := 0; k < 3; k++ {

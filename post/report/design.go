@@ -181,25 +181,11 @@ func (d *Design) note(format string, args ...any) {
 	d.Notes = append(d.Notes, fmt.Sprintf(format, args...))
 }
 
-// centreProbe is the point probe at the gap centre: the target's, or one
-// named gap-centre.
-func centreProbe(m *models.Model) *models.Probe {
-	if m.Target != nil {
-		if p, ok := m.Probe(m.Target.Probe); ok && p.Kind == models.ProbePoint {
-			return p
-		}
-	}
-	if p, ok := m.Probe("gap-centre"); ok && p.Kind == models.ProbePoint {
-		return p
-	}
-	return nil
-}
-
 func (d *Design) gapQuantities(s *study.Study) {
 	m := s.Model
-	cp := centreProbe(m)
-	if cp == nil {
-		d.note("gap: no point probe at the gap centre (the target's probe, or one named gap-centre)")
+	cp, ok := m.CentreProbe()
+	if !ok {
+		d.note("gap: no point probe at the gap centre (the target's probe, one named gap-centre, or any point probe)")
 		return
 	}
 	f := s.Field()

@@ -158,7 +158,7 @@ func (r *Run) WriteFolder(dir string) ([]string, error) {
 	}
 	if len(b.Sweep) > 0 {
 		if err := write("excitation.csv", func(w io.Writer) error {
-			return sweep.WriteCSV(w, sweep.Meta{Model: s.Model.Name, Probe: probeName(s.Model)}, b.Sweep)
+			return sweep.WriteCSV(w, sweep.Meta{Model: s.Model.Name, Probe: s.Model.MainProbe()}, b.Sweep)
 		}); err != nil {
 			return nil, err
 		}
@@ -179,14 +179,4 @@ func (r *Run) WriteFolder(dir string) ([]string, error) {
 		return nil, err
 	}
 	return names, nil
-}
-
-func probeName(m *models.Model) string {
-	if m.Target != nil {
-		return m.Target.Probe
-	}
-	if len(m.Probes) > 0 {
-		return m.Probes[0].Name
-	}
-	return ""
 }

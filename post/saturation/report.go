@@ -2,6 +2,7 @@ package saturation
 
 import (
 	"math"
+	"polegap/internal/compsum"
 
 	"polegap/mesh"
 )
@@ -168,36 +169,36 @@ func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Op
 	mag := make([]float64, len(tris))
 	cx := make([]float64, len(tris))
 	cy := make([]float64, len(tris))
-	var totalS, sumS kahan
+	var totalS, sumS compsum.Sum
 	for j, t := range tris {
 		a, bb, c := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
 		area[j] = 0.5 * ((m.X[bb]-m.X[a])*(m.Y[c]-m.Y[a]) - (m.X[c]-m.X[a])*(m.Y[bb]-m.Y[a]))
 		cx[j] = (m.X[a] + m.X[bb] + m.X[c]) / 3
 		cy[j] = (m.Y[a] + m.Y[bb] + m.Y[c]) / 3
-		totalS.add(area[j])
+		totalS.Add(area[j])
 		mag[j] = babs(b[t])
-		sumS.add(area[j] * mag[j])
+		sumS.Add(area[j] * mag[j])
 	}
-	total := totalS.value()
+	total := totalS.Value()
 	rep.Area = total
-	rep.Mean = sumS.value() / total
+	rep.Mean = sumS.Value() / total
 	rep.CornerRadius = opt.CornerRadius
 	if rep.CornerRadius == 0 {
 		rep.CornerRadius = DefaultCornerFraction * math.Sqrt(total)
 	}
 	rep.Levels = make([]Level, len(opt.Levels))
-	var above kahan
-	aboveL := make([]kahan, len(opt.Levels))
+	var above compsum.Sum
+	aboveL := make([]compsum.Sum, len(opt.Levels))
 	rad2 := rep.CornerRadius * rep.CornerRadius
 	rep.Max = -1
 	for j, t := range tris {
 		v := mag[j]
 		if v > rep.Knee {
-			above.add(area[j])
+			above.Add(area[j])
 		}
 		for k, l := range opt.Levels {
 			if v > l {
-				aboveL[k].add(area[j])
+				aboveL[k].Add(area[j])
 			}
 		}
 		near := false
@@ -218,9 +219,9 @@ func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Op
 			}
 		}
 	}
-	rep.AboveKnee = above.value() / total
+	rep.AboveKnee = above.Value() / total
 	for k, l := range opt.Levels {
-		rep.Levels[k] = Level{B: l, Fraction: aboveL[k].value() / total}
+		rep.Levels[k] = Level{B: l, Fraction: aboveL[k].Value() / total}
 	}
 	rep.Pass = r.Limit == 0 || rep.MaxAway <= r.Limit
 	return rep, nil
@@ -228,23 +229,6 @@ func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Op
 
 // babs returns |B|; flux densities are far from overflow, so no Hypot.
 func babs(v [2]float64) float64 { return math.Sqrt(v[0]*v[0] + v[1]*v[1]) }
-
-// kahan is a compensated (Kahan-Babuška-Neumaier) sum: A. Neumaier,
-// "Rundungsfehleranalyse einiger Verfahren zur Summation endlicher
-// Summen", ZAMM 54, 1974.
-type kahan struct{ s, c float64 }
-
-func (k *kahan) add(v float64) {
-	t := k.s + v
-	if math.Abs(k.s) >= math.Abs(v) {
-		k.c += (k.s - t) + v
-	} else {
-		k.c += (v - t) + k.s
-	}
-	k.s = t
-}
-
-func (k *kahan) value() float64 { return k.s + k.c }
 
 // DefaultMinTurn is the least turn, in degrees, that makes a polygon
 // vertex a re-entrant corner for ReentrantCorners: interior angles of

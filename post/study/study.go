@@ -3,6 +3,7 @@ package study
 import (
 	"time"
 
+	"polegap/mesh"
 	"polegap/models"
 	"polegap/post/prepare"
 	"polegap/post/probes"
@@ -31,6 +32,8 @@ type Study struct {
 	// search): only the problem's values change between them.
 	prep     *solver.Prepared
 	prepProb *solver.Problem
+	field    probes.Field  // the field of the current Solution
+	loc      *mesh.Locator // point location on Disc.Mesh, built once
 }
 
 // Run meshes, solves and probes m.
@@ -74,7 +77,7 @@ func (s *Study) Solve(opt Options) error {
 	if err != nil {
 		return err
 	}
-	s.Problem, s.Solution = p, sol
+	s.Problem, s.Solution, s.field = p, sol, nil
 	s.Probes = probes.Evaluate(s.Field(), s.Model.Probes)
 	return nil
 }
@@ -93,11 +96,19 @@ func (s *Study) Probe(name string) (probes.Result, bool) {
 // second-order meshes, and the recovered (corner-averaged) flux density
 // for first-order ones, whose element values are constant.
 func (s *Study) Field() probes.Field {
+	if s.field != nil {
+		return s.field
+	}
 	m := s.Disc.Mesh
 	if m.Order() == 2 {
-		return s.Solution
+		s.field = s.Solution
+		return s.field
 	}
-	return probes.NewRecovered(s.Solution, m, s.Solution.BTo(nil))
+	if s.loc == nil {
+		s.loc = mesh.NewLocator(m)
+	}
+	s.field = probes.NewRecovered(s.Solution, m, s.Solution.BTo(nil), s.loc)
+	return s.field
 }
 
 // sameShape reports whether q can be solved with the Prepared of p: the

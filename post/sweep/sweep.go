@@ -131,11 +131,7 @@ func NewRunnerWith(ctx context.Context, m *models.Model, coil, probe string, opt
 		}
 	}
 	if probe == "" {
-		if m.Target != nil {
-			probe = m.Target.Probe
-		} else if len(m.Probes) > 0 {
-			probe = m.Probes[0].Name
-		}
+		probe = m.MainProbe()
 	}
 	if probe == "" {
 		return nil, fmt.Errorf("%s: the model has no probe to read the field at; add one under probes", m.File)

@@ -1,10 +1,6 @@
-package prepare
+package mesh
 
-import (
-	"math"
-
-	"polegap/mesh"
-)
+import "math"
 
 // sizeGrid evaluates the point and line sources of a size field exactly
 // but fast: a uniform grid over the domain keeps, for each cell, only the
@@ -18,13 +14,13 @@ type sizeGrid struct {
 	nx, ny         int
 	start          []int32 // per cell, into cand
 	cand           []int32 // source indices
-	src            []mesh.SizeLine
+	src            []SizeLine
 	g              float64
 }
 
 // newSizeGrid builds the grid over [x0,x1]×[y0,y1] for the sources
 // (points as zero-length lines) with grading g.
-func newSizeGrid(src []mesh.SizeLine, g, x0, y0, x1, y1 float64) *sizeGrid {
+func newSizeGrid(src []SizeLine, g, x0, y0, x1, y1 float64) *sizeGrid {
 	const n = 64
 	sg := &sizeGrid{x0: x0, y0: y0, nx: n, ny: n, src: src, g: g,
 		cw: (x1 - x0) / n, ch: (y1 - y0) / n}
@@ -36,7 +32,7 @@ func newSizeGrid(src []mesh.SizeLine, g, x0, y0, x1, y1 float64) *sizeGrid {
 			cx, cy := x0+(float64(i)+0.5)*sg.cw, y0+(float64(j)+0.5)*sg.ch
 			best := math.Inf(1)
 			for k, l := range src {
-				d := segDist(cx, cy, l.X0, l.Y0, l.X1, l.Y1)
+				d := distToSegment(cx, cy, l.X0, l.Y0, l.X1, l.Y1)
 				lb[k] = l.Size + g*math.Max(0, d-r)
 				best = math.Min(best, l.Size+g*(d+r))
 			}
@@ -60,53 +56,51 @@ func (sg *sizeGrid) At(x, y float64, _ int32) float64 {
 	if i < 0 || j < 0 || i >= sg.nx || j >= sg.ny || math.IsNaN(x) || math.IsNaN(y) {
 		// Outside the grid (the Kelvin disk): all sources.
 		for _, l := range sg.src {
-			h = math.Min(h, l.Size+sg.g*segDist(x, y, l.X0, l.Y0, l.X1, l.Y1))
+			h = math.Min(h, l.Size+sg.g*distToSegment(x, y, l.X0, l.Y0, l.X1, l.Y1))
 		}
 		return h
 	}
 	c := j*sg.nx + i
 	for _, k := range sg.cand[sg.start[c]:sg.start[c+1]] {
 		l := &sg.src[k]
-		h = math.Min(h, l.Size+sg.g*segDist(x, y, l.X0, l.Y0, l.X1, l.Y1))
+		h = math.Min(h, l.Size+sg.g*distToSegment(x, y, l.X0, l.Y0, l.X1, l.Y1))
 	}
 	return h
 }
 
-// gridded moves the point and line sources of f into a sizeGrid over the
-// boundary's box, chained with any Func f already has. The field gives
-// the same sizes (to rounding) in far fewer operations per query.
-func gridded(f mesh.SizeField, b mesh.Polygon) mesh.SizeField {
-	if len(f.Points)+len(f.Lines) < 8 {
+// indexed returns f with its point and line sources moved into a
+// sizeGrid over the bounding box of the points (x, y), chained with any
+// Func f already has. The field gives the same sizes (to rounding) with a
+// few source evaluations per query instead of one per source; fields with
+// few sources are returned as they are.
+func (f SizeField) indexed(x, y []float64) SizeField {
+	if len(f.Points)+len(f.Lines) < 8 || len(x) == 0 {
 		return f
 	}
-	src := append([]mesh.SizeLine(nil), f.Lines...)
-	for _, p := range f.Points {
-		src = append(src, mesh.SizeLine{X0: p.X, Y0: p.Y, X1: p.X, Y1: p.Y, Size: p.Size})
-	}
-	keep := src[:0]
-	for _, l := range src {
+	src := make([]SizeLine, 0, len(f.Lines)+len(f.Points))
+	for _, l := range f.Lines {
 		if l.Size > 0 {
-			keep = append(keep, l)
+			src = append(src, l)
+		}
+	}
+	for _, p := range f.Points {
+		if p.Size > 0 {
+			src = append(src, SizeLine{X0: p.X, Y0: p.Y, X1: p.X, Y1: p.Y, Size: p.Size})
 		}
 	}
 	g := f.Grading
 	if g <= 0 {
-		g = mesh.DefaultGrading
+		g = DefaultGrading
 	}
-	x0, y0, x1, y1 := math.Inf(1), math.Inf(1), math.Inf(-1), math.Inf(-1)
-	for i := range b.X {
-		x0, x1 = math.Min(x0, b.X[i]), math.Max(x1, b.X[i])
-		y0, y1 = math.Min(y0, b.Y[i]), math.Max(y1, b.Y[i])
+	x0, y0, x1, y1 := x[0], y[0], x[0], y[0]
+	for i := range x {
+		x0, x1 = math.Min(x0, x[i]), math.Max(x1, x[i])
+		y0, y1 = math.Min(y0, y[i]), math.Max(y1, y[i])
 	}
-	if b.Sweep != nil { // a circle: its vertices do not bound it
-		cx, cy := 0.5*(x0+x1), 0.5*(y0+y1)
-		r := 0.0
-		for i := range b.X {
-			r = math.Max(r, math.Hypot(b.X[i]-cx, b.Y[i]-cy))
-		}
-		x0, x1, y0, y1 = math.Min(x0, cx-r), math.Max(x1, cx+r), math.Min(y0, cy-r), math.Max(y1, cy+r)
+	if !(x1 > x0) || !(y1 > y0) {
+		return f
 	}
-	sg := newSizeGrid(keep, g, x0, y0, x1, y1)
+	sg := newSizeGrid(src, g, x0, y0, x1, y1)
 	prev := f.Func
 	f.Func = func(x, y float64, region int32) float64 {
 		h := sg.At(x, y, region)
