@@ -145,16 +145,6 @@ func (d *cdt) edgeIndex(t, n int32) int {
 	return -1
 }
 
-// setNbr makes t and n neighbours across edge k of t (n may be -1).
-func (d *cdt) setNbr(t int32, k int, n int32, old int32) {
-	d.nbr[3*int(t)+k] = n
-	if n >= 0 {
-		if j := d.edgeIndex(n, old); j >= 0 {
-			d.nbr[3*n+int32(j)] = t
-		}
-	}
-}
-
 // rnd is a tiny xorshift generator for walk randomisation.
 func (d *cdt) rnd() uint32 {
 	s := d.seed

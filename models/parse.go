@@ -1,7 +1,6 @@
 package models
 
 import (
-	"fmt"
 	"math"
 	"os"
 	"path/filepath"
@@ -485,9 +484,6 @@ func (d *decoder) coils(m *Model, n *yaml.Node) {
 		m.Coils = append(m.Coils, c)
 	}
 }
-
-// fmtDeg formats radians as degrees for messages.
-func fmtDeg(a float64) string { return fmt.Sprintf("%g°", a*180/math.Pi) }
 
 // firstColumn returns the 1-based column of the first non-blank character
 // of line n of data (1 when the line is blank or missing): the parser

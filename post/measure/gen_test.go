@@ -24,8 +24,6 @@ var update = flag.Bool("update", false, "rewrite the sample files in testdata/me
 // files recovers about 41.5 mm. The sample files were drawn from it with
 // the stated Gaussian noise, seed rand.NewPCG(1, 1) for each file.
 const (
-	trueGap = 0.0415 // m, the gap the "built" magnet has
-
 	// current balance
 	balL    = 0.0500 // m, true conductor length
 	balG    = 9.8105 // m/s², the lab's local g (invented)
