@@ -1,8 +1,10 @@
 package sparse
 
 import (
+	"fmt"
 	"os"
 	"testing"
+	"time"
 )
 
 func BenchmarkOrderGrid5(b *testing.B) {
@@ -55,4 +57,158 @@ func TestNDParallelPath(t *testing.T) {
 			t.Fatalf("orderings differ at %d", k)
 		}
 	}
+}
+
+func loadMTX(t testing.TB, f string) *CSR {
+	fh, err := os.Open(f)
+	if err != nil {
+		t.Skip(err)
+	}
+	defer fh.Close()
+	a, err := ReadMatrixMarket(fh)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return a
+}
+
+func TestMLNDCompare(t *testing.T) {
+	if os.Getenv("POLEGAP_SPARSE_TUNING") == "" {
+		t.Skip("tuning table")
+	}
+	files := []string{"/tmp/ccore10k.mtx", "/tmp/ccore100k.mtx"}
+	if os.Getenv("ML1M") != "" {
+		files = append(files, "/tmp/ccore1m.mtx")
+	}
+	for _, f := range files {
+		a := loadMTX(t, f)
+		for _, name := range []string{"old", "ml", "amd"} {
+			t0 := time.Now()
+			var p []int32
+			switch name {
+			case "old":
+				p = nestedDissection(newGraph(a))
+			case "ml":
+				p = multilevelND(newGraph(a))
+			case "amd":
+				p = amdOrder(newGraph(a))
+			}
+			dt := time.Since(t0)
+			if !IsPermutation(p) {
+				t.Fatal("not perm")
+			}
+			s := analyze(a, p, 1)
+			t.Logf("%s n=%d %s: nnzL=%d flops=%.3g order %.3fs", f, a.N, name, s.nnzL, s.flops, dt.Seconds())
+		}
+	}
+}
+
+// TestMLNDKnobs varies the tuning knobs on the 100k C-core matrix.
+func TestMLNDKnobs(t *testing.T) {
+	if os.Getenv("POLEGAP_SPARSE_TUNING") == "" {
+		t.Skip("tuning table")
+	}
+	a := loadMTX(t, "/tmp/ccore100k.mtx")
+	run := func(label string) {
+		best := time.Hour
+		var p []int32
+		for r := 0; r < 3; r++ {
+			t0 := time.Now()
+			p = multilevelND(newGraph(a))
+			best = min(best, time.Since(t0))
+		}
+		s := analyze(a, p, 1)
+		fmt.Printf("%-28s nnzL=%d flops=%.3g order %.3fs\n", label, s.nnzL, s.flops, best.Seconds())
+	}
+	run("base")
+	for _, v := range []int{100, 400, 800} {
+		old := mlLeaf
+		mlLeaf = v
+		run(fmt.Sprintf("leaf=%d", v))
+		mlLeaf = old
+	}
+	for _, v := range []int{2, 4} {
+		old := mlTrials
+		mlTrials = v
+		run(fmt.Sprintf("trials=%d", v))
+		mlTrials = old
+	}
+	for _, v := range []int{1, 2} {
+		old := mlPasses
+		mlPasses = v
+		run(fmt.Sprintf("passes=%d", v))
+		mlPasses = old
+	}
+	for _, v := range []int{60, 200} {
+		old := mlCoarsenTo
+		mlCoarsenTo = v
+		run(fmt.Sprintf("coarsenTo=%d", v))
+		mlCoarsenTo = old
+	}
+	for _, v := range []float64{0.52, 0.6} {
+		old := mlBalance
+		mlBalance = v
+		run(fmt.Sprintf("balance=%g", v))
+		mlBalance = old
+	}
+}
+
+func BenchmarkMLND100k(b *testing.B) {
+	a := loadMTX(b, "/tmp/ccore100k.mtx")
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		multilevelND(newGraph(a))
+	}
+}
+
+func TestMLNDGrids(t *testing.T) {
+	if os.Getenv("POLEGAP_SPARSE_TUNING") == "" {
+		t.Skip("tuning table")
+	}
+	for _, a := range []*CSR{grid5(300), grid7(316)} {
+		for _, name := range []string{"old", "ml", "amd"} {
+			t0 := time.Now()
+			var p []int32
+			switch name {
+			case "old":
+				p = nestedDissection(newGraph(a))
+			case "ml":
+				p = multilevelND(newGraph(a))
+			case "amd":
+				p = amdOrder(newGraph(a))
+			}
+			dt := time.Since(t0)
+			s := analyze(a, p, 1)
+			t.Logf("n=%d nnz=%d %s: nnzL=%d flops=%.3g order %.3fs", a.N, a.NNZ(), name, s.nnzL, s.flops, dt.Seconds())
+		}
+	}
+}
+
+func TestMLNDGridKnobs(t *testing.T) {
+	if os.Getenv("POLEGAP_SPARSE_TUNING") == "" {
+		t.Skip("tuning table")
+	}
+	a := grid5(300)
+	run := func(label string) {
+		p := multilevelND(newGraph(a))
+		s := analyze(a, p, 1)
+		fmt.Printf("%-28s nnzL=%d flops=%.3g\n", label, s.nnzL, s.flops)
+	}
+	run("base")
+	for _, v := range []int{30, 60, 100, 400} {
+		old := mlLeaf
+		mlLeaf = v
+		run(fmt.Sprintf("leaf=%d", v))
+		mlLeaf = old
+	}
+	for _, v := range []float64{0.51, 0.6} {
+		old := mlBalance
+		mlBalance = v
+		run(fmt.Sprintf("balance=%g", v))
+		mlBalance = old
+	}
+	old := mlPasses
+	mlPasses = 0
+	run("passes=0")
+	mlPasses = old
 }

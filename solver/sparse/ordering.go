@@ -56,7 +56,7 @@ func Order(a *CSR, o Ordering) []int32 {
 		}
 		return p
 	case NestedDissection:
-		return nestedDissection(newGraph(a))
+		return multilevelND(newGraph(a))
 	case AMD:
 		return amdOrder(newGraph(a))
 	}
