@@ -27,14 +27,17 @@ var (
 	// weight, that a bisection may leave.
 	mlBalance = 0.55
 	// mlTrials: greedy-growing starts for the initial bisection.
-	mlTrials = 6
+	mlTrials = 4
+	// mlInitPasses: refinement passes after each greedy growing.
+	mlInitPasses = 2
 	// mlPasses: refinement passes per level.
 	mlPasses = 4
 	// mlParallel: dissections of subgraphs larger than this order their
 	// two halves concurrently.
 	mlParallel = 20000
-	// mlShuffle: visit vertices in random order when matching.
-	mlShuffle = true
+	// mlShuffle: matching visits vertices in natural order (0), random
+	// order (1) or natural order with n/8 random swaps (2).
+	mlShuffle = 2
 )
 
 type mlnd struct {
@@ -128,7 +131,7 @@ func (w *mlWork) view(m *mlnd, s mlSub) *mlGraph {
 	ne := int(x[s.n])
 	w.g0 = mlGraph{
 		n: s.n, xadj: x, adj: m.adj[s.buf][s.e0 : s.e0+ne],
-		ewgt: w.ones(ne), vwgt: w.ones(s.n), tvw: s.n,
+		ewgt: w.ones(ne), vwgt: w.ones(s.n), tvw: s.n, unit: true,
 	}
 	return &w.g0
 }

@@ -13,6 +13,8 @@ type mlGraph struct {
 	ewgt []int32 // edge weights, parallel to adj
 	vwgt []int32 // vertex weights
 	tvw  int     // total vertex weight (the same on every level)
+	unit bool    // all weights are 1 (the finest level)
+	wsum []int32 // edge weight at each vertex (unset when unit)
 }
 
 // mlLevel is a coarse graph with the map from the vertices of the next
@@ -36,7 +38,7 @@ type mlWork struct {
 	label, idx, queue []int32
 	match, order      []int32
 	htab              []int32
-	id, ed            []int32
+	id, ed, id2, ed2  []int32
 	pos, pos2, lock   []int32
 	stamp             int32
 	moves, pulled     []int32
@@ -118,10 +120,8 @@ func (w *mlWork) bisect(g *mlGraph) []int8 {
 			F.where = grow8(F.where, F.g.n)
 			fine, fw = &F.g, F.where
 		}
-		for v, c := range L.cmap[:fine.n] {
-			fw[v] = L.where[c]
-		}
-		w.refine(fine, fw, mlPasses)
+		pw, cut := w.project(fine, fw, L)
+		w.refine(fine, fw, pw, cut, mlPasses)
 	}
 	w.cover(g, w.where0)
 	w.nodeRefine(g, w.where0, mlPasses)
@@ -149,26 +149,50 @@ func (w *mlWork) coarsen(g *mlGraph, L *mlLevel) {
 		match[i] = -1
 		order[i] = int32(i)
 	}
-	if mlShuffle {
+	switch mlShuffle {
+	case 1:
 		for i := n - 1; i > 0; i-- {
 			j := w.intn(i + 1)
 			order[i], order[j] = order[j], order[i]
 		}
+	case 2:
+		for k := n / 8; k > 0; k-- {
+			i, j := w.intn(n), w.intn(n)
+			order[i], order[j] = order[j], order[i]
+		}
 	}
 	maxvw := int32(max(2, 3*g.tvw/(2*mlCoarsenTo)))
-	for _, v := range order {
-		if match[v] >= 0 {
-			continue
-		}
-		best, bw, vv := v, int32(-1), vwgt[v]
-		for k := xadj[v]; k < xadj[v+1]; k++ {
-			u := adj[k]
-			if match[u] < 0 && ewgt[k] > bw && vv+vwgt[u] <= maxvw {
-				best, bw = u, ewgt[k]
+	if g.unit {
+		// Unit weights: random matching (every edge is heaviest).
+		for _, v := range order {
+			if match[v] >= 0 {
+				continue
 			}
+			best := v
+			for _, u := range adj[xadj[v]:xadj[v+1]] {
+				if match[u] < 0 {
+					best = u
+					break
+				}
+			}
+			match[v] = best
+			match[best] = v
 		}
-		match[v] = best
-		match[best] = v
+	} else {
+		for _, v := range order {
+			if match[v] >= 0 {
+				continue
+			}
+			best, bw, vv := v, int32(-1), vwgt[v]
+			for k := xadj[v]; k < xadj[v+1]; k++ {
+				u := adj[k]
+				if match[u] < 0 && ewgt[k] > bw && vv+vwgt[u] <= maxvw {
+					best, bw = u, ewgt[k]
+				}
+			}
+			match[v] = best
+			match[best] = v
+		}
 	}
 	cmap := grow32(L.cmap, n)
 	L.cmap = cmap
@@ -183,10 +207,14 @@ func (w *mlWork) coarsen(g *mlGraph, L *mlLevel) {
 	cg := &L.g
 	cg.n = int(nc)
 	cg.tvw = g.tvw
+	cg.unit = false
 	cg.xadj = grow32(cg.xadj, int(nc)+1)
-	cg.adj = grow32(cg.adj, int(xadj[n]))
-	cg.ewgt = grow32(cg.ewgt, int(xadj[n]))
+	sink := xadj[n]
+	cg.adj = grow32(cg.adj, int(sink)+1)
+	cg.ewgt = grow32(cg.ewgt, int(sink)+1)
 	cg.vwgt = grow32(cg.vwgt, int(nc))
+	cg.wsum = grow32(cg.wsum, int(nc))
+	cwsum := cg.wsum
 	htab := w.htab
 	if len(htab) < int(nc) {
 		htab = make([]int32, nc)
@@ -205,30 +233,34 @@ func (w *mlWork) coarsen(g *mlGraph, L *mlLevel) {
 			continue
 		}
 		start := ne
+		htab[c] = sink
 		x := v
 		for {
+			// Branch-free merge: htab[y] is y's slot in this vertex's
+			// list or -1 (a new slot); the edges to c itself go to sink.
 			for k := xadj[x]; k < xadj[x+1]; k++ {
 				y := cmap[adj[k]]
-				if y == c {
-					continue
-				}
-				if h := htab[y]; h >= 0 {
-					cew[h] += ewgt[k]
-				} else {
-					htab[y] = ne
-					cadj[ne] = y
-					cew[ne] = ewgt[k]
-					ne++
-				}
+				h := htab[y]
+				m := h >> 31
+				i := h&^m | ne&m
+				cew[ne] = 0
+				cadj[i] = y
+				cew[i] += ewgt[k]
+				htab[y] = i
+				ne -= m
 			}
 			if x == u {
 				break
 			}
 			x = u
 		}
-		for _, y := range cadj[start:ne] {
+		htab[c] = -1
+		ws := int32(0)
+		for k, y := range cadj[start:ne] {
 			htab[y] = -1
+			ws += cew[int(start)+k]
 		}
+		cwsum[c] = ws
 		cvw[c] = vwgt[v]
 		if u != v {
 			cvw[c] += vwgt[u]
@@ -307,30 +339,25 @@ func (w *mlWork) initBisect(g *mlGraph, where []int8) {
 			pos[v] = -1
 		}
 		h.reset()
-		cut := w.refine(g, where, mlPasses)
+		pw, cut := w.gains(g, where)
+		cut = w.refine(g, where, pw, cut, mlInitPasses)
 		if best < 0 || cut < best {
 			best = cut
 			copy(w.best, where[:n])
 		}
 	}
 	copy(where[:n], w.best)
+	w.gains(g, where)
 }
 
-// refine improves the edge cut of the bisection where of g by passes of
-// boundary Fiduccia-Mattheyses moves under the balance bound maxPart, and
-// returns the cut. It leaves w.id and w.ed holding each vertex's internal
-// and external edge weight.
-func (w *mlWork) refine(g *mlGraph, where []int8, passes int) int {
+// gains sets w.id and w.ed, each vertex's edge weight to its own and to
+// the other part, and returns the part weights and the cut.
+func (w *mlWork) gains(g *mlGraph, where []int8) (pw [2]int, cut int) {
 	n := g.n
 	xadj, adj, ewgt, vwgt := g.xadj, g.adj, g.ewgt, g.vwgt
-	maxw := maxPart(g)
 	w.id = grow32(w.id, n)
 	w.ed = grow32(w.ed, n)
-	w.pos = grow32(w.pos, n)
-	w.lock = grow32(w.lock, n)
-	id, ed, pos, lock := w.id, w.ed, w.pos, w.lock
-	var pw [2]int
-	cut := 0
+	id, ed := w.id, w.ed
 	for v := 0; v < n; v++ {
 		me := where[v]
 		a, b := int32(0), int32(0)
@@ -344,9 +371,67 @@ func (w *mlWork) refine(g *mlGraph, where []int8, passes int) int {
 		id[v], ed[v] = a, b
 		cut += int(b)
 		pw[me] += int(vwgt[v])
+	}
+	return pw, cut / 2
+}
+
+// project carries the bisection of the coarse graph L.g (with w.id and
+// w.ed set for it) to the finer graph fine, setting w.id and w.ed for
+// fine: a vertex whose coarse vertex had no edge to the other part has
+// none either, so only the coarse boundary is scanned. The part weights
+// and the cut are those of the coarse bisection.
+func (w *mlWork) project(fine *mlGraph, fw []int8, L *mlLevel) (pw [2]int, cut int) {
+	n := fine.n
+	xadj, adj, ewgt, vwgt := fine.xadj, fine.adj, fine.ewgt, fine.vwgt
+	ced := w.ed
+	w.id2 = grow32(w.id2, n)
+	w.ed2 = grow32(w.ed2, n)
+	id, ed := w.id2, w.ed2
+	cw := L.where
+	for v, c := range L.cmap[:n] {
+		me := cw[c]
+		fw[v] = me
+		pw[me] += int(vwgt[v])
+		if ced[c] == 0 {
+			ed[v] = 0
+			if fine.unit {
+				id[v] = xadj[v+1] - xadj[v]
+			} else {
+				id[v] = fine.wsum[v]
+			}
+			continue
+		}
+		a, b := int32(0), int32(0)
+		for k := xadj[v]; k < xadj[v+1]; k++ {
+			if cw[L.cmap[adj[k]]] == me {
+				a += ewgt[k]
+			} else {
+				b += ewgt[k]
+			}
+		}
+		id[v], ed[v] = a, b
+		cut += int(b)
+	}
+	w.id, w.id2 = w.id2, w.id
+	w.ed, w.ed2 = w.ed2, w.ed
+	return pw, cut / 2
+}
+
+// refine improves the edge cut of the bisection where of g by passes of
+// boundary Fiduccia-Mattheyses moves under the balance bound maxPart, and
+// returns the cut. On entry w.id and w.ed hold each vertex's edge weight
+// to its own and to the other part (see gains), and pw and cut the part
+// weights and the cut; w.id and w.ed are kept up to date.
+func (w *mlWork) refine(g *mlGraph, where []int8, pw [2]int, cut, passes int) int {
+	n := g.n
+	xadj, adj, ewgt, vwgt := g.xadj, g.adj, g.ewgt, g.vwgt
+	maxw := maxPart(g)
+	w.pos = grow32(w.pos, n)
+	w.lock = grow32(w.lock, n)
+	id, ed, pos, lock := w.id, w.ed, w.pos, w.lock
+	for v := range pos {
 		pos[v] = -1
 	}
-	cut /= 2
 	limit := min(max(n/100, 20), 150)
 	for pass := 0; pass < passes; pass++ {
 		stamp := w.nextStamp()

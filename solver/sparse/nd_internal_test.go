@@ -3,6 +3,8 @@ package sparse
 import (
 	"fmt"
 	"os"
+	"strconv"
+	"strings"
 	"testing"
 	"time"
 )
@@ -109,47 +111,52 @@ func TestMLNDKnobs(t *testing.T) {
 		t.Skip("tuning table")
 	}
 	a := loadMTX(t, "/tmp/ccore100k.mtx")
+	if f := os.Getenv("ML_FILE"); f != "" {
+		a = loadMTX(t, f)
+	}
+	oldPar := mlParallel
+	mlParallel = 1 << 30
+	defer func() { mlParallel = oldPar }()
 	run := func(label string) {
-		best := time.Hour
+		best, bestCPU := time.Hour, 1e9
 		var p []int32
 		for r := 0; r < 3; r++ {
+			c0 := cpuNow()
 			t0 := time.Now()
 			p = multilevelND(newGraph(a))
 			best = min(best, time.Since(t0))
+			bestCPU = min(bestCPU, cpuNow()-c0)
 		}
 		s := analyze(a, p, 1)
-		fmt.Printf("%-28s nnzL=%d flops=%.3g order %.3fs\n", label, s.nnzL, s.flops, best.Seconds())
+		fmt.Printf("%-28s nnzL=%d flops=%.3g order %.3fs cpu %.3fs\n", label, s.nnzL, s.flops, best.Seconds(), bestCPU)
 	}
-	run("base")
-	for _, v := range []int{100, 400, 800} {
-		old := mlLeaf
-		mlLeaf = v
-		run(fmt.Sprintf("leaf=%d", v))
-		mlLeaf = old
+	type knob struct {
+		name string
+		p    *int
 	}
-	for _, v := range []int{2, 4} {
-		old := mlTrials
-		mlTrials = v
-		run(fmt.Sprintf("trials=%d", v))
-		mlTrials = old
+	knobs := []knob{{"leaf", &mlLeaf}, {"trials", &mlTrials}, {"initpasses", &mlInitPasses}, {"passes", &mlPasses}, {"coarsento", &mlCoarsenTo}, {"shuffle", &mlShuffle}}
+	spec := os.Getenv("ML_KNOBS") // e.g. "trials=4,coarsento=80;trials=2"
+	if spec == "" {
+		spec = "base"
 	}
-	for _, v := range []int{1, 2} {
-		old := mlPasses
-		mlPasses = v
-		run(fmt.Sprintf("passes=%d", v))
-		mlPasses = old
-	}
-	for _, v := range []int{60, 200} {
-		old := mlCoarsenTo
-		mlCoarsenTo = v
-		run(fmt.Sprintf("coarsenTo=%d", v))
-		mlCoarsenTo = old
-	}
-	for _, v := range []float64{0.52, 0.6} {
-		old := mlBalance
-		mlBalance = v
-		run(fmt.Sprintf("balance=%g", v))
-		mlBalance = old
+	for _, set := range strings.Split(spec, ";") {
+		saved := map[*int]int{}
+		for _, kv := range strings.Split(set, ",") {
+			k, v, ok := strings.Cut(kv, "=")
+			if !ok {
+				continue
+			}
+			for _, kn := range knobs {
+				if kn.name == k {
+					saved[kn.p] = *kn.p
+					*kn.p, _ = strconv.Atoi(v)
+				}
+			}
+		}
+		run(set)
+		for p, v := range saved {
+			*p = v
+		}
 	}
 }
 
