@@ -20,7 +20,6 @@ import (
 	"polegap/post/study"
 	"polegap/post/sweep"
 	"polegap/post/target"
-	"polegap/solver"
 )
 
 // RunOptions control a full design run.
@@ -56,10 +55,26 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 	r := New(s, DesignOptions{Incremental: true})
 	b := &Bundle{Report: r, When: time.Now()}
 	b.Check = NewCheck(s, r.Design, CheckOptions{})
+	// One runner on the solved mesh serves the curve and the target
+	// search, which starts from the bracket the curve gives.
+	var rn *sweep.Runner
+	runner := func(probe string) (*sweep.Runner, error) {
+		if rn == nil || rn.ProbeName() != probe && probe != "" {
+			var err error
+			if rn, err = sweep.NewRunnerFrom(s, "", probe, nil); err != nil {
+				return nil, err
+			}
+		}
+		return rn, nil
+	}
 	if len(m.Coils) > 0 && m.Coils[0].Current != 0 {
 		say("sweeping the excitation curve")
 		hi := 2 * m.Coils[0].Current
-		pts, err := sweep.Run(ctx, m, sweep.Options{Currents: sweep.Range(hi/float64(opt.SweepPoints), hi, opt.SweepPoints), GapLength: m.Gap})
+		r, err := runner("")
+		if err != nil {
+			return nil, err
+		}
+		pts, err := r.Sweep(ctx, sweep.Options{Currents: sweep.Range(hi/float64(opt.SweepPoints), hi, opt.SweepPoints), GapLength: m.Gap})
 		if err != nil {
 			return nil, err
 		}
@@ -67,11 +82,15 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 	}
 	if m.Target != nil && len(m.Coils) > 0 {
 		say("finding the ampere-turns for the target")
-		rn, err := sweep.NewRunner(ctx, m, "", m.Target.Probe, solver.Options{})
+		known := b.Sweep
+		if rn != nil && m.Target.Probe != "" && rn.ProbeName() != m.Target.Probe {
+			known = nil // the curve reads another probe
+		}
+		r, err := runner(m.Target.Probe)
 		if err != nil {
 			return nil, err
 		}
-		res, err := target.Search(ctx, rn, m.Target.Field, target.Options{GapLength: m.Gap})
+		res, err := target.Search(ctx, r, m.Target.Field, target.Options{GapLength: m.Gap, Known: known})
 		if err != nil && !target.IsUnreachable(err) {
 			return nil, err
 		}

@@ -82,6 +82,20 @@ func (s *Study) Solve(opt Options) error {
 	return nil
 }
 
+// Fork returns a study of the same model on the same mesh holding s's
+// solution, whose later solves leave s as it is: a sweep or a target
+// search can start from a solved study without meshing again while the
+// study keeps the solution its report shows. The two share the
+// discretization and the point locator (both read-only); the fork makes
+// its own numbering and factorization at its first solve.
+func (s *Study) Fork() *Study {
+	if s.loc == nil && s.Disc.Mesh.Order() == 1 {
+		s.loc = mesh.NewLocator(s.Disc.Mesh)
+	}
+	return &Study{Model: s.Model, Disc: s.Disc, Problem: s.Problem, Solution: s.Solution,
+		Probes: s.Probes, MeshTime: s.MeshTime, field: s.field, loc: s.loc}
+}
+
 // Probe returns the evaluated probe of that name.
 func (s *Study) Probe(name string) (probes.Result, bool) {
 	for _, r := range s.Probes {

@@ -115,6 +115,34 @@ func NewRunner(ctx context.Context, m *models.Model, coil, probe string, opt sol
 // NewRunnerWith is NewRunner with a material replacement applied to every
 // solve (see study.Options.Material); nil means none.
 func NewRunnerWith(ctx context.Context, m *models.Model, coil, probe string, opt solver.Options, material func(tag int32, m solver.Material) solver.Material) (*Runner, error) {
+	r, err := newRunner(m, coil, probe, material)
+	if err != nil {
+		return nil, err
+	}
+	s, err := study.Run(m, study.Options{Solver: opt, Material: material})
+	if err != nil {
+		return nil, err
+	}
+	r.start(s)
+	return r, nil
+}
+
+// NewRunnerFrom prepares to solve a solved study's model at other
+// currents on the study's mesh, starting from its solution (which must be
+// at the model's own currents, solved with the same material
+// replacement). The study itself is left as it is: the runner solves on a
+// fork of it (study.Study.Fork).
+func NewRunnerFrom(s *study.Study, coil, probe string, material func(tag int32, m solver.Material) solver.Material) (*Runner, error) {
+	r, err := newRunner(s.Model, coil, probe, material)
+	if err != nil {
+		return nil, err
+	}
+	r.start(s.Fork())
+	return r, nil
+}
+
+// newRunner checks the coil and probe names and makes the runner.
+func newRunner(m *models.Model, coil, probe string, material func(tag int32, m solver.Material) solver.Material) (*Runner, error) {
 	if len(m.Coils) == 0 {
 		return nil, fmt.Errorf("%s: the model has no coil to sweep", m.File)
 	}
@@ -143,17 +171,17 @@ func NewRunnerWith(ctx context.Context, m *models.Model, coil, probe string, opt
 	for _, c := range m.Coils {
 		r.base = append(r.base, c.Current)
 	}
-	s, err := study.Run(m, study.Options{Solver: opt, Material: material})
-	if err != nil {
-		return nil, err
-	}
+	return r, nil
+}
+
+// start takes s, solved at the model's own currents, as the first point.
+func (r *Runner) start(s *study.Study) {
 	r.Study = s
 	r.last = s.Solution.A
-	r.lastI = r.base[ci]
-	if res, ok := s.Probe(probe); ok {
+	r.lastI = r.base[r.coil]
+	if res, ok := s.Probe(r.probe); ok {
 		r.baseField = fieldOf(res)
 	}
-	return r, nil
 }
 
 // predict returns the warm start for a solve at current: the secant
@@ -271,15 +299,24 @@ func maxIronB(s *study.Study) float64 {
 	return mx
 }
 
-// Run solves the selected points in order. On a cancelled context it
-// returns the finished points and an *InterruptedError; on a failed
-// solve, the finished points and a *PointError.
+// Run meshes the model and solves the selected points in order. On a
+// cancelled context it returns the finished points and an
+// *InterruptedError; on a failed solve, the finished points and a
+// *PointError.
 func Run(ctx context.Context, m *models.Model, opt Options) ([]Point, error) {
-	idx := Select(len(opt.Currents), opt.Shard, opt.Shards)
 	r, err := NewRunnerWith(ctx, m, opt.Coil, opt.Probe, opt.Solver, opt.Material)
 	if err != nil {
 		return nil, err
 	}
+	return r.Sweep(ctx, opt)
+}
+
+// Sweep solves the selected points of opt.Currents in order with the
+// runner's coil, probe and material (opt.Coil, opt.Probe and
+// opt.Material are not used), each warm-started from the last; errors
+// as Run.
+func (r *Runner) Sweep(ctx context.Context, opt Options) ([]Point, error) {
+	idx := Select(len(opt.Currents), opt.Shard, opt.Shards)
 	pts := make([]Point, 0, len(idx))
 	for n, i := range idx {
 		if err := ctx.Err(); err != nil {

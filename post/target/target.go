@@ -22,6 +22,11 @@ type Options struct {
 	GapLength float64
 	// MaxSolves bounds the number of solves; default 40.
 	MaxSolves int
+	// Known are points already solved with the same runner, such as an
+	// excitation curve: when two of them straddle the target, the search
+	// starts from that bracket, and one within Tol is the answer without
+	// a solve. nil starts from the ideal-circuit estimate.
+	Known []sweep.Point
 	// Progress, when set, is called after each solve.
 	Progress func(p sweep.Point)
 	Solver   solver.Options
@@ -114,6 +119,35 @@ func Search(ctx context.Context, r *sweep.Runner, target float64, opt Options) (
 	lo, hi := 0.0, math.NaN() // currents with field below / above target
 	flo, fhi := -target, math.NaN()
 	cur := math.Min(guess, limitI)
+	// Known points: the tightest bracket they give.
+	for _, p := range opt.Known {
+		i := p.Current
+		if !(i > 0) || math.Abs(p.AmpereTurns) > res.Limit || math.IsNaN(p.Field) {
+			continue
+		}
+		f := p.Field - target
+		if math.Abs(f) <= opt.Tol*target {
+			res.Reached, res.Point, res.AmpereTurns, res.Current = true, p, p.AmpereTurns, i
+			return res, nil
+		}
+		if f < 0 && i > lo {
+			lo, flo = i, f
+		}
+		if f > 0 && (math.IsNaN(hi) || i < hi) {
+			hi, fhi = i, f
+		}
+	}
+	switch {
+	case !math.IsNaN(hi) && lo < hi:
+		return res, illinois(&res, eval, lo, hi, flo, fhi, target, opt.Tol)
+	case !math.IsNaN(hi):
+		hi, fhi = math.NaN(), math.NaN() // inconsistent points: ignore them
+		lo, flo = 0, -target
+	case lo > 0:
+		// Every known point lies below the target: step up from the
+		// highest, linearly through the origin, at least 10 %.
+		cur = math.Min(lo*math.Max(1.1, target/(target+flo)), limitI)
+	}
 	for {
 		p, err := eval(cur)
 		if err != nil {
@@ -147,21 +181,27 @@ func Search(ctx context.Context, r *sweep.Runner, target float64, opt Options) (
 		}
 		cur = cur * target / p.Field // below the first guess
 	}
-	// Illinois regula falsi on [lo, hi].
+	return res, illinois(&res, eval, lo, hi, flo, fhi, target, opt.Tol)
+}
+
+// illinois closes in on the target current inside [lo, hi], where the
+// field is below the target at lo (flo < 0) and above it at hi (fhi > 0),
+// by the Illinois variant of regula falsi.
+func illinois(res *Result, eval func(float64) (sweep.Point, error), lo, hi, flo, fhi, target, tol float64) error {
 	side := 0
 	for {
-		cur = (lo*fhi - hi*flo) / (fhi - flo)
+		cur := (lo*fhi - hi*flo) / (fhi - flo)
 		if !(cur > lo && cur < hi) {
 			cur = 0.5 * (lo + hi)
 		}
 		p, err := eval(cur)
 		if err != nil {
-			return res, err
+			return err
 		}
 		f := p.Field - target
-		if math.Abs(f) <= opt.Tol*target || (hi-lo) <= 1e-12*hi {
+		if math.Abs(f) <= tol*target || (hi-lo) <= 1e-12*hi {
 			res.Reached, res.Point, res.AmpereTurns, res.Current = true, p, p.AmpereTurns, cur
-			return res, nil
+			return nil
 		}
 		if f < 0 {
 			lo, flo = cur, f
