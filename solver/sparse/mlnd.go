@@ -20,7 +20,7 @@ import "sync"
 var (
 	// mlLeaf: subgraphs with at most this many vertices are ordered by
 	// approximate minimum degree.
-	mlLeaf = 200
+	mlLeaf = 400
 	// mlCoarsenTo: coarsening stops at this many vertices.
 	mlCoarsenTo = 120
 	// mlBalance: largest part weight, as a fraction of the subgraph's

@@ -209,19 +209,15 @@ func (w *mlWork) coarsen(g *mlGraph, L *mlLevel) {
 	cg.tvw = g.tvw
 	cg.unit = false
 	cg.xadj = grow32(cg.xadj, int(nc)+1)
-	sink := xadj[n]
-	cg.adj = grow32(cg.adj, int(sink)+1)
-	cg.ewgt = grow32(cg.ewgt, int(sink)+1)
+	cg.adj = grow32(cg.adj, int(xadj[n]))
+	cg.ewgt = grow32(cg.ewgt, int(xadj[n]))
 	cg.vwgt = grow32(cg.vwgt, int(nc))
 	cg.wsum = grow32(cg.wsum, int(nc))
 	cwsum := cg.wsum
-	htab := w.htab
-	if len(htab) < int(nc) {
-		htab = make([]int32, nc)
-		for i := range htab {
-			htab[i] = -1
-		}
-		w.htab = htab
+	htab := grow32(w.htab, int(nc))
+	w.htab = htab
+	for i := range htab {
+		htab[i] = -1
 	}
 	cxadj, cadj, cew, cvw := cg.xadj, cg.adj, cg.ewgt, cg.vwgt
 	ne := int32(0)
@@ -233,32 +229,33 @@ func (w *mlWork) coarsen(g *mlGraph, L *mlLevel) {
 			continue
 		}
 		start := ne
-		htab[c] = sink
 		x := v
 		for {
-			// Branch-free merge: htab[y] is y's slot in this vertex's
-			// list or -1 (a new slot); the edges to c itself go to sink.
+			// htab[y] is the slot of y in the list being built when it
+			// is at least start (slots only grow, so older entries are
+			// stale without any reset).
 			for k := xadj[x]; k < xadj[x+1]; k++ {
 				y := cmap[adj[k]]
-				h := htab[y]
-				m := h >> 31
-				i := h&^m | ne&m
-				cew[ne] = 0
-				cadj[i] = y
-				cew[i] += ewgt[k]
-				htab[y] = i
-				ne -= m
+				if y == c {
+					continue
+				}
+				if h := htab[y]; h >= start {
+					cew[h] += ewgt[k]
+				} else {
+					htab[y] = ne
+					cadj[ne] = y
+					cew[ne] = ewgt[k]
+					ne++
+				}
 			}
 			if x == u {
 				break
 			}
 			x = u
 		}
-		htab[c] = -1
 		ws := int32(0)
-		for k, y := range cadj[start:ne] {
-			htab[y] = -1
-			ws += cew[int(start)+k]
+		for _, e := range cew[start:ne] {
+			ws += e
 		}
 		cwsum[c] = ws
 		cvw[c] = vwgt[v]
