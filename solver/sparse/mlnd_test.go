@@ -137,7 +137,7 @@ func mlView(g *graph, w *mlWork) *mlGraph {
 	for i := range x {
 		x[i] = int32(g.ptr[i])
 	}
-	return &mlGraph{n: g.n, xadj: x, adj: g.adj, ewgt: w.ones(len(g.adj)), vwgt: w.ones(g.n), tvw: g.n}
+	return &mlGraph{n: g.n, xadj: x, adj: g.adj, ewgt: w.ones(len(g.adj)), vwgt: w.ones(g.n), tvw: g.n, unit: true}
 }
 
 // TestMLNDSeparator checks the bisection's contract: no edge joins the two
