@@ -35,7 +35,8 @@
 // panics when the pattern is not structurally symmetric.
 //
 // Cholesky's symbolic phase: ordering (approximate minimum degree below
-// 30k unknowns, nested dissection above, see Ordering), elimination tree,
+// 50k unknowns, multilevel nested dissection above, see Ordering and
+// Orderings below), elimination tree,
 // Gilbert-Ng-Peyton column counts, relaxed supernodes and static
 // left-looking update lists. Its numeric phase works on dense column-major
 // supernode blocks with 2x4 register-blocked kernels (AVX2/FMA assembly on
@@ -44,25 +45,71 @@
 // Auto(n) and New pick a solver; on the 2D benchmarks in bench_test.go
 // Cholesky with the default ordering wins at every measured size, 10k to 1M
 // unknowns (IC(0)-PCG to 1e-10 needs 117, 331 and 1044 iterations there and
-// 2.4x, 4.4x and 8.6x the CPU time of the whole Cholesky solve), so Auto
+// 2.1x, 2.3x and 4.6x the CPU time of the whole Cholesky solve), so Auto
 // returns Cholesky up to 4M unknowns and PCG only beyond, where the
 // factor's memory (about 0.5 GB at 1M unknowns) becomes the limit.
+//
+// # Orderings
+//
+// AMD is approximate minimum degree (Amestoy, Davis and Duff 1996).
+// NestedDissection bisects the graph recursively by the multilevel scheme
+// of Karypis and Kumar (1998): heavy-edge matching down to about 120
+// vertices, greedy graph growing from 4 starts, boundary
+// Fiduccia-Mattheyses refinement of the edge cut on every level (no part
+// above 55 % of the vertices), then a minimum vertex cover of the cut
+// edges (Hopcroft-Karp matching, Konig's theorem) refined by
+// Fiduccia-Mattheyses moves of separator vertices. Each separator is
+// numbered after its two parts; pieces of at most 400 vertices are ordered
+// by AMD, and disconnected pieces split into components. The two halves of
+// a large dissection are ordered concurrently; random choices are seeded
+// from the piece's position, so the permutation is the same on every run
+// and for every GOMAXPROCS.
+//
+// Factor size and operations (Cholesky.NNZL, Cholesky.Flops) and ordering
+// time (wall and CPU seconds on the shared 2-core machine, load 2-5), from
+// go test -run OrderingTable -timing -v ./solver/sparse; the C-core
+// matrices are P1 on the graded benchmark C-core mesh (fine in the gap),
+// the grids those of the figures below. The level-structure nested
+// dissection this package used before is given for comparison (madds):
+//
+//	matrix   unknowns  ND nnz(L)  ND madds  ND wall/CPU-s  AMD nnz(L)  AMD madds  AMD s   old ND madds
+//	c-core   10.6k     0.38M      1.9e7     0.05/0.05      0.38M       2.3e7      0.01    6.3e7
+//	c-core   100k      4.5M       4.2e8     0.37/0.65      5.0M        7.9e8      0.23    3.4e9
+//	c-core   1M        53M        1.1e10    10.2/9.6       64M         2.3e10     3.8     2.9e11
+//	grid     10k       0.38M      1.9e7     0.05/0.05      0.35M       1.5e7      0.006   1.9e7
+//	grid     100k      5.1M       5.8e8     0.29/0.51      5.3M        6.7e8      0.07    5.3e8
+//	grid     1M        65M        1.9e10    5.3/8.0        73M         2.2e10     0.75    1.6e10
+//
+// On graded meshes nested dissection needs about half of AMD's operations
+// from 10k unknowns on; on the uniform grid it stays within 25 % of AMD
+// (ahead at 100k and 1M, behind at 10k and 300k: the structured
+// triangulation has straight and diagonal separators of equal size, and
+// the diagonal ones leave worse pieces). The ordering costs 2-7 times
+// AMD's time (15 times on the grid, where AMD is fast). DefaultOrdering switches to nested dissection at
+// 50k unknowns: on the C-core matrices that is where its saving over about
+// ten factorizations (a Newton solve reusing the analysis, at 5-6 Gmadd
+// per CPU-second) passes its extra ordering time (interpolating between
+// 10k, saving 0.2 of the cost, and 100k, saving 1.6 times it). A single
+// factorization at 1M unknowns is still faster with AMD.
 //
 // # Figures
 //
 // Whole linear solve (Analyze + Factor + SolveTo) of the P1 Laplace matrix
 // on a jittered structured triangulation of the unit square, default
-// options, this project's 2-core machine while it was shared (load 12-16,
+// options, this project's 2-core machine while it was shared (load 2-5,
 // so CPU seconds are the steadier figure; go test -run TimingTable
 // -timing -v ./solver/sparse prints the table):
 //
-//	unknowns  nnz(L)  madds     Cholesky CPU-s  IC(0)-PCG CPU-s (iterations)
-//	10k       0.35M   1.5e7     0.026           0.054 (117)
-//	100k      5.1M    5.3e8     0.42            1.75  (331)
-//	1M        64.7M   1.6e10    6.5             57    (1044)
+//	unknowns  ordering  nnz(L)  madds    Cholesky CPU-s (AMD)  IC(0)-PCG CPU-s (iterations)
+//	10k       AMD       0.35M   1.5e7    0.025                 0.053 (117)
+//	100k      ND        5.1M    5.8e8    0.80  (0.37)          1.85  (331)
+//	1M        ND        65M     1.9e10   12.7  (6.7)           58.6  (1044)
 //
-// The Cholesky CPU time grows like N^1.2 (10k to 1M). Factor runs the
-// supernode updates at 5-6 Gmadd per CPU-second with the AVX2 kernel.
+// On this uniform grid one solve is faster with AMD, whose ordering is much cheaper here (see Orderings); the default
+// favours the graded meshes and the repeated factorizations of Newton
+// solves. The Cholesky CPU time grows like N^1.35 (10k to 1M). Factor
+// runs the supernode updates at 5-6 Gmadd per CPU-second with the AVX2
+// kernel.
 //
 // # Failures
 //
