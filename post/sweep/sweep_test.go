@@ -140,3 +140,30 @@ func TestInterrupted(t *testing.T) {
 		t.Fatalf("err %v, %d points", err, len(pts))
 	}
 }
+
+// TestPredict: the predictor reproduces a potential that depends on the
+// current as a polynomial of degree 2 exactly from three points, a
+// straight line from two, and scales the last solution when the sweep
+// turns back (a linear magnet's A ∝ I).
+func TestPredict(t *testing.T) {
+	path := func(i float64) []float64 { return []float64{1 + 2*i + 3*i*i, -i * i, 5} }
+	line := func(i float64) []float64 { return []float64{2 * i, -i, 0.5 * i} }
+	check := func(name string, got, want []float64) {
+		t.Helper()
+		for k := range want {
+			if math.Abs(got[k]-want[k]) > 1e-12*(1+math.Abs(want[k])) {
+				t.Errorf("%s: entry %d = %g, want %g", name, k, got[k], want[k])
+			}
+		}
+	}
+	r := &Runner{last: path(3), lastI: 3, hist: []solved{{2, path(2)}, {1, path(1)}}}
+	check("quadratic", r.predict(4), path(4))
+	r = &Runner{last: line(3), lastI: 3, hist: []solved{{2, line(2)}}}
+	check("secant", r.predict(4.5), line(4.5))
+	// Turning back: no extrapolation, the last solution scaled.
+	r = &Runner{last: line(3), lastI: 3, hist: []solved{{2, line(2)}}}
+	check("scaled", r.predict(1), line(1))
+	// A step more than twice the last: scaled, not extrapolated.
+	r = &Runner{last: path(3), lastI: 3, hist: []solved{{2.9, path(2.9)}}}
+	check("long step", r.predict(4), []float64{path(3)[0] * 4 / 3, path(3)[1] * 4 / 3, path(3)[2] * 4 / 3})
+}
