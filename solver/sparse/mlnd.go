@@ -1,6 +1,9 @@
 package sparse
 
-import "sync"
+import (
+	"runtime"
+	"sync"
+)
 
 // Multilevel nested dissection: the driver (recursion, components, leaves,
 // splitting a subgraph into its parts). The bisection itself is in
@@ -45,7 +48,10 @@ type mlnd struct {
 	xend [2][]int32 // end of a slot's adjacency (absolute offset)
 	vmap [2][]int32 // original vertex of a slot
 	perm []int32
-	pool sync.Pool // *mlWork
+	// spare holds the workspaces of idle helpers: a dissection hands
+	// one half to a helper when one is free and orders both itself
+	// otherwise, so at most GOMAXPROCS workspaces exist.
+	spare chan *mlWork
 }
 
 // mlSub describes a subgraph: vertex slots and permutation positions
@@ -112,10 +118,12 @@ func multilevelND(g *graph) []int32 {
 		}
 		m.xend[0][i] = e
 	}
-	m.pool.New = func() any { return new(mlWork) }
-	w := m.pool.Get().(*mlWork)
-	m.dissect(mlSub{lo: 0, n: n, e0: 0, buf: 0}, w)
-	m.pool.Put(w)
+	helpers := runtime.GOMAXPROCS(0) - 1
+	m.spare = make(chan *mlWork, helpers)
+	for i := 0; i < helpers; i++ {
+		m.spare <- new(mlWork)
+	}
+	m.dissect(mlSub{lo: 0, n: n, e0: 0, buf: 0}, new(mlWork))
 	return perm
 }
 
@@ -174,17 +182,20 @@ func (m *mlnd) dissect(s mlSub, w *mlWork) {
 		parts := m.split(s, g, label, 2, w)
 		a, b := parts[0], parts[1]
 		if a.n+b.n >= mlParallel {
-			var wg sync.WaitGroup
-			wg.Add(1)
-			go func() {
-				defer wg.Done()
-				w2 := m.pool.Get().(*mlWork)
-				m.dissect(b, w2)
-				m.pool.Put(w2)
-			}()
-			m.dissect(a, w)
-			wg.Wait()
-			return
+			select {
+			case w2 := <-m.spare:
+				var wg sync.WaitGroup
+				wg.Add(1)
+				go func() {
+					defer wg.Done()
+					m.dissect(b, w2)
+					m.spare <- w2
+				}()
+				m.dissect(a, w)
+				wg.Wait()
+				return
+			default:
+			}
 		}
 		m.dissect(a, w)
 		s = b

@@ -113,7 +113,7 @@ func TestMLNDPermutation(t *testing.T) {
 		"isolated":   graphOf(5000, nil),
 		"path":       path(3000),
 		"star":       star(3000),
-		"complete":   complete(400),
+		"complete":   complete(500),
 		"random":     randomGraph(3000, 9000, rng),
 		"sparse":     randomGraph(3000, 1500, rng),
 		"geometric":  geometricGraph(5000, 0.03, rng),
