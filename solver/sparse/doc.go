@@ -66,7 +66,7 @@
 // and for every GOMAXPROCS.
 //
 // Factor size and operations (Cholesky.NNZL, Cholesky.Flops) and ordering
-// time (wall and CPU seconds on the shared 2-core machine, load 2-5), from
+// time (wall and CPU seconds on the shared 2-core machine, load 1-3), from
 // go test -run OrderingTable -timing -v ./solver/sparse; the C-core
 // matrices are P1 on the graded benchmark C-core mesh (fine in the gap),
 // the grids those of the figures below. The level-structure nested
@@ -74,11 +74,11 @@
 //
 //	matrix   unknowns  ND nnz(L)  ND madds  ND wall/CPU-s  AMD nnz(L)  AMD madds  AMD s   old ND madds
 //	c-core   10.6k     0.38M      1.9e7     0.05/0.05      0.38M       2.3e7      0.01    6.3e7
-//	c-core   100k      4.5M       4.2e8     0.37/0.65      5.0M        7.9e8      0.23    3.4e9
-//	c-core   1M        53M        1.1e10    10.2/9.6       64M         2.3e10     3.8     2.9e11
-//	grid     10k       0.38M      1.9e7     0.05/0.05      0.35M       1.5e7      0.006   1.9e7
-//	grid     100k      5.1M       5.8e8     0.29/0.51      5.3M        6.7e8      0.07    5.3e8
-//	grid     1M        65M        1.9e10    5.3/8.0        73M         2.2e10     0.75    1.6e10
+//	c-core   100k      4.5M       4.2e8     0.37/0.64      5.0M        7.9e8      0.23    3.4e9
+//	c-core   1M        53M        1.1e10    5.3/9.3        64M         2.3e10     3.6     2.9e11
+//	grid     10k       0.38M      1.9e7     0.04/0.04      0.35M       1.5e7      0.005   1.9e7
+//	grid     100k      5.1M       5.8e8     0.28/0.48      5.3M        6.7e8      0.06    5.3e8
+//	grid     1M        65M        1.9e10    4.1/7.3        73M         2.2e10     0.64    1.6e10
 //
 // On graded meshes nested dissection needs about half of AMD's operations
 // from 10k unknowns on; on the uniform grid it stays within 25 % of AMD
@@ -89,8 +89,9 @@
 // 50k unknowns: on the C-core matrices that is where its saving over about
 // ten factorizations (a Newton solve reusing the analysis, at 5-6 Gmadd
 // per CPU-second) passes its extra ordering time (interpolating between
-// 10k, saving 0.2 of the cost, and 100k, saving 1.6 times it). A single
-// factorization at 1M unknowns is still faster with AMD.
+// 10k, saving 0.2 of the cost, and 100k, saving 1.6 times it). For a
+// single factorization at 1M unknowns the two are about even (5.3 s of
+// ordering and 1.1e10 madds against 3.6 s and 2.3e10).
 //
 // # Figures
 //
