@@ -30,6 +30,9 @@ func loadMTX(t testing.TB, f string) *CSR {
 	return a
 }
 
+// TestMLNDCompare prints nnz(L), operations and ordering time of the
+// multilevel nested dissection and AMD on the C-core matrices (set
+// POLEGAP_SPARSE_TUNING=1, and ML1M=1 to include the 1M matrix).
 func TestMLNDCompare(t *testing.T) {
 	if os.Getenv("POLEGAP_SPARSE_TUNING") == "" {
 		t.Skip("tuning table")
@@ -59,7 +62,10 @@ func TestMLNDCompare(t *testing.T) {
 	}
 }
 
-// TestMLNDKnobs varies the tuning knobs on the 100k C-core matrix.
+// TestMLNDKnobs orders the 100k C-core matrix (or ML_FILE) single-threaded
+// under settings of the tuning knobs, e.g.
+// ML_KNOBS="base;trials=2,passes=2;leaf=600", printing operations and the
+// best of three ordering times (POLEGAP_SPARSE_TUNING=1).
 func TestMLNDKnobs(t *testing.T) {
 	if os.Getenv("POLEGAP_SPARSE_TUNING") == "" {
 		t.Skip("tuning table")
@@ -114,60 +120,11 @@ func TestMLNDKnobs(t *testing.T) {
 	}
 }
 
+// BenchmarkMLND100k orders the 100k C-core matrix.
 func BenchmarkMLND100k(b *testing.B) {
 	a := loadMTX(b, "/tmp/ccore100k.mtx")
 	b.ResetTimer()
 	for i := 0; i < b.N; i++ {
 		multilevelND(newGraph(a))
 	}
-}
-
-func TestMLNDGrids(t *testing.T) {
-	if os.Getenv("POLEGAP_SPARSE_TUNING") == "" {
-		t.Skip("tuning table")
-	}
-	for _, a := range []*CSR{grid5(300), grid7(316)} {
-		for _, name := range []string{"ml", "amd"} {
-			t0 := time.Now()
-			var p []int32
-			switch name {
-			case "ml":
-				p = multilevelND(newGraph(a))
-			case "amd":
-				p = amdOrder(newGraph(a))
-			}
-			dt := time.Since(t0)
-			s := analyze(a, p, 1)
-			t.Logf("n=%d nnz=%d %s: nnzL=%d flops=%.3g order %.3fs", a.N, a.NNZ(), name, s.nnzL, s.flops, dt.Seconds())
-		}
-	}
-}
-
-func TestMLNDGridKnobs(t *testing.T) {
-	if os.Getenv("POLEGAP_SPARSE_TUNING") == "" {
-		t.Skip("tuning table")
-	}
-	a := grid5(300)
-	run := func(label string) {
-		p := multilevelND(newGraph(a))
-		s := analyze(a, p, 1)
-		fmt.Printf("%-28s nnzL=%d flops=%.3g\n", label, s.nnzL, s.flops)
-	}
-	run("base")
-	for _, v := range []int{30, 60, 100, 400} {
-		old := mlLeaf
-		mlLeaf = v
-		run(fmt.Sprintf("leaf=%d", v))
-		mlLeaf = old
-	}
-	for _, v := range []float64{0.51, 0.6} {
-		old := mlBalance
-		mlBalance = v
-		run(fmt.Sprintf("balance=%g", v))
-		mlBalance = old
-	}
-	old := mlPasses
-	mlPasses = 0
-	run("passes=0")
-	mlPasses = old
 }
