@@ -39,7 +39,9 @@ type mlWork struct {
 	match, order      []int32
 	htab              []int32
 	id, ed, id2, ed2  []int32
-	pos, pos2, lock   []int32
+	pos, pos2, lock   []int32 // pos, pos2 are -1 outside heaps
+	bnd               []int32 // boundary candidates (see refine)
+	inb               []int8  // 1 when in bnd
 	stamp             int32
 	moves, pulled     []int32
 	mend              []int32
@@ -277,7 +279,7 @@ func (w *mlWork) initBisect(g *mlGraph, where []int8) {
 	w.best = grow8(w.best, n)
 	w.id = grow32(w.id, n)
 	w.ed = grow32(w.ed, n)
-	w.pos = grow32(w.pos, n)
+	w.pos = growNeg(w.pos, n)
 	id, ed, pos := w.id, w.ed, w.pos
 	best := -1
 	for t := 0; t < mlTrials; t++ {
@@ -369,7 +371,21 @@ func (w *mlWork) gains(g *mlGraph, where []int8) (pw [2]int, cut int) {
 		cut += int(b)
 		pw[me] += int(vwgt[v])
 	}
+	w.setBoundary(n)
 	return pw, cut / 2
+}
+
+// setBoundary makes w.bnd the vertices of 0..n-1 with w.ed > 0.
+func (w *mlWork) setBoundary(n int) {
+	w.inb = grow8(w.inb, n)
+	w.bnd = w.bnd[:0]
+	for v, e := range w.ed[:n] {
+		w.inb[v] = 0
+		if e > 0 {
+			w.inb[v] = 1
+			w.bnd = append(w.bnd, int32(v))
+		}
+	}
 }
 
 // project carries the bisection of the coarse graph L.g (with w.id and
@@ -411,6 +427,7 @@ func (w *mlWork) project(fine *mlGraph, fw []int8, L *mlLevel) (pw [2]int, cut i
 	}
 	w.id, w.id2 = w.id2, w.id
 	w.ed, w.ed2 = w.ed2, w.ed
+	w.setBoundary(n)
 	return pw, cut / 2
 }
 
@@ -423,23 +440,29 @@ func (w *mlWork) refine(g *mlGraph, where []int8, pw [2]int, cut, passes int) in
 	n := g.n
 	xadj, adj, ewgt, vwgt := g.xadj, g.adj, g.ewgt, g.vwgt
 	maxw := maxPart(g)
-	w.pos = grow32(w.pos, n)
+	w.pos = growNeg(w.pos, n)
 	w.lock = grow32(w.lock, n)
 	id, ed, pos, lock := w.id, w.ed, w.pos, w.lock
-	for v := range pos {
-		pos[v] = -1
-	}
+	inb := w.inb
 	limit := min(max(n/100, 20), 150)
 	for pass := 0; pass < passes; pass++ {
 		stamp := w.nextStamp()
 		h := &w.heap
 		h[0].reset()
 		h[1].reset()
-		for v := int32(0); v < int32(n); v++ {
+		// w.bnd holds every vertex with an external edge (and maybe
+		// others, dropped here), each once.
+		k := 0
+		for _, v := range w.bnd {
 			if ed[v] > 0 {
+				w.bnd[k] = v
+				k++
 				h[where[v]].push(v, ed[v]-id[v], pos)
+			} else {
+				inb[v] = 0
 			}
 		}
+		w.bnd = w.bnd[:k]
 		moves := w.moves[:0]
 		startCut := cut
 		bestCut, bestLen := cut, 0
@@ -474,6 +497,10 @@ func (w *mlWork) refine(g *mlGraph, where []int8, pw [2]int, cut, passes int) in
 			where[v] = to
 			id[v], ed[v] = ed[v], id[v]
 			lock[v] = stamp
+			if inb[v] == 0 {
+				inb[v] = 1
+				w.bnd = append(w.bnd, v)
+			}
 			for k := xadj[v]; k < xadj[v+1]; k++ {
 				u := adj[k]
 				if where[u] == to {
@@ -482,6 +509,10 @@ func (w *mlWork) refine(g *mlGraph, where []int8, pw [2]int, cut, passes int) in
 				} else {
 					id[u] -= ewgt[k]
 					ed[u] += ewgt[k]
+					if inb[u] == 0 {
+						inb[u] = 1
+						w.bnd = append(w.bnd, u)
+					}
 				}
 				if lock[u] == stamp {
 					continue
@@ -525,6 +556,10 @@ func (w *mlWork) refine(g *mlGraph, where []int8, pw [2]int, cut, passes int) in
 				} else {
 					id[u] -= ewgt[k]
 					ed[u] += ewgt[k]
+					if inb[u] == 0 {
+						inb[u] = 1
+						w.bnd = append(w.bnd, u)
+					}
 				}
 			}
 		}
@@ -554,8 +589,8 @@ func (w *mlWork) nodeRefine(g *mlGraph, where []int8, passes int) {
 	maxw := maxPart(g)
 	w.id = grow32(w.id, n)
 	w.ed = grow32(w.ed, n)
-	w.pos = grow32(w.pos, n)
-	w.pos2 = grow32(w.pos2, n)
+	w.pos = growNeg(w.pos, n)
+	w.pos2 = growNeg(w.pos2, n)
 	w.lock = grow32(w.lock, n)
 	gain := [2][]int32{w.id, w.ed}
 	pos := [2][]int32{w.pos, w.pos2}
@@ -689,4 +724,16 @@ func (w *mlWork) nodeRefine(g *mlGraph, where []int8, passes int) {
 			break
 		}
 	}
+}
+
+// growNeg returns s resized to n, reallocated and filled with -1 when too
+// small (the callers keep every entry -1 between uses).
+func growNeg(s []int32, n int) []int32 {
+	if cap(s) < n {
+		s = make([]int32, n, n+n/4)
+		for i := range s[:cap(s)] {
+			s[:cap(s)][i] = -1
+		}
+	}
+	return s[:n]
 }
