@@ -22,7 +22,10 @@ import (
 // Tuning knobs, variables so that the internal tuning tests can vary them.
 var (
 	// mlLeaf: subgraphs with at most this many vertices are ordered by
-	// approximate minimum degree.
+	// approximate minimum degree. On the 100k C-core matrix leaves of 100
+	// and 400 give 4.05e8 and 4.14e8 multiply-adds for 0.87 and 0.64
+	// CPU-s of ordering; reverse breadth-first leaves (cheaper) give
+	// 4.43e8 and 5.87e8.
 	mlLeaf = 400
 	// mlCoarsenTo: coarsening stops at this many vertices.
 	mlCoarsenTo = 120
