@@ -21,8 +21,13 @@
 //     objects:bytes" of runtime/metrics, sampled every 2 ms, live objects
 //     plus not-yet-swept garbage, so an upper bound on the live peak) while
 //     a case runs; PeakRSS is the kernel's VmHWM of the process, reset
-//     before each case where /proc/self/clear_refs allows it. The per-node
-//     figure subtracts the Cholesky factor (8 bytes per stored entry of L).
+//     before each case where /proc/self/clear_refs allows it. LiveHeap is
+//     the heap after a collection with everything the nonlinear solve holds
+//     at its end (mesh, problem, pattern, symbolic analysis, factor,
+//     solution): the working set, which the peak exceeds by the garbage
+//     the collector lets accumulate between collections (with GOGC=100 up
+//     to as much again). The per-node figures subtract the Cholesky factor
+//     (8 bytes per stored entry of L).
 //   - Growth exponents are least-squares slopes of log(cost) against
 //     log(N) over the first-order cases (Fit), with at least two sizes.
 //   - Failures of a stage are *StageError values naming the case and stage;

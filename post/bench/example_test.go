@@ -49,5 +49,5 @@ func ExampleRun() {
 	r := t.Results[0]
 	fmt.Println(r.Case, r.NewtonResidual <= 1e-8, len(t.Checks))
 	// Output:
-	// P1-3k true 5
+	// P1-3k true 6
 }

@@ -109,6 +109,12 @@ type Result struct {
 	PeakHeap     uint64  `json:"peak_heap_bytes"`
 	PeakRSS      uint64  `json:"peak_rss_bytes"`
 	BytesPerNode float64 `json:"bytes_per_node_without_factor"`
+	// The live heap (after a collection) with everything the nonlinear
+	// solve holds at its end, above the start; per node without the
+	// factor. The peak above exceeds it by the garbage the collector
+	// allows between collections (GOGC=100: up to the live heap again).
+	LiveHeap         uint64  `json:"live_heap_bytes"`
+	LiveBytesPerNode float64 `json:"live_bytes_per_node_without_factor"`
 }
 
 // Run measures the cases in order and returns the table with goals,
@@ -290,11 +296,20 @@ func runCase(ctx context.Context, c Case, h float64, opt Options) (Result, error
 		return Result{}, err
 	}
 	var parts []solver.Timings
+	var held *solver.Prepared // the last solve's numbering, pattern, analysis and factor
+	var heldSol *solver.Solution
 	r.Nonlinear, r.NonlinearCPU, err = stage(opt.Repeat, func() error {
-		s, err := solver.Solve(p, solver.Options{Solver: &sparse.Cholesky{}, Tol: 1e-8})
+		held, heldSol = nil, nil
+		o := solver.Options{Solver: &sparse.Cholesky{}, Tol: 1e-8}
+		pr, err := solver.Prepare(p, o)
 		if err != nil {
 			return err
 		}
+		s, err := pr.Solve(o)
+		if err != nil {
+			return err
+		}
+		held, heldSol = pr, s
 		r.NewtonIterations, r.NewtonResidual = s.Iterations, s.Residual
 		parts = append(parts, s.Time)
 		mem.mark()
@@ -311,11 +326,22 @@ func runCase(ctx context.Context, c Case, h float64, opt Options) (Result, error
 	if peak := mem.finish(); peak > base {
 		r.PeakHeap = peak - base
 	}
+	// The working set: what the nonlinear solve holds at its end (mesh,
+	// problem, pattern, symbolic analysis, factor, solution), after a
+	// collection.
+	runtime.GC()
+	if live := heapNow(mem.s); live > base {
+		r.LiveHeap = live - base
+	}
+	runtime.KeepAlive(held)
+	runtime.KeepAlive(heldSol)
+	held, heldSol = nil, nil
 	if rssOK {
 		r.PeakRSS = peakRSS()
 	}
 	if r.Nodes > 0 {
 		r.BytesPerNode = (float64(r.PeakHeap) - float64(r.FactorBytes)) / float64(r.Nodes)
+		r.LiveBytesPerNode = (float64(r.LiveHeap) - float64(r.FactorBytes)) / float64(r.Nodes)
 	}
 	d, p, lp = nil, nil, nil
 	runtime.GC()

@@ -82,13 +82,16 @@ func TestRunTiny(t *testing.T) {
 		if r.PCGIterations < 1 || !r.PCGConverged || r.FactorNNZ < r.Unknowns || r.FactorBytes != 8*uint64(r.FactorNNZ) {
 			t.Errorf("%s: PCG %d iterations, factor %d entries (%d bytes)", name, r.PCGIterations, r.FactorNNZ, r.FactorBytes)
 		}
+		if !(r.LiveHeap > r.FactorBytes) || r.LiveHeap > r.PeakHeap {
+			t.Errorf("%s: live heap %d B, factor %d B, peak heap %d B", name, r.LiveHeap, r.FactorBytes, r.PeakHeap)
+		}
 		if c.Curve != (r.CurvePoints == 3) || (c.Curve && (r.Curve <= 0 || r.CurveIterations < 3)) {
 			t.Errorf("%s: curve %d points in %g s, %d Newton steps", name, r.CurvePoints, r.Curve, r.CurveIterations)
 		}
 	}
-	// Five checks per case (mesh, Cholesky, PCG, nonlinear, memory), one
-	// more with the curve.
-	if n := len(tab.Checks); n != 5*len(tinyCases)+1 {
+	// Six checks per case (mesh, Cholesky, PCG, nonlinear, peak and live
+	// memory), one more with the curve.
+	if n := len(tab.Checks); n != 6*len(tinyCases)+1 {
 		t.Errorf("%d checks", n)
 	}
 	for _, c := range tab.Checks {
