@@ -27,6 +27,17 @@ var (
 	// CPU-s of ordering; reverse breadth-first leaves (cheaper) give
 	// 4.43e8 and 5.87e8.
 	mlLeaf = 400
+	// mlLeafShare: leaves may also hold up to this share of the whole
+	// graph, which bounds the depth of the dissection (its cost) on large
+	// graphs. On the 1M C-core matrix leaves of 400, 3000 and 10000
+	// vertices took 5.1, 4.0 and 3.4 s of ordering for 1.08e10, 1.12e10
+	// and 1.20e10 multiply-adds (the numeric factor 1.30, 1.35 and 1.52
+	// s); on the 100k one 0.37, 0.26 and 0.22 s for 4.1e8, 4.5e8 and 5.0e8
+	// (0.093 to 0.096 s of factor). A share of 1/100 (leaves of 1000 at
+	// 100k) makes the 316x316 grid's flops 0.906 of AMD's, against 0.87
+	// with 400; 1/256 keeps 100k as it was and gives 3.85 s and 1.14e10
+	// at 1M.
+	mlLeafShare = 1.0 / 256
 	// mlCoarsenTo: coarsening stops at this many vertices.
 	mlCoarsenTo = 120
 	// mlBalance: largest part weight, as a fraction of the subgraph's
@@ -47,6 +58,7 @@ var (
 )
 
 type mlnd struct {
+	leafMax int // largest subgraph ordered by minimum degree
 	adj  [2][]int32 // local neighbour indices
 	xend [2][]int32 // end of a slot's adjacency (absolute offset)
 	vmap [2][]int32 // original vertex of a slot
@@ -82,7 +94,7 @@ func multilevelND(g *graph) []int32 {
 	if n == 0 {
 		return perm
 	}
-	m := &mlnd{perm: perm}
+	m := &mlnd{perm: perm, leafMax: max(mlLeaf, int(mlLeafShare*float64(n)))}
 	for b := 0; b < 2; b++ {
 		m.adj[b] = make([]int32, len(g.adj))
 		m.xend[b] = make([]int32, n)
@@ -152,7 +164,7 @@ func (m *mlnd) dissect(s mlSub, w *mlWork) {
 	for s.n > 0 {
 		g := w.view(m, s)
 		vm := m.vmap[s.buf][s.lo : s.lo+s.n]
-		if s.n <= mlLeaf {
+		if s.n <= m.leafMax {
 			m.leaf(g, vm, s.lo)
 			return
 		}
@@ -206,7 +218,7 @@ func (m *mlnd) dissect(s mlSub, w *mlWork) {
 }
 
 // components orders a disconnected subgraph: components of more than
-// mlLeaf vertices are dissected one by one, the small ones together by
+// m.leafMax vertices are dissected one by one, the small ones together by
 // minimum degree. w.label holds the component of each vertex.
 func (m *mlnd) components(s mlSub, g *mlGraph, vm []int32, nc int, w *mlWork) {
 	size := make([]int, nc)
@@ -217,7 +229,7 @@ func (m *mlnd) components(s mlSub, g *mlGraph, vm []int32, nc int, w *mlWork) {
 	np := int32(0)
 	small := int32(-1)
 	for c, sz := range size {
-		if sz > mlLeaf {
+		if sz > m.leafMax {
 			id[c] = np
 			np++
 		} else {
