@@ -58,11 +58,11 @@ var (
 )
 
 type mlnd struct {
-	leafMax int // largest subgraph ordered by minimum degree
-	adj  [2][]int32 // local neighbour indices
-	xend [2][]int32 // end of a slot's adjacency (absolute offset)
-	vmap [2][]int32 // original vertex of a slot
-	perm []int32
+	leafMax int        // largest subgraph ordered by minimum degree
+	adj     [2][]int32 // local neighbour indices
+	xend    [2][]int32 // end of a slot's adjacency (absolute offset)
+	vmap    [2][]int32 // original vertex of a slot
+	perm    []int32
 	// spare holds the workspaces of idle helpers: a dissection hands
 	// one half to a helper when one is free and orders both itself
 	// otherwise, so at most GOMAXPROCS workspaces exist.
