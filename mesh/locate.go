@@ -129,6 +129,9 @@ func NewLocator(m *Mesh) *Locator {
 	return l
 }
 
+// Mesh returns the mesh the locator was built on.
+func (l *Locator) Mesh() *Mesh { return l.m }
+
 func (l *Locator) cellX(x float64) int {
 	return min(max(int((x-l.x0)*l.invH), 0), l.nx-1)
 }

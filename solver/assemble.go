@@ -41,6 +41,25 @@ type assembler struct {
 	// source, when set (tests only), adds a space-dependent current
 	// density J(x, y) to the region's.
 	source func(x, y float64) float64
+
+	// loc is the point locator of the mesh, shared by the copies
+	// withProblem makes (all solutions of one Prepared).
+	loc *lazyLocator
+}
+
+// lazyLocator builds a mesh's point locator on first use.
+type lazyLocator struct {
+	once sync.Once
+	loc  *mesh.Locator
+}
+
+func (l *lazyLocator) get(m *mesh.Mesh) *mesh.Locator {
+	l.once.Do(func() {
+		if l.loc == nil {
+			l.loc = mesh.NewLocator(m)
+		}
+	})
+	return l.loc
 }
 
 // quadratureDegree picks the rule: exact for the linear stiffness and a
@@ -61,7 +80,8 @@ func quadratureDegree(order int, f Formulation) int {
 
 func newAssembler(p *Problem, d dofMap, workers int) *assembler {
 	m := p.Mesh
-	as := &assembler{p: p, m: m, el: elementFor(m.Order()), axi: p.Formulation == Axisymmetric, d: d}
+	as := &assembler{p: p, m: m, el: elementFor(m.Order()), axi: p.Formulation == Axisymmetric, d: d,
+		loc: &lazyLocator{loc: p.Locator}}
 	as.nn = as.el.NumNodes()
 	as.rtol = axisTol(m)
 	if len(p.Exterior) > 0 {
@@ -366,3 +386,6 @@ func (as *assembler) withProblem(p *Problem) *assembler {
 	c.d.value = append([]float64(nil), as.d.value...)
 	return &c
 }
+
+// workers returns the number of goroutines the assembler was set up for.
+func (as *assembler) workers() int { return len(as.pat.parts) }

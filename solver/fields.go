@@ -2,15 +2,22 @@ package solver
 
 import (
 	"math"
+	"sync"
 )
 
 // evalElement returns A and B at reference point (xi, eta) of triangle t.
 func (s *Solution) evalElement(t int, xi, eta float64) (a, bx, by float64) {
-	as := s.as
 	var val [MaxNodes]float64
 	var rg [MaxNodes][2]float64
+	s.as.el.EvalTo(val[:], rg[:], xi, eta)
+	return s.evalWith(t, xi, eta, &val, &rg)
+}
+
+// evalWith is evalElement with the basis values and reference gradients at
+// (xi, eta) given.
+func (s *Solution) evalWith(t int, xi, eta float64, val *[MaxNodes]float64, rg *[MaxNodes][2]float64) (a, bx, by float64) {
+	as := s.as
 	var nodes [MaxNodes]int32
-	as.el.EvalTo(val[:], rg[:], xi, eta)
 	k := elementNodes(as.m, t, &nodes)
 	x0, _, ja, jb, jc, jd, det := as.affine(t)
 	inv := 1 / det
@@ -43,11 +50,35 @@ func (s *Solution) BTo(dst [][2]float64) [][2]float64 {
 	if len(dst) != nt {
 		panic(errDstLen)
 	}
-	for t := 0; t < nt; t++ {
-		_, bx, by := s.evalElement(t, 1.0/3, 1.0/3)
-		dst[t] = [2]float64{bx, by}
-	}
+	const c = 1.0 / 3
+	var val [MaxNodes]float64
+	var rg [MaxNodes][2]float64
+	s.as.el.EvalTo(val[:], rg[:], c, c)
+	parallelRange(nt, s.as.workers(), func(t0, t1 int) {
+		for t := t0; t < t1; t++ {
+			_, bx, by := s.evalWith(t, c, c, &val, &rg)
+			dst[t] = [2]float64{bx, by}
+		}
+	})
 	return dst
+}
+
+// parallelRange splits [0, n) into contiguous ranges run concurrently by
+// up to workers goroutines (one below 20k items).
+func parallelRange(n, workers int, f func(i0, i1 int)) {
+	if workers <= 1 || n < 20000 {
+		f(0, n)
+		return
+	}
+	var wg sync.WaitGroup
+	for w := 0; w < workers; w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			f(n*w/workers, n*(w+1)/workers)
+		}()
+	}
+	wg.Wait()
 }
 
 // HTo writes the field strength H = ν(|B|²) B − M (A/m) at the centroid of

@@ -114,6 +114,11 @@ type Problem struct {
 	// the 2D energy is invariant; leave this empty.) Fields evaluated in
 	// such a region are those of the image problem.
 	Exterior []Exterior
+	// Locator, when not nil, is a point locator on Mesh that field
+	// evaluation at points reuses (a study that locates probes already
+	// has one); nil makes one on first use, shared by every solution of
+	// a Prepared problem.
+	Locator *mesh.Locator
 }
 
 // Exterior is the Kelvin image of the space outside a sphere of radius
@@ -135,6 +140,9 @@ func (p *Problem) Check() error { return p.validate() }
 func (p *Problem) validate() error {
 	if p == nil || p.Mesh == nil {
 		panic(errNilMesh)
+	}
+	if p.Locator != nil && p.Locator.Mesh() != p.Mesh {
+		return &ProblemError{Field: "Locator", Reason: "built on another mesh"}
 	}
 	m := p.Mesh
 	nt := m.NumTriangles()

@@ -2,10 +2,7 @@ package solver
 
 import (
 	"fmt"
-	"sync"
 	"time"
-
-	"polegap/mesh"
 
 	"polegap/solver/sparse"
 )
@@ -50,9 +47,7 @@ type Solution struct {
 	NumUnknowns int
 	Time        Timings
 
-	as      *assembler
-	locOnce sync.Once
-	loc     *mesh.Locator
+	as *assembler
 }
 
 // Solve assembles and solves p. It does not modify p. Linear materials

@@ -15,65 +15,80 @@ import (
 // Zienkiewicz and J. Z. Zhu, "The superconvergent patch recovery and a
 // posteriori error estimates", IJNME 33, 1992).
 type Recovered struct {
-	base   Field
-	m      *mesh.Mesh
-	loc    *mesh.Locator
-	corner [][2]float64 // 3 per triangle
+	base Field
+	p    *Patches
+	b    [][2]float64 // per triangle
+	loc  *mesh.Locator
 }
 
-// NewRecovered builds the recovered field from a first-order mesh, the
-// flux density of each triangle and the field that supplies A. loc
-// locates points in m; nil builds one (callers that recover several
-// solutions on one mesh pass theirs).
-func NewRecovered(base Field, m *mesh.Mesh, b [][2]float64, loc *mesh.Locator) *Recovered {
+// Patches lists the triangles around each vertex of a mesh with their
+// areas: what recovery needs of the mesh, built once per mesh and shared
+// by the recovered fields of all its solutions.
+type Patches struct {
+	m      *mesh.Mesh
+	start  []int32 // vertex v's triangles are around[start[v]:start[v+1]]
+	around []int32
+	area   []float64
+}
+
+// NewPatches builds the vertex patches of m.
+func NewPatches(m *mesh.Mesh) *Patches {
 	nt := m.NumTriangles()
-	if len(b) != nt {
-		panic("probes: one flux density per triangle needed")
-	}
-	// Sum per (vertex, region) through a vertex -> triangles list.
 	nv := m.NumVertices
-	start := make([]int32, nv+1)
+	p := &Patches{m: m, start: make([]int32, nv+1), around: make([]int32, len(m.Tri)), area: make([]float64, nt)}
 	for _, v := range m.Tri {
-		start[v+1]++
+		p.start[v+1]++
 	}
 	for i := 0; i < nv; i++ {
-		start[i+1] += start[i]
+		p.start[i+1] += p.start[i]
 	}
-	fill := append([]int32(nil), start[:nv]...)
-	around := make([]int32, len(m.Tri))
+	fill := append([]int32(nil), p.start[:nv]...)
 	for t := 0; t < nt; t++ {
 		for k := 0; k < 3; k++ {
 			v := m.Tri[3*t+k]
-			around[fill[v]] = int32(t)
+			p.around[fill[v]] = int32(t)
 			fill[v]++
 		}
 	}
-	area := make([]float64, nt)
-	for t := range area {
+	for t := range p.area {
 		a, bb, c := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
-		area[t] = 0.5 * ((m.X[bb]-m.X[a])*(m.Y[c]-m.Y[a]) - (m.X[c]-m.X[a])*(m.Y[bb]-m.Y[a]))
+		p.area[t] = 0.5 * ((m.X[bb]-m.X[a])*(m.Y[c]-m.Y[a]) - (m.X[c]-m.X[a])*(m.Y[bb]-m.Y[a]))
 	}
-	if loc == nil {
-		loc = mesh.NewLocator(m)
+	return p
+}
+
+// Mesh returns the mesh of the patches.
+func (p *Patches) Mesh() *mesh.Mesh { return p.m }
+
+// NewRecovered makes the recovered field of a first-order solution from
+// the mesh's patches, the flux density of each triangle and the field
+// that supplies A; loc locates points in the mesh. Corner values are
+// averaged when a point asks for them, so making the field costs nothing
+// and a sweep that reads one probe per solution pays for one triangle.
+func NewRecovered(base Field, p *Patches, b [][2]float64, loc *mesh.Locator) *Recovered {
+	if len(b) != p.m.NumTriangles() {
+		panic("probes: one flux density per triangle needed")
 	}
-	r := &Recovered{base: base, m: m, loc: loc, corner: make([][2]float64, 3*nt)}
-	for t := 0; t < nt; t++ {
-		reg := m.Region[t]
-		for k := 0; k < 3; k++ {
-			v := m.Tri[3*t+k]
-			var sx, sy, w float64
-			for _, u := range around[start[v]:start[v+1]] {
-				if m.Region[u] != reg {
-					continue
-				}
-				sx += area[u] * b[u][0]
-				sy += area[u] * b[u][1]
-				w += area[u]
-			}
-			r.corner[3*t+k] = [2]float64{sx / w, sy / w}
+	if loc.Mesh() != p.m {
+		panic("probes: locator and patches of different meshes")
+	}
+	return &Recovered{base: base, p: p, b: b, loc: loc}
+}
+
+// corner returns the area-weighted mean flux density of the triangles of
+// region reg around vertex v.
+func (r *Recovered) corner(v, reg int32) (bx, by float64) {
+	p, m := r.p, r.p.m
+	var w float64
+	for _, u := range p.around[p.start[v]:p.start[v+1]] {
+		if m.Region[u] != reg {
+			continue
 		}
+		bx += p.area[u] * r.b[u][0]
+		by += p.area[u] * r.b[u][1]
+		w += p.area[u]
 	}
-	return r
+	return bx / w, by / w
 }
 
 // At implements Field.
@@ -86,8 +101,12 @@ func (r *Recovered) At(x, y float64) (a, bx, by float64, ok bool) {
 	if !found {
 		return 0, 0, 0, false
 	}
-	c := r.corner[3*t : 3*t+3]
-	bx = b0*c[0][0] + b1*c[1][0] + b2*c[2][0]
-	by = b0*c[0][1] + b1*c[1][1] + b2*c[2][1]
+	m := r.p.m
+	reg := m.Region[t]
+	for k, bk := range [3]float64{b0, b1, b2} {
+		cx, cy := r.corner(m.Tri[3*int(t)+k], reg)
+		bx += bk * cx
+		by += bk * cy
+	}
 	return a, bx, by, true
 }

@@ -34,6 +34,7 @@ type Study struct {
 	prepProb *solver.Problem
 	field    probes.Field  // the field of the current Solution
 	loc      *mesh.Locator // point location on Disc.Mesh, built once
+	patches  *probes.Patches
 }
 
 // Run meshes, solves and probes m.
@@ -57,6 +58,7 @@ func (s *Study) Solve(opt Options) error {
 	if err != nil {
 		return err
 	}
+	p.Locator = s.locator() // one point locator for the probes and the solver
 	if opt.Material != nil {
 		for tag, m := range p.Materials {
 			p.Materials[tag] = opt.Material(int32(tag), m)
@@ -82,6 +84,14 @@ func (s *Study) Solve(opt Options) error {
 	return nil
 }
 
+// locator returns the point locator on the study's mesh, made once.
+func (s *Study) locator() *mesh.Locator {
+	if s.loc == nil {
+		s.loc = mesh.NewLocator(s.Disc.Mesh)
+	}
+	return s.loc
+}
+
 // Fork returns a study of the same model on the same mesh holding s's
 // solution, whose later solves leave s as it is: a sweep or a target
 // search can start from a solved study without meshing again while the
@@ -89,11 +99,8 @@ func (s *Study) Solve(opt Options) error {
 // discretization and the point locator (both read-only); the fork makes
 // its own numbering and factorization at its first solve.
 func (s *Study) Fork() *Study {
-	if s.loc == nil && s.Disc.Mesh.Order() == 1 {
-		s.loc = mesh.NewLocator(s.Disc.Mesh)
-	}
 	return &Study{Model: s.Model, Disc: s.Disc, Problem: s.Problem, Solution: s.Solution,
-		Probes: s.Probes, MeshTime: s.MeshTime, field: s.field, loc: s.loc}
+		Probes: s.Probes, MeshTime: s.MeshTime, field: s.field, loc: s.locator(), patches: s.patches}
 }
 
 // Probe returns the evaluated probe of that name.
@@ -118,10 +125,10 @@ func (s *Study) Field() probes.Field {
 		s.field = s.Solution
 		return s.field
 	}
-	if s.loc == nil {
-		s.loc = mesh.NewLocator(m)
+	if s.patches == nil {
+		s.patches = probes.NewPatches(m)
 	}
-	s.field = probes.NewRecovered(s.Solution, m, s.Solution.BTo(nil), s.loc)
+	s.field = probes.NewRecovered(s.Solution, s.patches, s.Solution.BTo(nil), s.locator())
 	return s.field
 }
 
