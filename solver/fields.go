@@ -3,6 +3,8 @@ package solver
 import (
 	"math"
 	"sync"
+
+	"polegap/internal/compsum"
 )
 
 // evalElement returns A and B at reference point (xi, eta) of triangle t.
@@ -54,7 +56,7 @@ func (s *Solution) BTo(dst [][2]float64) [][2]float64 {
 	var val [MaxNodes]float64
 	var rg [MaxNodes][2]float64
 	s.as.el.EvalTo(val[:], rg[:], c, c)
-	parallelRange(nt, s.as.workers(), func(t0, t1 int) {
+	parallelRange(nt, s.as.workers(), func(_, t0, t1 int) {
 		for t := t0; t < t1; t++ {
 			_, bx, by := s.evalWith(t, c, c, &val, &rg)
 			dst[t] = [2]float64{bx, by}
@@ -64,10 +66,11 @@ func (s *Solution) BTo(dst [][2]float64) [][2]float64 {
 }
 
 // parallelRange splits [0, n) into contiguous ranges run concurrently by
-// up to workers goroutines (one below 20k items).
-func parallelRange(n, workers int, f func(i0, i1 int)) {
+// workers goroutines, f(w, i0, i1) for worker w (one call, w = 0, below
+// 20k items).
+func parallelRange(n, workers int, f func(w, i0, i1 int)) {
 	if workers <= 1 || n < 20000 {
-		f(0, n)
+		f(0, 0, n)
 		return
 	}
 	var wg sync.WaitGroup
@@ -75,7 +78,7 @@ func parallelRange(n, workers int, f func(i0, i1 int)) {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			f(n*w/workers, n*(w+1)/workers)
+			f(w, n*w/workers, n*(w+1)/workers)
 		}()
 	}
 	wg.Wait()
@@ -156,40 +159,47 @@ func (s *Solution) At(x, y float64) (a, bx, by float64, ok bool) {
 // 5-point Gauss-Legendre; magnets' −M·B term is not included.
 func (s *Solution) Energy() float64 {
 	as := s.as
-	var w elemWork
-	var sum, comp float64
-	for t := 0; t < as.m.NumTriangles(); t++ {
-		as.gather(t, s.A, &w)
-		x0, y0, a, b, c, d, det := as.affine(t)
-		mat := s.Problem.Materials[as.m.Region[t]]
-		ext, isExt := as.ext[as.m.Region[t]]
-		var et float64
-		for q := range as.rule.W {
-			wt, x, y := as.curlAt(t, q, &w, x0, y0, a, b, c, d, det)
-			if isExt {
-				wt *= ((x-ext.CX)*(x-ext.CX) + (y-ext.CY)*(y-ext.CY)) / (ext.Radius * ext.Radius)
-			}
-			var bx, by float64
-			for i := 0; i < as.nn; i++ {
-				bx += w.a[i] * w.c[i][0]
-				by += w.a[i] * w.c[i][1]
-			}
-			et += wt * energyDensity(mat, bx*bx+by*by)
-		}
-		// Kahan-Babuška (Neumaier) summation.
-		tt := sum + et
-		if math.Abs(sum) >= math.Abs(et) {
-			comp += (sum - tt) + et
-		} else {
-			comp += (et - tt) + sum
-		}
-		sum = tt
+	nt := as.m.NumTriangles()
+	// Fixed contiguous chunks, each summed with compensation, then added
+	// in order: the same result run to run for a given worker count.
+	nw := as.workers()
+	if nt < 20000 {
+		nw = 1
 	}
-	sum += comp
+	part := make([]compsum.Sum, nw)
+	parallelRange(nt, nw, func(k, t0, t1 int) {
+		var w elemWork
+		sum := &part[k]
+		for t := t0; t < t1; t++ {
+			as.gather(t, s.A, &w)
+			x0, y0, a, b, c, d, det := as.affine(t)
+			mat := s.Problem.Materials[as.m.Region[t]]
+			ext, isExt := as.ext[as.m.Region[t]]
+			var et float64
+			for q := range as.rule.W {
+				wt, x, y := as.curlAt(t, q, &w, x0, y0, a, b, c, d, det)
+				if isExt {
+					wt *= ((x-ext.CX)*(x-ext.CX) + (y-ext.CY)*(y-ext.CY)) / (ext.Radius * ext.Radius)
+				}
+				var bx, by float64
+				for i := 0; i < as.nn; i++ {
+					bx += w.a[i] * w.c[i][0]
+					by += w.a[i] * w.c[i][1]
+				}
+				et += wt * energyDensity(mat, bx*bx+by*by)
+			}
+			sum.Add(et)
+		}
+	})
+	var total compsum.Sum
+	for i := range part {
+		total.Add(part[i].Value())
+	}
+	e := total.Value()
 	if as.axi {
-		sum *= 2 * math.Pi
+		e *= 2 * math.Pi
 	}
-	return sum
+	return e
 }
 
 // 5-point Gauss-Legendre nodes and weights on [0, 1] (Abramowitz and
