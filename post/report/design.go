@@ -374,7 +374,7 @@ func (d *Design) saturation(s *study.Study, opt DesignOptions) {
 	if len(regs) == 0 {
 		return
 	}
-	reps, err := saturation.Analyse(s.Disc.Mesh, s.Solution.BTo(nil), regs, saturation.Options{})
+	reps, err := saturation.Analyse(s.Disc.Mesh, s.ElementB(), regs, saturation.Options{})
 	if err != nil {
 		var nk *saturation.NoKneeError
 		if !errors.As(err, &nk) {

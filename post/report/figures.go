@@ -24,7 +24,7 @@ const FluxLines = 30
 // the flux function, whose isolines are the field lines).
 func FieldFigure(s *study.Study) (*gplot.Plot, *gplot.Plot) {
 	m := s.Disc.Mesh
-	b := s.Solution.BTo(nil)
+	b := s.ElementB()
 	skip := int32(-1)
 	if s.Disc.Kelvin != nil {
 		skip = prepare.KelvinTag(s.Model)

@@ -35,6 +35,7 @@ type Study struct {
 	field    probes.Field  // the field of the current Solution
 	loc      *mesh.Locator // point location on Disc.Mesh, built once
 	patches  *probes.Patches
+	b        [][2]float64 // element flux density of Solution, made once
 }
 
 // Run meshes, solves and probes m.
@@ -79,9 +80,19 @@ func (s *Study) Solve(opt Options) error {
 	if err != nil {
 		return err
 	}
-	s.Problem, s.Solution, s.field = p, sol, nil
+	s.Problem, s.Solution, s.field, s.b = p, sol, nil, nil
 	s.Probes = probes.Evaluate(s.Field(), s.Model.Probes)
 	return nil
+}
+
+// ElementB returns the flux density at each triangle's centroid for the
+// current solution (solver.Solution.BTo), computed once per solve and
+// shared: callers must not modify it.
+func (s *Study) ElementB() [][2]float64 {
+	if s.b == nil {
+		s.b = s.Solution.BTo(nil)
+	}
+	return s.b
 }
 
 // locator returns the point locator on the study's mesh, made once.
@@ -128,7 +139,7 @@ func (s *Study) Field() probes.Field {
 	if s.patches == nil {
 		s.patches = probes.NewPatches(m)
 	}
-	s.field = probes.NewRecovered(s.Solution, s.patches, s.Solution.BTo(nil), s.locator())
+	s.field = probes.NewRecovered(s.Solution, s.patches, s.ElementB(), s.locator())
 	return s.field
 }
 

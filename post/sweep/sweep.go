@@ -323,7 +323,7 @@ func fieldOf(r probes.Result) float64 {
 // maxIronB is the largest element |B| in regions whose material is
 // nonlinear (dν/d(B²) != 0 somewhere), a quick saturation indicator.
 func maxIronB(s *study.Study) float64 {
-	b := s.Solution.BTo(nil)
+	b := s.ElementB()
 	mats := s.Problem.Materials
 	nonlinear := make([]bool, len(mats))
 	for i, m := range mats {
