@@ -1,6 +1,8 @@
 package circuit
 
 import (
+	"math"
+
 	"polegap/internal/compsum"
 	"polegap/models"
 	"polegap/post/prepare"
@@ -71,15 +73,13 @@ func LinkagesTo(dst []float64, sol *solver.Solution, coils []Coil) ([]float64, e
 	}
 	p := sol.Problem
 	m := p.Mesh
-	areas := m.RegionAreas()
-	// ∫ A dΩ (times 2π r) per region tag, over the tags that coils use.
-	want := map[int32]*compsum.Sum{}
+	// ∫ A dΩ (times 2π r) and the cross-section area per region tag, over
+	// the tags that coils use, in one pass over the triangles.
+	type tagSums struct{ a, area compsum.Sum }
+	want := map[int32]*tagSums{}
 	for ci := range coils {
 		for _, s := range coils[ci].Sides {
-			if !(areas[s.Tag] > 0) {
-				return nil, &SideError{Coil: coils[ci].Name, Tag: s.Tag}
-			}
-			want[s.Tag] = &compsum.Sum{}
+			want[s.Tag] = &tagSums{}
 		}
 	}
 	deg := 2 // A is of degree 1 or 2
@@ -98,13 +98,26 @@ func LinkagesTo(dst []float64, sol *solver.Solution, coils []Coil) ([]float64, e
 			pt := f.At(t, q)
 			it += pt.W * pt.A
 		}
-		acc.Add(it)
+		acc.a.Add(it)
+		a, b, c := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
+		acc.area.Add(0.5 * math.Abs((m.X[b]-m.X[a])*(m.Y[c]-m.Y[a])-(m.X[c]-m.X[a])*(m.Y[b]-m.Y[a])))
+	}
+	areas := map[int32]float64{}
+	for tag, acc := range want {
+		areas[tag] = acc.area.Value()
+	}
+	for ci := range coils {
+		for _, s := range coils[ci].Sides {
+			if !(areas[s.Tag] > 0) {
+				return nil, &SideError{Coil: coils[ci].Name, Tag: s.Tag}
+			}
+		}
 	}
 	scale := depthOf(p)
 	for ci := range coils {
 		var l float64
 		for _, s := range coils[ci].Sides {
-			l += s.Sense * coils[ci].Turns / areas[s.Tag] * want[s.Tag].Value()
+			l += s.Sense * coils[ci].Turns / areas[s.Tag] * want[s.Tag].a.Value()
 		}
 		dst[ci] = l * scale
 		if !finite(dst[ci]) {
