@@ -6,6 +6,7 @@ import (
 	"io"
 	"math"
 	"runtime"
+	"runtime/debug"
 	"strings"
 	"text/tabwriter"
 	"time"
@@ -18,6 +19,7 @@ type Machine struct {
 	Arch       string     `json:"arch"`
 	CPUs       int        `json:"cpus"`
 	GOMAXPROCS int        `json:"gomaxprocs"`
+	GCPercent  int        `json:"gc_percent"`         // the collector's target heap growth (GOGC), -1 off
 	LoadStart  [3]float64 `json:"load_average_start"` // 1, 5, 15 min, from /proc/loadavg
 	LoadEnd    [3]float64 `json:"load_average_end"`
 }
@@ -57,7 +59,7 @@ type Table struct {
 func newTable(repeat int) *Table {
 	return &Table{
 		Machine: Machine{Go: runtime.Version(), OS: runtime.GOOS, Arch: runtime.GOARCH,
-			CPUs: runtime.NumCPU(), GOMAXPROCS: runtime.GOMAXPROCS(0), LoadStart: loadAverage()},
+			CPUs: runtime.NumCPU(), GOMAXPROCS: runtime.GOMAXPROCS(0), GCPercent: gcPercent(), LoadStart: loadAverage()},
 		Started: time.Now().UTC().Truncate(time.Second),
 		Repeat:  repeat,
 	}
@@ -178,8 +180,8 @@ func (t *Table) WriteJSON(w io.Writer) error {
 func (t *Table) WriteText(w io.Writer) error {
 	m := &t.Machine
 	var b strings.Builder
-	fmt.Fprintf(&b, "polegap bench: generated C-core in low-carbon steel; %s %s/%s, %d CPUs (GOMAXPROCS %d)\n",
-		m.Go, m.OS, m.Arch, m.CPUs, m.GOMAXPROCS)
+	fmt.Fprintf(&b, "polegap bench: generated C-core in low-carbon steel; %s %s/%s, %d CPUs (GOMAXPROCS %d, GOGC %d)\n",
+		m.Go, m.OS, m.Arch, m.CPUs, m.GOMAXPROCS, m.GCPercent)
 	fmt.Fprintf(&b, "load average %s at start, %s at end; times are wall-clock medians of %d run(s)\n",
 		fmtLoad(m.LoadStart), fmtLoad(m.LoadEnd), t.Repeat)
 	b.WriteString("Timings depend on the machine and on its load: compare figures from one run.\n\n")
@@ -262,6 +264,13 @@ func fmtNum(v float64) string {
 		return group(int(math.Round(v)))
 	}
 	return fmt.Sprintf("%.3g", v)
+}
+
+// gcPercent reads the collector's current target heap growth.
+func gcPercent() int {
+	p := debug.SetGCPercent(100)
+	debug.SetGCPercent(p)
+	return p
 }
 
 func fmtLoad(l [3]float64) string {
