@@ -7,7 +7,6 @@ import (
 	"time"
 
 	"polegap/models"
-	"polegap/post/study"
 )
 
 // refined returns the model with every element size divided by k and
@@ -55,18 +54,7 @@ func TestExamplesReachAccuracy(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			ref, err := study.Run(refined(rm, 4), study.Options{})
-			if err != nil {
-				t.Fatal(err)
-			}
-			q, err := FieldAt(ref.Model)
-			if err != nil {
-				t.Fatal(err)
-			}
-			want, err := q(ref)
-			if err != nil {
-				t.Fatal(err)
-			}
+			ref, want := reference(t, refined(rm, 4))
 			last := res.Rounds[len(res.Rounds)-1]
 			rel := math.Abs(last.Value-want) / want
 			t.Logf("%d rounds, %d nodes, %.6f T (%v); reference %d nodes %.6f T; rel. %.1e",
