@@ -91,7 +91,10 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 
 	if !analyzed {
 		t0 = time.Now()
-		if err := lin.Analyze(as.pat.k); err != nil {
+		undo := orderByVertices(as, lin)
+		err := lin.Analyze(as.pat.k)
+		undo()
+		if err != nil {
 			return &LinearSolveError{Stage: "analyze", Err: err}
 		}
 		s.Time.Analyze = time.Since(t0)
