@@ -377,3 +377,17 @@ func TestSweepInterrupted(t *testing.T) {
 		t.Errorf("files left: %v", ents)
 	}
 }
+
+// TestSolveAccuracy: solve --accuracy refines until the probe field
+// settles, with either marking; an unknown --refine-by is a usage error.
+func TestSolveAccuracy(t *testing.T) {
+	for _, by := range []string{"goal", "energy"} {
+		code, out, errs := runCmd(t, "solve", "--accuracy", "1e-3", "--refine-by", by, "calibration-solenoid")
+		if code != 0 || strings.Count(errs, "adaptive round") < 2 || !strings.Contains(out, "gap") {
+			t.Errorf("--refine-by %s: code %d, stderr %q", by, code, errs)
+		}
+	}
+	if code, _, errs := runCmd(t, "solve", "--accuracy", "1e-3", "--refine-by", "corners", "calibration-solenoid"); code != 2 || !strings.Contains(errs, "goal or energy") {
+		t.Errorf("bad --refine-by: code %d, stderr %q", code, errs)
+	}
+}

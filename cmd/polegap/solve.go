@@ -17,7 +17,7 @@ import (
 )
 
 var cmdSolve = &Command{
-	UsageLine: "solve [--accuracy R] [--virtual-work] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tol R] [--max-iterations N] MODEL",
+	UsageLine: "solve [--accuracy R [--refine-by goal|energy]] [--virtual-work] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tol R] [--max-iterations N] MODEL",
 	Short:     "solve a model and print the field and the design quantities",
 	Long: `Solve meshes the model, solves for the magnetic vector potential (with
 Newton–Raphson when the iron is nonlinear) and prints a summary: the mesh
@@ -33,10 +33,12 @@ corners, where the raw maximum is mesh-dependent). With --json it prints the sam
 triangles}, "newton" {iterations, residual, converged}, and "probes" keyed
 by name (point probes give a, bx, by and b in tesla).
 
---accuracy R refines the mesh adaptively (goal-oriented on the probe
-field: error indicators of the solution weighted by those of a dual
-solution) and re-solves until the probe field changes by less than R
-between rounds, then reports on the last mesh.
+--accuracy R refines the mesh adaptively and re-solves until the probe
+field changes by less than R between rounds, then reports on the last
+mesh. --refine-by chooses where: goal (the default) weights the error
+indicators of the solution by those of a dual solution for the probe
+field; energy refines where the field's own error is largest, which
+needed half the nodes of goal on a C-core deep in saturation.
 
 A solve that does not converge prints its residual history and exits
 with status 1; no result is reported for it.`,
@@ -47,6 +49,7 @@ with status 1; no result is reported for it.`,
 		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png or .svg file")
 		satLimit := fs.String("saturation-limit", "", "flag iron regions whose |B| away from corners exceeds this (e.g. 1.8T)")
 		accuracy := fs.Float64("accuracy", 0, "refine the mesh adaptively until the probe field changes by less than this between rounds (e.g. 1e-4)")
+		refineBy := fs.String("refine-by", "goal", "with --accuracy: goal (weighted by the probe's dual solution) or energy (the field's own error)")
 		vw := fs.Bool("virtual-work", false, "also compute the forces on the model's parts by virtual work (more solves)")
 		vtu := fs.String("vtu", "", "write the solution (A, B, |B|, H, μr, region) to this VTK .vtu file")
 		return func(env *Env, args []string) error {
@@ -66,9 +69,17 @@ with status 1; no result is reported for it.`,
 					return usagef("--saturation-limit: %v", err)
 				}
 			}
+			marking := adapt.GoalOriented
+			switch *refineBy {
+			case "goal":
+			case "energy":
+				marking = adapt.Energy
+			default:
+				return usagef("--refine-by is goal or energy, not %q", *refineBy)
+			}
 			var s *study.Study
 			if *accuracy > 0 {
-				res, err := adapt.Run(context.Background(), m, adapt.Options{Accuracy: *accuracy, Study: study.Options{Solver: solver.Options{Tol: *tol, MaxIter: *maxIter}},
+				res, err := adapt.Run(context.Background(), m, adapt.Options{Accuracy: *accuracy, Marking: marking, Study: study.Options{Solver: solver.Options{Tol: *tol, MaxIter: *maxIter}},
 					Progress: func(r adapt.Round) {
 						fmt.Fprintf(env.Stderr, "adaptive round: %d nodes, field %.6f T, change %.2e\n", r.Nodes, r.Value, r.Change)
 					}})
