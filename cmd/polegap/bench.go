@@ -19,10 +19,12 @@ measures in one run, for each: the mesher (time, triangles per second);
 the linear solve with the steel taken as μr = 1000, split into assembly,
 fill-reducing ordering with symbolic analysis, numeric Cholesky
 factorization and triangular solves; the same system by IC(0)-preconditioned
-conjugate gradients; the nonlinear Newton solve to a relative residual of
+conjugate gradients (on cases up to 100k nodes unless --pcg-all: at 1M
+it takes about 7 minutes); the nonlinear Newton solve to a relative residual of
 1e-8 and its iterations; a 20-point excitation curve (on cases up to 100k
-nodes unless --curve-all); the peak Go heap and resident memory, and the
-heap per node without the Cholesky factor. It then fits the growth
+nodes unless --curve-all); the peak Go heap and resident memory, the live
+heap with the solve's factor held, and both per node without the
+Cholesky factor. It then fits the growth
 exponent p of each cost ∝ N^p over the first-order sizes and prints each
 figure beside the goal of the design notes with a verdict (ok or MISSED).
 
@@ -30,8 +32,8 @@ Timings depend on the machine and on its load: the table prints the load
 average at start and end and the CPU time of each stage beside its wall
 time. Compare figures from one run, on an idle machine where possible;
 --repeat N keeps the median of N runs of each stage (not of the curve).
-The 1M case needs a few GB of memory and takes minutes; --quick runs 10k
-and 100k only.
+The 1M case needs about 2 GB of memory and takes about 3 minutes; --quick
+runs 10k and 100k only.
 
 Progress goes to standard error; --json prints the table as JSON.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
@@ -40,6 +42,7 @@ Progress goes to standard error; --json prints the table as JSON.`,
 		repeat := fs.Int("repeat", 1, "runs of each stage; the median is reported")
 		quick := fs.Bool("quick", false, "only the 10k and 100k first-order cases and the second-order case")
 		curveAll := fs.Bool("curve-all", false, "draw the excitation curve at every size, 1M included")
+		pcgAll := fs.Bool("pcg-all", false, "run the conjugate-gradient comparison at every size, 1M included (about 7 minutes there)")
 		asJSON := fs.Bool("json", false, "print the table as JSON")
 		return func(env *Env, args []string) error {
 			if len(args) > 0 {
@@ -70,7 +73,7 @@ Progress goes to standard error; --json prints the table as JSON.`,
 			}, Done: func(r bench.Result) {
 				fmt.Fprintf(env.Stderr, "bench: %s done: %d nodes, mesh %.3g s, linear %.3g s, nonlinear %.3g s\n", r.Case, r.Nodes, r.Mesh, r.Linear, r.Nonlinear)
 			}}
-			t, err := bench.Run(ctx, bench.Cases(ns, n2, *curveAll), opt)
+			t, err := bench.Run(ctx, bench.Cases(ns, n2, *curveAll, *pcgAll), opt)
 			if err != nil {
 				return err
 			}

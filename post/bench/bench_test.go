@@ -15,7 +15,7 @@ var bench1M = flag.Bool("bench.1m", false, "also run the 1M-node design benchmar
 // numbers `polegap bench` prints (DESIGN.md, "Figures it must reach").
 // The 1M-node case runs only with -bench.1m.
 func BenchmarkDesign(b *testing.B) {
-	cases := Cases([]int{10_000, 100_000, 1_000_000}, 100_000, false)
+	cases := Cases([]int{10_000, 100_000, 1_000_000}, 100_000, false, false)
 	for _, c := range cases {
 		b.Run(c.Name, func(b *testing.B) {
 			if c.Nodes >= 1_000_000 && !*bench1M {
@@ -76,7 +76,7 @@ func TestPrintTable(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	tab, err := Run(context.Background(), Cases(sizes, 100_000, false), Options{
+	tab, err := Run(context.Background(), Cases(sizes, 100_000, false, false), Options{
 		Progress: func(c Case, s string) { t.Logf("%s: %s", c.Name, s) },
 		Done:     func(r Result) { fmt.Fprintf(os.Stderr, "%+v\n", r) }})
 	if err != nil {

@@ -39,16 +39,19 @@ func TestParseSizes(t *testing.T) {
 }
 
 func TestCases(t *testing.T) {
-	cs := Cases(DefaultSizes, 100_000, false)
+	cs := Cases(DefaultSizes, 100_000, false, false)
 	want := []Case{
-		{"P1-10k", 10_000, 1, true}, {"P1-100k", 100_000, 1, true}, {"P1-1M", 1_000_000, 1, false},
-		{"P2-100k", 100_000, 2, false},
+		{"P1-10k", 10_000, 1, true, true}, {"P1-100k", 100_000, 1, true, true}, {"P1-1M", 1_000_000, 1, false, false},
+		{"P2-100k", 100_000, 2, false, true},
 	}
 	if !slices.Equal(cs, want) {
 		t.Errorf("Cases = %v, want %v", cs, want)
 	}
-	if cs := Cases(QuickSizes, 0, true); len(cs) != 2 || !cs[0].Curve || !cs[1].Curve {
+	if cs := Cases(QuickSizes, 0, true, false); len(cs) != 2 || !cs[0].Curve || !cs[1].Curve {
 		t.Errorf("quick cases with curves: %v", cs)
+	}
+	if cs := Cases(DefaultSizes, 0, false, true); !cs[2].PCG {
+		t.Errorf("1M case without PCG although asked for everywhere: %v", cs)
 	}
 }
 

@@ -10,7 +10,7 @@ import (
 func ExampleParseSizes() {
 	sizes, err := bench.ParseSizes("10k,100k,1M")
 	fmt.Println(sizes, err)
-	for _, c := range bench.Cases(sizes, 100_000, false) {
+	for _, c := range bench.Cases(sizes, 100_000, false, false) {
 		fmt.Println(c.Name, c.Order, c.Curve)
 	}
 	// Output:
@@ -41,7 +41,7 @@ func ExampleMeshSize() {
 }
 
 func ExampleRun() {
-	t, err := bench.Run(context.Background(), []bench.Case{{Name: "P1-3k", Nodes: 3000, Order: 1}}, bench.Options{})
+	t, err := bench.Run(context.Background(), []bench.Case{{Name: "P1-3k", Nodes: 3000, Order: 1, PCG: true}}, bench.Options{})
 	if err != nil {
 		fmt.Println(err)
 		return

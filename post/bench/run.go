@@ -273,7 +273,13 @@ func runCase(ctx context.Context, c Case, h float64, opt Options) (Result, error
 	if err := progress("pcg"); err != nil {
 		return Result{}, err
 	}
-	r.PCG, r.PCGCPU, err = stage(opt.Repeat, func() error {
+	pcgStage := func(f func() error) (float64, float64, error) {
+		if !c.PCG {
+			return 0, 0, nil
+		}
+		return stage(opt.Repeat, f)
+	}
+	r.PCG, r.PCGCPU, err = pcgStage(func() error {
 		pcg := &sparse.PCG{Options: sparse.PCGOptions{Tol: PCGTol, MaxIter: PCGMaxIter}}
 		s, err := solver.Solve(lp, solver.Options{Solver: pcg, LinearTol: PCGTol})
 		mem.mark()

@@ -119,8 +119,10 @@ func checks(rs []Result) []Check {
 		n := float64(r.Nodes)
 		add(r, "mesh", "s", r.Mesh, goalMesh, float64(r.Triangles))
 		add(r, "linear solve (Cholesky)", "s", r.Linear, goalLinear, n)
-		add(r, "linear solve (PCG)", "s", r.PCG, goalLinear, n)
-		if !r.PCGConverged {
+		if r.PCGIterations > 0 {
+			add(r, "linear solve (PCG)", "s", r.PCG, goalLinear, n)
+		}
+		if r.PCGIterations > 0 && !r.PCGConverged {
 			// Stopped at PCGMaxIter: the time is a lower bound.
 			cs[len(cs)-1].Pass = false
 			cs[len(cs)-1].Figure = fmt.Sprintf("linear solve (PCG, stopped at %d iterations, residual %.1e)", r.PCGIterations, r.PCGResidual)
