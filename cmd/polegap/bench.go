@@ -32,8 +32,8 @@ Timings depend on the machine and on its load: the table prints the load
 average at start and end and the CPU time of each stage beside its wall
 time. Compare figures from one run, on an idle machine where possible;
 --repeat N keeps the median of N runs of each stage (not of the curve).
-The 1M case needs about 2 GB of memory and takes about 3 minutes; --quick
-runs 10k and 100k only.
+The 1M case needs about 1.5 GB of memory and takes about a minute;
+--quick runs 10k and 100k only.
 
 Progress goes to standard error; --json prints the table as JSON.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
