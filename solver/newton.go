@@ -52,6 +52,32 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 	du := make([]float64, n)
 	trial := make([]float64, nn)
 
+	// The ordering and symbolic analysis need only the pattern: they run
+	// beside the first assemblies (which write only the values), and are
+	// done before this returns whatever happens, even when the field is
+	// zero and no factorization follows (a Prepared reuses the analysis).
+	analysis := func() error { return nil }
+	if !analyzed {
+		done := make(chan struct{})
+		var anaErr error
+		go func() {
+			defer close(done)
+			t0 := time.Now()
+			undo := orderByVertices(as, lin)
+			anaErr = lin.Analyze(as.pat.k)
+			undo()
+			s.Time.Analyze = time.Since(t0)
+		}()
+		defer func() { <-done }()
+		analysis = func() error {
+			<-done
+			if anaErr != nil {
+				return &LinearSolveError{Stage: "analyze", Err: anaErr}
+			}
+			return nil
+		}
+	}
+
 	// Reference residual: all unknowns at zero. On a cold start that is
 	// the starting point, whose tangent is needed anyway.
 	t0 := time.Now()
@@ -82,6 +108,9 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 				A[i] = 0
 			}
 		}
+		if err := analysis(); err != nil {
+			return err
+		}
 		s.Converged = true
 		s.History = []float64{0}
 		return nil
@@ -89,15 +118,8 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 	res := norm2(R) / ref
 	s.History = append(s.History, res)
 
-	if !analyzed {
-		t0 = time.Now()
-		undo := orderByVertices(as, lin)
-		err := lin.Analyze(as.pat.k)
-		undo()
-		if err != nil {
-			return &LinearSolveError{Stage: "analyze", Err: err}
-		}
-		s.Time.Analyze = time.Since(t0)
+	if err := analysis(); err != nil {
+		return err
 	}
 
 	upd := math.Inf(1)

@@ -6,8 +6,10 @@ import (
 )
 
 // A prepared problem solved at several excitations (an excitation sweep
-// with warm starts) gives the same fields as independent solves, analyses
-// the pattern once, and earlier solutions keep their own values.
+// with warm starts, from zero current, whose field needs no factorization
+// but whose analysis the later solves reuse) gives the same fields as
+// independent solves, analyses the pattern once, and earlier solutions
+// keep their own values.
 func TestPreparedSweep(t *testing.T) {
 	const r1, r2, R = 0.2, 0.3, 0.5
 	const nth = 32
@@ -28,7 +30,7 @@ func TestPreparedSweep(t *testing.T) {
 	}
 	var prev *Solution
 	var sols []*Solution
-	for k, I := range []float64{500, 2000, 6000} {
+	for k, I := range []float64{0, 500, 2000, 6000} {
 		p.PointCurrents[0].Current = I
 		opt := Options{}
 		if prev != nil {
@@ -61,14 +63,14 @@ func TestPreparedSweep(t *testing.T) {
 		prev = s
 		sols = append(sols, s)
 	}
-	// The first solution is unchanged by the later ones.
-	_, bx, by, _ := sols[0].At(0.25, 0)
+	// The first solution with a field is unchanged by the later ones.
+	_, bx, by, _ := sols[1].At(0.25, 0)
 	want := saturating{1000, 1.5}.bOfH(500 / (2 * math.Pi * 0.25))
 	// 2 %: the discretisation error of this coarse (nth = 32) mesh.
 	if got := math.Hypot(bx, by); math.Abs(got-want) > 2e-2*want {
 		t.Errorf("first solution: |B| = %g at r = 0.25, want %g", got, want)
 	}
-	if err := sols[0].Check(); err != nil {
+	if err := sols[1].Check(); err != nil {
 		t.Error(err)
 	}
 }
