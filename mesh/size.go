@@ -23,7 +23,7 @@ func (f *SizeField) At(x, y float64, region int32) float64 {
 		if p.Size <= 0 {
 			continue
 		}
-		if s := p.Size + g*math.Hypot(x-p.X, y-p.Y); s < h {
+		if s := p.Size + g*math.Sqrt((x-p.X)*(x-p.X)+(y-p.Y)*(y-p.Y)); s < h {
 			h = s
 		}
 	}
@@ -74,7 +74,8 @@ func distToSegment(x, y, x0, y0, x1, y1 float64) float64 {
 	t := 0.0
 	if l2 > 0 {
 		t = ((x-x0)*dx + (y-y0)*dy) / l2
-		t = math.Max(0, math.Min(1, t))
+		t = max(0, min(1, t))
 	}
-	return math.Hypot(x-(x0+t*dx), y-(y0+t*dy))
+	ex, ey := x-(x0+t*dx), y-(y0+t*dy)
+	return math.Sqrt(ex*ex + ey*ey) // coordinates are below 1e60: no overflow
 }

@@ -33,8 +33,8 @@ func newSizeGrid(src []SizeLine, g, x0, y0, x1, y1 float64) *sizeGrid {
 			best := math.Inf(1)
 			for k, l := range src {
 				d := distToSegment(cx, cy, l.X0, l.Y0, l.X1, l.Y1)
-				lb[k] = l.Size + g*math.Max(0, d-r)
-				best = math.Min(best, l.Size+g*(d+r))
+				lb[k] = l.Size + g*max(0, d-r)
+				best = min(best, l.Size+g*(d+r))
 			}
 			for k := range src {
 				if lb[k] <= best {
@@ -56,14 +56,14 @@ func (sg *sizeGrid) At(x, y float64, _ int32) float64 {
 	if i < 0 || j < 0 || i >= sg.nx || j >= sg.ny || math.IsNaN(x) || math.IsNaN(y) {
 		// Outside the grid (the Kelvin disk): all sources.
 		for _, l := range sg.src {
-			h = math.Min(h, l.Size+sg.g*distToSegment(x, y, l.X0, l.Y0, l.X1, l.Y1))
+			h = min(h, l.Size+sg.g*distToSegment(x, y, l.X0, l.Y0, l.X1, l.Y1))
 		}
 		return h
 	}
 	c := j*sg.nx + i
 	for _, k := range sg.cand[sg.start[c]:sg.start[c+1]] {
 		l := &sg.src[k]
-		h = math.Min(h, l.Size+sg.g*distToSegment(x, y, l.X0, l.Y0, l.X1, l.Y1))
+		h = min(h, l.Size+sg.g*distToSegment(x, y, l.X0, l.Y0, l.X1, l.Y1))
 	}
 	return h
 }
@@ -106,7 +106,7 @@ func (f SizeField) indexed(x, y []float64) SizeField {
 		h := sg.At(x, y, region)
 		if prev != nil {
 			if s := prev(x, y, region); s > 0 {
-				h = math.Min(h, s)
+				h = min(h, s)
 			}
 		}
 		return h

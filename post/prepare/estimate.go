@@ -319,7 +319,7 @@ func (r *ring) dist(x, y float64) float64 {
 	d := math.Inf(1)
 	n := len(r.x)
 	for i, j := 0, n-1; i < n; j, i = i, i+1 {
-		d = math.Min(d, segDist(x, y, r.x[j], r.y[j], r.x[i], r.y[i]))
+		d = min(d, segDist(x, y, r.x[j], r.y[j], r.x[i], r.y[i]))
 	}
 	return d
 }
@@ -329,9 +329,10 @@ func segDist(x, y, x0, y0, x1, y1 float64) float64 {
 	l2 := dx*dx + dy*dy
 	t := 0.0
 	if l2 > 0 {
-		t = math.Max(0, math.Min(1, ((x-x0)*dx+(y-y0)*dy)/l2))
+		t = max(0, min(1, ((x-x0)*dx+(y-y0)*dy)/l2))
 	}
-	return math.Hypot(x-(x0+t*dx), y-(y0+t*dy))
+	ex, ey := x-(x0+t*dx), y-(y0+t*dy)
+	return math.Sqrt(ex*ex + ey*ey) // model coordinates: no overflow
 }
 
 func newEstimator(m *models.Model, f *mesh.SizeField, bd *mesh.Polygon) *estimator {
