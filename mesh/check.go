@@ -244,7 +244,7 @@ func (m *Mesh) nearFrozen(t int, frozenE []int32) bool {
 	for i := 0; i < len(frozenE); i += 2 {
 		u, v := frozenE[i], frozenE[i+1]
 		l := math.Hypot(m.X[v]-m.X[u], m.Y[v]-m.Y[u])
-		if distToSegment(gx, gy, m.X[u], m.Y[u], m.X[v], m.Y[v]) <= l {
+		if SegmentDistance(gx, gy, m.X[u], m.Y[u], m.X[v], m.Y[v]) <= l {
 			return true
 		}
 	}
@@ -269,7 +269,7 @@ func (m *Mesh) shellException(t int, in *Input) bool {
 		// Split points are rounded to the coordinates' precision: allow a
 		// few ulps of the coordinate magnitude besides 1e-12 of the length.
 		mag := math.Abs(in.X[a]) + math.Abs(in.Y[a]) + math.Abs(in.X[b]) + math.Abs(in.Y[b])
-		return distToSegment(x, y, in.X[a], in.Y[a], in.X[b], in.Y[b]) <= 1e-12*l+1e-14*mag
+		return SegmentDistance(x, y, in.X[a], in.Y[a], in.X[b], in.Y[b]) <= 1e-12*l+1e-14*mag
 	}
 	onSeg := func(p int32, s int) bool { return onSegXY(m.X[p], m.Y[p], s) }
 	ns := len(in.Segments) / 2

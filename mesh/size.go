@@ -31,7 +31,7 @@ func (f *SizeField) At(x, y float64, region int32) float64 {
 		if l.Size <= 0 {
 			continue
 		}
-		if s := l.Size + g*distToSegment(x, y, l.X0, l.Y0, l.X1, l.Y1); s < h {
+		if s := l.Size + g*SegmentDistance(x, y, l.X0, l.Y0, l.X1, l.Y1); s < h {
 			h = s
 		}
 	}
@@ -66,9 +66,10 @@ func (f *SizeField) isZero() bool {
 	return true
 }
 
-// distToSegment is the Euclidean distance from (x, y) to the segment
-// (x0, y0)-(x1, y1). It is a magnitude, not a decision.
-func distToSegment(x, y, x0, y0, x1, y1 float64) float64 {
+// SegmentDistance is the Euclidean distance from (x, y) to the segment
+// (x0, y0)-(x1, y1). It is a magnitude, not a decision (the exact
+// predicates decide on which side a point lies).
+func SegmentDistance(x, y, x0, y0, x1, y1 float64) float64 {
 	dx, dy := x1-x0, y1-y0
 	l2 := dx*dx + dy*dy
 	t := 0.0

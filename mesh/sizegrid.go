@@ -32,7 +32,7 @@ func newSizeGrid(src []SizeLine, g, x0, y0, x1, y1 float64) *sizeGrid {
 			cx, cy := x0+(float64(i)+0.5)*sg.cw, y0+(float64(j)+0.5)*sg.ch
 			best := math.Inf(1)
 			for k, l := range src {
-				d := distToSegment(cx, cy, l.X0, l.Y0, l.X1, l.Y1)
+				d := SegmentDistance(cx, cy, l.X0, l.Y0, l.X1, l.Y1)
 				lb[k] = l.Size + g*max(0, d-r)
 				best = min(best, l.Size+g*(d+r))
 			}
@@ -56,14 +56,14 @@ func (sg *sizeGrid) At(x, y float64, _ int32) float64 {
 	if i < 0 || j < 0 || i >= sg.nx || j >= sg.ny || math.IsNaN(x) || math.IsNaN(y) {
 		// Outside the grid (the Kelvin disk): all sources.
 		for _, l := range sg.src {
-			h = min(h, l.Size+sg.g*distToSegment(x, y, l.X0, l.Y0, l.X1, l.Y1))
+			h = min(h, l.Size+sg.g*SegmentDistance(x, y, l.X0, l.Y0, l.X1, l.Y1))
 		}
 		return h
 	}
 	c := j*sg.nx + i
 	for _, k := range sg.cand[sg.start[c]:sg.start[c+1]] {
 		l := &sg.src[k]
-		h = min(h, l.Size+sg.g*distToSegment(x, y, l.X0, l.Y0, l.X1, l.Y1))
+		h = min(h, l.Size+sg.g*SegmentDistance(x, y, l.X0, l.Y0, l.X1, l.Y1))
 	}
 	return h
 }

@@ -1,6 +1,7 @@
 package mesh
 
 import (
+	"cmp"
 	"fmt"
 	"math"
 	"slices"
@@ -178,10 +179,10 @@ func (d *cdt) hull(vmap []int32) []int32 {
 func convexHull(xs, ys []float64, pts []int32) []int32 {
 	pts = slices.Clone(pts)
 	slices.SortFunc(pts, func(a, b int32) int {
-		if c := cmpF(xs[a], xs[b]); c != 0 {
+		if c := cmp.Compare(xs[a], xs[b]); c != 0 {
 			return c
 		}
-		return cmpF(ys[a], ys[b])
+		return cmp.Compare(ys[a], ys[b])
 	})
 	turn := func(a, b, c int32) Orientation {
 		return Orient2D(xs[a], ys[a], xs[b], ys[b], xs[c], ys[c])
@@ -202,16 +203,6 @@ func convexHull(xs, ys []float64, pts []int32) []int32 {
 		h = append(h, p)
 	}
 	return h[:len(h)-1]
-}
-
-func cmpF(a, b float64) int {
-	switch {
-	case a < b:
-		return -1
-	case a > b:
-		return 1
-	}
-	return 0
 }
 
 // sortSpatial sorts items (non-negative int32) along the Z-order (Morton)
@@ -308,18 +299,8 @@ func hilbertOrder(xs, ys []float64, minX, minY, span float64) []int32 {
 		keys[i] = key(i)
 		idx[i] = int32(i)
 	}
-	slices.SortStableFunc(idx, func(a, b int32) int { return cmpU(keys[a], keys[b]) })
+	slices.SortStableFunc(idx, func(a, b int32) int { return cmp.Compare(keys[a], keys[b]) })
 	return idx
-}
-
-func cmpU(a, b uint64) int {
-	switch {
-	case a < b:
-		return -1
-	case a > b:
-		return 1
-	}
-	return 0
 }
 
 // hilbertKey maps (x, y) in [0, n)^2 to its index along the Hilbert curve of

@@ -63,8 +63,8 @@ func segmentsCovered(t *testing.T, name string, in *Input, m *Mesh) {
 				continue // count interior edges once
 			}
 			tol := 1e-12*l + 1e-14*(math.Abs(ax)+math.Abs(ay)+math.Abs(bx)+math.Abs(by))
-			if distToSegment(m.X[u], m.Y[u], ax, ay, bx, by) <= tol &&
-				distToSegment(m.X[v], m.Y[v], ax, ay, bx, by) <= tol {
+			if SegmentDistance(m.X[u], m.Y[u], ax, ay, bx, by) <= tol &&
+				SegmentDistance(m.X[v], m.Y[v], ax, ay, bx, by) <= tol {
 				sum += math.Hypot(m.X[v]-m.X[u], m.Y[v]-m.Y[u])
 			}
 		}

@@ -1,6 +1,7 @@
 package solver
 
 import (
+	"cmp"
 	"slices"
 
 	"polegap/mesh"
@@ -96,15 +97,7 @@ func vertexOrdering(m *mesh.Mesh, d *dofMap) []int32 {
 	for i := range perm {
 		perm[i] = int32(i)
 	}
-	slices.SortStableFunc(perm, func(a, b int32) int {
-		switch {
-		case key[a] < key[b]:
-			return -1
-		case key[a] > key[b]:
-			return 1
-		}
-		return 0
-	})
+	slices.SortStableFunc(perm, func(a, b int32) int { return cmp.Compare(key[a], key[b]) })
 	return perm
 }
 

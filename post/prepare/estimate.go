@@ -319,20 +319,9 @@ func (r *ring) dist(x, y float64) float64 {
 	d := math.Inf(1)
 	n := len(r.x)
 	for i, j := 0, n-1; i < n; j, i = i, i+1 {
-		d = min(d, segDist(x, y, r.x[j], r.y[j], r.x[i], r.y[i]))
+		d = min(d, mesh.SegmentDistance(x, y, r.x[j], r.y[j], r.x[i], r.y[i]))
 	}
 	return d
-}
-
-func segDist(x, y, x0, y0, x1, y1 float64) float64 {
-	dx, dy := x1-x0, y1-y0
-	l2 := dx*dx + dy*dy
-	t := 0.0
-	if l2 > 0 {
-		t = max(0, min(1, ((x-x0)*dx+(y-y0)*dy)/l2))
-	}
-	ex, ey := x-(x0+t*dx), y-(y0+t*dy)
-	return math.Sqrt(ex*ex + ey*ey) // model coordinates: no overflow
 }
 
 func newEstimator(m *models.Model, f *mesh.SizeField, bd *mesh.Polygon) *estimator {
@@ -391,14 +380,14 @@ func (e *estimator) addFeatures(rings []ring) {
 			if k == self {
 				continue
 			}
-			q := segDist(x, y, g.x0, g.y0, g.x1, g.y1)
+			q := mesh.SegmentDistance(x, y, g.x0, g.y0, g.x1, g.y1)
 			if q <= touch || q >= d {
 				continue
 			}
 			// Skip the edges that reach the sample's own edge.
 			a := edges[self]
-			if segDist(g.x0, g.y0, a.x0, a.y0, a.x1, a.y1) <= touch || segDist(g.x1, g.y1, a.x0, a.y0, a.x1, a.y1) <= touch ||
-				segDist(a.x0, a.y0, g.x0, g.y0, g.x1, g.y1) <= touch || segDist(a.x1, a.y1, g.x0, g.y0, g.x1, g.y1) <= touch {
+			if mesh.SegmentDistance(g.x0, g.y0, a.x0, a.y0, a.x1, a.y1) <= touch || mesh.SegmentDistance(g.x1, g.y1, a.x0, a.y0, a.x1, a.y1) <= touch ||
+				mesh.SegmentDistance(a.x0, a.y0, g.x0, g.y0, g.x1, g.y1) <= touch || mesh.SegmentDistance(a.x1, a.y1, g.x0, g.y0, g.x1, g.y1) <= touch {
 				continue
 			}
 			d = q
@@ -434,7 +423,7 @@ const featureGrading = 1.0
 func (e *estimator) featureSize(x, y float64) float64 {
 	h := math.Inf(1)
 	for _, l := range e.feat {
-		h = math.Min(h, l.Size+featureGrading*segDist(x, y, l.X0, l.Y0, l.X1, l.Y1))
+		h = math.Min(h, l.Size+featureGrading*mesh.SegmentDistance(x, y, l.X0, l.Y0, l.X1, l.Y1))
 	}
 	return h
 }
