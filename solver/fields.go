@@ -163,9 +163,6 @@ func (s *Solution) Energy() float64 {
 	// Fixed contiguous chunks, each summed with compensation, then added
 	// in order: the same result run to run for a given worker count.
 	nw := as.workers()
-	if nt < 20000 {
-		nw = 1
-	}
 	part := make([]compsum.Sum, nw)
 	parallelRange(nt, nw, func(k, t0, t1 int) {
 		var w elemWork

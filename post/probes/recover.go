@@ -57,9 +57,6 @@ func NewPatches(m *mesh.Mesh) *Patches {
 	return p
 }
 
-// Mesh returns the mesh of the patches.
-func (p *Patches) Mesh() *mesh.Mesh { return p.m }
-
 // NewRecovered makes the recovered field of a first-order solution from
 // the mesh's patches, the flux density of each triangle and the field
 // that supplies A; loc locates points in the mesh. Corner values are

@@ -103,11 +103,9 @@ type Runner struct {
 	coil  int
 	base  []float64 // the model's own coil currents
 	probe string
-	last  []float64
-	// The solved points before the last (current and potential), newest
-	// first, for the predictor of the next warm start.
-	hist  []solved
-	lastI float64
+	// The last solved points (current and potential), newest first, at
+	// most three, for the predictor of the next warm start.
+	recent []solved
 
 	baseField float64
 	material  func(tag int32, m solver.Material) solver.Material
@@ -183,8 +181,7 @@ func newRunner(m *models.Model, coil, probe string, material func(tag int32, m s
 // start takes s, solved at the model's own currents, as the first point.
 func (r *Runner) start(s *study.Study) {
 	r.Study = s
-	r.last = s.Solution.A
-	r.lastI = r.base[r.coil]
+	r.recent = []solved{{r.base[r.coil], s.Solution.A}}
 	if res, ok := s.Probe(r.probe); ok {
 		r.baseField = fieldOf(res)
 	}
@@ -203,9 +200,10 @@ func (r *Runner) start(s *study.Study) {
 // (its first point, a tenth of the current of the runner's solution, 4
 // steps instead of 9).
 func (r *Runner) predict(current float64) []float64 {
-	d1 := current - r.lastI
-	pts := []solved{{r.lastI, r.last}}
-	for _, h := range r.hist {
+	last := r.recent[0]
+	d1 := current - last.i
+	pts := []solved{last}
+	for _, h := range r.recent[1:] {
 		p := pts[len(pts)-1]
 		d0 := p.i - h.i
 		// Keep earlier points only along one direction, without long gaps.
@@ -214,14 +212,14 @@ func (r *Runner) predict(current float64) []float64 {
 		}
 		pts = append(pts, h)
 	}
-	out := make([]float64, len(r.last))
+	out := make([]float64, len(last.a))
 	if len(pts) == 1 {
 		k := 1.0
-		if r.lastI != 0 && current/r.lastI > 0 {
-			k = current / r.lastI
+		if last.i != 0 && current/last.i > 0 {
+			k = current / last.i
 		}
 		for i := range out {
-			out[i] = k * r.last[i]
+			out[i] = k * last.a[i]
 		}
 		return out
 	}
@@ -282,11 +280,7 @@ func (r *Runner) Solve(current float64, opt solver.Options) (Point, error) {
 		return Point{}, err
 	}
 	sol := r.Study.Solution
-	r.hist = append([]solved{{r.lastI, r.last}}, r.hist...)
-	if len(r.hist) > 2 {
-		r.hist = r.hist[:2]
-	}
-	r.last, r.lastI = sol.A, current
+	r.recent = append([]solved{{current, sol.A}}, r.recent[:min(len(r.recent), 2)]...)
 	res, _ := r.Study.Probe(r.probe)
 	p := Point{
 		Current:     current,

@@ -156,14 +156,14 @@ func TestPredict(t *testing.T) {
 			}
 		}
 	}
-	r := &Runner{last: path(3), lastI: 3, hist: []solved{{2, path(2)}, {1, path(1)}}}
+	r := &Runner{recent: []solved{{3, path(3)}, {2, path(2)}, {1, path(1)}}}
 	check("quadratic", r.predict(4), path(4))
-	r = &Runner{last: line(3), lastI: 3, hist: []solved{{2, line(2)}}}
+	r = &Runner{recent: []solved{{3, line(3)}, {2, line(2)}}}
 	check("secant", r.predict(4.5), line(4.5))
 	// Turning back: no extrapolation, the last solution scaled.
-	r = &Runner{last: line(3), lastI: 3, hist: []solved{{2, line(2)}}}
+	r = &Runner{recent: []solved{{3, line(3)}, {2, line(2)}}}
 	check("scaled", r.predict(1), line(1))
 	// A step more than twice the last: scaled, not extrapolated.
-	r = &Runner{last: path(3), lastI: 3, hist: []solved{{2.9, path(2.9)}}}
+	r = &Runner{recent: []solved{{3, path(3)}, {2.9, path(2.9)}}}
 	check("long step", r.predict(4), []float64{path(3)[0] * 4 / 3, path(3)[1] * 4 / 3, path(3)[2] * 4 / 3})
 }
