@@ -7,7 +7,7 @@ import (
 	"os"
 	"os/signal"
 
-	"polegap/post/bench"
+	"polegap/internal/bench"
 )
 
 var cmdBench = &Command{

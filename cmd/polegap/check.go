@@ -4,7 +4,7 @@ import (
 	"flag"
 
 	"polegap/models"
-	"polegap/post/report"
+	"polegap/post/output/report"
 	"polegap/post/study"
 )
 

@@ -10,9 +10,9 @@ import (
 	"gonum.org/v1/plot/vg"
 
 	"polegap/internal/fileout"
-	"polegap/post/compare"
 	"polegap/post/measure"
-	"polegap/post/plot"
+	"polegap/post/output/plot"
+	"polegap/post/workflow/compare"
 )
 
 var cmdCompare = &Command{

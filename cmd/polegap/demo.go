@@ -10,8 +10,8 @@ import (
 	"time"
 
 	"polegap/models"
-	"polegap/post/coil"
-	"polegap/post/report"
+	"polegap/post/output/report"
+	"polegap/post/workflow/coil"
 )
 
 var cmdDemo = &Command{

@@ -13,7 +13,7 @@ import (
 	"strings"
 	"testing"
 
-	"polegap/post/sweep"
+	"polegap/post/workflow/sweep"
 )
 
 func runCmd(t *testing.T, args ...string) (code int, stdout, stderr string) {

@@ -7,8 +7,8 @@ import (
 	gplot "gonum.org/v1/plot"
 	"gonum.org/v1/plot/vg"
 
-	"polegap/post/library"
-	"polegap/post/plot"
+	"polegap/post/output/library"
+	"polegap/post/output/plot"
 )
 
 var cmdMaterials = &Command{

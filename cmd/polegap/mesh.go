@@ -11,8 +11,8 @@ import (
 
 	"polegap/internal/fileout"
 	"polegap/mesh"
-	"polegap/post/plot"
-	"polegap/post/prepare"
+	"polegap/post/output/plot"
+	"polegap/post/study"
 )
 
 var cmdMesh = &Command{
@@ -36,7 +36,7 @@ MODEL is a model file or the name of an embedded example.
 				return err
 			}
 			start := time.Now()
-			d, err := prepare.Discretize(m)
+			d, err := study.Discretize(m)
 			if err != nil {
 				return err
 			}
@@ -60,11 +60,11 @@ MODEL is a model file or the name of an embedded example.
 	},
 }
 
-func writeMeshVTU(path string, d *prepare.Discretization) error {
+func writeMeshVTU(path string, d *study.Discretization) error {
 	return fileout.Write(path, func(w io.Writer) error { return mesh.WriteVTU(w, d.Mesh) })
 }
 
-func drawMesh(path string, d *prepare.Discretization) error {
+func drawMesh(path string, d *study.Discretization) error {
 	m := d.Mesh
 	p := plot.MeshFigure(d.Model.Name+": mesh", m.X, m.Y, m.Tri, m.Region, d.RegionKind)
 	const width = 18 * vg.Centimeter
@@ -88,7 +88,7 @@ type regionStats struct {
 	Area      float64 `json:"area_m2"`
 }
 
-func meshReport(d *prepare.Discretization) meshStats {
+func meshReport(d *study.Discretization) meshStats {
 	s := d.Mesh.Stats()
 	r := meshStats{
 		Nodes: s.Nodes, Triangles: s.Triangles, Order: d.Mesh.Order(),
@@ -100,7 +100,7 @@ func meshReport(d *prepare.Discretization) meshStats {
 	return r
 }
 
-func printMeshStats(w io.Writer, d *prepare.Discretization, elapsed time.Duration) {
+func printMeshStats(w io.Writer, d *study.Discretization, elapsed time.Duration) {
 	r := meshReport(d)
 	fmt.Fprintf(w, "model      %s (%s)\n", d.Model.Name, d.Model.File)
 	fmt.Fprintf(w, "mesh       %d nodes, %d triangles, order %d, built in %v\n", r.Nodes, r.Triangles, r.Order, elapsed.Round(time.Millisecond))

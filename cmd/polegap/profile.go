@@ -8,8 +8,8 @@ import (
 
 	"polegap/internal/fileout"
 	"polegap/models"
-	"polegap/post/gap"
-	"polegap/post/plot"
+	"polegap/post/output/plot"
+	"polegap/post/quantity/gap"
 	"polegap/post/study"
 )
 

@@ -7,7 +7,7 @@ import (
 	"strings"
 
 	"polegap/models"
-	"polegap/post/searchcoil"
+	"polegap/post/quantity/searchcoil"
 	"polegap/post/study"
 )
 

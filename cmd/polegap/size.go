@@ -10,11 +10,11 @@ import (
 
 	"polegap/internal/fileout"
 	"polegap/models"
-	"polegap/post/coil"
-	"polegap/post/prepare"
-	"polegap/post/report"
-	"polegap/post/sweep"
-	"polegap/post/target"
+	"polegap/post/output/report"
+	"polegap/post/study"
+	"polegap/post/workflow/coil"
+	"polegap/post/workflow/sweep"
+	"polegap/post/workflow/target"
 	"polegap/solver"
 )
 
@@ -98,7 +98,7 @@ the cautions printed with the result apply.`,
 			if *coilName != "" {
 				c, _ = m.Coil(*coilName)
 			}
-			w, err := prepare.CoilWinding(m, c)
+			w, err := study.CoilWinding(m, c)
 			if err != nil {
 				return err
 			}

@@ -8,10 +8,10 @@ import (
 
 	"polegap/internal/fileout"
 	"polegap/models"
-	"polegap/post/adapt"
-	"polegap/post/export"
+	"polegap/post/workflow/adapt"
 
-	"polegap/post/report"
+	"polegap/post/output/report"
+	"polegap/post/output/vtu"
 	"polegap/post/study"
 	"polegap/solver"
 )
@@ -51,7 +51,7 @@ with status 1; no result is reported for it.`,
 		accuracy := fs.Float64("accuracy", 0, "refine the mesh adaptively until the probe field changes by less than this between rounds (e.g. 1e-4)")
 		refineBy := fs.String("refine-by", "goal", "with --accuracy: goal (weighted by the probe's dual solution) or energy (the field's own error)")
 		vw := fs.Bool("virtual-work", false, "also compute the forces on the model's parts by virtual work (more solves)")
-		vtu := fs.String("vtu", "", "write the solution (A, B, |B|, H, μr, region) to this VTK .vtu file")
+		vtuPath := fs.String("vtu", "", "write the solution (A, B, |B|, H, μr, region) to this VTK .vtu file")
 		return func(env *Env, args []string) error {
 			if err := oneModel(args); err != nil {
 				return err
@@ -94,8 +94,8 @@ with status 1; no result is reported for it.`,
 				return err
 			}
 			r := report.New(s, dopt)
-			if *vtu != "" {
-				if err := fileout.Write(*vtu, func(w io.Writer) error { return export.WriteVTU(w, s.Solution, export.Options{}) }); err != nil {
+			if *vtuPath != "" {
+				if err := fileout.Write(*vtuPath, func(w io.Writer) error { return vtu.WriteVTU(w, s.Solution, vtu.Options{}) }); err != nil {
 					return err
 				}
 			}

@@ -16,8 +16,8 @@ import (
 
 	"polegap/internal/fileout"
 	"polegap/models"
-	"polegap/post/plot"
-	"polegap/post/sweep"
+	"polegap/post/output/plot"
+	"polegap/post/workflow/sweep"
 	"polegap/solver"
 )
 

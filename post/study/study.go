@@ -5,8 +5,7 @@ import (
 
 	"polegap/mesh"
 	"polegap/models"
-	"polegap/post/prepare"
-	"polegap/post/probes"
+	"polegap/post/study/probes"
 	"polegap/solver"
 )
 
@@ -21,7 +20,7 @@ type Options struct {
 // Study is a solved model.
 type Study struct {
 	Model    *models.Model
-	Disc     *prepare.Discretization
+	Disc     *Discretization
 	Problem  *solver.Problem
 	Solution *solver.Solution
 	Probes   []probes.Result
@@ -41,7 +40,7 @@ type Study struct {
 // Run meshes, solves and probes m.
 func Run(m *models.Model, opt Options) (*Study, error) {
 	start := time.Now()
-	d, err := prepare.Discretize(m)
+	d, err := Discretize(m)
 	if err != nil {
 		return nil, err
 	}
@@ -55,7 +54,7 @@ func Run(m *models.Model, opt Options) (*Study, error) {
 // Solve (re)builds the problem from the model on the existing mesh, solves
 // it and evaluates the probes. Call it again after changing coil currents.
 func (s *Study) Solve(opt Options) error {
-	p, err := prepare.Problem(s.Disc)
+	p, err := Problem(s.Disc)
 	if err != nil {
 		return err
 	}

@@ -1,0 +1,26 @@
+package gap
+
+import (
+	gplot "gonum.org/v1/plot"
+
+	"polegap/post/output/plot"
+)
+
+// ProfileFigure returns the plot of a line profile: Bx, By and |B| against
+// the distance along the line (mm). Samples outside the mesh are left out.
+func ProfileFigure(title string, ss []Sample) (*gplot.Plot, error) {
+	var s, bx, by, b []float64
+	for _, v := range ss {
+		if !v.Inside {
+			continue
+		}
+		s = append(s, v.S*1e3)
+		bx = append(bx, v.Bx)
+		by = append(by, v.By)
+		b = append(b, v.B())
+	}
+	return plot.LineFigure(title, "distance along the line (mm)", "flux density (T)",
+		plot.Series{Name: "|B|", X: s, Y: b},
+		plot.Series{Name: "By", X: s, Y: by, Dashed: true},
+		plot.Series{Name: "Bx", X: s, Y: bx, Dashed: true})
+}

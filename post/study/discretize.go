@@ -1,0 +1,238 @@
+package study
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"polegap/mesh"
+	"polegap/models"
+	"polegap/post/output/plot"
+)
+
+// Discretization is a model with its mesh.
+type Discretization struct {
+	Model    *models.Model
+	Boundary mesh.Polygon
+	Input    *mesh.Input
+	Options  mesh.Options
+	Mesh     *mesh.Mesh
+	// Kelvin is the exterior disk of an open boundary, nil otherwise. Its
+	// triangles in Mesh carry KelvinTag(model).
+	Kelvin *mesh.KelvinExterior
+}
+
+// KelvinTag returns the region tag of the exterior disk of an open boundary.
+func KelvinTag(m *models.Model) int32 { return int32(len(m.Regions) + 1) }
+
+// Open reports whether the model asks for an open (far-field) boundary.
+func Open(m *models.Model) bool { return m.Boundary.Condition == "open" }
+
+// RegionName returns the model name of a region tag ("air" for AirTag).
+func (d *Discretization) RegionName(tag int32) string {
+	if tag == AirTag {
+		return "air"
+	}
+	if int(tag) > len(d.Model.Regions) {
+		return "air (exterior, Kelvin)"
+	}
+	return d.Model.Regions[tag-1].Name
+}
+
+// FarSizeDivisor sets the element size far out in the air: the model's
+// largest dimension divided by this.
+const FarSizeDivisor = 6
+
+// SizeField returns the mesher's size field for the model: the global size,
+// each region's mesh-size and the refine entries (near a region's edges, a
+// probe, a point or a line).
+func SizeField(m *models.Model) mesh.SizeField {
+	xmin, ymin, xmax, ymax := m.Extent()
+	far := math.Max(xmax-xmin, ymax-ymin) / FarSizeDivisor
+	f := mesh.SizeField{Global: math.Max(far, m.Mesh.Size), Grading: m.Mesh.Grading, Region: map[int32]float64{}}
+	addPolygon := func(x, y []float64, size float64) {
+		for i := range x {
+			j := (i + 1) % len(x)
+			f.Lines = append(f.Lines, mesh.SizeLine{X0: x[i], Y0: y[i], X1: x[j], Y1: y[j], Size: size})
+		}
+	}
+	addProbe := func(p *models.Probe, size float64) {
+		switch p.Kind {
+		case models.ProbePoint:
+			f.Points = append(f.Points, mesh.SizePoint{X: p.Point[0], Y: p.Point[1], Size: size})
+		case models.ProbeLine:
+			f.Lines = append(f.Lines, mesh.SizeLine{X0: p.Line[0][0], Y0: p.Line[0][1], X1: p.Line[1][0], Y1: p.Line[1][1], Size: size})
+		case models.ProbeBox:
+			b := p.Box
+			addPolygon([]float64{b[0][0], b[1][0], b[1][0], b[0][0]}, []float64{b[0][1], b[0][1], b[1][1], b[1][1]}, size)
+			// and its two centre lines, so the inside is covered too
+			xm, ym := 0.5*(b[0][0]+b[1][0]), 0.5*(b[0][1]+b[1][1])
+			f.Lines = append(f.Lines, mesh.SizeLine{X0: b[0][0], Y0: ym, X1: b[1][0], Y1: ym, Size: size},
+				mesh.SizeLine{X0: xm, Y0: b[0][1], X1: xm, Y1: b[1][1], Size: size})
+		case models.ProbeCircle:
+			const n = 16
+			x, y := make([]float64, n), make([]float64, n)
+			for k := range x {
+				a := 2 * math.Pi * float64(k) / n
+				x[k], y[k] = p.Centre[0]+p.Radius*math.Cos(a), p.Centre[1]+p.Radius*math.Sin(a)
+			}
+			addPolygon(x, y, size)
+		}
+	}
+	// The global size holds in every region and along every region edge;
+	// the air grows from there towards the far-field size.
+	for i, r := range m.Regions {
+		s := m.Mesh.Size
+		if r.MeshSize > 0 && (s <= 0 || r.MeshSize < s) {
+			s = r.MeshSize
+		}
+		if s > 0 {
+			f.Region[Tag(i)] = s
+			addPolygon(r.X, r.Y, s)
+		}
+	}
+	// Probes get the global size too: they are where the answers are read.
+	if m.Mesh.Size > 0 {
+		for i := range m.Probes {
+			addProbe(&m.Probes[i], m.Mesh.Size)
+		}
+	}
+	for _, rf := range m.Mesh.Refine {
+		switch {
+		case rf.Point != nil:
+			f.Points = append(f.Points, mesh.SizePoint{X: rf.Point[0], Y: rf.Point[1], Size: rf.Size})
+		case rf.Line != nil:
+			f.Lines = append(f.Lines, mesh.SizeLine{X0: rf.Line[0][0], Y0: rf.Line[0][1], X1: rf.Line[1][0], Y1: rf.Line[1][1], Size: rf.Size})
+		case rf.Near != "":
+			if r, ok := m.Region(rf.Near); ok {
+				addPolygon(r.X, r.Y, rf.Size)
+				continue
+			}
+			if p, ok := m.Probe(rf.Near); ok {
+				addProbe(p, rf.Size)
+			}
+		}
+	}
+	return f
+}
+
+// MeshOptions returns the mesher options of the model.
+func MeshOptions(m *models.Model) mesh.Options {
+	return mesh.Options{
+		MinAngle: m.Mesh.MinAngleDegrees(),
+		Size:     SizeField(m),
+		Order:    m.Mesh.Order,
+	}
+}
+
+// Discretize builds the model's straight-line graph and meshes it.
+func Discretize(m *models.Model) (*Discretization, error) {
+	return DiscretizeSized(m, nil)
+}
+
+// DiscretizeSized is Discretize with one more size limit (metres, at a
+// point of a region; see mesh.SizeField.Func), as adaptive refinement
+// derives from an error estimate on a previous mesh. nil adds none.
+func DiscretizeSized(m *models.Model, size func(x, y float64, region int32) float64) (*Discretization, error) {
+	d := &Discretization{Model: m, Options: MeshOptions(m)}
+	d.Options.Size.Func = size
+	if _, err := CheckFootprint(m, d.Options, Limits{}); err != nil {
+		return nil, err
+	}
+	var err error
+	if d.Boundary, err = Boundary(m); err != nil {
+		return nil, err
+	}
+	if err := CheckProbes(m, d.Boundary); err != nil {
+		return nil, err
+	}
+	gopt := mesh.GraphOptions{ChordTol: m.Mesh.Chord}
+	d.Input, err = mesh.BuildInput(Polygons(m), d.Boundary, gopt)
+	if err != nil {
+		return nil, d.locate(err)
+	}
+	if Open(m) {
+		return d, d.openBoundary()
+	}
+	d.Mesh, err = mesh.Triangulate(d.Input, d.Options)
+	if err != nil {
+		return nil, fmt.Errorf("%s: meshing: %w", m.File, err)
+	}
+	return d, nil
+}
+
+// openBoundary meshes the model to first order, appends the Kelvin
+// transformation's exterior disk and elevates both together.
+func (d *Discretization) openBoundary() error {
+	m := d.Model
+	if m.Boundary.Shape != "circle" || m.Geometry != models.Planar {
+		return m.Errorf(m.Boundary.Pos, "the open boundary needs shape: circle in a planar model; for an axisymmetric model use zero-potential with a margin of 3 or more")
+	}
+	opt := d.Options
+	opt.Order = 1
+	inner, err := mesh.Triangulate(d.Input, opt)
+	if err != nil {
+		return fmt.Errorf("%s: meshing: %w", m.File, err)
+	}
+	cx, cy, r := circle(m)
+	k, err := mesh.AddKelvinDisk(inner, MarkerCircle, cx, cy, r, KelvinTag(m))
+	if err != nil {
+		return fmt.Errorf("%s: open boundary: %w", m.File, err)
+	}
+	if d.Options.Order == 2 {
+		k.ElevateKelvin()
+	}
+	d.Kelvin, d.Mesh = k, k.Mesh
+	return nil
+}
+
+// locate turns a mesher error that names a polygon into an error at that
+// region's place in the model file.
+func (d *Discretization) locate(err error) error {
+	var ge *mesh.GraphError
+	if errors.As(err, &ge) && ge.Polygon >= 0 && ge.Polygon < len(d.Model.Regions) {
+		r := &d.Model.Regions[ge.Polygon]
+		msg := ge.Reason
+		if ge.Other >= 0 && ge.Other < len(d.Model.Regions) {
+			msg += fmt.Sprintf(" (with region %q)", d.Model.Regions[ge.Other].Name)
+		}
+		if ge.HasAt {
+			msg += fmt.Sprintf(" near (%g, %g) m", ge.X, ge.Y)
+		}
+		return d.Model.Errorf(r.Pos, "region %q: %s; check its polygon", r.Name, msg)
+	}
+	return fmt.Errorf("%s: building the geometry: %w", d.Model.File, err)
+}
+
+// RegionKind classifies a region tag for figures: air, iron, coil, magnet
+// or other (a linear non-magnetic part such as brass or a spacer).
+func (d *Discretization) RegionKind(tag int32) int {
+	if tag == AirTag || int(tag) > len(d.Model.Regions) {
+		return plot.KindAir
+	}
+	r := &d.Model.Regions[tag-1]
+	for _, c := range d.Model.Coils {
+		for _, s := range c.Sides {
+			if s.Region == r.Name {
+				return plot.KindCoil
+			}
+		}
+	}
+	switch r.Material {
+	case "air", "vacuum":
+		return plot.KindAir
+	case "copper", "aluminium", "aluminum":
+		return plot.KindCoil
+	}
+	mat, ok := d.Model.Material(r.Material)
+	if !ok {
+		return plot.KindIron // a built-in curve named directly
+	}
+	switch {
+	case mat.Magnet != nil:
+		return plot.KindMagnet
+	case mat.Curve != "" || len(mat.Table) > 0 || mat.TableFile != "" || mat.MuR > 1.5:
+		return plot.KindIron
+	}
+	return plot.KindOther
+}

@@ -1,0 +1,124 @@
+package compare
+
+import (
+	"context"
+	"fmt"
+	"math"
+	"sort"
+
+	"polegap/models"
+	"polegap/post/measure"
+	"polegap/post/workflow/sweep"
+	"polegap/solver"
+)
+
+// Options control a comparison.
+type Options struct {
+	Coil, Probe string
+	// TurnsArea (turns × m²) converts the probe's field to the flux
+	// linkage of a search-coil curve; required for such curves.
+	TurnsArea float64
+	Solver    solver.Options
+	// Progress, when set, is told of each solve.
+	Progress func(stage string, done, total int)
+
+	material func(tag int32, m solver.Material) solver.Material
+}
+
+// Residual is one measured point against the prediction.
+type Residual struct {
+	Current   float64 `json:"current_A"`
+	Measured  float64 `json:"measured"`
+	Sigma     float64 `json:"sigma"`
+	Predicted float64 `json:"predicted"`
+	Abs       float64 `json:"residual"`      // measured − predicted
+	Rel       float64 `json:"relative"`      // Abs / predicted
+	Row       int     `json:"row,omitempty"` // line in the measured file
+}
+
+// Result is a comparison.
+type Result struct {
+	Kind      string     `json:"kind"` // "field" (T) or "flux-linkage" (Wb-turns)
+	Unit      string     `json:"unit"`
+	Residuals []Residual `json:"residuals"`
+	RMS       float64    `json:"rms"`
+	Max       float64    `json:"max_abs"`
+	RMSRel    float64    `json:"rms_relative"`
+	MaxRel    float64    `json:"max_abs_relative"`
+	// ChiSquare is Σ (residual/σ)² over the points with a stated σ, and
+	// Weighted the number of such points.
+	ChiSquare float64 `json:"chi_square,omitempty"`
+	Weighted  int     `json:"weighted_points,omitempty"`
+}
+
+// Predict solves m at the given coil currents and returns the probe's
+// field at each, in the order given.
+func Predict(ctx context.Context, m *models.Model, currents []float64, opt Options) ([]float64, error) {
+	order := make([]int, len(currents))
+	for i := range order {
+		order[i] = i
+	}
+	sort.Slice(order, func(a, b int) bool { return currents[order[a]] < currents[order[b]] })
+	sorted := make([]float64, len(currents))
+	for k, i := range order {
+		sorted[k] = currents[i]
+	}
+	so := sweep.Options{Currents: sorted, Coil: opt.Coil, Probe: opt.Probe, Solver: opt.Solver, Material: opt.material}
+	if opt.Progress != nil {
+		so.Progress = func(done, total int, _ sweep.Point) { opt.Progress("solving", done, total) }
+	}
+	pts, err := sweep.Run(ctx, m, so)
+	if err != nil {
+		return nil, err
+	}
+	out := make([]float64, len(currents))
+	for k, i := range order {
+		out[i] = pts[k].Field
+	}
+	return out, nil
+}
+
+// Compare sets the measured curve against the model's prediction.
+func Compare(ctx context.Context, m *models.Model, c *measure.Curve, opt Options) (*Result, error) {
+	if err := c.Check(); err != nil {
+		return nil, err
+	}
+	if c.Kind == measure.FluxLinkage && !(opt.TurnsArea > 0) {
+		return nil, fmt.Errorf("%s holds search-coil flux linkages: give the coil's turns-area product (turns × m²) to compare them", c.Name)
+	}
+	pred, err := Predict(ctx, m, c.Currents(), opt)
+	if err != nil {
+		return nil, err
+	}
+	return residuals(c, pred, opt.TurnsArea), nil
+}
+
+func residuals(c *measure.Curve, field []float64, turnsArea float64) *Result {
+	meas, sig := c.Values()
+	r := &Result{Kind: c.Kind.String(), Unit: "T"}
+	scale := 1.0
+	if c.Kind == measure.FluxLinkage {
+		r.Unit, scale = "Wb-turns", turnsArea
+	}
+	var ss, ssr float64
+	for i, p := range c.Points {
+		pr := field[i] * scale
+		d := meas[i] - pr
+		rel := 0.0
+		if pr != 0 {
+			rel = d / pr
+		}
+		r.Residuals = append(r.Residuals, Residual{Current: p.Current, Measured: meas[i], Sigma: sig[i], Predicted: pr, Abs: d, Rel: rel, Row: p.Row})
+		ss += d * d
+		ssr += rel * rel
+		r.Max = math.Max(r.Max, math.Abs(d))
+		r.MaxRel = math.Max(r.MaxRel, math.Abs(rel))
+		if sig[i] > 0 {
+			r.ChiSquare += (d / sig[i]) * (d / sig[i])
+			r.Weighted++
+		}
+	}
+	n := float64(len(c.Points))
+	r.RMS, r.RMSRel = math.Sqrt(ss/n), math.Sqrt(ssr/n)
+	return r
+}

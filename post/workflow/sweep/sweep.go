@@ -1,0 +1,409 @@
+package sweep
+
+import (
+	"context"
+	"fmt"
+	"math"
+
+	"polegap/models"
+	"polegap/post/quantity/circuit"
+	"polegap/post/study"
+	"polegap/post/study/probes"
+	"polegap/solver"
+)
+
+// Point is one solved point of an excitation curve.
+type Point struct {
+	Index       int     // position in the full list of currents (0-based)
+	Current     float64 // A, of the swept coil
+	AmpereTurns float64 // turns × current of the swept coil
+	Field       float64 // T: |B| at a point probe, or the mean |B| over a line, box or circle probe
+	Efficiency  float64 // B g / (μ0 NI) when the gap length is known, else 0
+	MaxIronB    float64 // T, largest element |B| in nonlinear iron (mesh-dependent at re-entrant corners)
+	Energy      float64 // J, stored magnetic energy (planar: times depth)
+	Linkage     float64 // Wb, flux linkage of the swept coil
+	Apparent    float64 // H, apparent inductance λ/I of the swept coil
+	Incremental float64 // H, dλ/dI from the neighbouring points (0 with fewer than 2 points)
+	Iterations  int     // Newton steps
+	Residual    float64 // final relative residual
+}
+
+// Options control a sweep.
+type Options struct {
+	// Currents of the swept coil, in the order they are solved.
+	Currents []float64
+	// Coil names the swept coil; empty means the first coil.
+	Coil string
+	// Probe names the probe whose field is reported; empty means the
+	// model's target probe, or else its first probe.
+	Probe string
+	// GapLength (m) gives the ideal-line reference and the efficiency;
+	// 0 leaves the efficiency out.
+	GapLength float64
+	// Shard, Shards select every Shards-th point starting at Shard
+	// (1-based); zero values run all points.
+	Shard, Shards int
+	// Progress, when set, is called after each point.
+	Progress func(done, total int, p Point)
+	// Solver options for each solve (Initial is managed by the sweep).
+	Solver solver.Options
+	// Material, when set, replaces region materials (see study.Options).
+	Material func(tag int32, m solver.Material) solver.Material
+}
+
+// Range returns n currents evenly spaced from lo to hi inclusive.
+func Range(lo, hi float64, n int) []float64 {
+	if n < 2 {
+		return []float64{hi}
+	}
+	out := make([]float64, n)
+	for i := range out {
+		out[i] = lo + (hi-lo)*float64(i)/float64(n-1)
+	}
+	return out
+}
+
+// InterruptedError reports a sweep stopped by its context; the points
+// finished before it are returned beside it.
+type InterruptedError struct {
+	Done, Total int
+	Err         error
+}
+
+func (e *InterruptedError) Error() string {
+	return fmt.Sprintf("sweep interrupted after %d of %d points: %v", e.Done, e.Total, e.Err)
+}
+
+func (e *InterruptedError) Unwrap() error { return e.Err }
+
+// PointError reports the point at which a sweep failed.
+type PointError struct {
+	Index   int
+	Current float64
+	Err     error
+}
+
+func (e *PointError) Error() string {
+	return fmt.Sprintf("sweep point %d (coil current %g A): %v", e.Index+1, e.Current, e.Err)
+}
+
+func (e *PointError) Unwrap() error { return e.Err }
+
+// Runner solves points of one model on one mesh, warm-starting each solve
+// from the last.
+// solved is a past point of the runner: coil current and potential.
+type solved struct {
+	i float64
+	a []float64
+}
+
+type Runner struct {
+	Model *models.Model
+	Study *study.Study // the model meshed (and solved at its own currents)
+	coil  int
+	base  []float64 // the model's own coil currents
+	probe string
+	// The last solved points (current and potential), newest first, at
+	// most three, for the predictor of the next warm start.
+	recent []solved
+
+	baseField float64
+	material  func(tag int32, m solver.Material) solver.Material
+}
+
+// NewRunner meshes the model and prepares to solve it at other currents.
+func NewRunner(ctx context.Context, m *models.Model, coil, probe string, opt solver.Options) (*Runner, error) {
+	return NewRunnerWith(ctx, m, coil, probe, opt, nil)
+}
+
+// NewRunnerWith is NewRunner with a material replacement applied to every
+// solve (see study.Options.Material); nil means none.
+func NewRunnerWith(ctx context.Context, m *models.Model, coil, probe string, opt solver.Options, material func(tag int32, m solver.Material) solver.Material) (*Runner, error) {
+	r, err := newRunner(m, coil, probe, material)
+	if err != nil {
+		return nil, err
+	}
+	s, err := study.Run(m, study.Options{Solver: opt, Material: material})
+	if err != nil {
+		return nil, err
+	}
+	r.start(s)
+	return r, nil
+}
+
+// NewRunnerFrom prepares to solve a solved study's model at other
+// currents on the study's mesh, starting from its solution (which must be
+// at the model's own currents, solved with the same material
+// replacement). The study itself is left as it is: the runner solves on a
+// fork of it (study.Study.Fork).
+func NewRunnerFrom(s *study.Study, coil, probe string, material func(tag int32, m solver.Material) solver.Material) (*Runner, error) {
+	r, err := newRunner(s.Model, coil, probe, material)
+	if err != nil {
+		return nil, err
+	}
+	r.start(s.Fork())
+	return r, nil
+}
+
+// newRunner checks the coil and probe names and makes the runner.
+func newRunner(m *models.Model, coil, probe string, material func(tag int32, m solver.Material) solver.Material) (*Runner, error) {
+	if len(m.Coils) == 0 {
+		return nil, fmt.Errorf("%s: the model has no coil to sweep", m.File)
+	}
+	ci := 0
+	if coil != "" {
+		ci = -1
+		for i := range m.Coils {
+			if m.Coils[i].Name == coil {
+				ci = i
+			}
+		}
+		if ci < 0 {
+			return nil, fmt.Errorf("%s: no coil named %q", m.File, coil)
+		}
+	}
+	if probe == "" {
+		probe = m.MainProbe()
+	}
+	if probe == "" {
+		return nil, fmt.Errorf("%s: the model has no probe to read the field at; add one under probes", m.File)
+	}
+	if _, ok := m.Probe(probe); !ok {
+		return nil, fmt.Errorf("%s: no probe named %q", m.File, probe)
+	}
+	r := &Runner{Model: m, coil: ci, probe: probe, material: material}
+	for _, c := range m.Coils {
+		r.base = append(r.base, c.Current)
+	}
+	return r, nil
+}
+
+// start takes s, solved at the model's own currents, as the first point.
+func (r *Runner) start(s *study.Study) {
+	r.Study = s
+	r.recent = []solved{{r.base[r.coil], s.Solution.A}}
+	if res, ok := s.Probe(r.probe); ok {
+		r.baseField = fieldOf(res)
+	}
+}
+
+// predict returns the warm start for a solve at current: the polynomial
+// extrapolation through the last solutions (quadratic through three,
+// else the secant through two) when the step continues in the same
+// direction and is no longer than twice the last one — an Euler–secant
+// predictor for a path of nonlinear solutions (E. L. Allgower and
+// K. Georg, Introduction to Numerical Continuation Methods, SIAM 2003,
+// §2.2) — else the last solution scaled by the ratio of the currents
+// (exact for linear iron). On the 30k-node benchmark C-core the 20-point
+// curve from a tenth to twice the model's current takes 69 Newton steps,
+// against 73 with the secant predictor and the last solution unscaled
+// (its first point, a tenth of the current of the runner's solution, 4
+// steps instead of 9).
+func (r *Runner) predict(current float64) []float64 {
+	last := r.recent[0]
+	d1 := current - last.i
+	pts := []solved{last}
+	for _, h := range r.recent[1:] {
+		p := pts[len(pts)-1]
+		d0 := p.i - h.i
+		// Keep earlier points only along one direction, without long gaps.
+		if d0 == 0 || d1*d0 <= 0 || math.Abs(d1) > 2*math.Abs(d0) || len(pts) == 3 {
+			break
+		}
+		pts = append(pts, h)
+	}
+	out := make([]float64, len(last.a))
+	if len(pts) == 1 {
+		k := 1.0
+		if last.i != 0 && current/last.i > 0 {
+			k = current / last.i
+		}
+		for i := range out {
+			out[i] = k * last.a[i]
+		}
+		return out
+	}
+	// Lagrange weights of the points at the new current.
+	w := make([]float64, len(pts))
+	for j := range pts {
+		w[j] = 1
+		for m := range pts {
+			if m != j {
+				w[j] *= (current - pts[m].i) / (pts[j].i - pts[m].i)
+			}
+		}
+	}
+	for i := range out {
+		v := 0.0
+		for j, p := range pts {
+			v += w[j] * p.a[i]
+		}
+		out[i] = v
+	}
+	return out
+}
+
+// Turns returns the turns of the swept coil.
+func (r *Runner) Turns() float64 { return r.Model.Coils[r.coil].Turns }
+
+// BaseCurrent returns the swept coil's current in the model file.
+func (r *Runner) BaseCurrent() float64 { return r.base[r.coil] }
+
+// BaseField returns the probe's field at the model's own currents (the
+// solve NewRunner made).
+func (r *Runner) BaseField() float64 { return r.baseField }
+
+// ProbeName returns the probe whose field the runner reports.
+func (r *Runner) ProbeName() string { return r.probe }
+
+// Solve solves the model with the swept coil at current (the other coils
+// scaled in proportion) and returns the point. The model's currents are
+// restored afterwards.
+func (r *Runner) Solve(current float64, opt solver.Options) (Point, error) {
+	m := r.Model
+	ref := r.base[r.coil]
+	for i := range m.Coils {
+		switch {
+		case i == r.coil:
+			m.Coils[i].Current = current
+		case ref != 0:
+			m.Coils[i].Current = r.base[i] * current / ref
+		}
+	}
+	defer func() {
+		for i := range m.Coils {
+			m.Coils[i].Current = r.base[i]
+		}
+	}()
+	opt.Initial = r.predict(current)
+	if err := r.Study.Solve(study.Options{Solver: opt, Material: r.material}); err != nil {
+		return Point{}, err
+	}
+	sol := r.Study.Solution
+	r.recent = append([]solved{{current, sol.A}}, r.recent[:min(len(r.recent), 2)]...)
+	res, _ := r.Study.Probe(r.probe)
+	p := Point{
+		Current:     current,
+		AmpereTurns: m.Coils[r.coil].Turns * current,
+		Field:       fieldOf(res),
+		MaxIronB:    maxIronB(r.Study),
+		Energy:      sol.Energy(),
+		Iterations:  sol.Iterations,
+		Residual:    sol.Residual,
+	}
+	if m.Geometry == models.Planar {
+		p.Energy *= m.Depth
+	}
+	cs := circuit.CoilsOf(m)
+	lam, err := circuit.Linkage(sol, &cs[r.coil])
+	if err != nil {
+		return Point{}, err
+	}
+	p.Linkage = lam
+	if current != 0 {
+		p.Apparent = circuit.Apparent(lam, current)
+	}
+	return p, nil
+}
+
+// fieldOf is the field a probe reports: |B| at a point, mean |B| otherwise.
+func fieldOf(r probes.Result) float64 {
+	if r.Kind == models.ProbePoint {
+		return r.Point.B()
+	}
+	return r.Stats.Mean
+}
+
+// maxIronB is the largest element |B| in regions whose material is
+// nonlinear (dν/d(B²) != 0 somewhere), a quick saturation indicator.
+func maxIronB(s *study.Study) float64 {
+	b := s.ElementB()
+	mats := s.Problem.Materials
+	nonlinear := make([]bool, len(mats))
+	for i, m := range mats {
+		if m == nil {
+			continue
+		}
+		_, d1 := m.Nu(1)
+		_, d2 := m.Nu(4)
+		nonlinear[i] = d1 != 0 || d2 != 0
+	}
+	mx := 0.0
+	for t, reg := range s.Disc.Mesh.Region {
+		if int(reg) < len(nonlinear) && nonlinear[reg] {
+			mx = math.Max(mx, math.Hypot(b[t][0], b[t][1]))
+		}
+	}
+	return mx
+}
+
+// Run meshes the model and solves the selected points in order. On a
+// cancelled context it returns the finished points and an
+// *InterruptedError; on a failed solve, the finished points and a
+// *PointError.
+func Run(ctx context.Context, m *models.Model, opt Options) ([]Point, error) {
+	r, err := NewRunnerWith(ctx, m, opt.Coil, opt.Probe, opt.Solver, opt.Material)
+	if err != nil {
+		return nil, err
+	}
+	return r.Sweep(ctx, opt)
+}
+
+// Sweep solves the selected points of opt.Currents in order with the
+// runner's coil, probe and material (opt.Coil, opt.Probe and
+// opt.Material are not used), each warm-started from the last; errors
+// as Run.
+func (r *Runner) Sweep(ctx context.Context, opt Options) ([]Point, error) {
+	idx := Select(len(opt.Currents), opt.Shard, opt.Shards)
+	pts := make([]Point, 0, len(idx))
+	for n, i := range idx {
+		if err := ctx.Err(); err != nil {
+			return pts, &InterruptedError{Done: n, Total: len(idx), Err: err}
+		}
+		p, err := r.Solve(opt.Currents[i], opt.Solver)
+		if err != nil {
+			return pts, &PointError{Index: i, Current: opt.Currents[i], Err: err}
+		}
+		p.Index = i
+		if opt.GapLength > 0 && p.AmpereTurns != 0 {
+			p.Efficiency = p.Field * opt.GapLength / (mu0 * math.Abs(p.AmpereTurns))
+		}
+		pts = append(pts, p)
+		if opt.Progress != nil {
+			opt.Progress(n+1, len(idx), p)
+		}
+	}
+	Differentiate(pts)
+	return pts, nil
+}
+
+// Differentiate fills each point's incremental inductance dλ/dI from its
+// neighbours in list order (a sweep runs its currents in order): central differences inside, one-sided at
+// the ends (second-order accurate on even steps, first order at the ends).
+func Differentiate(pts []Point) {
+	n := len(pts)
+	if n < 2 {
+		return
+	}
+	for i := range pts {
+		a, b := max(i-1, 0), min(i+1, n-1)
+		if di := pts[b].Current - pts[a].Current; di != 0 {
+			pts[i].Incremental = (pts[b].Linkage - pts[a].Linkage) / di
+		}
+	}
+}
+
+const mu0 = 4e-7 * math.Pi
+
+// Select returns the indices of the points of shard k of n (1-based k)
+// among total points: k-1, k-1+n, k-1+2n, ... With n = 0 it returns all.
+func Select(total, k, n int) []int {
+	var out []int
+	if n <= 0 {
+		k, n = 1, 1
+	}
+	for i := k - 1; i < total; i += n {
+		out = append(out, i)
+	}
+	return out
+}
