@@ -77,7 +77,7 @@ with status 1; no result is reported for it.`,
 			default:
 				return usagef("--refine-by is goal or energy, not %q", *refineBy)
 			}
-			var s *study.Study
+			var s *study.Result
 			if *accuracy > 0 {
 				res, err := adapt.Run(context.Background(), m, adapt.Options{Accuracy: *accuracy, Marking: marking, Study: study.Options{Solver: solver.Options{Tol: *tol, MaxIter: *maxIter}},
 					Progress: func(r adapt.Round) {

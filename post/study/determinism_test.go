@@ -13,7 +13,7 @@ import (
 
 // run solves an embedded example with the given GOMAXPROCS, assembly
 // workers and Cholesky workers (0: GOMAXPROCS) and restores GOMAXPROCS.
-func run(t *testing.T, name string, procs, workers, factorWorkers int) *study.Study {
+func run(t *testing.T, name string, procs, workers, factorWorkers int) *study.Result {
 	t.Helper()
 	old := runtime.GOMAXPROCS(procs)
 	defer runtime.GOMAXPROCS(old)
@@ -34,7 +34,7 @@ func run(t *testing.T, name string, procs, workers, factorWorkers int) *study.St
 
 // diff compares two runs: whether mesh, residual history and potential are
 // bit-identical, and the largest difference of A relative to max |A|.
-func diff(a, b *study.Study) (meshSame, histSame bool, rel float64) {
+func diff(a, b *study.Result) (meshSame, histSame bool, rel float64) {
 	ma, mb := a.Disc.Mesh, b.Disc.Mesh
 	meshSame = len(ma.X) == len(mb.X) && len(ma.Tri) == len(mb.Tri)
 	for i := 0; meshSame && i < len(ma.X); i++ {

@@ -20,6 +20,10 @@ type Discretization struct {
 	// Kelvin is the exterior disk of an open boundary, nil otherwise. Its
 	// triangles in Mesh carry KelvinTag(model).
 	Kelvin *mesh.KelvinExterior
+
+	// outer is the model whose extent places the outer boundary: Model
+	// itself, or the unmoved model when parts are moved (Study.Moved).
+	outer *models.Model
 }
 
 // KelvinTag returns the region tag of the exterior disk of an open boundary.
@@ -134,16 +138,23 @@ func Discretize(m *models.Model) (*Discretization, error) {
 // point of a region; see mesh.SizeField.Func), as adaptive refinement
 // derives from an error estimate on a previous mesh. nil adds none.
 func DiscretizeSized(m *models.Model, size func(x, y float64, region int32) float64) (*Discretization, error) {
-	d := &Discretization{Model: m, Options: MeshOptions(m)}
+	return discretize(m, m, size)
+}
+
+// discretize meshes m inside the outer boundary that outer's extent
+// places (outer is m itself except for moved parts, whose boundary must
+// not move with them).
+func discretize(m, outer *models.Model, size func(x, y float64, region int32) float64) (*Discretization, error) {
+	d := &Discretization{Model: m, Options: MeshOptions(m), outer: outer}
 	d.Options.Size.Func = size
 	if _, err := CheckFootprint(m, d.Options, Limits{}); err != nil {
 		return nil, err
 	}
 	var err error
-	if d.Boundary, err = Boundary(m); err != nil {
+	if d.Boundary, err = Boundary(outer); err != nil {
 		return nil, err
 	}
-	if err := CheckProbes(m, d.Boundary); err != nil {
+	if err := checkProbes(m, outer, d.Boundary); err != nil {
 		return nil, err
 	}
 	gopt := mesh.GraphOptions{ChordTol: m.Mesh.Chord}
@@ -174,7 +185,7 @@ func (d *Discretization) openBoundary() error {
 	if err != nil {
 		return fmt.Errorf("%s: meshing: %w", m.File, err)
 	}
-	cx, cy, r := circle(m)
+	cx, cy, r := circle(d.outer)
 	k, err := mesh.AddKelvinDisk(inner, MarkerCircle, cx, cy, r, KelvinTag(m))
 	if err != nil {
 		return fmt.Errorf("%s: open boundary: %w", m.File, err)

@@ -112,7 +112,12 @@ func circle(m *models.Model) (cx, cy, r float64) {
 // the outer boundary (where no field is computed): a probe beyond a
 // symmetry side, or one the margin does not reach.
 func CheckProbes(m *models.Model, b mesh.Polygon) error {
-	inside := insideBoundary(m, b)
+	return checkProbes(m, m, b)
+}
+
+// checkProbes is CheckProbes inside the boundary b of the model outer.
+func checkProbes(m, outer *models.Model, b mesh.Polygon) error {
+	inside := insideBoundary(outer, b)
 	for i := range m.Probes {
 		p := &m.Probes[i]
 		var pts [][2]float64

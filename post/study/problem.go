@@ -94,41 +94,43 @@ var Conditions = map[string]solver.Condition{
 	"flux-normal":    solver.FluxNormal,
 }
 
-// Problem builds the finite-element problem of a meshed model: a material
-// and current density per region tag and a condition per boundary marker.
-// Coil current densities are the ampere-turns of each side over the side's
-// meshed area, so the total current is exact on the mesh.
-func Problem(d *Discretization) (*solver.Problem, error) {
-	m := d.Model
+// sources are a model's materials and coils resolved once: the material
+// and magnetisation of every region tag (B-H tables read and checked, CSV
+// files read, stacking applied) and the region tags of every coil side.
+// They depend on the model's regions, not on the mesh, so every variant
+// of a study (another gap, a moved part, a refined mesh) shares them.
+type sources struct {
+	materials []solver.Material // per region tag
+	magnet    [][2]float64      // per region tag; nil without magnets
+	sides     [][]coilSide      // per model coil
+}
+
+type coilSide struct {
+	tag   int32
+	sense float64
+	pos   models.Pos
+}
+
+// resolve resolves the materials and coil sides of m.
+func resolve(m *models.Model) (*sources, error) {
 	n := len(m.Regions) + 2 // air, the regions, the Kelvin disk
-	p := &solver.Problem{
-		Mesh:           d.Mesh,
-		Depth:          m.Depth,
-		Materials:      make([]solver.Material, n),
-		CurrentDensity: make([]float64, n),
-		Boundary:       map[int32]solver.Condition{},
-	}
-	if m.Geometry == models.Axisymmetric {
-		p.Formulation = solver.Axisymmetric
-	}
-	p.Materials[AirTag] = materials.Linear{MuR: 1}
-	p.Materials[KelvinTag(m)] = materials.Linear{MuR: 1}
-	var magnets [][2]float64
+	src := &sources{materials: make([]solver.Material, n)}
+	src.materials[AirTag] = materials.Linear{MuR: 1}
+	src.materials[KelvinTag(m)] = materials.Linear{MuR: 1}
 	for i := range m.Regions {
 		mat, mag, err := Material(m, &m.Regions[i])
 		if err != nil {
 			return nil, err
 		}
-		p.Materials[Tag(i)] = mat
+		src.materials[Tag(i)] = mat
 		if mag != [2]float64{} {
-			if magnets == nil {
-				magnets = make([][2]float64, n)
+			if src.magnet == nil {
+				src.magnet = make([][2]float64, n)
 			}
-			magnets[Tag(i)] = mag
+			src.magnet[Tag(i)] = mag
 		}
 	}
-	p.Magnetization = magnets
-	areas := d.Mesh.RegionAreas()
+	src.sides = make([][]coilSide, len(m.Coils))
 	for ci := range m.Coils {
 		c := &m.Coils[ci]
 		for _, s := range c.Sides {
@@ -136,12 +138,28 @@ func Problem(d *Discretization) (*solver.Problem, error) {
 			if idx < 0 {
 				return nil, m.Errorf(s.Pos, "coil %q: side region %q does not exist", c.Name, s.Region)
 			}
-			a := areas[Tag(idx)]
-			if !(a > 0) {
-				return nil, m.Errorf(s.Pos, "coil %q: side region %q has no area in the mesh", c.Name, s.Region)
-			}
-			p.CurrentDensity[Tag(idx)] += c.Turns * c.Current * s.Sense / a
+			src.sides[ci] = append(src.sides[ci], coilSide{tag: Tag(idx), sense: s.Sense, pos: s.Pos})
 		}
+	}
+	return src, nil
+}
+
+// newProblem builds the finite-element problem of a meshed model with its
+// sources: boundary conditions per edge marker, the magnetisation, and
+// material and current-density slices that fill sets for each solve.
+func newProblem(d *Discretization, src *sources) (*solver.Problem, error) {
+	m := d.Model
+	n := len(src.materials)
+	p := &solver.Problem{
+		Mesh:           d.Mesh,
+		Depth:          m.Depth,
+		Materials:      append([]solver.Material(nil), src.materials...),
+		CurrentDensity: make([]float64, n),
+		Magnetization:  src.magnet,
+		Boundary:       map[int32]solver.Condition{},
+	}
+	if m.Geometry == models.Axisymmetric {
+		p.Formulation = solver.Axisymmetric
 	}
 	if d.Kelvin != nil {
 		// The rim of the model and the rim of the exterior disk share
@@ -170,6 +188,70 @@ func Problem(d *Discretization) (*solver.Problem, error) {
 		// The axis carries A = 0 whatever the model says.
 		p.Boundary[MarkerLeft] = solver.ZeroPotential
 	}
+	return p, nil
+}
+
+// checkAreas reports a coil side without area in the mesh.
+func checkAreas(m *models.Model, src *sources, areas map[int32]float64) error {
+	for ci, sides := range src.sides {
+		for _, s := range sides {
+			if !(areas[s.tag] > 0) {
+				return m.Errorf(s.pos, "coil %q: side region %q has no area in the mesh", m.Coils[ci].Name, m.Regions[s.tag-1].Name)
+			}
+		}
+	}
+	return nil
+}
+
+// fill writes the values of a solve at params into p: every region's
+// material (nonlinear curves scaled by the iron factor) and the coil
+// current densities, each side's ampere-turns over its meshed area (so
+// the total current is exact on the mesh).
+func fill(p *solver.Problem, m *models.Model, src *sources, areas map[int32]float64, params Params) {
+	for tag, mat := range src.materials {
+		if c, ok := mat.(*materials.Curve); ok && params.IronScale != 0 && params.IronScale != 1 {
+			mat = scaledCurve{c, params.IronScale}
+		}
+		p.Materials[tag] = mat
+	}
+	clear(p.CurrentDensity)
+	for ci, sides := range src.sides {
+		turns, current := params.turns(m, ci), params.current(m, ci)
+		for _, s := range sides {
+			p.CurrentDensity[s.tag] += turns * current * s.sense / areas[s.tag]
+		}
+	}
+}
+
+// scaledCurve is an iron curve whose permeability is multiplied by s: the
+// reluctivity and its derivative divided by s.
+type scaledCurve struct {
+	c *materials.Curve
+	s float64
+}
+
+func (m scaledCurve) Nu(b2 float64) (nu, dnu float64) {
+	nu, dnu = m.c.Nu(b2)
+	return nu / m.s, dnu / m.s
+}
+
+// Problem builds the finite-element problem of a meshed model at the
+// model's own currents and materials (a one-off solve; a Study reuses
+// its problem across solves).
+func Problem(d *Discretization) (*solver.Problem, error) {
+	src, err := resolve(d.Model)
+	if err != nil {
+		return nil, err
+	}
+	areas := d.Mesh.RegionAreas()
+	if err := checkAreas(d.Model, src, areas); err != nil {
+		return nil, err
+	}
+	p, err := newProblem(d, src)
+	if err != nil {
+		return nil, err
+	}
+	fill(p, d.Model, src, areas, Params{})
 	return p, nil
 }
 

@@ -48,7 +48,7 @@ type Check struct {
 // requirements: saturation of each iron region (largest |B| away from
 // re-entrant corners), the target field at its probe, and the good-field
 // half-width when asked.
-func NewCheck(s *study.Study, d *Design, opt CheckOptions) *Check {
+func NewCheck(s *study.Result, d *Design, opt CheckOptions) *Check {
 	c := &Check{Model: s.Model.Name, Fringing: d.Fringing, Pass: true}
 	add := func(it CheckItem) {
 		c.Items = append(c.Items, it)

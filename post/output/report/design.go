@@ -13,6 +13,7 @@ import (
 	"polegap/post/quantity/gap"
 	"polegap/post/quantity/saturation"
 	"polegap/post/study"
+	"polegap/solver"
 )
 
 // Design holds the quantities a magnet designer reads off a solution. A
@@ -122,7 +123,7 @@ type DesignOptions struct {
 }
 
 // NewDesign computes the design quantities of a solved study.
-func NewDesign(s *study.Study, opt DesignOptions) *Design {
+func NewDesign(s *study.Result, opt DesignOptions) *Design {
 	d := &Design{}
 	d.gapQuantities(s)
 	d.coils(s, opt)
@@ -131,7 +132,7 @@ func NewDesign(s *study.Study, opt DesignOptions) *Design {
 	return d
 }
 
-func (d *Design) forces(s *study.Study, opt DesignOptions) {
+func (d *Design) forces(s *study.Result, opt DesignOptions) {
 	m := s.Model
 	for _, part := range m.Forces {
 		fr := ForceReport{Part: part.Name}
@@ -161,7 +162,7 @@ func (d *Design) forces(s *study.Study, opt DesignOptions) {
 				if m.Geometry == models.Axisymmetric && k == 0 {
 					continue
 				}
-				v, err := force.VirtualWork(m, part.Regions, dir, delta, study.Options{})
+				v, err := force.VirtualWork(s, part.Regions, dir, delta, solver.Options{})
 				if err != nil {
 					fr.Error = "virtual work: " + err.Error()
 					break
@@ -180,7 +181,7 @@ func (d *Design) note(format string, args ...any) {
 	d.Notes = append(d.Notes, fmt.Sprintf(format, args...))
 }
 
-func (d *Design) gapQuantities(s *study.Study) {
+func (d *Design) gapQuantities(s *study.Result) {
 	m := s.Model
 	cp, ok := m.CentreProbe()
 	if !ok {
@@ -214,7 +215,7 @@ func (d *Design) gapQuantities(s *study.Study) {
 	}
 }
 
-func (d *Design) uniformity(s *study.Study, f gap.Field, c [2]float64, b0 float64) {
+func (d *Design) uniformity(s *study.Result, f gap.Field, c [2]float64, b0 float64) {
 	m := s.Model
 	u := &UniformityReport{}
 	for i := range m.Probes {
@@ -270,7 +271,7 @@ func onLine(p *models.Probe, c [2]float64) bool {
 	return math.Abs(cross) <= 1e-6*l && t > 0 && t < 1
 }
 
-func (d *Design) fringing(s *study.Study, f gap.Field, c [2]float64, b0, w float64) {
+func (d *Design) fringing(s *study.Result, f gap.Field, c [2]float64, b0, w float64) {
 	m := s.Model
 	xmin, _, xmax, _ := m.Extent()
 	limit := 2 * (xmax - xmin)
@@ -323,7 +324,7 @@ func (d *Design) fringing(s *study.Study, f gap.Field, c [2]float64, b0, w float
 	}
 }
 
-func (d *Design) coils(s *study.Study, opt DesignOptions) {
+func (d *Design) coils(s *study.Result, opt DesignOptions) {
 	w, wco, err := circuit.Energies(s.Solution)
 	if err != nil {
 		d.note("energy: %v", err)
@@ -353,7 +354,7 @@ func (d *Design) coils(s *study.Study, opt DesignOptions) {
 	}
 }
 
-func (d *Design) saturation(s *study.Study, opt DesignOptions) {
+func (d *Design) saturation(s *study.Result, opt DesignOptions) {
 	m := s.Model
 	var regs []saturation.Region
 	for i := range m.Regions {

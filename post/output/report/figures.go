@@ -21,7 +21,7 @@ const FluxLines = 30
 // flux lines) and its colour bar. The exterior disk of an open boundary is
 // left out. Flux lines are isolines of A (planar) or of r·Aφ (axisymmetric,
 // the flux function, whose isolines are the field lines).
-func FieldFigure(s *study.Study) (*gplot.Plot, *gplot.Plot) {
+func FieldFigure(s *study.Result) (*gplot.Plot, *gplot.Plot) {
 	m := s.Disc.Mesh
 	b := s.ElementB()
 	skip := int32(-1)
@@ -51,13 +51,13 @@ func FieldFigure(s *study.Study) (*gplot.Plot, *gplot.Plot) {
 }
 
 // DrawField saves the field map of a study to path (.png, .svg, .pdf).
-func DrawField(s *study.Study, path string) error {
+func DrawField(s *study.Result, path string) error {
 	p, bar, h := fieldLayout(s)
 	return plot.SaveGridWidths([]*gplot.Plot{p, bar}, []float64{fieldWidth, 2.5}, h, path)
 }
 
 // FieldImage renders the field map in a format (png, svg).
-func FieldImage(s *study.Study, format string) ([]byte, error) {
+func FieldImage(s *study.Result, format string) ([]byte, error) {
 	p, bar, h := fieldLayout(s)
 	c, err := plot.RenderRow([]*gplot.Plot{p, bar}, []float64{fieldWidth, 2.5}, h, format)
 	if err != nil {
@@ -68,7 +68,7 @@ func FieldImage(s *study.Study, format string) ([]byte, error) {
 
 const fieldWidth = 18.0 // cm, the map; the bar takes 2.5 more
 
-func fieldLayout(s *study.Study) (*gplot.Plot, *gplot.Plot, vg.Length) {
+func fieldLayout(s *study.Result) (*gplot.Plot, *gplot.Plot, vg.Length) {
 	p, bar := FieldFigure(s)
 	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = zoom(s)
 	return p, bar, plot.EqualAspectHeight(p, cm(fieldWidth))
@@ -84,7 +84,7 @@ func bytesOf(c io.WriterTo) ([]byte, error) {
 
 // zoom returns the drawing window in millimetres: the model's extent with a
 // fifth of its size around it, where the field is worth seeing.
-func zoom(s *study.Study) (x0, x1, y0, y1 float64) {
+func zoom(s *study.Result) (x0, x1, y0, y1 float64) {
 	xmin, ymin, xmax, ymax := s.Model.Extent()
 	d := 0.2 * math.Max(xmax-xmin, ymax-ymin)
 	return (xmin - d) * 1e3, (xmax + d) * 1e3, (ymin - d) * 1e3, (ymax + d) * 1e3

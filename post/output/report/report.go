@@ -75,7 +75,7 @@ func seconds(d time.Duration) float64 { return d.Seconds() }
 
 // New builds the report of a solved study, with the design quantities
 // (see NewDesign).
-func New(s *study.Study, opt DesignOptions) *Report {
+func New(s *study.Result, opt DesignOptions) *Report {
 	m, sol := s.Model, s.Solution
 	r := &Report{
 		Model:    m.Name,

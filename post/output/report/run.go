@@ -32,7 +32,7 @@ type RunOptions struct {
 // quantities and check, an excitation curve, and the ampere-turns and coil
 // for the model's target.
 type Run struct {
-	Study  *study.Study
+	Study  *study.Result
 	Bundle *Bundle
 }
 
@@ -60,7 +60,7 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 	runner := func(probe string) (*sweep.Runner, error) {
 		if rn == nil || rn.ProbeName() != probe && probe != "" {
 			var err error
-			if rn, err = sweep.NewRunnerFrom(s, "", probe, nil); err != nil {
+			if rn, err = sweep.NewRunnerFrom(s, "", probe); err != nil {
 				return nil, err
 			}
 		}

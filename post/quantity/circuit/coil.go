@@ -31,10 +31,14 @@ func (c *Coil) AmpereTurns() float64 { return c.Turns * c.Current }
 // CoilsOf returns the coils of a model with their sides as mesh region
 // tags (post/study's numbering: model region i has tag i+1). A side
 // naming no region is left out; models.Parse never produces one.
-func CoilsOf(m *models.Model) []Coil {
+func CoilsOf(m *models.Model) []Coil { return CoilsAt(m, study.Params{}) }
+
+// CoilsAt returns the coils of a model at the parameter values p (the
+// currents and turns p gives, else the model's).
+func CoilsAt(m *models.Model, p study.Params) []Coil {
 	out := make([]Coil, 0, len(m.Coils))
-	for _, mc := range m.Coils {
-		c := Coil{Name: mc.Name, Turns: mc.Turns, Current: mc.Current}
+	for ci, mc := range m.Coils {
+		c := Coil{Name: mc.Name, Turns: p.TurnsOf(m, ci), Current: p.Current(m, ci)}
 		for _, s := range mc.Sides {
 			for i := range m.Regions {
 				if m.Regions[i].Name == s.Region {
@@ -47,6 +51,9 @@ func CoilsOf(m *models.Model) []Coil {
 	}
 	return out
 }
+
+// CoilOf returns coil ci of a model at the parameter values p.
+func CoilOf(m *models.Model, p study.Params, ci int) Coil { return CoilsAt(m, p)[ci] }
 
 // Linkage returns the flux linkage λ (Wb-turns) of coil c in the solved
 // field (see the package documentation for the formula). It returns a

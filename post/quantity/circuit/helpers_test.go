@@ -54,7 +54,7 @@ func gapModel(t *testing.T, g float64, iron string, current float64) *models.Mod
 	return m
 }
 
-func solve(t *testing.T, m *models.Model) *study.Study {
+func solve(t *testing.T, m *models.Model) *study.Result {
 	t.Helper()
 	s, err := study.Run(m, study.Options{})
 	if err != nil {

@@ -7,6 +7,7 @@ import (
 
 	"polegap/models"
 	"polegap/post/quantity/force"
+	"polegap/solver"
 )
 
 // TestBenchDipoleStressVsVirtualWork compares the two methods on the
@@ -53,7 +54,7 @@ func TestBenchDipoleStressVsVirtualWork(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	fv, err := force.VirtualWork(m, []string{"upper-arm", "upper-pole"}, [2]float64{0, 1}, 0.5e-3, studyOpts)
+	fv, err := force.VirtualWork(s, []string{"upper-arm", "upper-pole"}, [2]float64{0, 1}, 0.5e-3, solver.Options{})
 	if err != nil {
 		t.Fatal(err)
 	}

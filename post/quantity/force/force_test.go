@@ -9,6 +9,7 @@ import (
 	"polegap/models"
 	"polegap/post/quantity/force"
 	"polegap/post/study"
+	"polegap/solver"
 )
 
 const mu0 = 4e-7 * math.Pi // H/m, the SI value before 2019 (within 1e-9 of today's)
@@ -22,7 +23,7 @@ func parse(t *testing.T, name, src string, kv ...string) *models.Model {
 	return m
 }
 
-func run(t *testing.T, m *models.Model) *study.Study {
+func run(t *testing.T, m *models.Model) *study.Result {
 	t.Helper()
 	s, err := study.Run(m, study.Options{})
 	if err != nil {
@@ -41,8 +42,6 @@ func tagOf(t *testing.T, m *models.Model, name string) int32 {
 	t.Fatalf("%s: no region %q", m.Name, name)
 	return -1
 }
-
-var studyOpts = study.Options{}
 
 func ftoa(x float64) string { return strconv.FormatFloat(x, 'f', -1, 64) }
 
@@ -99,7 +98,7 @@ func TestParallelWires(t *testing.T) {
 		if c.sign > 0 {
 			continue
 		}
-		fv, err := force.VirtualWork(m, []string{"left"}, [2]float64{1, 0}, 0.5e-3, studyOpts)
+		fv, err := force.VirtualWork(s, []string{"left"}, [2]float64{1, 0}, 0.5e-3, solver.Options{})
 		if err != nil {
 			t.Fatalf("%s: virtual work: %v", c.name, err)
 		}

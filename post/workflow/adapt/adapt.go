@@ -26,7 +26,7 @@ type Options struct {
 	Fraction float64
 	// Quantity is what must converge; nil means the field at the model's
 	// target probe (or the gap-centre probe, or its first point probe).
-	Quantity func(*study.Study) (float64, error)
+	Quantity func(*study.Result) (float64, error)
 	// Progress, when set, is told of each round.
 	Progress func(Round)
 	Study    study.Options
@@ -66,7 +66,7 @@ type Round struct {
 // Result is the adaptive sequence; Study is the last solved mesh.
 type Result struct {
 	Rounds    []Round
-	Study     *study.Study
+	Study     *study.Result
 	Converged bool
 }
 
@@ -94,20 +94,29 @@ func Run(ctx context.Context, m *models.Model, opt Options) (*Result, error) {
 	}
 	res := &Result{}
 	var size func(x, y float64, region int32) float64
+	var base *study.Study
 	prev := math.NaN()
 	for round := 0; round < opt.MaxRounds; round++ {
 		if err := ctx.Err(); err != nil {
 			return res, err
 		}
-		d, err := study.DiscretizeSized(m, size)
+		var cur *study.Study
+		var err error
+		if base == nil {
+			cur, err = study.Compile(m)
+			base = cur
+		} else {
+			cur, err = base.Refined(size)
+		}
 		if err != nil {
 			return res, err
 		}
+		d := cur.Disc
 		if len(res.Rounds) > 0 && d.Mesh.NumNodes() > opt.MaxNodes {
 			return res, nil
 		}
-		s := &study.Study{Model: m, Disc: d}
-		if err := s.Solve(opt.Study); err != nil {
+		s, err := cur.SolveAt(opt.Study.Params, opt.Study.Solver)
+		if err != nil {
 			return res, err
 		}
 		q, err := opt.Quantity(s)
@@ -183,13 +192,13 @@ func NextSize(m *mesh.Mesh, eta []float64, fraction float64) func(x, y float64, 
 
 // FieldAt returns the default quantity: |B| at the target probe, the
 // gap-centre probe or the first point probe.
-func FieldAt(m *models.Model) (func(*study.Study) (float64, error), error) {
+func FieldAt(m *models.Model) (func(*study.Result) (float64, error), error) {
 	p, ok := m.CentreProbe()
 	if !ok {
 		return nil, fmt.Errorf("%s: no point probe to converge the field at; add one under probes or give a quantity", m.File)
 	}
 	name, x, y := p.Name, p.Point[0], p.Point[1]
-	return func(s *study.Study) (float64, error) {
+	return func(s *study.Result) (float64, error) {
 		_, bx, by, ok := s.Field().At(x, y)
 		if !ok {
 			return 0, fmt.Errorf("probe %s lies outside the mesh", name)
@@ -201,7 +210,7 @@ func FieldAt(m *models.Model) (func(*study.Study) (float64, error), error) {
 // dualIndicator solves the dual problem of the flux across a short
 // segment through the probe (two opposite unit line currents at its ends,
 // no other source) and returns its error indicator per triangle.
-func dualIndicator(s *study.Study, opt Options) ([]float64, error) {
+func dualIndicator(s *study.Result, opt Options) ([]float64, error) {
 	m := s.Model
 	cp, ok := m.CentreProbe()
 	if !ok {

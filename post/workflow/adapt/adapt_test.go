@@ -48,7 +48,7 @@ func TestReachesAccuracy(t *testing.T) {
 
 // reference solves m (a fine reference mesh) and returns the study and its
 // probe field, the quantity the adaptive loop converges.
-func reference(t *testing.T, m *models.Model) (*study.Study, float64) {
+func reference(t *testing.T, m *models.Model) (*study.Result, float64) {
 	t.Helper()
 	ref, err := study.Run(m, study.Options{})
 	if err != nil {

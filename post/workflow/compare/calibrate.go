@@ -5,10 +5,9 @@ import (
 	"fmt"
 	"math"
 
-	"polegap/materials"
 	"polegap/models"
 	"polegap/post/measure"
-	"polegap/solver"
+	"polegap/post/study"
 )
 
 // Parameter names a model parameter that Calibrate can fit.
@@ -53,38 +52,29 @@ func Calibrate(ctx context.Context, m *models.Model, c *measure.Curve, param Par
 		return nil, fmt.Errorf("%s holds search-coil flux linkages: give the coil's turns-area product", c.Name)
 	}
 	f := &Fit{Parameter: param}
-	var predict func(p float64) ([]float64, error)
+	s, err := study.Compile(m)
+	if err != nil {
+		return nil, err
+	}
+	var at func(v float64) study.Params
 	currents := c.Currents()
 	switch param {
 	case Gap:
 		if !(m.Gap > 0) {
 			return nil, fmt.Errorf("%s: the model states no gap length (gap key or template); it cannot be calibrated", m.File)
 		}
-		mid, err := midPlane(m, opt.Probe)
-		if err != nil {
-			return nil, err
+		if _, ok := m.CentreProbe(); !ok {
+			return nil, fmt.Errorf("%s: no point probe at the gap centre to find the gap's mid-plane", m.File)
 		}
 		f.Unit, f.Nominal = "m", m.Gap
-		predict = func(g float64) ([]float64, error) {
-			mg, err := m.WithGap(mid, g-m.Gap)
-			if err != nil {
-				return nil, err
-			}
-			return Predict(ctx, mg, currents, opt)
-		}
+		at = func(g float64) study.Params { return study.Params{Gap: g} }
 	case Iron:
 		f.Unit, f.Nominal = "", 1
-		predict = func(s float64) ([]float64, error) {
-			o := opt
-			o.material = func(tag int32, mat solver.Material) solver.Material {
-				if cv, ok := mat.(*materials.Curve); ok {
-					return scaled{cv, s}
-				}
-				return mat
-			}
-			return Predict(ctx, m, currents, o)
-		}
+		at = func(k float64) study.Params { return study.Params{IronScale: k} }
 	case Turns:
+		if len(m.Coils) == 0 {
+			return nil, fmt.Errorf("%s: no coil", m.File)
+		}
 		ci := 0
 		if opt.Coil != "" {
 			for i := range m.Coils {
@@ -93,18 +83,19 @@ func Calibrate(ctx context.Context, m *models.Model, c *measure.Curve, param Par
 				}
 			}
 		}
-		if len(m.Coils) == 0 {
-			return nil, fmt.Errorf("%s: no coil", m.File)
-		}
 		f.Unit, f.Nominal = "turns", m.Coils[ci].Turns
-		predict = func(n float64) ([]float64, error) {
-			mc := m.Clone()
-			mc.Coils[ci].Turns = n
-			return Predict(ctx, mc, currents, opt)
+		at = func(n float64) study.Params {
+			turns := make([]float64, len(m.Coils))
+			for i := range m.Coils {
+				turns[i] = m.Coils[i].Turns
+			}
+			turns[ci] = n
+			return study.Params{Turns: turns}
 		}
 	default:
 		return nil, fmt.Errorf("unknown parameter %q: use gap, iron or turns", param)
 	}
+	predict := func(v float64) ([]float64, error) { return PredictAt(ctx, s, at(v), currents, opt) }
 	scale := 1.0
 	if c.Kind == measure.FluxLinkage {
 		scale = opt.TurnsArea
@@ -233,27 +224,4 @@ func plausible(p Parameter, nominal, value, sigma float64) (bool, string) {
 		return true, what + "; a plausible change"
 	}
 	return false, what + "; NOT plausible: look for another cause (probe position or calibration, a different steel, a wrong drawing)"
-}
-
-// scaled is an iron curve whose permeability is multiplied by s.
-type scaled struct {
-	c *materials.Curve
-	s float64
-}
-
-func (m scaled) Nu(b2 float64) (nu, dnu float64) {
-	nu, dnu = m.c.Nu(b2)
-	return nu / m.s, dnu / m.s
-}
-
-// midPlane returns the y of the gap centre: the named probe's point, or
-// the model's centre probe's.
-func midPlane(m *models.Model, probe string) (float64, error) {
-	if p, ok := m.Probe(probe); ok && p.Kind == models.ProbePoint {
-		return p.Point[1], nil
-	}
-	if p, ok := m.CentreProbe(); ok {
-		return p.Point[1], nil
-	}
-	return 0, fmt.Errorf("%s: no point probe at the gap centre to find the gap's mid-plane", m.File)
 }

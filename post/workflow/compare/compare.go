@@ -8,6 +8,7 @@ import (
 
 	"polegap/models"
 	"polegap/post/measure"
+	"polegap/post/study"
 	"polegap/post/workflow/sweep"
 	"polegap/solver"
 )
@@ -21,8 +22,6 @@ type Options struct {
 	Solver    solver.Options
 	// Progress, when set, is told of each solve.
 	Progress func(stage string, done, total int)
-
-	material func(tag int32, m solver.Material) solver.Material
 }
 
 // Residual is one measured point against the prediction.
@@ -54,6 +53,16 @@ type Result struct {
 // Predict solves m at the given coil currents and returns the probe's
 // field at each, in the order given.
 func Predict(ctx context.Context, m *models.Model, currents []float64, opt Options) ([]float64, error) {
+	s, err := study.Compile(m)
+	if err != nil {
+		return nil, err
+	}
+	return PredictAt(ctx, s, study.Params{}, currents, opt)
+}
+
+// PredictAt is Predict on a compiled study at the base parameter values
+// p (the swept coil's current replaced by each of currents).
+func PredictAt(ctx context.Context, s *study.Study, p study.Params, currents []float64, opt Options) ([]float64, error) {
 	order := make([]int, len(currents))
 	for i := range order {
 		order[i] = i
@@ -63,11 +72,11 @@ func Predict(ctx context.Context, m *models.Model, currents []float64, opt Optio
 	for k, i := range order {
 		sorted[k] = currents[i]
 	}
-	so := sweep.Options{Currents: sorted, Coil: opt.Coil, Probe: opt.Probe, Solver: opt.Solver, Material: opt.material}
+	so := sweep.Options{Currents: sorted, Coil: opt.Coil, Probe: opt.Probe, Solver: opt.Solver, Params: p}
 	if opt.Progress != nil {
 		so.Progress = func(done, total int, _ sweep.Point) { opt.Progress("solving", done, total) }
 	}
-	pts, err := sweep.Run(ctx, m, so)
+	pts, err := sweep.RunOn(ctx, s, so)
 	if err != nil {
 		return nil, err
 	}

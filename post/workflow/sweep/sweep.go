@@ -47,8 +47,9 @@ type Options struct {
 	Progress func(done, total int, p Point)
 	// Solver options for each solve (Initial is managed by the sweep).
 	Solver solver.Options
-	// Material, when set, replaces region materials (see study.Options).
-	Material func(tag int32, m solver.Material) solver.Material
+	// Params are the base parameter values (the zero value: the model's
+	// own); the swept coil's current replaces its entry at each point.
+	Params study.Params
 }
 
 // Range returns n currents evenly spaced from lo to hi inclusive.
@@ -89,64 +90,72 @@ func (e *PointError) Error() string {
 
 func (e *PointError) Unwrap() error { return e.Err }
 
-// Runner solves points of one model on one mesh, warm-starting each solve
-// from the last.
 // solved is a past point of the runner: coil current and potential.
 type solved struct {
 	i float64
 	a []float64
 }
 
+// Runner solves points of one compiled study, warm-starting each solve
+// from the last. It varies one coil's current (the others in proportion)
+// over base parameter values; the model is never written.
 type Runner struct {
 	Model *models.Model
-	Study *study.Study // the model meshed (and solved at its own currents)
+	Study *study.Study  // the compiled study the points are solved on
+	Base  study.Params  // the parameters every point starts from
+	Last  *study.Result // the last solve (at first the base solve)
 	coil  int
-	base  []float64 // the model's own coil currents
 	probe string
 	// The last solved points (current and potential), newest first, at
 	// most three, for the predictor of the next warm start.
 	recent []solved
 
 	baseField float64
-	material  func(tag int32, m solver.Material) solver.Material
 }
 
-// NewRunner meshes the model and prepares to solve it at other currents.
+// NewRunner compiles the model, solves it at its own currents and
+// prepares to solve it at others.
 func NewRunner(ctx context.Context, m *models.Model, coil, probe string, opt solver.Options) (*Runner, error) {
-	return NewRunnerWith(ctx, m, coil, probe, opt, nil)
+	s, err := study.Compile(m)
+	if err != nil {
+		return nil, err
+	}
+	return NewRunnerOn(ctx, s, study.Params{}, coil, probe, opt)
 }
 
-// NewRunnerWith is NewRunner with a material replacement applied to every
-// solve (see study.Options.Material); nil means none.
-func NewRunnerWith(ctx context.Context, m *models.Model, coil, probe string, opt solver.Options, material func(tag int32, m solver.Material) solver.Material) (*Runner, error) {
-	r, err := newRunner(m, coil, probe, material)
+// NewRunnerOn solves the compiled study at the base parameters and
+// prepares to solve it at other currents of the swept coil.
+func NewRunnerOn(ctx context.Context, s *study.Study, base study.Params, coil, probe string, opt solver.Options) (*Runner, error) {
+	r, err := newRunner(s, base, coil, probe)
 	if err != nil {
 		return nil, err
 	}
-	s, err := study.Run(m, study.Options{Solver: opt, Material: material})
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
+	res, err := s.SolveAt(base, opt)
 	if err != nil {
 		return nil, err
 	}
-	r.start(s)
+	r.start(res)
 	return r, nil
 }
 
 // NewRunnerFrom prepares to solve a solved study's model at other
-// currents on the study's mesh, starting from its solution (which must be
-// at the model's own currents, solved with the same material
-// replacement). The study itself is left as it is: the runner solves on a
-// fork of it (study.Study.Fork).
-func NewRunnerFrom(s *study.Study, coil, probe string, material func(tag int32, m solver.Material) solver.Material) (*Runner, error) {
-	r, err := newRunner(s.Model, coil, probe, material)
+// currents, starting from that solution and its parameters, on the same
+// compiled study (the result itself stays as it is).
+func NewRunnerFrom(res *study.Result, coil, probe string) (*Runner, error) {
+	r, err := newRunner(res.Study, res.Params, coil, probe)
 	if err != nil {
 		return nil, err
 	}
-	r.start(s.Fork())
+	r.start(res)
 	return r, nil
 }
 
 // newRunner checks the coil and probe names and makes the runner.
-func newRunner(m *models.Model, coil, probe string, material func(tag int32, m solver.Material) solver.Material) (*Runner, error) {
+func newRunner(s *study.Study, base study.Params, coil, probe string) (*Runner, error) {
+	m := s.Model
 	if len(m.Coils) == 0 {
 		return nil, fmt.Errorf("%s: the model has no coil to sweep", m.File)
 	}
@@ -171,19 +180,15 @@ func newRunner(m *models.Model, coil, probe string, material func(tag int32, m s
 	if _, ok := m.Probe(probe); !ok {
 		return nil, fmt.Errorf("%s: no probe named %q", m.File, probe)
 	}
-	r := &Runner{Model: m, coil: ci, probe: probe, material: material}
-	for _, c := range m.Coils {
-		r.base = append(r.base, c.Current)
-	}
-	return r, nil
+	return &Runner{Model: m, Study: s, Base: base, coil: ci, probe: probe}, nil
 }
 
-// start takes s, solved at the model's own currents, as the first point.
-func (r *Runner) start(s *study.Study) {
-	r.Study = s
-	r.recent = []solved{{r.base[r.coil], s.Solution.A}}
-	if res, ok := s.Probe(r.probe); ok {
-		r.baseField = fieldOf(res)
+// start takes res, solved at the base parameters, as the first point.
+func (r *Runner) start(res *study.Result) {
+	r.Last = res
+	r.recent = []solved{{r.BaseCurrent(), res.Solution.A}}
+	if p, ok := res.Probe(r.probe); ok {
+		r.baseField = fieldOf(p)
 	}
 }
 
@@ -244,49 +249,37 @@ func (r *Runner) predict(current float64) []float64 {
 }
 
 // Turns returns the turns of the swept coil.
-func (r *Runner) Turns() float64 { return r.Model.Coils[r.coil].Turns }
+func (r *Runner) Turns() float64 { return r.Base.TurnsOf(r.Model, r.coil) }
 
-// BaseCurrent returns the swept coil's current in the model file.
-func (r *Runner) BaseCurrent() float64 { return r.base[r.coil] }
+// BaseCurrent returns the swept coil's current at the base parameters.
+func (r *Runner) BaseCurrent() float64 { return r.Base.Current(r.Model, r.coil) }
 
-// BaseField returns the probe's field at the model's own currents (the
-// solve NewRunner made).
+// BaseField returns the probe's field at the base parameters (the solve
+// the runner started from).
 func (r *Runner) BaseField() float64 { return r.baseField }
 
 // ProbeName returns the probe whose field the runner reports.
 func (r *Runner) ProbeName() string { return r.probe }
 
-// Solve solves the model with the swept coil at current (the other coils
-// scaled in proportion) and returns the point. The model's currents are
-// restored afterwards.
+// Solve solves the study with the swept coil at current (the other coils
+// scaled in proportion to the base) and returns the point; r.Last holds
+// the whole result.
 func (r *Runner) Solve(current float64, opt solver.Options) (Point, error) {
 	m := r.Model
-	ref := r.base[r.coil]
-	for i := range m.Coils {
-		switch {
-		case i == r.coil:
-			m.Coils[i].Current = current
-		case ref != 0:
-			m.Coils[i].Current = r.base[i] * current / ref
-		}
-	}
-	defer func() {
-		for i := range m.Coils {
-			m.Coils[i].Current = r.base[i]
-		}
-	}()
 	opt.Initial = r.predict(current)
-	if err := r.Study.Solve(study.Options{Solver: opt, Material: r.material}); err != nil {
+	res, err := r.Study.SolveAt(r.Base.Scaled(m, r.coil, current), opt)
+	if err != nil {
 		return Point{}, err
 	}
-	sol := r.Study.Solution
+	r.Last = res
+	sol := res.Solution
 	r.recent = append([]solved{{current, sol.A}}, r.recent[:min(len(r.recent), 2)]...)
-	res, _ := r.Study.Probe(r.probe)
+	pr, _ := res.Probe(r.probe)
 	p := Point{
 		Current:     current,
-		AmpereTurns: m.Coils[r.coil].Turns * current,
-		Field:       fieldOf(res),
-		MaxIronB:    maxIronB(r.Study),
+		AmpereTurns: r.Turns() * current,
+		Field:       fieldOf(pr),
+		MaxIronB:    maxIronB(res),
 		Energy:      sol.Energy(),
 		Iterations:  sol.Iterations,
 		Residual:    sol.Residual,
@@ -294,8 +287,8 @@ func (r *Runner) Solve(current float64, opt solver.Options) (Point, error) {
 	if m.Geometry == models.Planar {
 		p.Energy *= m.Depth
 	}
-	cs := circuit.CoilsOf(m)
-	lam, err := circuit.Linkage(sol, &cs[r.coil])
+	c := circuit.CoilOf(m, res.Params, r.coil)
+	lam, err := circuit.Linkage(sol, &c)
 	if err != nil {
 		return Point{}, err
 	}
@@ -316,7 +309,7 @@ func fieldOf(r probes.Result) float64 {
 
 // maxIronB is the largest element |B| in regions whose material is
 // nonlinear (dν/d(B²) != 0 somewhere), a quick saturation indicator.
-func maxIronB(s *study.Study) float64 {
+func maxIronB(s *study.Result) float64 {
 	b := s.ElementB()
 	mats := s.Problem.Materials
 	nonlinear := make([]bool, len(mats))
@@ -342,7 +335,16 @@ func maxIronB(s *study.Study) float64 {
 // *InterruptedError; on a failed solve, the finished points and a
 // *PointError.
 func Run(ctx context.Context, m *models.Model, opt Options) ([]Point, error) {
-	r, err := NewRunnerWith(ctx, m, opt.Coil, opt.Probe, opt.Solver, opt.Material)
+	s, err := study.Compile(m)
+	if err != nil {
+		return nil, err
+	}
+	return RunOn(ctx, s, opt)
+}
+
+// RunOn is Run on a compiled study, at the base parameters opt.Params.
+func RunOn(ctx context.Context, s *study.Study, opt Options) ([]Point, error) {
+	r, err := NewRunnerOn(ctx, s, opt.Params, opt.Coil, opt.Probe, opt.Solver)
 	if err != nil {
 		return nil, err
 	}
@@ -350,8 +352,8 @@ func Run(ctx context.Context, m *models.Model, opt Options) ([]Point, error) {
 }
 
 // Sweep solves the selected points of opt.Currents in order with the
-// runner's coil, probe and material (opt.Coil, opt.Probe and
-// opt.Material are not used), each warm-started from the last; errors
+// runner's coil, probe and base parameters (opt.Coil, opt.Probe and
+// opt.Params are not used), each warm-started from the last; errors
 // as Run.
 func (r *Runner) Sweep(ctx context.Context, opt Options) ([]Point, error) {
 	idx := Select(len(opt.Currents), opt.Shard, opt.Shards)

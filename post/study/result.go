@@ -1,0 +1,67 @@
+package study
+
+import (
+	"time"
+
+	"polegap/models"
+	"polegap/post/study/probes"
+	"polegap/solver"
+)
+
+// Result is one converged solve of a study: the parameter values, the
+// solution and the probes read off it. A Result does not change when its
+// study is solved again; read it from several goroutines only after it
+// has computed its field (Field, ElementB), which it caches.
+type Result struct {
+	Study *Study        // the study solved (for a gap variant: the remeshed one)
+	Model *models.Model // the model as solved (Study.Model)
+	Disc  *Discretization
+	// Params are the parameter values asked for.
+	Params Params
+	// Remeshed is true when the parameters changed the geometry and the
+	// solve ran on a mesh of its own.
+	Remeshed bool
+	// Problem is the problem as solved (the solver's snapshot).
+	Problem  *solver.Problem
+	Solution *solver.Solution
+	Probes   []probes.Result
+	MeshTime time.Duration
+
+	field probes.Field // the field the probes read, made once
+	b     [][2]float64 // element flux density, made once
+}
+
+// ElementB returns the flux density at each triangle's centroid
+// (solver.Solution.BTo), computed once and shared: callers must not
+// modify it.
+func (r *Result) ElementB() [][2]float64 {
+	if r.b == nil {
+		r.b = r.Solution.BTo(nil)
+	}
+	return r.b
+}
+
+// Probe returns the evaluated probe of that name.
+func (r *Result) Probe(name string) (probes.Result, bool) {
+	for _, p := range r.Probes {
+		if p.Name == name {
+			return p, true
+		}
+	}
+	return probes.Result{}, false
+}
+
+// Field returns the field the probes read: the solution itself for
+// second-order meshes, and the recovered (corner-averaged) flux density
+// for first-order ones, whose element values are constant.
+func (r *Result) Field() probes.Field {
+	if r.field != nil {
+		return r.field
+	}
+	if r.Disc.Mesh.Order() == 2 {
+		r.field = r.Solution
+		return r.field
+	}
+	r.field = probes.NewRecovered(r.Solution, r.Study.patches(), r.ElementB(), r.Study.locator())
+	return r.field
+}
