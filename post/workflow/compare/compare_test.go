@@ -3,6 +3,7 @@ package compare
 import (
 	"context"
 	"math"
+	"reflect"
 	"testing"
 
 	"polegap/models"
@@ -55,9 +56,13 @@ func TestRecoverGap(t *testing.T) {
 		t.Fatal(err)
 	}
 	c := synthetic(t, truth, []float64{60, 120, 180}, 1e-3)
+	before := m.Clone()
 	f, err := Calibrate(context.Background(), m, c, Gap, Options{})
 	if err != nil {
 		t.Fatal(err)
+	}
+	if !reflect.DeepEqual(m, before) {
+		t.Error("calibration changed the loaded model")
 	}
 	if math.Abs(f.Value-0.0415) > 2e-4 {
 		t.Errorf("fitted gap %.5f m, want 0.04150 (from %.5f), %d iterations", f.Value, f.Nominal, f.Iterations)
@@ -81,9 +86,13 @@ func TestRecoverTurns(t *testing.T) {
 	truth := m.Clone()
 	truth.Coils[0].Turns = 190
 	c := synthetic(t, truth, []float64{50, 100, 150}, 0)
+	before := m.Clone()
 	f, err := Calibrate(context.Background(), m, c, Turns, Options{})
 	if err != nil {
 		t.Fatal(err)
+	}
+	if !reflect.DeepEqual(m, before) {
+		t.Error("calibration changed the loaded model")
 	}
 	if math.Abs(f.Value-190) > 0.05 {
 		t.Errorf("fitted %g turns, want 190", f.Value)

@@ -39,9 +39,13 @@ func TestSelect(t *testing.T) {
 // so field/NI is the same at every point to solver accuracy.
 func TestLinearIronScales(t *testing.T) {
 	m := smallCore(t, "{mu-r: 1000}")
+	before := m.Clone()
 	pts, err := Run(context.Background(), m, Options{Currents: []float64{10, 20, 35, -5}})
 	if err != nil {
 		t.Fatal(err)
+	}
+	if !reflect.DeepEqual(m, before) {
+		t.Error("the sweep changed the loaded model")
 	}
 	ref := pts[0].Field / pts[0].AmpereTurns
 	for _, p := range pts {
