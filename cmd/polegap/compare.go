@@ -11,6 +11,7 @@ import (
 
 	"polegap/internal/fileout"
 	"polegap/post/measure"
+	"polegap/post/output/figure"
 	"polegap/post/output/plot"
 	"polegap/post/workflow/compare"
 )
@@ -73,7 +74,7 @@ points' error bars; --csv writes the residual table.`,
 				}
 			}
 			if *png != "" {
-				p, err := compare.Figure(m.Name+": measured and predicted", out.Result, out.Fit)
+				p, err := figure.Comparison(m.Name+": measured and predicted", out.Result, out.Fit)
 				if err != nil {
 					return err
 				}

@@ -8,6 +8,7 @@ import (
 
 	"polegap/internal/fileout"
 	"polegap/models"
+	"polegap/post/output/figure"
 	"polegap/post/output/plot"
 	"polegap/post/quantity/gap"
 	"polegap/post/study"
@@ -54,7 +55,7 @@ distance along the line.`,
 			}
 			ss := gap.ProfileTo(nil, s.Field(), p.Line[0], p.Line[1], n)
 			if *png != "" {
-				fig, err := gap.ProfileFigure(m.Name+": profile along "+p.Name, ss)
+				fig, err := figure.Profile(m.Name+": profile along "+p.Name, ss)
 				if err != nil {
 					return err
 				}

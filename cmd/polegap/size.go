@@ -11,7 +11,6 @@ import (
 	"polegap/internal/fileout"
 	"polegap/models"
 	"polegap/post/output/report"
-	"polegap/post/study"
 	"polegap/post/workflow/coil"
 	"polegap/post/workflow/sweep"
 	"polegap/post/workflow/target"
@@ -98,7 +97,7 @@ the cautions printed with the result apply.`,
 			if *coilName != "" {
 				c, _ = m.Coil(*coilName)
 			}
-			w, err := study.CoilWinding(m, c)
+			w, err := coil.CoilWinding(m, c)
 			if err != nil {
 				return err
 			}

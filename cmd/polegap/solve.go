@@ -10,6 +10,7 @@ import (
 	"polegap/models"
 	"polegap/post/workflow/adapt"
 
+	"polegap/post/output/figure"
 	"polegap/post/output/report"
 	"polegap/post/output/vtu"
 	"polegap/post/study"
@@ -100,7 +101,7 @@ with status 1; no result is reported for it.`,
 				}
 			}
 			if *png != "" {
-				if err := report.DrawField(s, *png); err != nil {
+				if err := figure.DrawField(s, *png); err != nil {
 					return err
 				}
 			}

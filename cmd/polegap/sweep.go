@@ -16,6 +16,7 @@ import (
 
 	"polegap/internal/fileout"
 	"polegap/models"
+	"polegap/post/output/figure"
 	"polegap/post/output/plot"
 	"polegap/post/workflow/sweep"
 	"polegap/solver"
@@ -160,7 +161,7 @@ func plusOne(v []int) []int {
 }
 
 func drawSweep(path, name string, pts []sweep.Point, gap float64) error {
-	bp, ep, err := sweep.Figures(name, pts, gap)
+	bp, ep, err := figure.Excitation(name, pts, gap)
 	if err != nil {
 		return err
 	}

@@ -7,7 +7,6 @@ import (
 
 	"polegap/mesh"
 	"polegap/models"
-	"polegap/post/output/plot"
 )
 
 // Discretization is a model with its mesh.
@@ -215,35 +214,47 @@ func (d *Discretization) locate(err error) error {
 	return fmt.Errorf("%s: building the geometry: %w", d.Model.File, err)
 }
 
+// RegionKind is what a region is made of, as figures colour it.
+type RegionKind int
+
+// Region kinds.
+const (
+	KindAir RegionKind = iota
+	KindIron
+	KindCoil
+	KindMagnet
+	KindOther // a linear non-magnetic part such as brass or a spacer
+)
+
 // RegionKind classifies a region tag for figures: air, iron, coil, magnet
 // or other (a linear non-magnetic part such as brass or a spacer).
-func (d *Discretization) RegionKind(tag int32) int {
+func (d *Discretization) RegionKind(tag int32) RegionKind {
 	if tag == AirTag || int(tag) > len(d.Model.Regions) {
-		return plot.KindAir
+		return KindAir
 	}
 	r := &d.Model.Regions[tag-1]
 	for _, c := range d.Model.Coils {
 		for _, s := range c.Sides {
 			if s.Region == r.Name {
-				return plot.KindCoil
+				return KindCoil
 			}
 		}
 	}
 	switch r.Material {
 	case "air", "vacuum":
-		return plot.KindAir
+		return KindAir
 	case "copper", "aluminium", "aluminum":
-		return plot.KindCoil
+		return KindCoil
 	}
 	mat, ok := d.Model.Material(r.Material)
 	if !ok {
-		return plot.KindIron // a built-in curve named directly
+		return KindIron // a built-in curve named directly
 	}
 	switch {
 	case mat.Magnet != nil:
-		return plot.KindMagnet
+		return KindMagnet
 	case mat.Curve != "" || len(mat.Table) > 0 || mat.TableFile != "" || mat.MuR > 1.5:
-		return plot.KindIron
+		return KindIron
 	}
-	return plot.KindOther
+	return KindOther
 }

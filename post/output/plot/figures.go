@@ -3,31 +3,23 @@ package plot
 import (
 	"image/color"
 	"math"
+	"polegap/post/study"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/vg"
 )
 
-// Region kinds decide the colour a region is drawn with in mesh figures.
-const (
-	KindAir = iota
-	KindIron
-	KindCoil
-	KindMagnet
-	KindOther
-)
-
 // RegionColour is the fill colour of a region kind in mesh figures: air
 // pale, iron steel-blue grey, coils copper, magnets a muted red.
-func RegionColour(kind int) color.Color {
+func RegionColour(kind study.RegionKind) color.Color {
 	switch kind {
-	case KindAir:
+	case study.KindAir:
 		return color.RGBA{R: 246, G: 248, B: 250, A: 255}
-	case KindIron:
+	case study.KindIron:
 		return color.RGBA{R: 150, G: 165, B: 185, A: 255}
-	case KindCoil:
+	case study.KindCoil:
 		return color.RGBA{R: 214, G: 140, B: 80, A: 255}
-	case KindMagnet:
+	case study.KindMagnet:
 		return color.RGBA{R: 190, G: 90, B: 90, A: 255}
 	}
 	return color.RGBA{R: 200, G: 200, B: 160, A: 255}
@@ -36,7 +28,7 @@ func RegionColour(kind int) color.Color {
 // MeshFigure returns a plot of a triangle mesh, each triangle filled with
 // the colour of its region's kind (kindOf maps a region tag to a kind).
 // Lengths are drawn in millimetres.
-func MeshFigure(title string, x, y []float64, tri, region []int32, kindOf func(int32) int) *plot.Plot {
+func MeshFigure(title string, x, y []float64, tri, region []int32, kindOf func(int32) study.RegionKind) *plot.Plot {
 	xs, ys := scaled(x, 1e3), scaled(y, 1e3)
 	t := NewTriangles(xs, ys, tri)
 	t.Fill = make([]color.Color, len(tri)/3)

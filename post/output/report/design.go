@@ -325,7 +325,7 @@ func (d *Design) fringing(s *study.Result, f gap.Field, c [2]float64, b0, w floa
 }
 
 func (d *Design) coils(s *study.Result, opt DesignOptions) {
-	w, wco, err := circuit.Energies(s.Solution)
+	w, wco, err := study.Energies(s.Solution)
 	if err != nil {
 		d.note("energy: %v", err)
 	} else {

@@ -13,6 +13,7 @@ import (
 
 	"polegap/internal/fileout"
 	"polegap/models"
+	"polegap/post/output/figure"
 	"polegap/post/output/plot"
 	"polegap/post/output/vtu"
 	"polegap/post/study"
@@ -94,7 +95,7 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 			return nil, err
 		}
 		if err == nil {
-			w, werr := study.CoilWinding(m, &m.Coils[0])
+			w, werr := coil.CoilWinding(m, &m.Coils[0])
 			if werr == nil {
 				spec := coil.Spec{AmpereTurns: res.AmpereTurns, Window: w.Window, Cooling: opt.Cooling,
 					FillFactor: m.Coils[0].FillFactor, Temperature: m.Coils[0].Temperature,
@@ -107,7 +108,7 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 		}
 	}
 	say("drawing")
-	if img, err := FieldImage(s, "png"); err == nil {
+	if img, err := figure.FieldImage(s, "png"); err == nil {
 		b.Images = append(b.Images, Image{Title: "Field map: |B| and flux lines", PNG: img})
 	} else {
 		return nil, err
@@ -123,7 +124,7 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 }
 
 func excitationImage(name string, pts []sweep.Point, gap float64) ([]byte, error) {
-	bp, ep, err := sweep.Figures(name, pts, gap)
+	bp, ep, err := figure.Excitation(name, pts, gap)
 	if err != nil {
 		return nil, err
 	}
@@ -137,7 +138,7 @@ func excitationImage(name string, pts []sweep.Point, gap float64) ([]byte, error
 	if err != nil {
 		return nil, err
 	}
-	return bytesOf(c)
+	return figure.Bytes(c)
 }
 
 // WriteFolder writes the run's files into dir (created if needed) and
@@ -188,9 +189,9 @@ func (r *Run) WriteFolder(dir string) ([]string, error) {
 	}
 	m := s.Disc.Mesh
 	mp := plot.MeshFigure(s.Model.Name+": mesh", m.X, m.Y, m.Tri, m.Region, s.Disc.RegionKind)
-	mp.X.Min, mp.X.Max, mp.Y.Min, mp.Y.Max = zoom(s)
+	mp.X.Min, mp.X.Max, mp.Y.Min, mp.Y.Max = figure.Zoom(s)
 	names = append(names, "mesh.png")
-	if err := plot.Save(mp, cm(18), plot.EqualAspectHeight(mp, cm(18)), filepath.Join(dir, "mesh.png")); err != nil {
+	if err := plot.Save(mp, figure.CM(18), plot.EqualAspectHeight(mp, figure.CM(18)), filepath.Join(dir, "mesh.png")); err != nil {
 		return nil, err
 	}
 	if err := write("solution.vtu", func(w io.Writer) error { return vtu.WriteVTU(w, s.Solution, vtu.Options{}) }); err != nil {

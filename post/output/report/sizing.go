@@ -5,7 +5,6 @@ import (
 	"io"
 	"strings"
 
-	"polegap/post/study"
 	"polegap/post/workflow/coil"
 	"polegap/post/workflow/target"
 )
@@ -44,7 +43,7 @@ type WindowReport struct {
 
 // NewSizing assembles the sizing report from a search result, the coil's
 // winding and the coil options.
-func NewSizing(model, probe string, res *target.Result, w study.Winding, spec coil.Spec, opts []coil.Option) *Sizing {
+func NewSizing(model, probe string, res *target.Result, w coil.Winding, spec coil.Spec, opts []coil.Option) *Sizing {
 	if spec.FillFactor == 0 {
 		spec.FillFactor = coil.DefaultFillFactor
 	}

@@ -8,6 +8,7 @@ import (
 	"polegap/materials"
 	"polegap/models"
 	"polegap/post/quantity/circuit"
+	"polegap/post/study"
 )
 
 func fmtG(x float64) string { return strconv.FormatFloat(x, 'f', 6, 64) }
@@ -25,7 +26,7 @@ func TestLinearIdentities(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	w, wco, err := circuit.Energies(s.Solution)
+	w, wco, err := study.Energies(s.Solution)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -103,7 +104,7 @@ func TestSaturating(t *testing.T) {
 		t.Fatal(err)
 	}
 	I := coils[0].Current
-	w, wco, err := circuit.Energies(s.Solution)
+	w, wco, err := study.Energies(s.Solution)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -143,7 +144,7 @@ func TestEnergyDensity(t *testing.T) {
 		t.Fatal("no low-carbon-steel in the library")
 	}
 	for _, b := range []float64{0.3, 1.2, 1.8, 2.4, 3} {
-		w, wco := circuit.EnergyDensity(steel, b*b)
+		w, wco := study.EnergyDensity(steel, b*b)
 		const n = 200000
 		var ref float64
 		for k := 0; k < n; k++ {
@@ -163,7 +164,7 @@ func TestEnergyDensity(t *testing.T) {
 		}
 	}
 	lin := materials.Linear{MuR: 1000}
-	w, wco := circuit.EnergyDensity(lin, 4)
+	w, wco := study.EnergyDensity(lin, 4)
 	if want := 4 / (2 * mu0 * 1000); relErr(w, want) > 1e-15 || wco != w {
 		t.Errorf("linear: w = %g, w' = %g, want %g", w, wco, want)
 	}
@@ -190,7 +191,7 @@ func TestAxisymmetricIdentity(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	w, wco, err := circuit.Energies(s.Solution)
+	w, wco, err := study.Energies(s.Solution)
 	if err != nil {
 		t.Fatal(err)
 	}

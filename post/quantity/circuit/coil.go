@@ -93,7 +93,7 @@ func LinkagesTo(dst []float64, sol *solver.Solution, coils []Coil) ([]float64, e
 	if p.Formulation == solver.Axisymmetric {
 		deg = 4 // r·A: degree 3 for P2; the rule of degree 3 has a negative weight
 	}
-	f := NewField(sol, deg)
+	f := study.NewQuadField(sol, deg)
 	nq := f.NumPoints()
 	for t := 0; t < m.NumTriangles(); t++ {
 		acc := want[m.Region[t]]
@@ -142,3 +142,15 @@ func Apparent(lambda, current float64) float64 {
 	}
 	return lambda / current
 }
+
+// depthOf is the factor from the solver's per-metre integrals to the
+// magnet: Depth for planar problems, 1 for axisymmetric ones (whose
+// integrals already carry 2π r).
+func depthOf(p *solver.Problem) float64 {
+	if p.Formulation == solver.Axisymmetric {
+		return 1
+	}
+	return p.Depth
+}
+
+func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }

@@ -39,7 +39,7 @@ mesh: {size: 10, order: 2, refine: [{line: [[120,75],[150,75]], size: 2}]}
 	}
 	coils := circuit.CoilsOf(m)
 	lam, _ := circuit.Linkage(s.Solution, &coils[0])
-	w, _, _ := circuit.Energies(s.Solution)
+	w, _, _ := study.Energies(s.Solution)
 	L := circuit.Apparent(lam, coils[0].Current)
 	fmt.Printf("L = %.1f mH, W = %.2f J, W/(LI²/2) = %.6f\n", L*1e3, w, w/(0.5*L*25))
 	// Output:

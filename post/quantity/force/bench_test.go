@@ -5,7 +5,6 @@ import (
 	"testing"
 
 	"polegap/models"
-	"polegap/post/quantity/circuit"
 	"polegap/post/quantity/force"
 	"polegap/post/study"
 )
@@ -48,7 +47,7 @@ func BenchmarkPost(b *testing.B) {
 	b.Run("Energies", func(b *testing.B) {
 		b.ReportAllocs()
 		for b.Loop() {
-			if _, _, err := circuit.Energies(s.Solution); err != nil {
+			if _, _, err := study.Energies(s.Solution); err != nil {
 				b.Fatal(err)
 			}
 		}

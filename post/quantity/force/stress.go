@@ -4,10 +4,10 @@ import (
 	"container/heap"
 	"math"
 	"polegap/internal/compsum"
+	"polegap/post/study"
 	"sort"
 
 	"polegap/mesh"
-	"polegap/post/quantity/circuit"
 	"polegap/solver"
 )
 
@@ -93,11 +93,11 @@ func Stress(sol *solver.Solution, part []int32, opt StressOptions) (Force, error
 	}
 	g := weights(m, air, state, band)
 
-	deg := circuit.Degree(m.Order(), p.Formulation)
+	deg := study.QuadDegree(m.Order(), p.Formulation)
 	if p.Formulation == solver.Axisymmetric || m.Order() == 2 {
 		deg = 4 // the stress is quadratic in B; axisymmetric B carries A/r
 	}
-	f := circuit.NewField(sol, deg)
+	f := study.NewQuadField(sol, deg)
 	nq := f.NumPoints()
 	var fx, fy compsum.Sum
 	count := 0
@@ -122,7 +122,7 @@ func Stress(sol *solver.Solution, part []int32, opt StressOptions) (Force, error
 			pt := f.At(t, q)
 			b2 := pt.Bx*pt.Bx + pt.By*pt.By
 			nu, _ := mat.Nu(b2)
-			_, wco := circuit.EnergyDensity(mat, b2)
+			_, wco := study.EnergyDensity(mat, b2)
 			hx, hy := nu*pt.Bx, nu*pt.By
 			hg := hx*gx + hy*gy
 			// −T·∇g with T = B⊗H − w' I.

@@ -5,8 +5,6 @@ import (
 
 	"polegap/post/study"
 	"polegap/solver"
-
-	"polegap/post/quantity/circuit"
 )
 
 // CoEnergy solves the study at the parameter values p and returns its
@@ -17,7 +15,7 @@ func CoEnergy(s *study.Study, p study.Params, opt solver.Options) (float64, erro
 	if err != nil {
 		return 0, err
 	}
-	_, wco, err := circuit.Energies(r.Solution)
+	_, wco, err := study.Energies(r.Solution)
 	return wco, err
 }
 

@@ -1,4 +1,4 @@
-package report
+package figure
 
 import (
 	"bytes"
@@ -63,18 +63,19 @@ func FieldImage(s *study.Result, format string) ([]byte, error) {
 	if err != nil {
 		return nil, err
 	}
-	return bytesOf(c)
+	return Bytes(c)
 }
 
 const fieldWidth = 18.0 // cm, the map; the bar takes 2.5 more
 
 func fieldLayout(s *study.Result) (*gplot.Plot, *gplot.Plot, vg.Length) {
 	p, bar := FieldFigure(s)
-	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = zoom(s)
-	return p, bar, plot.EqualAspectHeight(p, cm(fieldWidth))
+	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = Zoom(s)
+	return p, bar, plot.EqualAspectHeight(p, CM(fieldWidth))
 }
 
-func bytesOf(c io.WriterTo) ([]byte, error) {
+// Bytes renders a canvas (plot.RenderGrid, plot.RenderRow) into memory.
+func Bytes(c io.WriterTo) ([]byte, error) {
 	var buf bytes.Buffer
 	if _, err := c.WriteTo(&buf); err != nil {
 		return nil, err
@@ -82,12 +83,13 @@ func bytesOf(c io.WriterTo) ([]byte, error) {
 	return buf.Bytes(), nil
 }
 
-// zoom returns the drawing window in millimetres: the model's extent with a
+// Zoom returns the drawing window in millimetres: the model's extent with a
 // fifth of its size around it, where the field is worth seeing.
-func zoom(s *study.Result) (x0, x1, y0, y1 float64) {
+func Zoom(s *study.Result) (x0, x1, y0, y1 float64) {
 	xmin, ymin, xmax, ymax := s.Model.Extent()
 	d := 0.2 * math.Max(xmax-xmin, ymax-ymin)
 	return (xmin - d) * 1e3, (xmax + d) * 1e3, (ymin - d) * 1e3, (ymax + d) * 1e3
 }
 
-func cm(v float64) vg.Length { return vg.Length(v) * vg.Centimeter }
+// CM returns v centimetres.
+func CM(v float64) vg.Length { return vg.Length(v) * vg.Centimeter }

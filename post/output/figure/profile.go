@@ -1,14 +1,15 @@
-package gap
+package figure
 
 import (
 	gplot "gonum.org/v1/plot"
 
 	"polegap/post/output/plot"
+	"polegap/post/quantity/gap"
 )
 
-// ProfileFigure returns the plot of a line profile: Bx, By and |B| against
+// Profile returns the plot of a line profile: Bx, By and |B| against
 // the distance along the line (mm). Samples outside the mesh are left out.
-func ProfileFigure(title string, ss []Sample) (*gplot.Plot, error) {
+func Profile(title string, ss []gap.Sample) (*gplot.Plot, error) {
 	var s, bx, by, b []float64
 	for _, v := range ss {
 		if !v.Inside {

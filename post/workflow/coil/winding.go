@@ -1,16 +1,15 @@
-package study
+package coil
 
 import (
 	"fmt"
 	"math"
 
 	"polegap/models"
-	"polegap/post/workflow/coil"
 )
 
 // Winding describes where a model coil's turns lie, for coil sizing.
 type Winding struct {
-	Window coil.Window // one side's cross-section and the mean turn
+	Window Window // one side's cross-section and the mean turn
 	// Windings is the number of separate windings in series that make up
 	// the coil (a C-core's two pole coils: 2); each carries Turns × I.
 	Windings int
@@ -22,7 +21,7 @@ type Winding struct {
 // conductors). The radial build is the side's extent along the line
 // joining the pair's centres, the height its extent across it; the
 // winding wraps the span between the pair's inner edges and the depth, so
-// its mean turn is coil.MeanTurnRect(span, depth, build, 0).
+// its mean turn is MeanTurnRect(span, depth, build, 0).
 // Axisymmetric: each side is one winding of mean radius r, mean turn 2πr.
 func CoilWinding(m *models.Model, c *models.Coil) (Winding, error) {
 	if len(c.Sides) == 0 {
@@ -41,8 +40,8 @@ func CoilWinding(m *models.Model, c *models.Coil) (Winding, error) {
 		return Winding{}, err
 	}
 	if m.Geometry == models.Axisymmetric {
-		w := coil.Window{Width: x1 - x0, Height: y1 - y0}
-		w.MeanTurn = coil.MeanTurnRound(x0, w.Width)
+		w := Window{Width: x1 - x0, Height: y1 - y0}
+		w.MeanTurn = MeanTurnRound(x0, w.Width)
 		return Winding{Window: w, Windings: len(c.Sides)}, nil
 	}
 	if len(c.Sides) < 2 {
@@ -54,18 +53,18 @@ func CoilWinding(m *models.Model, c *models.Coil) (Winding, error) {
 	}
 	dx := math.Abs(0.5*(x0+x1) - 0.5*(u0+u1))
 	dy := math.Abs(0.5*(y0+y1) - 0.5*(v0+v1))
-	var w coil.Window
+	var w Window
 	var span float64
 	if dx >= dy {
-		w = coil.Window{Width: x1 - x0, Height: y1 - y0}
+		w = Window{Width: x1 - x0, Height: y1 - y0}
 		span = math.Max(u0, x0) - math.Min(x1, u1)
 	} else {
-		w = coil.Window{Width: y1 - y0, Height: x1 - x0}
+		w = Window{Width: y1 - y0, Height: x1 - x0}
 		span = math.Max(v0, y0) - math.Min(y1, v1)
 	}
 	if span < 0 {
 		return Winding{}, fmt.Errorf("%s: coil %q: its first two sides overlap in the winding direction", m.File, c.Name)
 	}
-	w.MeanTurn = coil.MeanTurnRect(span, m.Depth, w.Width, 0)
+	w.MeanTurn = MeanTurnRect(span, m.Depth, w.Width, 0)
 	return Winding{Window: w, Windings: len(c.Sides) / 2}, nil
 }

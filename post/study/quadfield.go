@@ -1,16 +1,15 @@
-package circuit
+package study
 
 import (
 	"polegap/mesh"
 	"polegap/solver"
 )
 
-// Field evaluates a solution element by element at the points of a
+// QuadField evaluates a solution element by element at the points of a
 // quadrature rule: the potential, the flux density and the integration
-// weight. It is the kernel shared by the integrals of this package and of
-// package post/force; it holds the tabulated shape functions and never
-// allocates after NewField.
-type Field struct {
+// weight. It is the kernel shared by the integrals of post/quantity (circuit, force); it holds the tabulated shape functions and never
+// allocates after NewQuadField.
+type QuadField struct {
 	Mesh *mesh.Mesh
 	A    []float64
 	Axi  bool
@@ -22,22 +21,22 @@ type Field struct {
 	rg  [][solver.MaxNodes][2]float64
 }
 
-// Point is the field at one quadrature point of one element.
-type Point struct {
+// QuadPoint is the field at one quadrature point of one element.
+type QuadPoint struct {
 	W      float64 // integration weight: area share, times 2π r when axisymmetric (m² or m³)
 	X, Y   float64 // position (m); r, z when axisymmetric
 	A      float64 // potential (Wb/m)
 	Bx, By float64 // flux density (T); Br, Bz when axisymmetric
 }
 
-// NewField prepares the evaluation of sol with the Dunavant rule of degree
+// NewQuadField prepares the evaluation of sol with the Dunavant rule of degree
 // deg (solver.RuleOfDegree). It panics if sol is nil.
-func NewField(sol *solver.Solution, deg int) *Field {
+func NewQuadField(sol *solver.Solution, deg int) *QuadField {
 	if sol == nil || sol.Problem == nil || sol.Problem.Mesh == nil {
 		panic(errNilSolution)
 	}
 	m := sol.Problem.Mesh
-	f := &Field{Mesh: m, A: sol.A, Axi: sol.Problem.Formulation == solver.Axisymmetric, Rule: solver.RuleOfDegree(deg)}
+	f := &QuadField{Mesh: m, A: sol.A, Axi: sol.Problem.Formulation == solver.Axisymmetric, Rule: solver.RuleOfDegree(deg)}
 	if m.Order() == 2 {
 		f.el = solver.P2{}
 	} else {
@@ -55,13 +54,13 @@ func NewField(sol *solver.Solution, deg int) *Field {
 }
 
 // Order returns the polynomial degree of the mesh's elements (1 or 2).
-func (f *Field) Order() int { return f.el.Degree() }
+func (f *QuadField) Order() int { return f.el.Degree() }
 
 // NumPoints returns the number of quadrature points per element.
-func (f *Field) NumPoints() int { return f.Rule.NumPoints() }
+func (f *QuadField) NumPoints() int { return f.Rule.NumPoints() }
 
 // At returns the field at quadrature point q of triangle t.
-func (f *Field) At(t, q int) Point {
+func (f *QuadField) At(t, q int) QuadPoint {
 	m := f.Mesh
 	i0, i1, i2 := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
 	x0, y0 := m.X[i0], m.Y[i0]
@@ -70,7 +69,7 @@ func (f *Field) At(t, q int) Point {
 	det := ja*jd - jb*jc
 	inv := 1 / det
 	xi, eta := f.Rule.Point(q)
-	p := Point{X: x0 + ja*xi + jb*eta, Y: y0 + jc*xi + jd*eta, W: f.Rule.W[q] * 0.5 * det}
+	p := QuadPoint{X: x0 + ja*xi + jb*eta, Y: y0 + jc*xi + jd*eta, W: f.Rule.W[q] * 0.5 * det}
 	var nodes [solver.MaxNodes]int32
 	nodes[0], nodes[1], nodes[2] = i0, i1, i2
 	if f.nn == 6 {

@@ -1,4 +1,4 @@
-package compare
+package figure
 
 import (
 	"image/color"
@@ -9,12 +9,13 @@ import (
 	"gonum.org/v1/plot/vg"
 
 	"polegap/post/output/plot"
+	"polegap/post/workflow/compare"
 )
 
-// Figure returns the plot of a comparison: measured points with their
+// Comparison returns the plot of a comparison: measured points with their
 // standard-uncertainty error bars, the predicted curve, and (when fit is
 // not nil) the curve of the calibrated model.
-func Figure(title string, r *Result, fit *Fit) (*gplot.Plot, error) {
+func Comparison(title string, r *compare.Result, fit *compare.Fit) (*gplot.Plot, error) {
 	type pt struct{ i, m, s, p, f float64 }
 	pts := make([]pt, len(r.Residuals))
 	for k, res := range r.Residuals {

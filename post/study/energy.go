@@ -1,4 +1,4 @@
-package circuit
+package study
 
 import (
 	"math"
@@ -9,12 +9,12 @@ import (
 
 const twoPi = 2 * math.Pi
 
-// Degree returns the Dunavant rule degree the solver uses for the
+// QuadDegree returns the Dunavant rule degree the solver uses for the
 // stiffness of a mesh of this order and formulation: 1 (P1) or 2 (P2)
 // planar, 4 axisymmetric. The energies here use the same rule, so they
 // are the energies of the discrete problem that was solved (and the
 // identities W = λI/2 of a linear model hold to rounding).
-func Degree(order int, f solver.Formulation) int {
+func QuadDegree(order int, f solver.Formulation) int {
 	switch {
 	case f == solver.Axisymmetric:
 		return 4
@@ -119,7 +119,7 @@ func Energies(sol *solver.Solution) (w, wco float64, err error) {
 		panic(errNilSolution)
 	}
 	p := sol.Problem
-	f := NewField(sol, Degree(p.Mesh.Order(), p.Formulation))
+	f := NewQuadField(sol, QuadDegree(p.Mesh.Order(), p.Formulation))
 	var sw, sc compsum.Sum
 	nq := f.NumPoints()
 	bs := make([][]float64, len(p.Materials))

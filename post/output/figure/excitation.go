@@ -1,19 +1,21 @@
-package sweep
+package figure
 
 import (
 	"math"
 
 	gplot "gonum.org/v1/plot"
 
+	"polegap/materials"
 	"polegap/post/output/plot"
+	"polegap/post/workflow/sweep"
 )
 
-// Figures returns the excitation-curve plots: the field against
+// Excitation returns the excitation-curve plots: the field against
 // ampere-turns with the ideal line μ0 NI/g (infinitely permeable iron, no
 // fringing) when the gap length g is known, and the magnet efficiency
 // B g/(μ0 NI) against ampere-turns (nil without g). Measured points, if
 // any, are overlaid as markers.
-func Figures(title string, pts []Point, gap float64, measured ...plot.Series) (*gplot.Plot, *gplot.Plot, error) {
+func Excitation(title string, pts []sweep.Point, gap float64, measured ...plot.Series) (*gplot.Plot, *gplot.Plot, error) {
 	ni := make([]float64, len(pts))
 	b := make([]float64, len(pts))
 	for i, p := range pts {
@@ -25,7 +27,7 @@ func Figures(title string, pts []Point, gap float64, measured ...plot.Series) (*
 		for _, v := range ni {
 			hi = math.Max(hi, v)
 		}
-		series = append(series, plot.Series{Name: "ideal μ0 NI/g", X: []float64{0, hi}, Y: []float64{0, mu0 * hi * 1e3 / gap}, Dashed: true})
+		series = append(series, plot.Series{Name: "ideal μ0 NI/g", X: []float64{0, hi}, Y: []float64{0, materials.Mu0 * hi * 1e3 / gap}, Dashed: true})
 	}
 	series = append(series, measured...)
 	bp, err := plot.LineFigure(title+": excitation curve", "ampere-turns (kA)", "field (T)", series...)
