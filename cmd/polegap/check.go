@@ -6,6 +6,8 @@ import (
 	"polegap/models"
 	"polegap/post/output/report"
 	"polegap/post/study"
+	"polegap/post/workflow/check"
+	"polegap/post/workflow/design"
 )
 
 var cmdCheck = &Command{
@@ -31,7 +33,7 @@ can use it.`,
 			if err := oneModel(args); err != nil {
 				return err
 			}
-			var opt report.CheckOptions
+			var opt check.CheckOptions
 			var err error
 			if *satLimit != "" {
 				if opt.SaturationLimit, err = models.ParseQuantity(*satLimit, "field"); err != nil {
@@ -52,11 +54,11 @@ can use it.`,
 			if err != nil {
 				return exitError{2, err}
 			}
-			c := report.NewCheck(s, report.NewDesign(s, report.DesignOptions{}), opt)
+			c := check.NewCheck(s, design.NewDesign(s, design.DesignOptions{}), opt)
 			if *asJSON {
 				err = writeJSON(env.Stdout, c)
 			} else {
-				err = c.WriteText(env.Stdout)
+				err = report.WriteCheck(env.Stdout, c)
 			}
 			if err != nil {
 				return exitError{2, err}

@@ -12,6 +12,7 @@ import (
 	"polegap/models"
 	"polegap/post/output/report"
 	"polegap/post/workflow/coil"
+	"polegap/post/workflow/demo"
 )
 
 var cmdDemo = &Command{
@@ -48,26 +49,30 @@ on a new machine; it takes well under a minute.`,
 			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
 			defer stop()
 			start := time.Now()
-			run, err := report.RunAll(ctx, m, report.RunOptions{Cooling: coil.Water,
+			run, err := demo.RunAll(ctx, m, demo.RunOptions{Cooling: coil.Water,
 				Progress: func(stage string) { fmt.Fprintf(env.Stderr, "polegap demo: %s...\n", stage) }})
 			if err != nil {
 				return err
 			}
-			b := run.Bundle
-			if err := b.Report.WriteText(env.Stdout); err != nil {
+			if err := report.WriteText(env.Stdout, run.Report); err != nil {
 				return err
 			}
 			fmt.Fprintln(env.Stdout)
-			if err := b.Check.WriteText(env.Stdout); err != nil {
+			if err := report.WriteCheck(env.Stdout, run.Check); err != nil {
 				return err
 			}
-			if b.Sizing != nil {
+			if run.Sizing != nil {
 				fmt.Fprintln(env.Stdout)
-				if err := b.Sizing.WriteSummary(env.Stdout); err != nil {
+				if err := report.WriteSizingSummary(env.Stdout, run.Sizing); err != nil {
 					return err
 				}
 			}
-			names, err := run.WriteFolder(*out)
+			fmt.Fprintf(env.Stderr, "polegap demo: drawing...\n")
+			b, err := report.NewBundle(run)
+			if err != nil {
+				return err
+			}
+			names, err := report.WriteFolder(*out, run, b)
 			if err != nil {
 				return err
 			}

@@ -106,7 +106,7 @@ the cautions printed with the result apply.`,
 				return err
 			}
 			opts := coil.Options(spec, table)
-			s := report.NewSizing(m.Name, pname, &res, w, spec, opts)
+			s := coil.NewSizing(m.Name, pname, &res, w, spec, opts)
 			if *csvOut != "" {
 				if err := fileout.Write(*csvOut, func(w io.Writer) error { return coil.WriteCSV(w, opts) }); err != nil {
 					return err
@@ -115,7 +115,7 @@ the cautions printed with the result apply.`,
 			if *asJSON {
 				return writeJSON(env.Stdout, s)
 			}
-			return s.WriteText(env.Stdout)
+			return report.WriteSizing(env.Stdout, s)
 		}
 	},
 }

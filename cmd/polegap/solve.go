@@ -9,6 +9,7 @@ import (
 	"polegap/internal/fileout"
 	"polegap/models"
 	"polegap/post/workflow/adapt"
+	"polegap/post/workflow/design"
 
 	"polegap/post/output/figure"
 	"polegap/post/output/report"
@@ -64,7 +65,7 @@ with status 1; no result is reported for it.`,
 			if err != nil {
 				return err
 			}
-			dopt := report.DesignOptions{Incremental: true, VirtualWork: *vw}
+			dopt := design.DesignOptions{Incremental: true, VirtualWork: *vw}
 			if *satLimit != "" {
 				if dopt.SaturationLimit, err = models.ParseQuantity(*satLimit, "field"); err != nil {
 					return usagef("--saturation-limit: %v", err)
@@ -94,7 +95,7 @@ with status 1; no result is reported for it.`,
 			} else if s, err = study.Run(m, study.Options{Solver: solver.Options{Tol: *tol, MaxIter: *maxIter}}); err != nil {
 				return err
 			}
-			r := report.New(s, dopt)
+			r := design.New(s, dopt)
 			if *vtuPath != "" {
 				if err := fileout.Write(*vtuPath, func(w io.Writer) error { return vtu.WriteVTU(w, s.Solution, vtu.Options{}) }); err != nil {
 					return err
@@ -108,7 +109,7 @@ with status 1; no result is reported for it.`,
 			if *asJSON {
 				return writeJSON(env.Stdout, r)
 			}
-			return r.WriteText(env.Stdout)
+			return report.WriteText(env.Stdout, r)
 		}
 	},
 }

@@ -7,7 +7,9 @@ import (
 	"io"
 	"time"
 
+	"polegap/post/workflow/check"
 	"polegap/post/workflow/coil"
+	"polegap/post/workflow/design"
 	"polegap/post/workflow/sweep"
 )
 
@@ -20,10 +22,10 @@ type Image struct {
 // Bundle is everything a full design run produced, for the HTML report.
 // Any part but Report may be nil.
 type Bundle struct {
-	Report *Report
-	Check  *Check
+	Report *design.Report
+	Check  *check.Check
 	Sweep  []sweep.Point
-	Sizing *Sizing
+	Sizing *coil.Sizing
 	Images []Image
 	When   time.Time
 }

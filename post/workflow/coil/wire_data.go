@@ -224,3 +224,13 @@ func HollowWires() []Wire {
 	}
 	return out
 }
+
+// DefaultWires returns the wire table a cooling calls for when none is
+// chosen: hollow conductors for water cooling, IEC 60317 round enamelled
+// wire (R20 series, grade 2) otherwise.
+func DefaultWires(c Cooling) []Wire {
+	if c == Water {
+		return HollowWires()
+	}
+	return IECWires(R20, Grade2)
+}

@@ -1,0 +1,135 @@
+package check
+
+import (
+	"fmt"
+	"math"
+
+	"polegap/materials"
+	"polegap/post/study"
+	"polegap/post/workflow/design"
+)
+
+// DefaultMinMuR sets the default saturation limit of an iron region: the
+// flux density at which its relative permeability has fallen to this
+// value. Above it the iron starts to take a noticeable share of the
+// ampere-turns (common practice; about 1.9 T for low-carbon steel).
+const DefaultMinMuR = 100
+
+// CheckOptions are the requirements a design is checked against.
+type CheckOptions struct {
+	// SaturationLimit (T) applies to every iron region; 0 means each
+	// region's curve's flux density at μr = DefaultMinMuR.
+	SaturationLimit float64
+	// Tolerance and HalfWidth (m): the field must stay within Tolerance
+	// of the centre value over ±HalfWidth along the mid-plane line probe.
+	// Zero skips the check.
+	Tolerance, HalfWidth float64
+}
+
+// CheckItem is one requirement and how the design meets it.
+type CheckItem struct {
+	What  string  `json:"what"`
+	Value float64 `json:"value"`
+	Limit float64 `json:"limit"`
+	Unit  string  `json:"unit"`
+	Pass  bool    `json:"pass"`
+	Note  string  `json:"note,omitempty"`
+}
+
+// Check is the outcome of checking a solved design.
+type Check struct {
+	Model    string               `json:"model"`
+	Items    []CheckItem          `json:"items"`
+	Fringing *design.FringeReport `json:"fringing,omitempty"`
+	Pass     bool                 `json:"pass"`
+}
+
+// NewCheck checks the design quantities of a solved study against the
+// requirements: saturation of each iron region (largest |B| away from
+// re-entrant corners), the target field at its probe, and the good-field
+// half-width when asked.
+func NewCheck(s *study.Result, d *design.Design, opt CheckOptions) *Check {
+	c := &Check{Model: s.Model.Name, Fringing: d.Fringing, Pass: true}
+	add := func(it CheckItem) {
+		c.Items = append(c.Items, it)
+		c.Pass = c.Pass && it.Pass
+	}
+	m := s.Model
+	for _, sr := range d.Saturation {
+		limit := opt.SaturationLimit
+		note := "limit given"
+		if limit == 0 {
+			r, _ := m.Region(sr.Region)
+			mat, _, _ := study.Material(m, r)
+			if cv, ok := mat.(*materials.Curve); ok {
+				limit = BAtMuR(cv, DefaultMinMuR)
+				note = fmt.Sprintf("limit where μr falls to %d", DefaultMinMuR)
+			}
+		}
+		if sr.MaxAtCorner {
+			note += "; the raw maximum sits at a corner and is mesh-dependent, not checked"
+		}
+		add(CheckItem{What: "saturation of " + sr.Region, Value: sr.MaxAway, Limit: limit, Unit: "T", Pass: sr.MaxAway <= limit, Note: note})
+	}
+	if m.Target != nil {
+		for _, p := range s.Probes {
+			if p.Name != m.Target.Probe {
+				continue
+			}
+			v := p.Stats.Mean
+			if p.Kind == "point" {
+				v = p.Point.B()
+			}
+			add(CheckItem{What: "field at " + p.Name, Value: v, Limit: m.Target.Field, Unit: "T", Pass: v >= m.Target.Field*(1-1e-4),
+				Note: "must reach the model's target at the model's currents"})
+		}
+	}
+	if opt.Tolerance > 0 && opt.HalfWidth > 0 {
+		it := CheckItem{What: fmt.Sprintf("good-field half-width at |ΔB/B0| < %.0e", opt.Tolerance), Limit: opt.HalfWidth, Unit: "m"}
+		if d.Uniformity == nil || d.Uniformity.Line == "" {
+			it.Note = "no line probe through the gap centre to measure it on"
+		} else {
+			// Walk the requested tolerance on the stored profile.
+			found := false
+			for _, h := range d.Uniformity.HalfWidths {
+				if math.Abs(h.Tol-opt.Tolerance) <= 1e-12*opt.Tolerance {
+					it.Value, it.Pass, found = h.HalfWidth, h.HalfWidth >= opt.HalfWidth, true
+				}
+			}
+			if !found {
+				it.Note = "tolerance not among those computed (1e-3, 1e-4)"
+			}
+		}
+		add(it)
+	}
+	return c
+}
+
+// BAtMuR returns the flux density above the curve's steepest point at
+// which its relative permeability falls to mur (bisection; the curve's μr
+// decreases monotonically there towards 1).
+func BAtMuR(c *materials.Curve, mur float64) float64 {
+	// Start at the peak of μr, found on a coarse scan.
+	lo, best := 0.0, 0.0
+	for b := 0.05; b < 3; b += 0.05 {
+		if v := c.MuR(b); v > best {
+			best, lo = v, b
+		}
+	}
+	if best <= mur {
+		return lo
+	}
+	hi := lo
+	for c.MuR(hi) > mur && hi < 10 {
+		hi += 0.1
+	}
+	for i := 0; i < 60; i++ {
+		mid := 0.5 * (lo + hi)
+		if c.MuR(mid) > mur {
+			lo = mid
+		} else {
+			hi = mid
+		}
+	}
+	return 0.5 * (lo + hi)
+}

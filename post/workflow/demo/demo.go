@@ -1,0 +1,106 @@
+package demo
+
+import (
+	"context"
+	"time"
+
+	"polegap/models"
+	"polegap/post/study"
+	"polegap/post/workflow/check"
+	"polegap/post/workflow/coil"
+	"polegap/post/workflow/design"
+	"polegap/post/workflow/sweep"
+	"polegap/post/workflow/target"
+)
+
+// RunOptions control a full design run.
+type RunOptions struct {
+	SweepPoints int          // default 20, from 1/SweepPoints to 2× the model's current
+	Cooling     coil.Cooling // for the coil sizing
+	Progress    func(stage string)
+}
+
+// Run is a full design run of one model: the solve with its design
+// quantities and check, an excitation curve, and the ampere-turns and coil
+// for the model's target. Any part but Result, Report and Check may be
+// nil.
+type Run struct {
+	Result *study.Result
+	Report *design.Report
+	Check  *check.Check
+	Sweep  []sweep.Point
+	Sizing *coil.Sizing
+	When   time.Time
+}
+
+// RunAll does the whole design job on a model.
+func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) {
+	if opt.SweepPoints <= 0 {
+		opt.SweepPoints = 20
+	}
+	say := func(s string) {
+		if opt.Progress != nil {
+			opt.Progress(s)
+		}
+	}
+	say("solving")
+	s, err := study.Run(m, study.Options{})
+	if err != nil {
+		return nil, err
+	}
+	r := design.New(s, design.DesignOptions{Incremental: true})
+	b := &Run{Result: s, Report: r, When: time.Now()}
+	b.Check = check.NewCheck(s, r.Design, check.CheckOptions{})
+	// One runner on the solved mesh serves the curve and the target
+	// search, which starts from the bracket the curve gives.
+	var rn *sweep.Runner
+	runner := func(probe string) (*sweep.Runner, error) {
+		if rn == nil || rn.ProbeName() != probe && probe != "" {
+			var err error
+			if rn, err = sweep.NewRunnerFrom(s, "", probe); err != nil {
+				return nil, err
+			}
+		}
+		return rn, nil
+	}
+	if len(m.Coils) > 0 && m.Coils[0].Current != 0 {
+		say("sweeping the excitation curve")
+		hi := 2 * m.Coils[0].Current
+		r, err := runner("")
+		if err != nil {
+			return nil, err
+		}
+		pts, err := r.Sweep(ctx, sweep.Options{Currents: sweep.Range(hi/float64(opt.SweepPoints), hi, opt.SweepPoints), GapLength: m.Gap})
+		if err != nil {
+			return nil, err
+		}
+		b.Sweep = pts
+	}
+	if m.Target != nil && len(m.Coils) > 0 {
+		say("finding the ampere-turns for the target")
+		known := b.Sweep
+		if rn != nil && m.Target.Probe != "" && rn.ProbeName() != m.Target.Probe {
+			known = nil // the curve reads another probe
+		}
+		r, err := runner(m.Target.Probe)
+		if err != nil {
+			return nil, err
+		}
+		res, err := target.Search(ctx, r, m.Target.Field, target.Options{GapLength: m.Gap, Known: known})
+		if err != nil && !target.IsUnreachable(err) {
+			return nil, err
+		}
+		if err == nil {
+			w, werr := coil.CoilWinding(m, &m.Coils[0])
+			if werr == nil {
+				spec := coil.Spec{AmpereTurns: res.AmpereTurns, Window: w.Window, Cooling: opt.Cooling,
+					FillFactor: m.Coils[0].FillFactor, Temperature: m.Coils[0].Temperature,
+					SupplyVoltage: m.Coils[0].SupplyVoltage, SupplyCurrent: m.Coils[0].SupplyCurrent}
+				if spec.Validate() == nil {
+					b.Sizing = coil.NewSizing(m.Name, m.Target.Probe, &res, w, spec, coil.Options(spec, coil.DefaultWires(opt.Cooling)))
+				}
+			}
+		}
+	}
+	return b, nil
+}
