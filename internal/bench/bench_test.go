@@ -3,8 +3,6 @@ package bench
 import (
 	"context"
 	"flag"
-	"fmt"
-	"os"
 	"testing"
 )
 
@@ -61,31 +59,5 @@ func BenchmarkDesign(b *testing.B) {
 			b.ReportMetric(float64(sum.PeakHeap)/(1<<20), "MiB-peak-heap")
 			b.ReportMetric(sum.BytesPerNode/n, "B/node-w/o-factor")
 		})
-	}
-}
-
-var tableSizes = flag.String("bench.table", "", "print the full bench table for these first-order sizes (e.g. 10k,100k,1M), as `polegap bench` does")
-
-// TestPrintTable prints the table of `polegap bench` when -bench.table is
-// given; it is skipped otherwise (no timings in ordinary tests).
-func TestPrintTable(t *testing.T) {
-	if *tableSizes == "" {
-		t.Skip("run with -bench.table 10k,100k,1M")
-	}
-	sizes, err := ParseSizes(*tableSizes)
-	if err != nil {
-		t.Fatal(err)
-	}
-	tab, err := Run(context.Background(), Cases(sizes, 100_000, false, false), Options{
-		Progress: func(c Case, s string) { t.Logf("%s: %s", c.Name, s) },
-		Done:     func(r Result) { fmt.Fprintf(os.Stderr, "%+v\n", r) }})
-	if err != nil {
-		t.Fatal(err)
-	}
-	if err := tab.WriteText(os.Stdout); err != nil {
-		t.Fatal(err)
-	}
-	if err := tab.WriteJSON(os.Stdout); err != nil {
-		t.Fatal(err)
 	}
 }

@@ -35,10 +35,15 @@ func allWires() []Wire {
 	return ws
 }
 
-// checkIdentities asserts the relations every option must satisfy (see
-// Options): N I = NI, J = I/A, V = I R, P = I² R = ρ J² V_Cu,
-// P = ρ (NI)² l / (fill W H), mass = density V_Cu. Tolerance 1e-12
-// relative: a few float roundings.
+// checkIdentities asserts relations every option must satisfy, each by a
+// route other than the one Options computes it by (which goes through the
+// resistance R = ρ L / A): Ohm's law in its local form E = ρ J integrated
+// along the wire, V = ρ J L with L = N × mean turn; Joule heating as the
+// volume integral P = ρ J² V_Cu and, from the window alone,
+// P = ρ (NI)² l / (fill W H) (e.g. D. B. Montgomery, Solenoid Magnet
+// Design, 1969, ch. 1, the power-window relation, from memory); N I = NI;
+// J = I/A;
+// mass = density × V_Cu. Tolerance 1e-12 relative: a few float roundings.
 func checkIdentities(t *testing.T, name string, s Spec, opts []Option) {
 	t.Helper()
 	d := s.withDefaults()
@@ -61,8 +66,7 @@ func checkIdentities(t *testing.T, name string, s Spec, opts []Option) {
 		}{
 			{"N I = NI", float64(o.Turns) * o.Current, s.AmpereTurns},
 			{"J = I/A", o.CurrentDensity, o.Current / a},
-			{"V = I R", o.Voltage, o.Current * o.Resistance},
-			{"P = I² R", o.Power, o.Current * o.Current * o.Resistance},
+			{"V = ρ J N l", o.Voltage, rho * o.CurrentDensity * float64(o.Turns) * s.Window.MeanTurn},
 			{"P = ρ J² V_Cu", o.Power, rho * o.CurrentDensity * o.CurrentDensity * vcu},
 			{"P = ρ (NI)² l / (fill W H)", o.Power, rho * s.AmpereTurns * s.AmpereTurns * s.Window.MeanTurn / (o.CopperFill * s.Window.Area())},
 			{"m = density V_Cu", o.Mass, CopperDensity * vcu},
