@@ -5,7 +5,6 @@ import (
 	"strconv"
 	"testing"
 
-	"polegap/materials"
 	"polegap/models"
 	"polegap/post/quantity/circuit"
 	"polegap/post/study"
@@ -131,42 +130,6 @@ func TestSaturating(t *testing.T) {
 	t.Logf("apparent %.6g H, incremental %.6g H, W %.6g J, W' %.6g J", L, inc[0], w, wco)
 	if !(inc[0] < L) || !(inc[0] > 0) {
 		t.Errorf("saturated: incremental %g H should be positive and below apparent %g H", inc[0], L)
-	}
-}
-
-// TestEnergyDensity checks w = ∫₀^B H dB of a built-in B-H curve against
-// a composite trapezoid rule with 200 000 steps (error O(h²) ≈ 1e-10
-// relative), and w + w' = B·H (Legendre transform: w' = ∫₀^H B dH = BH − w
-// for a monotone curve). Linear material: w = B²/(2μ0μr) exactly.
-func TestEnergyDensity(t *testing.T) {
-	steel, _, ok := materials.Lookup("low-carbon-steel")
-	if !ok {
-		t.Fatal("no low-carbon-steel in the library")
-	}
-	for _, b := range []float64{0.3, 1.2, 1.8, 2.4, 3} {
-		w, wco := study.EnergyDensity(steel, b*b)
-		const n = 200000
-		var ref float64
-		for k := 0; k < n; k++ {
-			b0, b1 := b*float64(k)/n, b*float64(k+1)/n
-			n0, _ := steel.Nu(b0 * b0)
-			n1, _ := steel.Nu(b1 * b1)
-			ref += 0.5 * (n0*b0 + n1*b1) * (b1 - b0)
-		}
-		// 1e-7: 3-point Gauss–Legendre on 0.02 T panels of a piecewise
-		// cubic curve whose breaks fall inside panels.
-		if e := relErr(w, ref); e > 1e-7 {
-			t.Errorf("B = %g T: w = %.10g, reference %.10g (rel %.2g)", b, w, ref, e)
-		}
-		nu, _ := steel.Nu(b * b)
-		if e := relErr(w+wco, nu*b*b); e > 1e-14 {
-			t.Errorf("B = %g T: w + w' = %g, B·H = %g", b, w+wco, nu*b*b)
-		}
-	}
-	lin := materials.Linear{MuR: 1000}
-	w, wco := study.EnergyDensity(lin, 4)
-	if want := 4 / (2 * mu0 * 1000); relErr(w, want) > 1e-15 || wco != w {
-		t.Errorf("linear: w = %g, w' = %g, want %g", w, wco, want)
 	}
 }
 
