@@ -1,11 +1,8 @@
 package main
 
 import (
-	"context"
 	"flag"
 	"fmt"
-	"os"
-	"os/signal"
 	"path/filepath"
 	"time"
 
@@ -45,10 +42,8 @@ on a new machine; it takes well under a minute.`,
 			if err != nil {
 				return err
 			}
-			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
-			defer stop()
 			start := time.Now()
-			run, err := report.RunAll(ctx, m, report.RunOptions{Cooling: coil.Water,
+			run, err := report.RunAll(env.Ctx, m, report.RunOptions{Cooling: coil.Water,
 				Progress: func(stage string) { fmt.Fprintf(env.Stderr, "polegap demo: %s...\n", stage) }})
 			if err != nil {
 				return err

@@ -100,8 +100,7 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 					FillFactor: m.Coils[0].FillFactor, Temperature: m.Coils[0].Temperature,
 					SupplyVoltage: m.Coils[0].SupplyVoltage, SupplyCurrent: m.Coils[0].SupplyCurrent}
 				if spec.Validate() == nil {
-					table, _ := Wires("auto", opt.Cooling)
-					b.Sizing = NewSizing(m.Name, m.Target.Probe, &res, w, spec, coil.Options(spec, table))
+					b.Sizing = NewSizing(m.Name, m.Target.Probe, &res, w, spec, coil.Options(spec, coil.DefaultWires(opt.Cooling)))
 				}
 			}
 		}
