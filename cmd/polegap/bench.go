@@ -1,11 +1,8 @@
 package main
 
 import (
-	"context"
 	"flag"
 	"fmt"
-	"os"
-	"os/signal"
 
 	"polegap/internal/bench"
 )
@@ -66,14 +63,12 @@ Progress goes to standard error; --json prints the table as JSON.`,
 				}
 				n2 = o2[0]
 			}
-			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
-			defer stop()
 			opt := bench.Options{Repeat: *repeat, Progress: func(c bench.Case, stage string) {
 				fmt.Fprintf(env.Stderr, "bench: %s (%d nodes, order %d): %s\n", c.Name, c.Nodes, c.Order, stage)
 			}, Done: func(r bench.Result) {
 				fmt.Fprintf(env.Stderr, "bench: %s done: %d nodes, mesh %.3g s, linear %.3g s, nonlinear %.3g s\n", r.Case, r.Nodes, r.Mesh, r.Linear, r.Nonlinear)
 			}}
-			t, err := bench.Run(ctx, bench.Cases(ns, n2, *curveAll, *pcgAll), opt)
+			t, err := bench.Run(env.Ctx, bench.Cases(ns, n2, *curveAll, *pcgAll), opt)
 			if err != nil {
 				return err
 			}

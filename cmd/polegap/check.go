@@ -3,7 +3,6 @@ package main
 import (
 	"flag"
 
-	"polegap/models"
 	"polegap/post/output/report"
 	"polegap/post/study"
 	"polegap/post/workflow/check"
@@ -19,38 +18,29 @@ var cmdCheck = &Command{
 has fallen to μr = 100), the field at the target probe against the
 model's target, and, with --tolerance and --half-width, that the field
 stays within the tolerance of its centre value over ±half-width along the
-mid-plane line probe. The fringing factor is printed for information.
+mid-plane line probe. A --half-width without a unit is in the model's
+units. The fringing factor is printed for information.
 
 The exit status is 0 when every check passes, 1 when one fails and 2 on
 an error (a bad model, a solve that did not converge), so that scripts
 can use it.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
-		satLimit := fs.String("saturation-limit", "", "limit on |B| in the iron (e.g. 1.8T); default per curve")
+		satLimit := quantity(fs, "saturation-limit", field, "limit on |B| in the iron (e.g. 1.8T); default per curve")
 		tol := fs.Float64("tolerance", 0, "field-uniformity tolerance |ΔB/B0| (1e-3 or 1e-4)")
-		half := fs.String("half-width", "", "half-width over which the tolerance must hold (e.g. 30mm)")
+		half := quantity(fs, "half-width", length, "half-width over which the tolerance must hold (e.g. 30mm)")
+		half.metresBefore = true
 		asJSON := fs.Bool("json", false, "print the check as JSON")
 		return func(env *Env, args []string) error {
 			if err := oneModel(args); err != nil {
 				return err
 			}
-			var opt check.CheckOptions
-			var err error
-			if *satLimit != "" {
-				if opt.SaturationLimit, err = models.ParseQuantity(*satLimit, "field"); err != nil {
-					return usagef("--saturation-limit: %v", err)
-				}
-			}
-			if *half != "" {
-				if opt.HalfWidth, err = models.ParseQuantity(*half, "length"); err != nil {
-					return usagef("--half-width: %v", err)
-				}
-			}
-			opt.Tolerance = *tol
 			m, err := loadModel(args[0])
 			if err != nil {
 				return exitError{2, err}
 			}
-			s, err := study.Run(m, study.Options{})
+			half.noteBare(env.Stderr, m)
+			opt := check.CheckOptions{SaturationLimit: satLimit.SI(m), Tolerance: *tol, HalfWidth: half.SI(m)}
+			s, err := runStudy(env.Ctx, m, study.Options{})
 			if err != nil {
 				return exitError{2, err}
 			}

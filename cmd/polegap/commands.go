@@ -1,11 +1,13 @@
 package main
 
 import (
+	"context"
 	"flag"
 	"fmt"
 	"os"
 
 	"polegap/models"
+	"polegap/post/study"
 )
 
 // commands is the table of sub-commands, in the order help lists them.
@@ -57,6 +59,20 @@ func oneModel(args []string) error {
 		return nil
 	}
 	return usagef("too many arguments: %q", args[1:])
+}
+
+// runStudy meshes, solves and probes m (study.Run). study.Run takes no
+// context, so a Ctrl-C during it takes effect when it returns: the
+// command then stops before it prints or writes anything.
+func runStudy(ctx context.Context, m *models.Model, opt study.Options) (*study.Result, error) {
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
+	s, err := study.Run(m, opt)
+	if err != nil {
+		return nil, err
+	}
+	return s, ctx.Err()
 }
 
 var cmdExamples = &Command{

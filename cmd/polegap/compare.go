@@ -1,11 +1,9 @@
 package main
 
 import (
-	"context"
 	"flag"
+	"fmt"
 	"io"
-	"os"
-	"os/signal"
 
 	"gonum.org/v1/plot/vg"
 
@@ -26,7 +24,8 @@ predicted, absolute and relative, their RMS and maximum).
 MEASURED is a plain CSV with a header row (coil current and field, e.g.
 "current_A,field_T", optionally an uncertainty column "sigma_T"; mT and G
 are converted; or "current_A,flux_Wb" for search-coil flux-linkage
-readings, which need --turns-area), or a raw-readings file in polegap's
+readings, which need --turns-area: the search coil's turns × area, e.g.
+0.5m2, a bare number in the model's units squared), or a raw-readings file in polegap's
 measured-data format (current balance or search coil readings with their
 instrument constants, reduced to B with uncertainties; see
 post/measure/FORMAT.md).
@@ -38,7 +37,8 @@ plausible for a built magnet. --png draws both curves with the measured
 points' error bars; --csv writes the residual table.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		fit := fs.String("fit", "", "calibrate this parameter: gap, iron or turns")
-		na := fs.Float64("turns-area", 0, "search-coil turns × area (m²) for flux-linkage curves")
+		na := quantity(fs, "turns-area", area, "search-coil turns × area (e.g. 0.5m2) for flux-linkage curves")
+		na.metresBefore = true
 		coilName := fs.String("coil", "", "the coil whose current was measured (default the first)")
 		probe := fs.String("probe", "", "the probe where the field was measured (default the target's)")
 		png := fs.String("png", "", "draw the comparison to this .png or .svg file")
@@ -48,28 +48,31 @@ points' error bars; --csv writes the residual table.`,
 			if len(args) != 2 {
 				return usagef("compare needs MODEL and MEASURED")
 			}
+			param, err := parseParameter(*fit)
+			if err != nil {
+				return usagef("--fit: %v", err)
+			}
 			m, err := loadModel(args[0])
 			if err != nil {
 				return err
 			}
+			na.noteBare(env.Stderr, m)
 			curve, err := measure.Load(args[1])
 			if err != nil {
 				return err
 			}
-			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
-			defer stop()
-			opt := compare.Options{Coil: *coilName, Probe: *probe, TurnsArea: *na}
+			opt := compare.Options{Coil: *coilName, Probe: *probe, TurnsArea: na.SI(m)}
 			out := struct {
 				Model    string          `json:"model"`
 				Measured string          `json:"measured"`
 				Result   *compare.Result `json:"comparison"`
 				Fit      *compare.Fit    `json:"calibration,omitempty"`
 			}{Model: m.Name, Measured: args[1]}
-			if out.Result, err = compare.Compare(ctx, m, curve, opt); err != nil {
+			if out.Result, err = compare.Compare(env.Ctx, m, curve, opt); err != nil {
 				return err
 			}
-			if *fit != "" {
-				if out.Fit, err = compare.Calibrate(ctx, m, curve, compare.Parameter(*fit), opt); err != nil {
+			if param != "" {
+				if out.Fit, err = compare.Calibrate(env.Ctx, m, curve, param, opt); err != nil {
 					return err
 				}
 			}
@@ -93,4 +96,13 @@ points' error bars; --csv writes the residual table.`,
 			return compare.WriteText(env.Stdout, m.Name, args[1], out.Result, out.Fit)
 		}
 	},
+}
+
+// parseParameter reads the --fit flag: "" (no fit), gap, iron or turns.
+func parseParameter(s string) (compare.Parameter, error) {
+	switch p := compare.Parameter(s); p {
+	case "", compare.Gap, compare.Iron, compare.Turns:
+		return p, nil
+	}
+	return "", fmt.Errorf("unknown parameter %q: use gap, iron or turns", s)
 }

@@ -1,11 +1,8 @@
 package main
 
 import (
-	"context"
 	"flag"
 	"fmt"
-	"os"
-	"os/signal"
 	"path/filepath"
 	"time"
 
@@ -46,10 +43,8 @@ on a new machine; it takes well under a minute.`,
 			if err != nil {
 				return err
 			}
-			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
-			defer stop()
 			start := time.Now()
-			run, err := demo.RunAll(ctx, m, demo.RunOptions{Cooling: coil.Water,
+			run, err := demo.RunAll(env.Ctx, m, demo.RunOptions{Cooling: coil.Water,
 				Progress: func(stage string) { fmt.Fprintf(env.Stderr, "polegap demo: %s...\n", stage) }})
 			if err != nil {
 				return err

@@ -27,6 +27,34 @@ The commands are:
 Use "polegap help <command>" for more about a command. MODEL arguments
 are model files, or the names of embedded examples.
 
+Flags may come before, between or after the arguments. "--" ends the
+flags: every argument after it is an argument, even one that starts with
+a dash (polegap solve -- -draft.yaml).
+
+Quantities. Every flag that takes a physical quantity reads a number with
+an optional unit: 1.2T, 850mT, 12kG, 30mm, 2.5cm, 1in, 100mm2, 200A,
+0.1kA, 32000At, 60V, 80C. A number without a unit is in the unit the model
+file uses for that kind of quantity: lengths in the model's units (its
+units: key), areas in those units squared, fields in tesla, currents in
+ampere, ampere-turns in ampere-turns, voltages in volts, temperatures in
+°C. The help of each command shows the unit of a bare number beside each
+such flag. merge reads no model, so its --gap needs a unit. Units are
+case-sensitive (mT, not MT); 1 G = 1e-4 T. Bare lengths and areas given to
+--gap, --half-width, --area and --turns-area used to be metres: with a bare
+number these flags print a note when the model's units are not metres.
+
+Flag names are whole words and keep their meaning from command to
+command: --tolerance, --vtu FILE for a VTK file, --png, --csv and --json
+for the other outputs. Older spellings still work but are no longer
+listed: --tol (solve --tolerance) and --out (mesh --vtu).
+
+Ctrl-C stops a long-running command (solve, size, sweep, compare, check,
+demo, bench) at its next safe point, between two solves: it exits with
+status 1 (check: 2) and writes no result, except that an interrupted
+sweep keeps its finished points in its --csv table, marked partial. A
+single solve cannot be stopped half-way: the command stops when it
+ends. A second Ctrl-C ends polegap at once.
+
 Exit status is 0 on success, 1 when the work failed (a bad model, a solve
 that did not converge) and 2 when the command line itself was wrong.
 

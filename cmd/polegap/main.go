@@ -3,11 +3,13 @@
 package main
 
 import (
+	"context"
 	"errors"
 	"flag"
 	"fmt"
 	"io"
 	"os"
+	"os/signal"
 	"runtime/debug"
 	"sort"
 	"strings"
@@ -45,9 +47,12 @@ type Command struct {
 	Flags func(fs *flag.FlagSet) func(env *Env, args []string) error
 }
 
-// Env carries the standard streams to a command.
+// Env carries the standard streams and the run's context to a command.
 type Env struct {
 	Stdout, Stderr io.Writer
+	// Ctx is cancelled by Ctrl-C (SIGINT); long-running commands pass it
+	// down and return its error when they stop early.
+	Ctx context.Context
 }
 
 // Name is the first word of the usage line.
@@ -109,7 +114,28 @@ func run(args []string, stdout, stderr io.Writer) int {
 		return 0
 	}
 	if err == nil {
+		ctx, stop := interruptible()
+		defer stop()
+		go func() {
+			// After the first Ctrl-C the command winds down (a solve that
+			// cannot be interrupted finishes first); a second one ends the
+			// process at once.
+			<-ctx.Done()
+			stop()
+			// The cause is the signal, or context.Canceled once the command
+			// has returned. Only a file (a terminal) takes this concurrent
+			// write safely.
+			if f, ok := stderr.(*os.File); ok && context.Cause(ctx) != context.Canceled {
+				fmt.Fprintf(f, "polegap %s: interrupted; stopping at the next safe point (Ctrl-C again quits at once)\n", name)
+			}
+		}()
+		env.Ctx = ctx
 		err = action(env, pos)
+		if err == context.Canceled {
+			err = errInterrupted // a bare ctx.Err(); wrapped ones say more
+		} else if xe, ok := err.(exitError); ok && xe.err == context.Canceled {
+			err = exitError{xe.code, errInterrupted}
+		}
 	}
 	if err != nil {
 		var ue *usageError
@@ -147,7 +173,26 @@ func printHistory(w io.Writer, err error) {
 	fmt.Fprintf(w, "no result was written. Try a smaller current step (sweep with more points), --max-iterations, or check the B-H curve near the working point.\n")
 }
 
+// flagError is a mistake in the flags, reported with the flags spelled
+// as polegap documents them (--name; the flag package writes -name).
 type flagError struct{ error }
+
+func (e flagError) Error() string {
+	msg := e.error.Error()
+	for _, s := range []string{"for flag -", "not defined: -"} {
+		msg = strings.Replace(msg, s, s+"-", 1)
+	}
+	return msg
+}
+
+// errInterrupted ends a command stopped by Ctrl-C (exit status 1).
+var errInterrupted = errors.New("interrupted (Ctrl-C); no result was written")
+
+// interruptible returns the context of a command: cancelled by Ctrl-C.
+// Tests replace it.
+var interruptible = func() (context.Context, context.CancelFunc) {
+	return signal.NotifyContext(context.Background(), os.Interrupt)
+}
 
 // exitError ends a command with a given status; a nil err prints nothing.
 type exitError struct {
@@ -163,7 +208,9 @@ func (e exitError) Error() string {
 }
 
 // parseInterspersed parses flags that may come before, between or after
-// the positional arguments ("polegap mesh model.yaml --out m.vtu").
+// the positional arguments ("polegap mesh model.yaml --vtu m.vtu"). A
+// "--" ends the flags: every argument after it is positional, even one
+// that starts with a dash.
 func parseInterspersed(fs *flag.FlagSet, args []string) ([]string, error) {
 	var pos []string
 	for {
@@ -174,15 +221,33 @@ func parseInterspersed(fs *flag.FlagSet, args []string) ([]string, error) {
 			return nil, flagError{err}
 		}
 		rest := fs.Args()
+		if used := len(args) - len(rest); used > 0 && args[used-1] == "--" && !takesValue(fs, args[:used-1]) {
+			return append(pos, rest...), nil // fs.Parse stopped at "--"
+		}
 		if len(rest) == 0 {
 			return pos, nil
-		}
-		if rest[0] == "--" {
-			return append(pos, rest[1:]...), nil
 		}
 		pos = append(pos, rest[0])
 		args = rest[1:]
 	}
+}
+
+// takesValue reports whether the last of args is a flag waiting for its
+// value (--png followed by a file named "--").
+func takesValue(fs *flag.FlagSet, args []string) bool {
+	if len(args) == 0 {
+		return false
+	}
+	a := args[len(args)-1]
+	if len(a) < 2 || a[0] != '-' || a == "--" || strings.Contains(a, "=") {
+		return false
+	}
+	f := fs.Lookup(strings.TrimLeft(a, "-"))
+	if f == nil {
+		return false
+	}
+	b, ok := f.Value.(interface{ IsBoolFlag() bool })
+	return !ok || !b.IsBoolFlag()
 }
 
 func printUsage(w io.Writer) {
@@ -198,7 +263,11 @@ func printHelp(w io.Writer, c *Command) {
 	fs := flag.NewFlagSet(c.Name(), flag.ContinueOnError)
 	c.Flags(fs)
 	var names []string
-	fs.VisitAll(func(f *flag.Flag) { names = append(names, f.Name) })
+	fs.VisitAll(func(f *flag.Flag) {
+		if !strings.HasPrefix(f.Usage, aliasPrefix) {
+			names = append(names, f.Name)
+		}
+	})
 	if len(names) == 0 {
 		return
 	}
@@ -207,8 +276,18 @@ func printHelp(w io.Writer, c *Command) {
 	for _, n := range names {
 		f := fs.Lookup(n)
 		def := ""
-		if f.DefValue != "" && f.DefValue != "false" {
+		if f.DefValue != "" && f.DefValue != "false" && f.DefValue != "0" {
 			def = fmt.Sprintf(" (default %s)", f.DefValue)
+		}
+		switch v := f.Value.(type) {
+		case *quantityFlag:
+			if v.needUnit {
+				def += " [unit required]"
+			} else {
+				def += fmt.Sprintf(" [no unit: %s]", v.kind.bareUnit())
+			}
+		case *quantityList:
+			def += fmt.Sprintf(" [no unit: %s]", v.kind.bareUnit())
 		}
 		fmt.Fprintf(w, "  --%-12s %s%s\n", n, f.Usage, def)
 	}

@@ -16,7 +16,7 @@ import (
 )
 
 var cmdMesh = &Command{
-	UsageLine: "mesh [--out FILE.vtu] [--png FILE.png] [--json] MODEL",
+	UsageLine: "mesh [--vtu FILE.vtu] [--png FILE.png] [--json] MODEL",
 	Short:     "mesh a model and print the mesh statistics",
 	Long: `Mesh builds the model's geometry, triangulates it with the model's mesh
 controls (size, per-region sizes, refinement near named places, element
@@ -24,10 +24,11 @@ order) and prints the mesh statistics: nodes, triangles, the smallest and
 mean angle, the worst aspect ratio and the triangles per region.
 
 MODEL is a model file or the name of an embedded example.
---out writes the mesh as a VTK XML unstructured grid (.vtu) with region ids;
+--vtu writes the mesh as a VTK XML unstructured grid (.vtu) with region ids;
 --png (or .svg) draws it, each region coloured by kind.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
-		out := fs.String("out", "", "write the mesh to this .vtu file")
+		out := fs.String("vtu", "", "write the mesh to this .vtu file")
+		alias(fs, "out", "vtu")
 		png := fs.String("png", "", "draw the mesh to this .png or .svg file")
 		asJSON := fs.Bool("json", false, "print the statistics as JSON")
 		return func(env *Env, args []string) error {
@@ -41,6 +42,9 @@ MODEL is a model file or the name of an embedded example.
 				return err
 			}
 			elapsed := time.Since(start)
+			if err := env.Ctx.Err(); err != nil {
+				return err // interrupted while meshing
+			}
 			if *out != "" {
 				if err := writeMeshVTU(*out, d); err != nil {
 					return err

@@ -49,7 +49,7 @@ distance along the line.`,
 			if n < 2 {
 				n = 101
 			}
-			s, err := study.Run(m, study.Options{})
+			s, err := runStudy(env.Ctx, m, study.Options{})
 			if err != nil {
 				return err
 			}

@@ -3,7 +3,6 @@ package main
 import (
 	"flag"
 	"fmt"
-	"strconv"
 	"strings"
 
 	"polegap/models"
@@ -16,20 +15,22 @@ var cmdSearchCoil = &Command{
 	Short:     "predict a search coil's flux linkage, to compare with an integrator reading",
 	Long: `Searchcoil solves the model and predicts the flux linkage (Wb-turns) of a
 small search coil of --turns turns and --area (e.g. 100mm2) centred at
---at (in the model's units) with its axis along --axis (default y, the
+--at (x,y, e.g. 175,0 in the model's units, or 175mm,0mm) with its axis along --axis (default y, the
 gap field's direction in the templates), and the change when it is moved
 to --to, or pulled right out of the field when --to is not given: the
-reading of an integrating fluxmeter in V·s. --width (model units) averages
-the field across the coil's width instead of reading it at the centre.
+reading of an integrating fluxmeter in V·s. --width averages the field
+across the coil's width instead of reading it at the centre. Lengths and
+areas without a unit are in the model's units (squared for --area).
 In an axisymmetric model the coil is a coaxial loop of radius X at height
 Y: its linkage is N·2πr·Aφ and --area and --axis are not used.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		turns := fs.Float64("turns", 0, "turns of the search coil")
-		area := fs.String("area", "", "area of one turn (e.g. 100mm2)")
+		turnArea := quantity(fs, "area", area, "area of one turn (e.g. 100mm2)")
+		turnArea.metresBefore = true
 		at := fs.String("at", "", "centre of the coil, x,y in the model's units")
 		to := fs.String("to", "", "where the coil is moved to (default: out of the field)")
 		axis := fs.String("axis", "y", "direction of the coil's axis: x or y")
-		width := fs.Float64("width", 0, "width of the coil across the field, in the model's units (0: a point coil)")
+		width := quantity(fs, "width", length, "width of the coil across the field (e.g. 10mm; 0: a point coil)")
 		return func(env *Env, args []string) error {
 			if err := oneModel(args); err != nil {
 				return err
@@ -41,7 +42,8 @@ Y: its linkage is N·2πr·Aφ and --area and --axis are not used.`,
 			if err != nil {
 				return err
 			}
-			p1, err := parsePoint(*at, m.Scale)
+			turnArea.noteBare(env.Stderr, m)
+			p1, err := parsePoint(*at, m)
 			if err != nil {
 				return usagef("--at: %v", err)
 			}
@@ -50,8 +52,8 @@ Y: its linkage is N·2πr·Aφ and --area and --axis are not used.`,
 			if axi {
 				c1 = searchcoil.Loop{R: p1[0], Z: p1[1], Turns: *turns}
 			} else {
-				a, err := models.ParseQuantity(*area, "area")
-				if err != nil || !(a > 0) {
+				a := turnArea.SI(m)
+				if !(a > 0) {
 					return usagef("--area: give the area of one turn, e.g. 100mm2")
 				}
 				dir := [2]float64{0, 1}
@@ -60,23 +62,23 @@ Y: its linkage is N·2πr·Aφ and --area and --axis are not used.`,
 				} else if *axis != "y" {
 					return usagef("--axis must be x or y")
 				}
-				c1 = searchcoil.Small{Centre: p1, Axis: dir, Turns: *turns, Area: a, Width: *width * m.Scale}
+				c1 = searchcoil.Small{Centre: p1, Axis: dir, Turns: *turns, Area: a, Width: width.SI(m)}
 				if *to != "" {
-					p2, err := parsePoint(*to, m.Scale)
+					p2, err := parsePoint(*to, m)
 					if err != nil {
 						return usagef("--to: %v", err)
 					}
-					c2 = searchcoil.Small{Centre: p2, Axis: dir, Turns: *turns, Area: a, Width: *width * m.Scale}
+					c2 = searchcoil.Small{Centre: p2, Axis: dir, Turns: *turns, Area: a, Width: width.SI(m)}
 				}
 			}
 			if axi && *to != "" {
-				p2, err := parsePoint(*to, m.Scale)
+				p2, err := parsePoint(*to, m)
 				if err != nil {
 					return usagef("--to: %v", err)
 				}
 				c2 = searchcoil.Loop{R: p2[0], Z: p2[1], Turns: *turns}
 			}
-			s, err := study.Run(m, study.Options{})
+			s, err := runStudy(env.Ctx, m, study.Options{})
 			if err != nil {
 				return err
 			}
@@ -101,13 +103,14 @@ Y: its linkage is N·2πr·Aφ and --area and --axis are not used.`,
 	},
 }
 
-// parsePoint reads "x,y" in model units and returns metres.
-func parsePoint(s string, scale float64) ([2]float64, error) {
+// parsePoint reads "x,y", two lengths (bare numbers in the model's
+// units), and returns metres.
+func parsePoint(s string, m *models.Model) ([2]float64, error) {
 	a, b, ok := strings.Cut(s, ",")
-	x, err1 := strconv.ParseFloat(strings.TrimSpace(a), 64)
-	y, err2 := strconv.ParseFloat(strings.TrimSpace(b), 64)
-	if !ok || err1 != nil || err2 != nil {
-		return [2]float64{}, fmt.Errorf("%q: write x,y in the model's units, e.g. 175,0", s)
+	var x, y quantityFlag
+	x.kind, y.kind = length, length
+	if err1, err2 := x.Set(a), y.Set(b); !ok || err1 != nil || err2 != nil {
+		return [2]float64{}, fmt.Errorf("%q: write x,y in the model's units, e.g. 175,0 (or with units, 175mm,0mm)", s)
 	}
-	return [2]float64{x * scale, y * scale}, nil
+	return [2]float64{x.SI(m), y.SI(m)}, nil
 }

@@ -1,12 +1,10 @@
 package main
 
 import (
-	"context"
 	"flag"
 	"fmt"
 	"io"
-	"os"
-	"os/signal"
+	"strings"
 
 	"polegap/internal/fileout"
 	"polegap/models"
@@ -35,19 +33,23 @@ power and copper mass, flagging supply limits and the common-practice
 current-density and heat limits of the cooling (air-natural, air-forced
 or water), and picks the one with the least power.
 
+A number without a unit is in tesla (--field), ampere (--supply-current),
+volts (--supply-voltage), ampere-turns (--max-ampere-turns) or °C
+(--temperature).
+
 The currents, voltages and stored energy of a real magnet can injure:
 the cautions printed with the result apply.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
-		field := fs.String("field", "", "target field (e.g. 1.2T; default the model's target)")
+		want := quantity(fs, "field", field, "target field (e.g. 1.2T; default the model's target)")
 		coilName := fs.String("coil", "", "the coil to size (default the first)")
 		probe := fs.String("probe", "", "the probe that must reach the field (default the model's target probe)")
 		fill := fs.Float64("fill", 0, "fill factor: wire envelope area over window area (default 0.6)")
-		temp := fs.Float64("temperature", 0, "coil temperature for the resistance, °C (default 60)")
+		temp := quantity(fs, "temperature", temperature, "coil temperature for the resistance, °C (default 60)")
 		cooling := fs.String("cooling", "air-natural", "air-natural, air-forced or water")
 		wires := fs.String("wires", "auto", "wire table: iec, awg, hollow or all (auto: iec, or hollow for water)")
-		supplyV := fs.String("supply-voltage", "", "supply voltage limit (e.g. 60V)")
-		supplyI := fs.String("supply-current", "", "supply current limit (e.g. 50A)")
-		maxNI := fs.String("max-ampere-turns", "", "give up beyond this (default 5 × the ideal)")
+		supplyV := quantity(fs, "supply-voltage", voltage, "supply voltage limit (e.g. 60V)")
+		supplyI := quantity(fs, "supply-current", current, "supply current limit (e.g. 50A)")
+		maxNI := quantity(fs, "max-ampere-turns", ampereTurns, "give up beyond this (default 5 × the ideal)")
 		csvOut := fs.String("csv", "", "write the winding options to this CSV file")
 		asJSON := fs.Bool("json", false, "print the result as JSON")
 		return func(env *Env, args []string) error {
@@ -55,41 +57,24 @@ the cautions printed with the result apply.`,
 			if err != nil {
 				return err
 			}
-			bt, pname, err := sizeTarget(m, *field, *probe)
+			bt, pname, err := sizeTarget(m, want, *probe)
 			if err != nil {
 				return err
 			}
-			spec := coil.Spec{FillFactor: *fill, Temperature: *temp}
-			if spec.Cooling, err = report.ParseCooling(*cooling); err != nil {
+			spec := coil.Spec{FillFactor: *fill, Temperature: temp.SI(m), SupplyVoltage: supplyV.SI(m), SupplyCurrent: supplyI.SI(m)}
+			if spec.Cooling, err = parseCooling(*cooling); err != nil {
 				return usagef("--cooling: %v", err)
 			}
-			table, err := report.Wires(*wires, spec.Cooling)
+			table, err := wireTable(*wires, spec.Cooling)
 			if err != nil {
 				return usagef("--wires: %v", err)
 			}
-			for _, q := range []struct {
-				s, kind string
-				dst     *float64
-			}{{*supplyV, "voltage", &spec.SupplyVoltage}, {*supplyI, "current", &spec.SupplyCurrent}} {
-				if q.s != "" {
-					if *q.dst, err = models.ParseQuantity(q.s, q.kind); err != nil {
-						return usagef("%v", err)
-					}
-				}
-			}
-			topt := target.Options{GapLength: m.Gap}
-			if *maxNI != "" {
-				if topt.MaxAmpereTurns, err = models.ParseQuantity(*maxNI, "ampere-turns"); err != nil {
-					return usagef("--max-ampere-turns: %v", err)
-				}
-			}
-			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
-			defer stop()
-			r, err := sweep.NewRunner(ctx, m, *coilName, pname, solver.Options{})
+			topt := target.Options{GapLength: m.Gap, MaxAmpereTurns: maxNI.SI(m)}
+			r, err := sweep.NewRunner(env.Ctx, m, *coilName, pname, solver.Options{})
 			if err != nil {
 				return err
 			}
-			res, err := target.Search(ctx, r, bt, topt)
+			res, err := target.Search(env.Ctx, r, bt, topt)
 			if err != nil {
 				return err
 			}
@@ -121,14 +106,10 @@ the cautions printed with the result apply.`,
 }
 
 // sizeTarget returns the target field and probe from the flags or the model.
-func sizeTarget(m *models.Model, field, probe string) (float64, string, error) {
+func sizeTarget(m *models.Model, want *quantityFlag, probe string) (float64, string, error) {
 	var bt float64
-	if field != "" {
-		v, err := models.ParseQuantity(field, "field")
-		if err != nil {
-			return 0, "", usagef("--field: %v", err)
-		}
-		bt = v
+	if want.set {
+		bt = want.SI(m)
 	} else if m.Target != nil {
 		bt = m.Target.Field
 	} else {
@@ -138,4 +119,32 @@ func sizeTarget(m *models.Model, field, probe string) (float64, string, error) {
 		probe = probeFor(m, "")
 	}
 	return bt, probe, nil
+}
+
+// parseCooling reads the --cooling flag.
+func parseCooling(s string) (coil.Cooling, error) {
+	for _, c := range []coil.Cooling{coil.AirNatural, coil.AirForced, coil.Water} {
+		if strings.EqualFold(s, c.String()) {
+			return c, nil
+		}
+	}
+	return 0, fmt.Errorf("unknown cooling %q: use air-natural, air-forced or water", s)
+}
+
+// wireTable returns the wire table the --wires flag names: iec, awg,
+// hollow, all, or auto (the cooling's own, coil.DefaultWires).
+func wireTable(name string, cooling coil.Cooling) ([]coil.Wire, error) {
+	switch name {
+	case "awg":
+		return coil.AWGWires(coil.Grade2), nil
+	case "iec":
+		return coil.IECWires(coil.R20, coil.Grade2), nil
+	case "hollow":
+		return coil.HollowWires(), nil
+	case "", "auto":
+		return coil.DefaultWires(cooling), nil
+	case "all":
+		return append(append(coil.IECWires(coil.R20, coil.Grade2), coil.AWGWires(coil.Grade2)...), coil.HollowWires()...), nil
+	}
+	return nil, fmt.Errorf("unknown wire table %q: use iec, awg, hollow or all", name)
 }

@@ -1,13 +1,11 @@
 package main
 
 import (
-	"context"
 	"flag"
 	"fmt"
 	"io"
 
 	"polegap/internal/fileout"
-	"polegap/models"
 	"polegap/post/workflow/adapt"
 	"polegap/post/workflow/design"
 
@@ -19,7 +17,7 @@ import (
 )
 
 var cmdSolve = &Command{
-	UsageLine: "solve [--accuracy R [--refine-by goal|energy]] [--virtual-work] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tol R] [--max-iterations N] MODEL",
+	UsageLine: "solve [--accuracy R [--refine-by goal|energy]] [--virtual-work] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tolerance R] [--max-iterations N] MODEL",
 	Short:     "solve a model and print the field and the design quantities",
 	Long: `Solve meshes the model, solves for the magnetic vector potential (with
 Newton–Raphson when the iron is nonlinear) and prints a summary: the mesh
@@ -46,10 +44,11 @@ A solve that does not converge prints its residual history and exits
 with status 1; no result is reported for it.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		asJSON := fs.Bool("json", false, "print the report as JSON")
-		tol := fs.Float64("tol", 1e-8, "relative residual at which Newton stops")
+		tol := fs.Float64("tolerance", 1e-8, "relative residual at which Newton stops")
+		alias(fs, "tol", "tolerance")
 		maxIter := fs.Int("max-iterations", 30, "limit on Newton steps")
 		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png or .svg file")
-		satLimit := fs.String("saturation-limit", "", "flag iron regions whose |B| away from corners exceeds this (e.g. 1.8T)")
+		satLimit := quantity(fs, "saturation-limit", field, "flag iron regions whose |B| away from corners exceeds this (e.g. 1.8T)")
 		accuracy := fs.Float64("accuracy", 0, "refine the mesh adaptively until the probe field changes by less than this between rounds (e.g. 1e-4)")
 		refineBy := fs.String("refine-by", "goal", "with --accuracy: goal (weighted by the probe's dual solution) or energy (the field's own error)")
 		vw := fs.Bool("virtual-work", false, "also compute the forces on the model's parts by virtual work (more solves)")
@@ -59,18 +58,13 @@ with status 1; no result is reported for it.`,
 				return err
 			}
 			if *tol <= 0 || *tol >= 1 || *maxIter < 1 {
-				return usagef("--tol must lie in (0, 1) and --max-iterations be at least 1")
+				return usagef("--tolerance must lie in (0, 1) and --max-iterations be at least 1")
 			}
 			m, err := loadModel(args[0])
 			if err != nil {
 				return err
 			}
-			dopt := design.DesignOptions{Incremental: true, VirtualWork: *vw}
-			if *satLimit != "" {
-				if dopt.SaturationLimit, err = models.ParseQuantity(*satLimit, "field"); err != nil {
-					return usagef("--saturation-limit: %v", err)
-				}
-			}
+			dopt := design.DesignOptions{Incremental: true, VirtualWork: *vw, SaturationLimit: satLimit.SI(m)}
 			marking := adapt.GoalOriented
 			switch *refineBy {
 			case "goal":
@@ -81,7 +75,7 @@ with status 1; no result is reported for it.`,
 			}
 			var s *study.Result
 			if *accuracy > 0 {
-				res, err := adapt.Run(context.Background(), m, adapt.Options{Accuracy: *accuracy, Marking: marking, Study: study.Options{Solver: solver.Options{Tol: *tol, MaxIter: *maxIter}},
+				res, err := adapt.Run(env.Ctx, m, adapt.Options{Accuracy: *accuracy, Marking: marking, Study: study.Options{Solver: solver.Options{Tol: *tol, MaxIter: *maxIter}},
 					Progress: func(r adapt.Round) {
 						fmt.Fprintf(env.Stderr, "adaptive round: %d nodes, field %.6f T, change %.2e\n", r.Nodes, r.Value, r.Change)
 					}})
@@ -92,10 +86,13 @@ with status 1; no result is reported for it.`,
 					fmt.Fprintf(env.Stderr, "adaptive refinement stopped at its round or node limit before reaching %g\n", *accuracy)
 				}
 				s = res.Study
-			} else if s, err = study.Run(m, study.Options{Solver: solver.Options{Tol: *tol, MaxIter: *maxIter}}); err != nil {
+			} else if s, err = runStudy(env.Ctx, m, study.Options{Solver: solver.Options{Tol: *tol, MaxIter: *maxIter}}); err != nil {
 				return err
 			}
 			r := design.New(s, dopt)
+			if err := env.Ctx.Err(); err != nil {
+				return err // interrupted during the last round or the virtual work
+			}
 			if *vtuPath != "" {
 				if err := fileout.Write(*vtuPath, func(w io.Writer) error { return vtu.WriteVTU(w, s.Solution, vtu.Options{}) }); err != nil {
 					return err

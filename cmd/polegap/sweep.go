@@ -1,13 +1,11 @@
 package main
 
 import (
-	"context"
 	"errors"
 	"flag"
 	"fmt"
 	"io"
 	"os"
-	"os/signal"
 	"strconv"
 	"strings"
 
@@ -33,7 +31,9 @@ is known (--gap, or the model's template), the largest |B| in the iron,
 the stored energy and the Newton steps of each point.
 
 The default range is --points 20 currents from a twentieth of --to up to
---to, which defaults to twice the model's own coil current.
+--to, which defaults to twice the model's own coil current. Currents
+without a unit are in ampere; a --gap without a unit is in the model's
+units.
 
 --csv writes the table (a partial table, marked "# partial", if the sweep
 is interrupted with Ctrl-C or a point fails); --png draws the curve with
@@ -43,13 +43,15 @@ the ideal line μ0 NI/g and the efficiency.
 job array can run a long sweep in parallel; join the shards' tables with
 'polegap merge'.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
-		from := fs.String("from", "", "first coil current (e.g. 5A)")
-		to := fs.String("to", "", "last coil current (default twice the model's)")
+		from := quantity(fs, "from", current, "first coil current (e.g. 5A)")
+		to := quantity(fs, "to", current, "last coil current (default twice the model's)")
 		points := fs.Int("points", 20, "number of currents")
-		list := fs.String("currents", "", "comma-separated coil currents, instead of a range")
+		list := &quantityList{kind: current}
+		fs.Var(list, "currents", "comma-separated coil currents, instead of a range")
 		coil := fs.String("coil", "", "the swept coil (default the first)")
 		probe := fs.String("probe", "", "the probe whose field is reported")
-		gap := fs.String("gap", "", "gap length for the ideal line and the efficiency (e.g. 40mm)")
+		gap := quantity(fs, "gap", length, "gap length for the ideal line and the efficiency (e.g. 40mm)")
+		gap.metresBefore = true
 		csvOut := fs.String("csv", "", "write the table to this CSV file")
 		png := fs.String("png", "", "draw the curve to this .png or .svg file")
 		shard := fs.String("shard", "", "run shard K of N (e.g. 2/8)")
@@ -59,19 +61,19 @@ job array can run a long sweep in parallel; join the shards' tables with
 				return err
 			}
 			opt := sweep.Options{Coil: *coil, Probe: *probe, Solver: solver.Options{}}
-			if opt.Currents, err = sweepCurrents(m, *coil, *from, *to, *list, *points); err != nil {
+			if opt.Currents, err = sweepCurrents(m, *coil, from, to, list, *points); err != nil {
 				return err
 			}
 			if opt.Shard, opt.Shards, err = parseShard(*shard); err != nil {
 				return err
 			}
-			if opt.GapLength, err = gapLength(m, *gap); err != nil {
-				return err
+			gap.noteBare(env.Stderr, m)
+			opt.GapLength = m.Gap
+			if gap.set {
+				opt.GapLength = gap.SI(m)
 			}
 			opt.Progress = newProgress(env.Stderr)
-			ctx, stop := interruptible()
-			defer stop()
-			pts, runErr := sweep.Run(ctx, m, opt)
+			pts, runErr := sweep.Run(env.Ctx, m, opt)
 			meta := sweep.Meta{Model: m.Name, Probe: probeFor(m, *probe), Shard: *shard}
 			if runErr != nil {
 				meta.Partial = runErr.Error()
@@ -104,11 +106,13 @@ var cmdMerge = &Command{
 	Long: `Merge reads the CSV tables written by 'polegap sweep --shard K/N' and
 writes one table with every point in order. It refuses tables of
 different models or probes and points present twice, and marks the result
-partial (listing what is missing) when points are missing.`,
+partial (listing what is missing) when points are missing. Merge reads no
+model, so --gap needs a unit (e.g. 40mm).`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		out := fs.String("csv", "", "write the merged table here (required)")
 		png := fs.String("png", "", "draw the merged curve to this .png or .svg file")
-		gap := fs.String("gap", "", "gap length for the ideal line and the efficiency (e.g. 40mm)")
+		gap := quantity(fs, "gap", length, "gap length for the ideal line and the efficiency, with its unit (e.g. 40mm)")
+		gap.needUnit = true
 		return func(env *Env, args []string) error {
 			if *out == "" || len(args) == 0 {
 				return usagef("merge needs --csv OUT and at least one shard table")
@@ -139,13 +143,7 @@ partial (listing what is missing) when points are missing.`,
 				fmt.Fprintf(env.Stdout, "missing points (1-based): %v\n", plusOne(missing))
 			}
 			if *png != "" {
-				g := 0.0
-				if *gap != "" {
-					if g, err = models.ParseQuantity(*gap, "length"); err != nil {
-						return usagef("--gap: %v", err)
-					}
-				}
-				return drawSweep(*png, meta.Model, all, g)
+				return drawSweep(*png, meta.Model, all, gap.SI(nil))
 			}
 			return nil
 		}
@@ -175,17 +173,9 @@ func drawSweep(path, name string, pts []sweep.Point, gap float64) error {
 }
 
 // sweepCurrents builds the list of currents from the flags.
-func sweepCurrents(m *models.Model, coil, from, to, list string, n int) ([]float64, error) {
-	if list != "" {
-		var out []float64
-		for _, f := range strings.Split(list, ",") {
-			v, err := models.ParseQuantity(f, "current")
-			if err != nil {
-				return nil, usagef("--currents: %v", err)
-			}
-			out = append(out, v)
-		}
-		return out, nil
+func sweepCurrents(m *models.Model, coil string, from, to *quantityFlag, list *quantityList, n int) ([]float64, error) {
+	if list.vals != nil {
+		return list.SI(m), nil
 	}
 	if n < 1 {
 		return nil, usagef("--points must be at least 1")
@@ -198,20 +188,12 @@ func sweepCurrents(m *models.Model, coil, from, to, list string, n int) ([]float
 		}
 	}
 	hi := 2 * base
-	if to != "" {
-		v, err := models.ParseQuantity(to, "current")
-		if err != nil {
-			return nil, usagef("--to: %v", err)
-		}
-		hi = v
+	if to.set {
+		hi = to.SI(m)
 	}
 	lo := hi / float64(n)
-	if from != "" {
-		v, err := models.ParseQuantity(from, "current")
-		if err != nil {
-			return nil, usagef("--from: %v", err)
-		}
-		lo = v
+	if from.set {
+		lo = from.SI(m)
 	}
 	if hi == 0 {
 		return nil, usagef("the model's coil carries no current: give --to")
@@ -232,29 +214,11 @@ func parseShard(s string) (k, n int, err error) {
 	return k, n, nil
 }
 
-// gapLength is the --gap flag, or the model's own gap length, or 0.
-func gapLength(m *models.Model, flagValue string) (float64, error) {
-	if flagValue != "" {
-		v, err := models.ParseQuantity(flagValue, "length")
-		if err != nil {
-			return 0, usagef("--gap: %v", err)
-		}
-		return v, nil
-	}
-	return m.Gap, nil
-}
-
 func probeFor(m *models.Model, probe string) string {
 	if probe != "" {
 		return probe
 	}
 	return m.MainProbe()
-}
-
-// interruptible returns the context of a long run: cancelled by Ctrl-C.
-// Tests replace it.
-var interruptible = func() (context.Context, context.CancelFunc) {
-	return signal.NotifyContext(context.Background(), os.Interrupt)
 }
 
 // newProgress makes the sweep's progress reporter; tests replace it.

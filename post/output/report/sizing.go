@@ -1,9 +1,7 @@
 package report
 
 import (
-	"fmt"
 	"io"
-	"strings"
 
 	"polegap/post/workflow/coil"
 )
@@ -39,36 +37,6 @@ func WriteSizing(w io.Writer, s *coil.Sizing) error {
 		ew.printf("  - %s\n", c)
 	}
 	return ew.err
-}
-
-// ParseCooling reads a cooling name.
-func ParseCooling(s string) (coil.Cooling, error) {
-	for _, c := range []coil.Cooling{coil.AirNatural, coil.AirForced, coil.Water} {
-		if strings.EqualFold(s, c.String()) {
-			return c, nil
-		}
-	}
-	return 0, fmt.Errorf("unknown cooling %q: use air-natural, air-forced or water", s)
-}
-
-// Wires returns the wire table for a name: awg, iec, hollow or all.
-func Wires(name string, cooling coil.Cooling) ([]coil.Wire, error) {
-	switch name {
-	case "awg":
-		return coil.AWGWires(coil.Grade2), nil
-	case "iec":
-		return coil.IECWires(coil.R20, coil.Grade2), nil
-	case "hollow":
-		return coil.HollowWires(), nil
-	case "", "auto":
-		if cooling == coil.Water {
-			return coil.HollowWires(), nil
-		}
-		return coil.IECWires(coil.R20, coil.Grade2), nil
-	case "all":
-		return append(append(coil.IECWires(coil.R20, coil.Grade2), coil.AWGWires(coil.Grade2)...), coil.HollowWires()...), nil
-	}
-	return nil, fmt.Errorf("unknown wire table %q: use iec, awg, hollow or all", name)
 }
 
 // WriteSizingSummary writes the sizing result in a few lines (no table) with

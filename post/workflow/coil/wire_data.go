@@ -184,6 +184,16 @@ func AWGWires(g Grade) []Wire {
 	return out
 }
 
+// DefaultWires returns the wire table that suits the cooling: square
+// hollow conductors for water, IEC 60317 round wire (series R20, grade 2)
+// for air.
+func DefaultWires(c Cooling) []Wire {
+	if c == Water {
+		return HollowWires()
+	}
+	return IECWires(R20, Grade2)
+}
+
 // hollowSizes lists square hollow copper conductors for water-cooled
 // coils: outer side a and bore b (mm), corner radius r (mm). Typical sizes
 // (from memory), not a standard series: take the exact dimensions from the
@@ -223,14 +233,4 @@ func HollowWires() []Wire {
 		}
 	}
 	return out
-}
-
-// DefaultWires returns the wire table a cooling calls for when none is
-// chosen: hollow conductors for water cooling, IEC 60317 round enamelled
-// wire (R20 series, grade 2) otherwise.
-func DefaultWires(c Cooling) []Wire {
-	if c == Water {
-		return HollowWires()
-	}
-	return IECWires(R20, Grade2)
 }
