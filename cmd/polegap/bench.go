@@ -3,6 +3,9 @@ package main
 import (
 	"flag"
 	"fmt"
+	"math"
+	"strconv"
+	"strings"
 
 	"polegap/internal/bench"
 )
@@ -48,7 +51,7 @@ Progress goes to standard error; --json prints the table as JSON.`,
 			if *repeat < 1 {
 				return usagef("--repeat must be at least 1")
 			}
-			ns, err := bench.ParseSizes(*sizes)
+			ns, err := parseSizes(*sizes)
 			if *quick {
 				ns, err = bench.QuickSizes, nil
 			}
@@ -57,7 +60,7 @@ Progress goes to standard error; --json prints the table as JSON.`,
 			}
 			n2 := 0
 			if *order2 != "0" {
-				o2, err := bench.ParseSizes(*order2)
+				o2, err := parseSizes(*order2)
 				if err != nil || len(o2) != 1 {
 					return usagef("--order2: one size such as 100k, or 0")
 				}
@@ -78,4 +81,45 @@ Progress goes to standard error; --json prints the table as JSON.`,
 			return t.WriteText(env.Stdout)
 		}
 	},
+}
+
+// parseSizes reads a comma-separated list of node counts such as
+// "10k,100k,1M" (suffixes k = 1e3 and M = 1e6; decimals allowed: 2.5k).
+// Each size must be between 1000 and 10M nodes.
+func parseSizes(s string) ([]int, error) {
+	var out []int
+	for _, f := range strings.Split(s, ",") {
+		f = strings.TrimSpace(f)
+		if f == "" {
+			return nil, &sizeError{Entry: f, Reason: "empty entry"}
+		}
+		mult := 1.0
+		num := f
+		switch {
+		case strings.HasSuffix(f, "k"), strings.HasSuffix(f, "K"):
+			mult, num = 1e3, f[:len(f)-1]
+		case strings.HasSuffix(f, "M"), strings.HasSuffix(f, "m"):
+			mult, num = 1e6, f[:len(f)-1]
+		}
+		v, err := strconv.ParseFloat(num, 64)
+		if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+			return nil, &sizeError{Entry: f, Reason: "not a number (use e.g. 10k, 100k, 1M)"}
+		}
+		n := v * mult
+		if n < 1000 || n > 10e6 {
+			return nil, &sizeError{Entry: f, Reason: "a size must lie between 1k and 10M nodes"}
+		}
+		out = append(out, int(math.Round(n)))
+	}
+	return out, nil
+}
+
+// sizeError reports an entry of a size list that is not a node count.
+type sizeError struct {
+	Entry  string
+	Reason string
+}
+
+func (e *sizeError) Error() string {
+	return fmt.Sprintf("size %q: %s", e.Entry, e.Reason)
 }

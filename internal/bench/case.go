@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"math"
 	"strconv"
-	"strings"
 
 	"polegap/models"
 )
@@ -55,7 +54,7 @@ func Cases(sizes []int, order2 int, allCurves, allPCG bool) []Case {
 	return cs
 }
 
-// FormatSize writes a node count the way ParseSizes reads it: 10k, 1M, 2500.
+// FormatSize writes a node count the way the bench command reads it: 10k, 1M, 2500.
 func FormatSize(n int) string {
 	switch {
 	case n >= 1_000_000 && n%1_000_000 == 0:
@@ -64,37 +63,6 @@ func FormatSize(n int) string {
 		return strconv.Itoa(n/1000) + "k"
 	}
 	return strconv.Itoa(n)
-}
-
-// ParseSizes reads a comma-separated list of node counts such as
-// "10k,100k,1M" (suffixes k = 1e3 and M = 1e6; decimals allowed: 2.5k).
-// Each size must be between 1000 and 10M nodes.
-func ParseSizes(s string) ([]int, error) {
-	var out []int
-	for _, f := range strings.Split(s, ",") {
-		f = strings.TrimSpace(f)
-		if f == "" {
-			return nil, &SizeError{Entry: f, Reason: "empty entry"}
-		}
-		mult := 1.0
-		num := f
-		switch {
-		case strings.HasSuffix(f, "k"), strings.HasSuffix(f, "K"):
-			mult, num = 1e3, f[:len(f)-1]
-		case strings.HasSuffix(f, "M"), strings.HasSuffix(f, "m"):
-			mult, num = 1e6, f[:len(f)-1]
-		}
-		v, err := strconv.ParseFloat(num, 64)
-		if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
-			return nil, &SizeError{Entry: f, Reason: "not a number (use e.g. 10k, 100k, 1M)"}
-		}
-		n := v * mult
-		if n < 1000 || n > 10e6 {
-			return nil, &SizeError{Entry: f, Reason: "a size must lie between 1k and 10M nodes"}
-		}
-		out = append(out, int(math.Round(n)))
-	}
-	return out, nil
 }
 
 // The generated magnet: a C-core dipole with a 50 mm gap for an invented

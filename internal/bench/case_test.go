@@ -1,42 +1,12 @@
 package bench
 
 import (
-	"errors"
 	"slices"
 	"testing"
 
 	"polegap/mesh"
 	"polegap/post/study"
 )
-
-func TestParseSizes(t *testing.T) {
-	for _, tc := range []struct {
-		in   string
-		want []int
-	}{
-		{"10k,100k,1M", []int{10_000, 100_000, 1_000_000}},
-		{" 2.5k , 20000 ", []int{2500, 20_000}},
-		{"1m", []int{1_000_000}},
-	} {
-		got, err := ParseSizes(tc.in)
-		if err != nil || !slices.Equal(got, tc.want) {
-			t.Errorf("ParseSizes(%q) = %v, %v; want %v", tc.in, got, err, tc.want)
-		}
-		for _, n := range got {
-			back, err := ParseSizes(FormatSize(n))
-			if err != nil || back[0] != n {
-				t.Errorf("FormatSize(%d) = %q does not read back", n, FormatSize(n))
-			}
-		}
-	}
-	for _, bad := range []string{"", "10k,", "ten", "500", "20M", "NaNk", "1e400"} {
-		_, err := ParseSizes(bad)
-		var se *SizeError
-		if !errors.As(err, &se) {
-			t.Errorf("ParseSizes(%q): error %v, want *SizeError", bad, err)
-		}
-	}
-}
 
 func TestCases(t *testing.T) {
 	cs := Cases(DefaultSizes, 100_000, false, false)

@@ -15,16 +15,6 @@ func (e *StageError) Error() string {
 
 func (e *StageError) Unwrap() error { return e.Err }
 
-// SizeError reports an entry of a size list that is not a node count.
-type SizeError struct {
-	Entry  string
-	Reason string
-}
-
-func (e *SizeError) Error() string {
-	return fmt.Sprintf("bench: size %q: %s", e.Entry, e.Reason)
-}
-
 // Panic messages for programmer misuse.
 const (
 	errNoCases  = "bench: Run needs at least one case"

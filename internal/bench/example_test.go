@@ -7,14 +7,11 @@ import (
 	"polegap/internal/bench"
 )
 
-func ExampleParseSizes() {
-	sizes, err := bench.ParseSizes("10k,100k,1M")
-	fmt.Println(sizes, err)
-	for _, c := range bench.Cases(sizes, 100_000, false, false) {
+func ExampleCases() {
+	for _, c := range bench.Cases([]int{10_000, 100_000, 1_000_000}, 100_000, false, false) {
 		fmt.Println(c.Name, c.Order, c.Curve)
 	}
 	// Output:
-	// [10000 100000 1000000] <nil>
 	// P1-10k 1 true
 	// P1-100k 1 true
 	// P1-1M 1 false
