@@ -4,6 +4,7 @@ import (
 	"math"
 	"polegap/internal/compsum"
 
+	"polegap/internal/num"
 	"polegap/solver"
 )
 
@@ -143,10 +144,10 @@ func Energies(sol *solver.Solution) (w, wco float64, err error) {
 	}
 	scale := depthOf(p)
 	w, wco = sw.Value()*scale, sc.Value()*scale
-	if !finite(w) {
+	if !num.Finite(w) {
 		return 0, 0, &NotFiniteError{Quantity: "stored energy", Value: w}
 	}
-	if !finite(wco) {
+	if !num.Finite(wco) {
 		return 0, 0, &NotFiniteError{Quantity: "co-energy", Value: wco}
 	}
 	return w, wco, nil
@@ -161,5 +162,3 @@ func depthOf(p *solver.Problem) float64 {
 	}
 	return p.Depth
 }
-
-func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }

@@ -8,6 +8,7 @@ import (
 	"polegap/post/study"
 	"polegap/solver"
 
+	"polegap/internal/num"
 	"polegap/models"
 	"polegap/post/quantity/circuit"
 )
@@ -126,7 +127,7 @@ func VirtualWork(m *models.Model, regions []string, dir [2]float64, delta float6
 		}
 	}
 	f := (w[0] - w[1]) / (2 * delta)
-	if !finite(f) {
+	if !num.Finite(f) {
 		return 0, &NotFiniteError{Value: [2]float64{f, 0}}
 	}
 	return f, nil

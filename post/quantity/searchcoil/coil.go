@@ -1,6 +1,10 @@
 package searchcoil
 
-import "math"
+import (
+	"math"
+
+	"polegap/internal/num"
+)
 
 // Field is what a coil needs of a solution: the potential A (Wb/m) and
 // the flux density (T) at a point, ok = false outside the mesh. It has the
@@ -104,7 +108,7 @@ func (c Small) Linkage(f Field) (float64, error) {
 	nx, ny := c.Axis[0]/l, c.Axis[1]/l
 	if c.Width == 0 {
 		_, bx, by, ok := f.At(c.Centre[0], c.Centre[1])
-		if !ok || !finite(bx) || !finite(by) {
+		if !ok || !num.Finite(bx) || !num.Finite(by) {
 			return 0, &OutsideError{What: "centre", X: c.Centre[0], Y: c.Centre[1]}
 		}
 		return c.Turns * c.Area * (bx*nx + by*ny), nil
@@ -214,14 +218,12 @@ func checkTurns(n float64) {
 	}
 }
 
-func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
-
 func potential(f Field, pt [2]float64, what string) (float64, error) {
 	if f == nil {
 		panic(errNilField)
 	}
 	a, bx, by, ok := f.At(pt[0], pt[1])
-	if !ok || !finite(a) || !finite(bx) || !finite(by) {
+	if !ok || !num.Finite(a) || !num.Finite(bx) || !num.Finite(by) {
 		return 0, &OutsideError{What: what, X: pt[0], Y: pt[1]}
 	}
 	return a, nil

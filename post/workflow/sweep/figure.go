@@ -5,6 +5,7 @@ import (
 
 	gplot "gonum.org/v1/plot"
 
+	"polegap/internal/num"
 	"polegap/post/output/plot"
 )
 
@@ -25,7 +26,7 @@ func Figures(title string, pts []Point, gap float64, measured ...plot.Series) (*
 		for _, v := range ni {
 			hi = math.Max(hi, v)
 		}
-		series = append(series, plot.Series{Name: "ideal μ0 NI/g", X: []float64{0, hi}, Y: []float64{0, mu0 * hi * 1e3 / gap}, Dashed: true})
+		series = append(series, plot.Series{Name: "ideal μ0 NI/g", X: []float64{0, hi}, Y: []float64{0, num.Mu0 * hi * 1e3 / gap}, Dashed: true})
 	}
 	series = append(series, measured...)
 	bp, err := plot.LineFigure(title+": excitation curve", "ampere-turns (kA)", "field (T)", series...)
