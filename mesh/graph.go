@@ -3,9 +3,10 @@ package mesh
 import (
 	"fmt"
 	"math"
+	"sort"
+
 	"polegap/internal/compsum"
 	"polegap/internal/num"
-	"sort"
 )
 
 // The planar straight-line graph of a model.

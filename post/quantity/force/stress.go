@@ -3,9 +3,9 @@ package force
 import (
 	"container/heap"
 	"math"
-	"polegap/internal/compsum"
 	"sort"
 
+	"polegap/internal/compsum"
 	"polegap/internal/num"
 	"polegap/mesh"
 	"polegap/post/quantity/circuit"

@@ -3,6 +3,8 @@ package searchcoil
 import (
 	"math"
 
+	"gonum.org/v1/gonum/integrate/quad"
+
 	"polegap/internal/num"
 )
 
@@ -174,10 +176,10 @@ func (c Winding) Linkage(f Field) (float64, error) {
 	if n == 0 {
 		n = 3
 	}
-	if n < 1 || n > len(gaussX) {
+	if n < 1 || n > len(gauss) {
 		panic(errQuadOrder)
 	}
-	xs, ws := gaussX[n-1], gaussW[n-1]
+	xs, ws := gauss[n-1].x, gauss[n-1].w
 	var sum float64
 	for i := range n {
 		r := c.R0 + (c.R1-c.R0)*xs[i]
@@ -193,24 +195,17 @@ func (c Winding) Linkage(f Field) (float64, error) {
 	return c.Turns * sum, nil
 }
 
-// Gauss-Legendre nodes and weights on [0, 1] for 1 to 5 points
-// (Abramowitz and Stegun, "Handbook of Mathematical Functions", 1964,
-// table 25.4, mapped from [−1, 1]).
-var gaussX = [][]float64{
-	{0.5},
-	{0.21132486540518711775, 0.78867513459481288225},
-	{0.11270166537925831148, 0.5, 0.88729833462074168852},
-	{0.06943184420297371239, 0.33000947820757186760, 0.66999052179242813240, 0.93056815579702628761},
-	{0.04691007703066800360, 0.23076534494715845448, 0.5, 0.76923465505284154552, 0.95308992296933199640},
-}
-
-var gaussW = [][]float64{
-	{1},
-	{0.5, 0.5},
-	{0.27777777777777777778, 0.44444444444444444444, 0.27777777777777777778},
-	{0.17392742256872692869, 0.32607257743127307131, 0.32607257743127307131, 0.17392742256872692869},
-	{0.11846344252809454376, 0.23931433524968323402, 0.28444444444444444444, 0.23931433524968323402, 0.11846344252809454376},
-}
+// gauss[n-1] holds the n-point Gauss-Legendre nodes and weights on [0, 1]
+// for n = 1 to 5, computed once by gonum's quad.Legendre (they agree to
+// rounding with Abramowitz and Stegun, "Handbook of Mathematical
+// Functions", 1964, table 25.4, mapped from [−1, 1]).
+var gauss = func() (r [5]struct{ x, w []float64 }) {
+	for i := range r {
+		r[i].x, r[i].w = make([]float64, i+1), make([]float64, i+1)
+		quad.Legendre{}.FixedLocations(r[i].x, r[i].w, 0, 1)
+	}
+	return r
+}()
 
 func checkTurns(n float64) {
 	if !(n > 0) || math.IsInf(n, 0) {
