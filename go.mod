@@ -3,9 +3,9 @@ module polegap
 go 1.26.8
 
 require (
+	go.yaml.in/yaml/v3 v3.0.6
 	gonum.org/v1/gonum v0.17.0
 	gonum.org/v1/plot v0.17.0
-	gopkg.in/yaml.v3 v3.0.1
 )
 
 require (

@@ -1,40 +1,40 @@
 package materials
 
 import (
-	"bufio"
 	"errors"
 	"fmt"
 	"io"
 	"strconv"
 	"strings"
+
+	"polegap/internal/csvtab"
 )
 
 // maxCSVLine bounds one line of a B-H CSV file (bytes).
-const maxCSVLine = 1 << 16
+const maxCSVLine = csvtab.MaxLine
 
 // ReadCurveCSV reads a B-H table and builds a Curve named name (the name also
 // prefixes error messages, so pass the file name).
 //
-// Format: '#' starts a comment (whole line or trailing); blank lines are
-// skipped; fields are separated by commas (or, if a line has none, by
-// semicolons, tabs or spaces) and may be quoted. The first remaining line is
+// Format: polegap's CSV dialect (internal/csvtab): '#' starts a comment
+// (whole line or trailing); blank lines are skipped; the header's
+// separator is the file's (a comma, else a semicolon, else a tab, else runs
+// of spaces); fields may be quoted as in RFC 4180. The first remaining line is
 // a header naming the columns H and B, each optionally with its unit in
 // parentheses or brackets: "H (A/m),B (T)", "H [kA/m], B [mT]", "h,b".
 // Instead of B, a column J gives the magnetic polarisation J = B - μ0 H
 // (as steel data sheets often do), and B = J + μ0 H is used. Units: A/m or
 // kA/m for H, T or mT for B and J; none means A/m and T. Other columns are
-// ignored. With whitespace as separator, a header field must not contain
+// ignored. With spaces as separator, a header field must not contain
 // spaces ("H(A/m) B(T)"). Each later line is one (H, B) point; the table rules
 // of NewCurve apply. Every error is a *CSVError naming the line and what to
 // do.
 func ReadCurveCSV(r io.Reader, name string) (*Curve, error) {
-	sc := bufio.NewScanner(r)
-	sc.Buffer(make([]byte, 0, 4096), maxCSVLine)
+	cr := csvtab.NewReader(r)
 	lineErr := func(line int, err error, format string, args ...any) error {
 		return &CSVError{Name: name, Line: line, Reason: fmt.Sprintf(format, args...), Err: err}
 	}
 	var (
-		line         int
 		header       bool
 		colH, colB   = -1, -1
 		scaleH       = 1.0
@@ -44,20 +44,25 @@ func ReadCurveCSV(r io.Reader, name string) (*Curve, error) {
 		lines        []int
 		ncolRequired int
 	)
-	for sc.Scan() {
-		line++
-		text := sc.Text()
-		if line == 1 {
-			text = strings.TrimPrefix(text, "\ufeff")
+	for {
+		fields, err := cr.Read()
+		if err == io.EOF {
+			break
 		}
-		if k := strings.IndexByte(text, '#'); k >= 0 {
-			text = text[:k]
+		if err != nil {
+			var te *csvtab.Error
+			if !errors.As(err, &te) {
+				return nil, &CSVError{Name: name, Reason: "reading: " + err.Error(), Err: err}
+			}
+			switch {
+			case te.Err == csvtab.ErrLineTooLong:
+				return nil, lineErr(te.Line, ErrNumber, "line longer than %d bytes; is this a B-H table?", maxCSVLine)
+			case te.Column > 0: // a misplaced quote
+				return nil, lineErr(te.Line, te, "column %d: %s", te.Column, te.Msg)
+			}
+			return nil, &CSVError{Name: name, Reason: "reading: " + te.Err.Error(), Err: te.Err}
 		}
-		text = strings.TrimSpace(text)
-		if text == "" {
-			continue
-		}
-		fields := splitFields(text)
+		line := cr.Line()
 		if !header {
 			header = true
 			for k, f := range fields {
@@ -91,7 +96,7 @@ func ReadCurveCSV(r io.Reader, name string) (*Curve, error) {
 				} else if colB < 0 {
 					missing = "H and B"
 				}
-				if _, err := strconv.ParseFloat(strings.TrimSpace(fields[0]), 64); err == nil {
+				if _, err := strconv.ParseFloat(fields[0], 64); err == nil {
 					return nil, lineErr(line, ErrMissingColumn, "no header row; start the table with a header such as \"H (A/m),B (T)\"")
 				}
 				return nil, lineErr(line, ErrMissingColumn, "header has no column %s; name the columns H and B, e.g. \"H (A/m),B (T)\"", missing)
@@ -123,12 +128,6 @@ func ReadCurveCSV(r io.Reader, name string) (*Curve, error) {
 		bs = append(bs, bv)
 		lines = append(lines, line)
 	}
-	if err := sc.Err(); err != nil {
-		if errors.Is(err, bufio.ErrTooLong) {
-			return nil, lineErr(line+1, ErrNumber, "line longer than %d bytes; is this a B-H table?", maxCSVLine)
-		}
-		return nil, &CSVError{Name: name, Reason: "reading: " + err.Error(), Err: err}
-	}
 	if !header {
 		return nil, &CSVError{Name: name, Reason: "no header and no data; give a header such as \"H (A/m),B (T)\" and at least two points", Err: ErrEmpty}
 	}
@@ -145,28 +144,6 @@ func ReadCurveCSV(r io.Reader, name string) (*Curve, error) {
 	}
 	c.name = name
 	return c, nil
-}
-
-// splitFields splits a line on commas, else semicolons, else tabs or
-// runs of spaces, trimming spaces and one level of double quotes.
-func splitFields(s string) []string {
-	var f []string
-	switch {
-	case strings.Contains(s, ","):
-		f = strings.Split(s, ",")
-	case strings.Contains(s, ";"):
-		f = strings.Split(s, ";")
-	default:
-		f = strings.Fields(s)
-	}
-	for i := range f {
-		v := strings.TrimSpace(f[i])
-		if len(v) >= 2 && v[0] == '"' && v[len(v)-1] == '"' {
-			v = strings.TrimSpace(v[1 : len(v)-1])
-		}
-		f[i] = v
-	}
-	return f
 }
 
 // parseHeaderField splits "H (A/m)" into ("h", "A/m"). The column name is

@@ -1,6 +1,7 @@
 package materials
 
 import (
+	"encoding/csv"
 	"errors"
 	"math"
 	"strings"
@@ -25,6 +26,7 @@ func TestReadCurveCSV(t *testing.T) {
 		{"quoted", "\"H (A/m)\",\"B (T)\"\n\"200\",\"1\"\n1000,1.5\n10000,1.8\n"},
 		{"semicolon", "H;B\n200;1\n1000;1.5\n10000;1.8\n"},
 		{"tabs", "H\tB\n200\t1\n1000\t1.5\n10000\t1.8\n"},
+		{"spaces", "H(A/m)  B(T)\n200 1\n 1000   1.5\n10000 \t1.8\n"},
 		{"polarisation J", "H (A/m),J (T)\n200,0.9997486725877128\n1000,1.498743362938564\n10000,1.7874336293856408\n"},
 		{"CRLF and BOM", "\ufeffH,B\r\n200,1\r\n1000,1.5\r\n10000,1.8\r\n"},
 	}
@@ -80,6 +82,7 @@ func TestReadCurveCSVErrors(t *testing.T) {
 		{"NaN", "H,B\n0,0\nNaN,1\n300,1.5\n", ErrNotFinite, "f.csv:3: H is not a finite number"},
 		{"overflow", "H,B\n0,0\n1e999,1\n300,1.5\n", ErrNotFinite, "f.csv:3"},
 		{"two points", "H,B\n0,0\n100,1\n", ErrTooFewPoints, "f.csv: the table has 2 points"},
+		{"misplaced quote", "H,B\n0,0\n\"100\"x,1\n", csv.ErrQuote, "f.csv:3: column 5: extraneous or missing \""},
 		{"long line", "H,B\n" + strings.Repeat("1", maxCSVLine+10) + "\n", ErrNumber, "f.csv:2: line longer than"},
 	}
 	for _, tc := range cases {

@@ -4,12 +4,17 @@ import (
 	"fmt"
 	"math"
 	"sort"
+
+	"polegap/internal/num"
 )
 
-// Mu0 is the magnetic constant μ0 = 4π·1e-7 H/m. (The CODATA 2018 value
-// differs from it by about 5.5e-10 relative, far below any B-H table's
-// accuracy.)
-const Mu0 = 4e-7 * math.Pi
+// Mu0 is the magnetic constant μ0 = 4π·1e-7 H/m, the value that was exact
+// in the SI before its 2019 revision; it is within 1e-9 relative of the
+// CODATA 2018 value 1.25663706212(19)e-6 H/m (about 5.4e-10), far below any
+// B-H table's accuracy. It is polegap's one μ0: defined in internal/num
+// (so that packages which do not import materials share it) and exported
+// here for users of the library.
+const Mu0 = num.Mu0
 
 // Plausibility bounds of a B-H table. They reject unit mistakes and keep
 // every derived quantity (b2 = B², ν, dν/db2) far from overflow.

@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"gonum.org/v1/gonum/stat"
 )
 
 // testCurves returns every built-in curve, some stacked versions and a
@@ -332,17 +334,6 @@ func TestCurveOrder(t *testing.T) {
 
 // lsqSlope returns the least-squares slope of y against x.
 func lsqSlope(x, y []float64) float64 {
-	var mx, my float64
-	for i := range x {
-		mx += x[i]
-		my += y[i]
-	}
-	mx /= float64(len(x))
-	my /= float64(len(y))
-	var sxy, sxx float64
-	for i := range x {
-		sxy += (x[i] - mx) * (y[i] - my)
-		sxx += (x[i] - mx) * (x[i] - mx)
-	}
-	return sxy / sxx
+	_, b := stat.LinearRegression(x, y, nil, false)
+	return b
 }

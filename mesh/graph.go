@@ -3,8 +3,10 @@ package mesh
 import (
 	"fmt"
 	"math"
-	"polegap/internal/compsum"
 	"sort"
+
+	"polegap/internal/compsum"
+	"polegap/internal/num"
 )
 
 // The planar straight-line graph of a model.
@@ -133,7 +135,7 @@ func (o GraphOptions) WithDefaults(regions []Polygon, boundary Polygon) GraphOpt
 			p = &regions[i]
 		}
 		for j := range p.X {
-			if isFinite(p.X[j]) && isFinite(p.Y[j]) {
+			if num.Finite(p.X[j]) && num.Finite(p.Y[j]) {
 				x0, x1 = math.Min(x0, p.X[j]), math.Max(x1, p.X[j])
 				y0, y1 = math.Min(y0, p.Y[j]), math.Max(y1, p.Y[j])
 			}
@@ -265,7 +267,7 @@ func (o *outline) contains(x, y float64) bool {
 func validate(idx int, p Polygon, opt GraphOptions) (outline, error) {
 	checkPolygonShape(p)
 	for i := range p.X {
-		if !isFinite(p.X[i]) || !isFinite(p.Y[i]) {
+		if !num.Finite(p.X[i]) || !num.Finite(p.Y[i]) {
 			return outline{}, graphErr(idx, fmt.Sprintf("vertex %d has a non-finite coordinate", i))
 		}
 		if p.Sweep != nil && !(math.Abs(p.Sweep[i]) < 2*math.Pi) {

@@ -7,6 +7,8 @@ import (
 	"io"
 	"math"
 	"strconv"
+
+	"polegap/internal/num"
 )
 
 // VTK XML unstructured-grid output (.vtu), ASCII encoding.
@@ -88,9 +90,9 @@ func WriteVTU(w io.Writer, m *Mesh, data ...DataArray) error {
 		}
 	}
 	for i := 0; i < nn; i++ {
-		if !isFinite(m.X[i]) || !isFinite(m.Y[i]) {
+		if !num.Finite(m.X[i]) || !num.Finite(m.Y[i]) {
 			v := m.X[i]
-			if isFinite(v) {
+			if num.Finite(v) {
 				v = m.Y[i]
 			}
 			return &NonFiniteError{Array: "coordinates", Index: i, Value: v}
@@ -207,5 +209,3 @@ func WriteVTU(w io.Writer, m *Mesh, data ...DataArray) error {
 	p("</VTKFile>\n")
 	return bw.Flush()
 }
-
-func isFinite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }

@@ -3,7 +3,7 @@ package models
 import (
 	"strings"
 
-	"gopkg.in/yaml.v3"
+	"go.yaml.in/yaml/v3"
 )
 
 // Part is a named set of regions whose magnetic force is reported: a pole

@@ -4,7 +4,7 @@ import (
 	"math"
 	"strings"
 
-	"gopkg.in/yaml.v3"
+	"go.yaml.in/yaml/v3"
 )
 
 var probeKeys = []string{"point", "line", "box", "centre", "radius", "samples"}

@@ -5,7 +5,7 @@ import (
 	"math"
 	"sort"
 
-	"gopkg.in/yaml.v3"
+	"go.yaml.in/yaml/v3"
 )
 
 // expansion is what a template contributes before the user's own entries.

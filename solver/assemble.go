@@ -4,6 +4,7 @@ import (
 	"math"
 	"sync"
 
+	"polegap/internal/num"
 	"polegap/mesh"
 )
 
@@ -197,7 +198,7 @@ func (as *assembler) element(t int, w *elemWork, wantK bool) bool {
 		}
 		b2 := bx*bx + by*by
 		nu, dnu := mat.Nu(b2)
-		if !(nu > 0) || math.IsInf(nu, 0) || !finite(dnu) {
+		if !(nu > 0) || math.IsInf(nu, 0) || !num.Finite(dnu) {
 			w.err = &MaterialError{Region: reg, B2: b2, Nu: nu, DNu: dnu}
 			return false
 		}
@@ -338,7 +339,7 @@ func (as *assembler) elementP1(t int, w *elemWork, wantK bool, reg int32, mat Ma
 	by := w.a[0]*c0y + w.a[1]*c1y + w.a[2]*c2y
 	b2 := bx*bx + by*by
 	nu, dnu := mat.Nu(b2)
-	if !(nu > 0) || math.IsInf(nu, 0) || !finite(dnu) {
+	if !(nu > 0) || math.IsInf(nu, 0) || !num.Finite(dnu) {
 		w.err = &MaterialError{Region: reg, B2: b2, Nu: nu, DNu: dnu}
 		return false
 	}

@@ -3,6 +3,8 @@ package solver
 import (
 	"fmt"
 	"math"
+
+	"polegap/internal/num"
 )
 
 // Check verifies the invariants of a solution: one finite potential per
@@ -20,7 +22,7 @@ func (s *Solution) Check() error {
 	first := make([]float64, d.n)
 	seen := make([]bool, d.n)
 	for i, a := range s.A {
-		if !finite(a) {
+		if !num.Finite(a) {
 			return fmt.Errorf("solver: Check: A[%d] = %g", i, a)
 		}
 		c := d.dof[i]

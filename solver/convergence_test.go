@@ -5,6 +5,8 @@ import (
 	"math"
 	"math/rand/v2"
 	"testing"
+
+	"gonum.org/v1/gonum/stat"
 )
 
 // unitNu is a material with ν = 1 (m/H), for manufactured solutions.
@@ -38,16 +40,12 @@ func fieldErrors(s *Solution, exact func(x, y float64) (a, bx, by float64)) (l2,
 
 // slope fits log(err) = p log(h) + c by least squares and returns p.
 func slope(h, e []float64) float64 {
-	var sx, sy, sxx, sxy float64
-	n := float64(len(h))
+	x, y := make([]float64, len(h)), make([]float64, len(e))
 	for i := range h {
-		x, y := math.Log(h[i]), math.Log(e[i])
-		sx += x
-		sy += y
-		sxx += x * x
-		sxy += x * y
+		x[i], y[i] = math.Log(h[i]), math.Log(e[i])
 	}
-	return (n*sxy - sx*sy) / (n*sxx - sx*sx)
+	_, p := stat.LinearRegression(x, y, nil, false)
+	return p
 }
 
 // Manufactured solutions (P. J. Roache, "Code verification by the method

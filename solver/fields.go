@@ -4,6 +4,8 @@ import (
 	"math"
 	"sync"
 
+	"gonum.org/v1/gonum/integrate/quad"
+
 	"polegap/internal/compsum"
 )
 
@@ -199,10 +201,15 @@ func (s *Solution) Energy() float64 {
 	return e
 }
 
-// 5-point Gauss-Legendre nodes and weights on [0, 1] (Abramowitz and
+// 5-point Gauss-Legendre nodes and weights on [0, 1], computed once by
+// gonum's quad.Legendre (they agree to rounding with Abramowitz and
 // Stegun, Handbook of Mathematical Functions, 1964, table 25.4).
-var gl5x = [5]float64{0.046910077030668, 0.230765344947158, 0.5, 0.769234655052842, 0.953089922969332}
-var gl5w = [5]float64{0.118463442528095, 0.239314335249683, 0.284444444444444, 0.239314335249683, 0.118463442528095}
+var gl5x, gl5w = legendre5()
+
+func legendre5() (x, w [5]float64) {
+	quad.Legendre{}.FixedLocations(x[:], w[:], 0, 1)
+	return x, w
+}
 
 // energyDensity returns ∫₀^{b2} ν(s) ds / 2 (J/m³).
 func energyDensity(mat Material, b2 float64) float64 {

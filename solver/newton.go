@@ -4,6 +4,7 @@ import (
 	"math"
 	"time"
 
+	"polegap/internal/num"
 	"polegap/solver/sparse"
 )
 
@@ -219,7 +220,7 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 		if opt.Progress != nil {
 			opt.Progress(it, res)
 		}
-		if !finite(res) {
+		if !num.Finite(res) {
 			return &NotConvergedError{Iterations: it, History: s.History, Residual: res, Update: upd, Reason: "the residual is not finite"}
 		}
 		if res <= opt.Tol {

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"polegap/internal/num"
 	"polegap/mesh"
 )
 
@@ -186,7 +187,7 @@ func (p *Problem) validate() error {
 	}
 	tol := axisTol(m)
 	for i := 0; i < nn; i++ {
-		if !finite(m.X[i]) || !finite(m.Y[i]) {
+		if !num.Finite(m.X[i]) || !num.Finite(m.Y[i]) {
 			return &ProblemError{Field: "Mesh.X", Reason: fmt.Sprintf("node %d has a non-finite coordinate", i)}
 		}
 		if p.Formulation == Axisymmetric && m.X[i] < -tol {
@@ -194,12 +195,12 @@ func (p *Problem) validate() error {
 		}
 	}
 	for i, j := range p.CurrentDensity {
-		if !finite(j) {
+		if !num.Finite(j) {
 			return &ProblemError{Field: "CurrentDensity", Reason: fmt.Sprintf("region %d: %g", i, j)}
 		}
 	}
 	for i, mg := range p.Magnetization {
-		if !finite(mg[0]) || !finite(mg[1]) {
+		if !num.Finite(mg[0]) || !num.Finite(mg[1]) {
 			return &ProblemError{Field: "Magnetization", Reason: fmt.Sprintf("region %d: %v", i, mg)}
 		}
 	}
@@ -209,24 +210,22 @@ func (p *Problem) validate() error {
 		}
 	}
 	for i, pc := range p.PointCurrents {
-		if pc.Node < 0 || int(pc.Node) >= nn || !finite(pc.Current) {
+		if pc.Node < 0 || int(pc.Node) >= nn || !num.Finite(pc.Current) {
 			return &ProblemError{Field: "PointCurrents", Reason: fmt.Sprintf("entry %d: node %d, current %g", i, pc.Node, pc.Current)}
 		}
 	}
 	for i, e := range p.Exterior {
-		if p.Formulation != Axisymmetric || !(e.Radius > 0) || !finite(e.CX) || !finite(e.CY) {
+		if p.Formulation != Axisymmetric || !(e.Radius > 0) || !num.Finite(e.CX) || !num.Finite(e.CY) {
 			return &ProblemError{Field: "Exterior", Reason: fmt.Sprintf("entry %d: an axisymmetric Kelvin image needs a positive radius and a finite centre", i)}
 		}
 	}
 	for i, f := range p.Fixed {
-		if f.Node < 0 || int(f.Node) >= nn || !finite(f.A) {
+		if f.Node < 0 || int(f.Node) >= nn || !num.Finite(f.A) {
 			return &ProblemError{Field: "Fixed", Reason: fmt.Sprintf("entry %d: node %d, value %g", i, f.Node, f.A)}
 		}
 	}
 	return nil
 }
-
-func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 
 // axisTol is the distance from r = 0 within which a node counts as lying
 // on the axis: 1e-10 of the model's extent.

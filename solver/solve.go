@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"time"
 
+	"polegap/internal/num"
 	"polegap/solver/sparse"
 )
 
@@ -112,7 +113,7 @@ func (pr *Prepared) Solve(opt Options) (*Solution, error) {
 		panic(errInitialLen)
 	}
 	for i, a := range opt.Initial {
-		if !finite(a) {
+		if !num.Finite(a) {
 			return nil, &ProblemError{Field: "Options.Initial", Reason: fmt.Sprintf("node %d: %g", i, a)}
 		}
 	}
@@ -123,7 +124,7 @@ func (pr *Prepared) Solve(opt Options) (*Solution, error) {
 		if f.Node != pr.fixed[i] {
 			panic(errFixedChanged)
 		}
-		if !finite(f.A) {
+		if !num.Finite(f.A) {
 			return nil, &ProblemError{Field: "Fixed", Reason: fmt.Sprintf("entry %d: value %g", i, f.A)}
 		}
 		if err := pr.as.d.setFixed(f.Node, f.A); err != nil {

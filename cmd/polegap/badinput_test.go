@@ -117,6 +117,7 @@ func TestBadInputsEveryFileUsed(t *testing.T) {
 		"bh-nonmonotone.csv": true, "bh-bad-row.csv": true, "bh-empty.csv": true,
 		// TestBadMeasuredCSV
 		"measured-bad-number.csv": true, "measured-short-row.csv": true, "measured-negative-sigma.csv": true,
+		"measured-misplaced-quote.csv": true,
 		// TestBadInputsKnownGaps
 		"probe-outside.yaml": true, "probe-beyond-symmetry.yaml": true,
 	}
@@ -143,6 +144,7 @@ func TestBadMeasuredCSV(t *testing.T) {
 		{"measured-bad-number.csv", []string{`measured-bad-number.csv:8:4: field_T: "0.28x75" is not a number; write a decimal number`}},
 		{"measured-short-row.csv", []string{"measured-short-row.csv:9: has 2 values but the header has 3 columns; give one value per column"}},
 		{"measured-negative-sigma.csv", []string{"measured-negative-sigma.csv:10:13: sigma_T: uncertainty -0.002 is negative"}},
+		{"measured-misplaced-quote.csv", []string{`measured-misplaced-quote.csv:7:12: extraneous or missing " in a quoted field; quote a whole field`}},
 	}
 	for _, c := range cases {
 		curve, err := measure.Load(filepath.Join(badDir, c.file))

@@ -1,44 +1,38 @@
 package bench
 
-import "math"
+import (
+	"math"
+
+	"gonum.org/v1/gonum/floats"
+	"gonum.org/v1/gonum/stat"
+
+	"polegap/internal/num"
+)
 
 // Fit returns the least-squares slope p and intercept c of
-// log(cost) = c + p·log(n): the growth exponent of a cost with the size.
-// Points with a non-positive or non-finite n or cost are left out; ok is
-// false when fewer than two points with distinct n remain. It panics if
-// the slices differ in length.
+// log(cost) = c + p·log(n) (gonum's stat.LinearRegression): the growth
+// exponent of a cost with the size. Points with a non-positive or
+// non-finite n or cost are left out; ok is false when fewer than two points
+// with distinct n remain. It panics if the slices differ in length.
 func Fit(n, cost []float64) (p, c float64, ok bool) {
 	if len(n) != len(cost) {
 		panic(errFitLen)
 	}
-	var sx, sy, k float64
-	usable := func(i int) bool {
-		return n[i] > 0 && cost[i] > 0 && !math.IsInf(n[i], 0) && !math.IsInf(cost[i], 0)
-	}
+	var lx, ly []float64
 	for i := range n {
-		if usable(i) {
-			sx += math.Log(n[i])
-			sy += math.Log(cost[i])
-			k++
+		if n[i] > 0 && cost[i] > 0 && !math.IsInf(n[i], 0) && !math.IsInf(cost[i], 0) {
+			lx = append(lx, math.Log(n[i]))
+			ly = append(ly, math.Log(cost[i]))
 		}
 	}
-	if k < 2 {
+	if len(lx) < 2 || floats.Min(lx) == floats.Max(lx) {
 		return 0, 0, false
 	}
-	mx, my := sx/k, sy/k
-	var sxx, sxy float64
-	for i := range n {
-		if usable(i) {
-			dx := math.Log(n[i]) - mx
-			sxx += dx * dx
-			sxy += dx * (math.Log(cost[i]) - my)
-		}
-	}
-	if !(sxx > 0) {
+	c, p = stat.LinearRegression(lx, ly, nil, false)
+	if !num.Finite(p) || !num.Finite(c) {
 		return 0, 0, false
 	}
-	p = sxy / sxx
-	return p, my - p*mx, true
+	return p, c, true
 }
 
 // A goalCurve is a DESIGN.md figure stated at one or more sizes: the

@@ -1,12 +1,14 @@
 package measure
 
 import (
-	"bufio"
+	"errors"
 	"fmt"
 	"io"
 	"math"
 	"strconv"
 	"strings"
+
+	"polegap/internal/csvtab"
 )
 
 // quantity is what a CSV column measures.
@@ -127,25 +129,25 @@ type column struct {
 // flux column has Kind FluxLinkage. Values are converted to A, T and
 // Wb-turns. An empty uncertainty cell means none stated (0).
 //
-// Separators: comma, or semicolon or tab when the header has no comma.
-// Lines starting with '#' are comments; text after '#' on a data row is
-// ignored; "# key: value" comments before the header fill Curve.Meta. The
-// curve's name is the "magnet" entry of Meta if there is one, else name.
+// The file is in polegap's CSV dialect (internal/csvtab): the header's
+// separator is the file's (a comma, else a semicolon, else a tab, else runs
+// of spaces), fields may be quoted as in RFC 4180, '#' starts a comment
+// (whole line or after the values), and "# key: value" comments before the
+// header fill Curve.Meta. The curve's name is the "magnet" entry of Meta
+// if there is one, else name.
 //
 // Every bad row is reported (an ErrorList of *InputError, each
 // "name:row N: what is wrong, what to do", N the line in the file): a bad
 // or non-finite number, a missing value, a negative uncertainty, a
-// repeated current. Fewer than MinPoints good rows is an error.
+// repeated current, a misplaced quote. Fewer than MinPoints good rows is
+// an error.
 func ReadCSV(r io.Reader, name string) (*Curve, error) {
-	sc := bufio.NewScanner(r)
-	sc.Buffer(make([]byte, 0, 64*1024), 1<<20)
-	c := &Curve{Name: name, Meta: map[string]string{}}
+	cr := csvtab.NewReader(r)
+	c := &Curve{Name: name}
 	var (
 		errs   ErrorList
 		cols   []column
-		sep    string
 		ncells int
-		line   int
 		seen   = map[float64]int{}
 		byRole [6]*column
 		col0   int // 1-based column of the cell being read, 0 for a whole row
@@ -153,31 +155,35 @@ func ReadCSV(r io.Reader, name string) (*Curve, error) {
 			errs = append(errs, &InputError{File: name, Line: l, Column: col0, Path: path, Msg: fmt.Sprintf(format, a...)})
 		}
 	)
-	for sc.Scan() {
-		line++
-		text := strings.TrimSpace(strings.TrimPrefix(sc.Text(), "\ufeff"))
-		if text == "" {
-			continue
+	for {
+		cells, err := cr.Read()
+		if err == io.EOF {
+			break
 		}
-		if text[0] == '#' {
-			if cols == nil {
-				if k, v, ok := strings.Cut(strings.TrimSpace(text[1:]), ":"); ok && k != "" && !strings.ContainsAny(k, " \t") {
-					c.Meta[strings.ToLower(k)] = strings.TrimSpace(v)
-				}
+		if err != nil {
+			var te *csvtab.Error
+			if !errors.As(err, &te) {
+				return nil, &InputError{File: name, Msg: fmt.Sprintf("cannot read: %v", err), Err: err}
 			}
+			if te.Column == 0 { // a line too long, or the reader failed
+				return nil, &InputError{File: name, Line: te.Line, Msg: "cannot read: " + te.Msg, Err: te}
+			}
+			if cols == nil {
+				return nil, ErrorList{{File: name, Line: te.Line, Column: te.Column, Msg: te.Msg, Err: te}}
+			}
+			col0 = te.Column
+			bad(te.Line, "", "%s", te.Msg)
 			continue
 		}
-		if i := strings.IndexByte(text, '#'); i >= 0 {
-			text = strings.TrimSpace(text[:i])
-		}
+		line := cr.Line()
 		if cols == nil {
 			var err *InputError
-			cols, sep, err = parseHeader(text)
+			cols, err = parseHeader(cells, cr.Comma())
 			if err != nil {
 				err.File, err.Line = name, line
 				return nil, ErrorList{err}
 			}
-			ncells = len(strings.Split(text, sep))
+			ncells = len(cells)
 			for i := range cols {
 				byRole[cols[i].role] = &cols[i]
 			}
@@ -186,7 +192,6 @@ func ReadCSV(r io.Reader, name string) (*Curve, error) {
 			}
 			continue
 		}
-		cells := strings.Split(text, sep)
 		col0 = 0
 		if len(cells) != ncells {
 			bad(line, "", "has %d values but the header has %d columns; give one value per column (leave an uncertainty empty rather than dropping it)", len(cells), ncells)
@@ -196,8 +201,8 @@ func ReadCSV(r io.Reader, name string) (*Curve, error) {
 		p.Row = line
 		ok := true
 		for _, col := range cols {
-			col0 = cellColumn(sc.Text(), sep, col.index)
-			s := strings.Trim(strings.TrimSpace(cells[col.index]), `"`)
+			col0 = cr.Column(col.index)
+			s := cells[col.index]
 			if s == "" {
 				if col.role == roleFieldSigma || col.role == roleFluxSigma {
 					continue
@@ -249,9 +254,7 @@ func ReadCSV(r io.Reader, name string) (*Curve, error) {
 		seen[p.Current] = line
 		c.Points = append(c.Points, p)
 	}
-	if err := sc.Err(); err != nil {
-		return nil, &InputError{File: name, Line: line + 1, Msg: fmt.Sprintf("cannot read: %v", err), Err: err}
-	}
+	c.Meta = cr.Meta
 	if cols == nil {
 		return nil, ErrorList{{File: name, Msg: "no header row; start with a header such as current_A,field_T"}}
 	}
@@ -272,22 +275,14 @@ func isRangeErr(err error) bool {
 	return ok && ne.Err == strconv.ErrRange
 }
 
-// parseHeader finds the separator and the recognised columns of a header.
-func parseHeader(text string) ([]column, string, *InputError) {
-	sep := ","
-	if !strings.Contains(text, ",") {
-		switch {
-		case strings.Contains(text, ";"):
-			sep = ";"
-		case strings.Contains(text, "\t"):
-			sep = "\t"
-		}
-	}
+// parseHeader finds the recognised columns of a header; comma is its
+// separator, for messages.
+func parseHeader(cells []string, comma rune) ([]column, *InputError) {
+	text := strings.Join(cells, string(comma))
 	var cols []column
 	var have [6]string
 	var sigmas []column
-	for i, cell := range strings.Split(text, sep) {
-		cell = strings.Trim(strings.TrimSpace(cell), `"`)
+	for i, cell := range cells {
 		n, u := splitHeader(cell)
 		nn := normName(n)
 		var r role
@@ -304,7 +299,7 @@ func parseHeader(text string) ([]column, string, *InputError) {
 			continue // a column we do not use
 		}
 		if u == "" {
-			return nil, sep, &InputError{Column: i + 1, Path: cell, Msg: fmt.Sprintf("column %d %q has no unit; write it as %s_UNIT or %s (UNIT)", i+1, cell, n, n)}
+			return nil, &InputError{Column: i + 1, Path: cell, Msg: fmt.Sprintf("column %d %q has no unit; write it as %s_UNIT or %s (UNIT)", i+1, cell, n, n)}
 		}
 		un := units[u]
 		want := map[role]quantity{roleCurrent: qCurrent, roleField: qField, roleFlux: qFlux}
@@ -314,13 +309,13 @@ func parseHeader(text string) ([]column, string, *InputError) {
 			case qFlux:
 				r = roleFluxSigma
 			default:
-				return nil, sep, &InputError{Column: i + 1, Path: cell, Msg: fmt.Sprintf("uncertainty column %q is in %s; give it in the unit of the field (T) or flux linkage (Wb)", cell, u)}
+				return nil, &InputError{Column: i + 1, Path: cell, Msg: fmt.Sprintf("uncertainty column %q is in %s; give it in the unit of the field (T) or flux linkage (Wb)", cell, u)}
 			}
 		} else if q := want[r]; un.q != q {
-			return nil, sep, &InputError{Column: i + 1, Path: cell, Msg: fmt.Sprintf("column %q is a %s but its unit %s is not; use %s", cell, roleNames[r], u, q.unitHint())}
+			return nil, &InputError{Column: i + 1, Path: cell, Msg: fmt.Sprintf("column %q is a %s but its unit %s is not; use %s", cell, roleNames[r], u, q.unitHint())}
 		}
 		if have[r] != "" {
-			return nil, sep, &InputError{Column: i + 1, Path: cell, Msg: fmt.Sprintf("column %q is a second %s column besides %q; keep one", cell, roleNames[r], have[r])}
+			return nil, &InputError{Column: i + 1, Path: cell, Msg: fmt.Sprintf("column %q is a second %s column besides %q; keep one", cell, roleNames[r], have[r])}
 		}
 		have[r] = cell
 		col := column{index: i, header: cell, role: r, factor: un.factor}
@@ -333,30 +328,13 @@ func parseHeader(text string) ([]column, string, *InputError) {
 	cols = append(cols, sigmas...)
 	switch {
 	case have[roleCurrent] == "":
-		return nil, sep, &InputError{Msg: fmt.Sprintf("no current column in header %q; name one current_A or I (A)", text)}
+		return nil, &InputError{Msg: fmt.Sprintf("no current column in header %q; name one current_A or I (A)", text)}
 	case have[roleField] == "" && have[roleFlux] == "":
-		return nil, sep, &InputError{Msg: fmt.Sprintf("no field or flux column in header %q; name one field_T, B (T) or flux_Wb", text)}
+		return nil, &InputError{Msg: fmt.Sprintf("no field or flux column in header %q; name one field_T, B (T) or flux_Wb", text)}
 	case have[roleFieldSigma] != "" && have[roleField] == "":
-		return nil, sep, &InputError{Path: have[roleFieldSigma], Msg: "a field uncertainty column without a field column; add field_T or give the uncertainty in Wb"}
+		return nil, &InputError{Path: have[roleFieldSigma], Msg: "a field uncertainty column without a field column; add field_T or give the uncertainty in Wb"}
 	case have[roleFluxSigma] != "" && have[roleFlux] == "":
-		return nil, sep, &InputError{Path: have[roleFluxSigma], Msg: "a flux-linkage uncertainty column without a flux column; add flux_Wb or give the uncertainty in T"}
+		return nil, &InputError{Path: have[roleFluxSigma], Msg: "a flux-linkage uncertainty column without a flux column; add flux_Wb or give the uncertainty in T"}
 	}
-	return cols, sep, nil
-}
-
-// cellColumn returns the 1-based byte column at which cell idx of a raw
-// line starts (its first non-blank character), cells split by sep.
-func cellColumn(raw, sep string, idx int) int {
-	off := 0
-	for i := 0; i < idx; i++ {
-		j := strings.Index(raw[off:], sep)
-		if j < 0 {
-			return 0
-		}
-		off += j + len(sep)
-	}
-	for off < len(raw) && (raw[off] == ' ' || raw[off] == '\t') {
-		off++
-	}
-	return off + 1
+	return cols, nil
 }

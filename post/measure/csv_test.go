@@ -29,6 +29,8 @@ func TestReadCSVHeaders(t *testing.T) {
 		{"comments and blanks", "# magnet: test\n\ncurrent_A,field_T\n# a comment\n1,0.1 # first\n\n2,0.2\n", measure.Field, 2, 0.2, 0},
 		{"empty sigma cell", "current_A,field_T,sigma_T\n1,0.1,\n2,0.2,0.002\n", measure.Field, 2, 0.2, 0.002},
 		{"CRLF and BOM", "\ufeffcurrent_A,field_T\r\n1,0.1\r\n2,0.2\r\n", measure.Field, 2, 0.2, 0},
+		{"spaces", "current_A   field_T  sigma_T\n1 0.1 0.001\n 2  0.2\t0.002\n", measure.Field, 2, 0.2, 0.002},
+		{"quoted", "\"I (A)\",\"B (T)\",\"u(B) (T)\"\n\"1\",\"0.1\",\"\"\n 2, \"0.2\", \" 0.002 \"\n", measure.Field, 2, 0.2, 0.002},
 	} {
 		c, err := measure.ReadCSV(strings.NewReader(tc.data), tc.name)
 		if err != nil {
@@ -100,6 +102,7 @@ func TestReadCSVErrors(t *testing.T) {
 		{"sigma in A", "current_A,field_T,sigma_A\n1,1,1\n2,2,2\n", "uncertainty column"},
 		{"flux sigma alone", "current_A,field_T,sigma_Wb\n1,1,1\n2,2,2\n", "without a flux column"},
 		{"one point", "current_A,field_T\n1,0.1\n", "a measured curve needs at least 2"},
+		{"misplaced quote", "current_A,field_T\n1,0.1\n2,\"0.2\"x\n3,0.3\n", "misplaced quote:3:7: extraneous or missing \""},
 	} {
 		_, err := measure.ReadCSV(strings.NewReader(tc.data), tc.name)
 		if err == nil || !strings.Contains(err.Error(), tc.want) || !strings.HasPrefix(err.Error(), tc.name+":") {

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"strings"
 
+	"polegap/materials"
 	"polegap/post/measure"
 )
 
@@ -91,7 +92,7 @@ func ExampleSearchCoil_Field() {
 
 func ExampleSolenoid_CentreField() {
 	s := measure.Solenoid{Turns: 1000, Length: 0.5, Radius: 0.02}
-	fmt.Printf("centre %.4f mT, long-solenoid value %.4f mT\n", 1e3*s.CentreField(1), 1e3*measure.Mu0*1000/0.5)
+	fmt.Printf("centre %.4f mT, long-solenoid value %.4f mT\n", 1e3*s.CentreField(1), 1e3*materials.Mu0*1000/0.5)
 	// Output:
 	// centre 2.5053 mT, long-solenoid value 2.5133 mT
 }

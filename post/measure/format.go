@@ -10,7 +10,9 @@ import (
 	"strconv"
 	"strings"
 
-	"gopkg.in/yaml.v3"
+	"go.yaml.in/yaml/v3"
+
+	"polegap/internal/num"
 )
 
 // FormatTag is the value of the format key that marks our measured-data
@@ -327,7 +329,7 @@ func (p *parser) curve(d *fileDoc) (*Curve, error) {
 			errs = append(errs, p.errAt(nil, label, path, "no current; give the magnet coil current in A"))
 			continue
 		}
-		if !finite(*r.Current) {
+		if !num.Finite(*r.Current) {
 			errs = append(errs, p.errAt(nil, label+".current", append(path, "current"), "current %g is not finite; give the magnet coil current in A", *r.Current))
 			continue
 		}
@@ -370,8 +372,6 @@ func contains(s []string, v string) bool {
 	}
 	return false
 }
-
-func finite(v float64) bool { return v-v == 0 }
 
 // only reports readings keys that do not belong to the method.
 func (p *parser) only(i int, r *readingDoc, method, key string) error {

@@ -3,6 +3,8 @@ package measure
 import (
 	"fmt"
 	"math"
+
+	"polegap/internal/num"
 )
 
 // Integrator converts a search coil's reading into flux linkage:
@@ -243,7 +245,7 @@ func (c SearchCoil) Field(k CoilConstant, readings []float64) (SearchResult, err
 	res.Field = res.Linkage / k.TurnsArea
 	res.FieldSigma = math.Abs(res.Field) * math.Hypot(relR, k.fieldRel)
 	for _, v := range [...]float64{res.Field, res.FieldSigma, res.Linkage, res.LinkageSigma} {
-		if !finite(v) {
+		if !num.Finite(v) {
 			return SearchResult{}, &ReadingsError{Method: method, Index: -1, Msg: "the readings give no finite field; check their units (V or V s)"}
 		}
 	}
@@ -262,7 +264,7 @@ func meanSigma(method string, v []float64, sigma float64) (mean, u float64, err 
 	}
 	n := float64(len(v))
 	mean /= n
-	if !finite(mean) {
+	if !num.Finite(mean) {
 		return 0, 0, &ReadingsError{Method: method, Index: -1, Msg: "the readings overflow; check their units"}
 	}
 	if sigma > 0 {

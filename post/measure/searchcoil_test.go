@@ -7,6 +7,7 @@ import (
 	"strings"
 	"testing"
 
+	"polegap/internal/num"
 	"polegap/post/measure"
 )
 
@@ -37,7 +38,7 @@ func TestSolenoid(t *testing.T) {
 	// the field is half the centre value: end/centre ≈ (1 + 1.5(R/L)²)/2.
 	for _, r := range []float64{1e-1, 1e-2, 1e-3} {
 		sol := measure.Solenoid{Turns: 500, Length: 1, Radius: r}
-		long := measure.Mu0 * 500 * 2 / 1
+		long := num.Mu0 * 500 * 2 / 1
 		rel := 1 - sol.CentreField(2)/long
 		if want := 2 * r * r; math.Abs(rel-want) > 3*want*want+1e-15 {
 			t.Errorf("R/L = %g: 1 − B/B_long = %.6g, want ≈ %.6g", r, rel, want)
@@ -53,7 +54,7 @@ func TestSolenoid(t *testing.T) {
 	// difference is O((L/z)²) = 1e-4, so 1e-3 relative is asserted.
 	sol := measure.Solenoid{Turns: 100, Length: 0.1, Radius: 0.02}
 	z := 10.0
-	dip := measure.Mu0 * 100 * 1 * math.Pi * 0.02 * 0.02 / (2 * math.Pi * z * z * z)
+	dip := num.Mu0 * 100 * 1 * math.Pi * 0.02 * 0.02 / (2 * math.Pi * z * z * z)
 	if got := sol.AxisField(1, z); math.Abs(got-dip) > 1e-3*dip {
 		t.Errorf("far field %.6g, dipole %.6g", got, dip)
 	}

@@ -3,13 +3,9 @@ package measure
 import (
 	"fmt"
 	"math"
-)
 
-// Mu0 is the magnetic constant μ0 in H/m. Since the 2019 revision of the
-// SI it is measured rather than exact; 4π×10⁻⁷ differs from the CODATA
-// 2018 value 1.25663706212(19)×10⁻⁶ H/m by about 5×10⁻¹⁰ relative, far
-// below any uncertainty met here.
-const Mu0 = 4e-7 * math.Pi
+	"polegap/internal/num"
+)
 
 // Solenoid is an air-core calibration solenoid treated as a thin current
 // sheet: Turns wound uniformly over Length at the mean winding Radius.
@@ -34,7 +30,7 @@ type Solenoid struct {
 func (s Solenoid) AxisField(current, z float64) float64 {
 	h := s.Length / 2
 	a, b := z+h, z-h
-	return Mu0 * s.Turns * current / (2 * s.Length) *
+	return num.Mu0 * s.Turns * current / (2 * s.Length) *
 		(a/math.Hypot(a, s.Radius) - b/math.Hypot(b, s.Radius))
 }
 
@@ -45,7 +41,7 @@ func (s Solenoid) AxisField(current, z float64) float64 {
 //
 // which tends to the long-solenoid value μ0 N I / L as D/L → 0.
 func (s Solenoid) CentreField(current float64) float64 {
-	return Mu0 * s.Turns * current / math.Hypot(s.Length, 2*s.Radius)
+	return num.Mu0 * s.Turns * current / math.Hypot(s.Length, 2*s.Radius)
 }
 
 // CentreConstant returns k = B/I at the centre (T/A) and its relative

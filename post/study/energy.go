@@ -2,8 +2,11 @@ package study
 
 import (
 	"math"
-	"polegap/internal/compsum"
 
+	"gonum.org/v1/gonum/integrate/quad"
+
+	"polegap/internal/compsum"
+	"polegap/internal/num"
 	"polegap/solver"
 )
 
@@ -25,15 +28,18 @@ func QuadDegree(order int, f solver.Formulation) int {
 }
 
 // Panel width (T) of the composite Gauss–Legendre rule of EnergyDensity,
-// and its 3-point nodes and weights on [0, 1] (Abramowitz and Stegun,
+// and its 3-point nodes and weights on [0, 1], computed once by gonum's
+// quad.Legendre (they agree to rounding with Abramowitz and Stegun,
 // Handbook of Mathematical Functions, 1964, table 25.4: ±√(3/5), 0 with
 // weights 5/9, 8/9 mapped to [0, 1]).
 const panelB = 0.02
 
-var (
-	gl3x = [3]float64{0.5 - 0.5*0.7745966692414834, 0.5, 0.5 + 0.5*0.7745966692414834}
-	gl3w = [3]float64{5.0 / 18, 8.0 / 18, 5.0 / 18}
-)
+var gl3x, gl3w = legendre3()
+
+func legendre3() (x, w [3]float64) {
+	quad.Legendre{}.FixedLocations(x[:], w[:], 0, 1)
+	return x, w
+}
 
 // EnergyDensity returns the energy density w = ∫₀^|B| ν(b²) b db and the
 // co-energy density w' = ν(|B|²)|B|² − w (J/m³) of a material at
@@ -143,10 +149,10 @@ func Energies(sol *solver.Solution) (w, wco float64, err error) {
 	}
 	scale := depthOf(p)
 	w, wco = sw.Value()*scale, sc.Value()*scale
-	if !finite(w) {
+	if !num.Finite(w) {
 		return 0, 0, &NotFiniteError{Quantity: "stored energy", Value: w}
 	}
-	if !finite(wco) {
+	if !num.Finite(wco) {
 		return 0, 0, &NotFiniteError{Quantity: "co-energy", Value: wco}
 	}
 	return w, wco, nil
@@ -161,5 +167,3 @@ func depthOf(p *solver.Problem) float64 {
 	}
 	return p.Depth
 }
-
-func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }

@@ -6,6 +6,7 @@ import (
 	"math"
 	"strings"
 
+	"polegap/materials"
 	"polegap/mesh"
 	"polegap/post/output/vtu"
 	"polegap/solver"
@@ -13,7 +14,7 @@ import (
 
 type linear float64
 
-func (l linear) Nu(float64) (float64, float64) { return 1 / (vtu.Mu0 * float64(l)), 0 }
+func (l linear) Nu(float64) (float64, float64) { return 1 / (materials.Mu0 * float64(l)), 0 }
 
 // A square of air with an iron insert (μr 1000) in a field held by
 // A = 0.5 y on the boundary, written as .vtu.

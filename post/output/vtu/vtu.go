@@ -4,12 +4,10 @@ import (
 	"io"
 	"math"
 
+	"polegap/internal/num"
 	"polegap/mesh"
 	"polegap/solver"
 )
-
-// Mu0 is the magnetic constant 4π·1e-7 H/m.
-const Mu0 = 4e-7 * math.Pi
 
 // Options control what is exported. The zero value writes the standard
 // arrays (see the package documentation).
@@ -49,7 +47,7 @@ func Arrays(s *solver.Solution, opt Options) ([]mesh.DataArray, error) {
 			mg = p.Magnetization[reg]
 		}
 		hv[2*t], hv[2*t+1] = nu*bx-mg[0], nu*by-mg[1]
-		mur[t] = 1 / (Mu0 * nu)
+		mur[t] = 1 / (num.Mu0 * nu)
 		if int(reg) < len(p.CurrentDensity) {
 			jv[t] = p.CurrentDensity[reg]
 		}

@@ -9,6 +9,7 @@ import (
 	"strings"
 	"testing"
 
+	"polegap/internal/num"
 	"polegap/mesh"
 	"polegap/solver"
 )
@@ -16,13 +17,13 @@ import (
 // soft is a nonlinear material ν = ν0 (1 + b2/B1²) with μr 800 at low field.
 type soft struct{}
 
-const nu0, b1 = 1 / (Mu0 * 800), 1.0
+const nu0, b1 = 1 / (num.Mu0 * 800), 1.0
 
 func (soft) Nu(b2 float64) (float64, float64) { return nu0 * (1 + b2/(b1*b1)), nu0 / (b1 * b1) }
 
 type vacuum struct{}
 
-func (vacuum) Nu(float64) (float64, float64) { return 1 / Mu0, 0 }
+func (vacuum) Nu(float64) (float64, float64) { return 1 / num.Mu0, 0 }
 
 // bad returns a NaN reluctivity.
 type bad struct{}
@@ -140,7 +141,7 @@ func TestUniformAcrossInterface(t *testing.T) {
 				want = murIron
 			}
 			near("mu_r", arrays["mu_r"][tr], want)
-			near("Hx", arrays["H"][2*tr]*Mu0*want, b0)
+			near("Hx", arrays["H"][2*tr]*num.Mu0*want, b0)
 		}
 	}
 }

@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"polegap/internal/compsum"
+	"polegap/internal/num"
 	"polegap/models"
 	"polegap/post/study"
 	"polegap/solver"
@@ -127,7 +128,7 @@ func LinkagesTo(dst []float64, sol *solver.Solution, coils []Coil) ([]float64, e
 			l += s.Sense * coils[ci].Turns / areas[s.Tag] * want[s.Tag].a.Value()
 		}
 		dst[ci] = l * scale
-		if !finite(dst[ci]) {
+		if !num.Finite(dst[ci]) {
 			return nil, &NotFiniteError{Quantity: "flux linkage of coil " + coils[ci].Name, Value: dst[ci]}
 		}
 	}
@@ -152,5 +153,3 @@ func depthOf(p *solver.Problem) float64 {
 	}
 	return p.Depth
 }
-
-func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }

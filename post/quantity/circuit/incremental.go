@@ -3,6 +3,7 @@ package circuit
 import (
 	"math"
 
+	"polegap/internal/num"
 	"polegap/solver"
 )
 
@@ -73,7 +74,7 @@ func Incremental(sol *solver.Solution, coils []Coil, j int, opt IncrementalOptio
 	out := make([]float64, len(coils))
 	for i := range out {
 		out[i] = (lam[0][i] - lam[1][i]) / (2 * dI)
-		if !finite(out[i]) {
+		if !num.Finite(out[i]) {
 			return nil, &NotFiniteError{Quantity: "incremental inductance", Value: out[i]}
 		}
 	}

@@ -3,15 +3,14 @@ package force
 import (
 	"container/heap"
 	"math"
-	"polegap/internal/compsum"
-	"polegap/post/study"
 	"sort"
 
+	"polegap/internal/compsum"
+	"polegap/internal/num"
 	"polegap/mesh"
+	"polegap/post/study"
 	"polegap/solver"
 )
-
-const mu0 = 4e-7 * math.Pi // H/m, the SI value before 2019 (within 1e-9 of today's)
 
 // Node states of the band weight.
 const (
@@ -138,7 +137,7 @@ func Stress(sol *solver.Solution, part []int32, opt StressOptions) (Force, error
 	} else {
 		out.F = [2]float64{fx.Value() * p.Depth, fy.Value() * p.Depth}
 	}
-	if !finite(out.F[0]) || !finite(out.F[1]) {
+	if !num.Finite(out.F[0]) || !num.Finite(out.F[1]) {
 		return Force{}, &NotFiniteError{Value: out.F}
 	}
 	return out, nil
@@ -148,7 +147,7 @@ func Stress(sol *solver.Solution, part []int32, opt StressOptions) (Force, error
 // ν = 1/μ0 (to 1e-9), no current density, no magnetisation.
 func airTags(p *solver.Problem) []bool {
 	air := make([]bool, len(p.Materials))
-	nu0 := 1 / mu0
+	nu0 := 1 / num.Mu0
 	for r, mat := range p.Materials {
 		if mat == nil {
 			continue
@@ -282,5 +281,3 @@ func (h *nodeHeap) Pop() any {
 	*h = old[:len(old)-1]
 	return x
 }
-
-func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }

@@ -3,6 +3,7 @@ package force
 import (
 	"math"
 
+	"polegap/internal/num"
 	"polegap/post/study"
 	"polegap/solver"
 )
@@ -51,7 +52,7 @@ func VirtualWork(r *study.Result, regions []string, dir [2]float64, delta float6
 		}
 	}
 	f := (w[0] - w[1]) / (2 * delta)
-	if !finite(f) {
+	if !num.Finite(f) {
 		return 0, &NotFiniteError{Value: [2]float64{f, 0}}
 	}
 	return f, nil

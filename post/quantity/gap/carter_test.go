@@ -5,6 +5,7 @@ import (
 	"math"
 	"testing"
 
+	"polegap/internal/num"
 	"polegap/mesh"
 	"polegap/solver"
 )
@@ -107,9 +108,9 @@ func TestCarterCoefficient(t *testing.T) {
 		ss := ProfileTo(nil, sol, [2]float64{c.t, 0}, [2]float64{c.t, g}, 401)
 		var f float64
 		for k := 1; k < len(ss); k++ {
-			f += 0.5 * (ss[k].S - ss[k-1].S) * (ss[k].By + ss[k-1].By) / Mu0
+			f += 0.5 * (ss[k].S - ss[k-1].S) * (ss[k].By + ss[k-1].By) / num.Mu0
 		}
-		got := Mu0 * f / (g * bAvg)
+		got := num.Mu0 * f / (g * bAvg)
 		want := carterCoefficient(g, c.s, c.t)
 		rel := (got - want) / want
 		t.Logf("%s: %d nodes, B_avg %.5g T, kC %.5f, Carter %.5f, relative %.2g", name, sol.Problem.Mesh.NumNodes(), bAvg, got, want, rel)

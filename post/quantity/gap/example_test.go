@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"os"
 
+	"polegap/materials"
 	"polegap/mesh"
 	"polegap/post/quantity/gap"
 	"polegap/solver"
@@ -11,7 +12,7 @@ import (
 
 type mu float64
 
-func (m mu) Nu(float64) (float64, float64) { return 1 / (gap.Mu0 * float64(m)), 0 }
+func (m mu) Nu(float64) (float64, float64) { return 1 / (materials.Mu0 * float64(m)), 0 }
 
 // solveCCore solves a C-shaped yoke (μr 1e4) with a 2 mm gap across its
 // right leg (pole faces 50 mm wide at y = 0.099 and 0.101 m) and 1000

@@ -4,6 +4,7 @@ import (
 	"math"
 	"testing"
 
+	"polegap/internal/num"
 	"polegap/mesh"
 	"polegap/solver"
 )
@@ -11,7 +12,7 @@ import (
 // linear is a material of constant relative permeability.
 type linear float64
 
-func (l linear) Nu(float64) (float64, float64) { return 1 / (Mu0 * float64(l)), 0 }
+func (l linear) Nu(float64) (float64, float64) { return 1 / (num.Mu0 * float64(l)), 0 }
 
 func rect(x0, y0, x1, y1 float64, reg int32) mesh.Polygon {
 	return mesh.Polygon{X: []float64{x0, x1, x1, x0}, Y: []float64{y0, y0, y1, y1}, Region: reg}

@@ -2,11 +2,9 @@ package gap
 
 import (
 	"math"
-)
 
-// Mu0 is the magnetic constant 4π·1e-7 H/m (the pre-2019 SI value; the
-// measured value differs by about 1e-10 relative).
-const Mu0 = 4e-7 * math.Pi
+	"polegap/internal/num"
+)
 
 // DefaultEndFraction is the field at the ends of a fringing line, as a
 // fraction of B0, above which Fringing marks its result Truncated: 1 %
@@ -67,7 +65,7 @@ type Fringe struct {
 // an *OutsideError if p or q lie outside the mesh and a *ZeroFieldError if
 // b0 is zero or not finite. It panics on a non-positive gap or pole width.
 func Fringing(f Field, p, q [2]float64, b0 float64, opt FringeOptions) (Fringe, error) {
-	if !(opt.Gap > 0) || !(opt.PoleWidth > 0) || !finite(opt.Gap) || !finite(opt.PoleWidth) {
+	if !(opt.Gap > 0) || !(opt.PoleWidth > 0) || !num.Finite(opt.Gap) || !num.Finite(opt.PoleWidth) {
 		panic(errBadGap)
 	}
 	if opt.Edges < 0 {
@@ -84,7 +82,7 @@ func Fringing(f Field, p, q [2]float64, b0 float64, opt FringeOptions) (Fringe, 
 		panic(errBadFrac)
 	}
 	fr := Fringe{B0: b0}
-	if b0 == 0 || !finite(b0) {
+	if b0 == 0 || !num.Finite(b0) {
 		return fr, &ZeroFieldError{B0: b0}
 	}
 	phi, err := Flux(f, p, q)
@@ -106,8 +104,8 @@ func Fringing(f Field, p, q [2]float64, b0 float64, opt FringeOptions) (Fringe, 
 	fr.Factor = fr.WidthEff / opt.PoleWidth
 	fr.K = (fr.WidthEff - opt.PoleWidth) / opt.Gap
 	fr.KPerEdge = fr.K / float64(opt.Edges)
-	if opt.AmpereTurns != 0 && finite(opt.AmpereTurns) {
-		fr.GapEff = Mu0 * math.Abs(opt.AmpereTurns) / math.Abs(b0)
+	if opt.AmpereTurns != 0 && num.Finite(opt.AmpereTurns) {
+		fr.GapEff = num.Mu0 * math.Abs(opt.AmpereTurns) / math.Abs(b0)
 	}
 	fr.Truncated = fr.EndRatio > frac
 	return fr, nil
@@ -139,7 +137,7 @@ func Reach(f Field, from, dir, n [2]float64, b0, frac, step, limit float64) (dis
 	first := true
 	for s := 0.0; s <= limit+0.5*step; s += step {
 		_, bx, by, in := f.At(from[0]+s*ux, from[1]+s*uy)
-		if !in || !finite(bx) || !finite(by) {
+		if !in || !num.Finite(bx) || !num.Finite(by) {
 			return prevS, false
 		}
 		v := math.Abs(bx*nx + by*ny)

@@ -6,6 +6,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"polegap/internal/num"
 )
 
 // fieldFunc adapts a function to Field.
@@ -68,7 +70,7 @@ func TestUniformExact(t *testing.T) {
 	}
 	// An ideal gap: Factor 1, K 0, effective gap = g when NI = B0 g/μ0.
 	const g = 0.01
-	fr, err := Fringing(f, p, q, b0, FringeOptions{Gap: g, PoleWidth: w, AmpereTurns: b0 * g / Mu0})
+	fr, err := Fringing(f, p, q, b0, FringeOptions{Gap: g, PoleWidth: w, AmpereTurns: b0 * g / num.Mu0})
 	if err != nil || math.Abs(fr.Factor-1) > 1e-14 || math.Abs(fr.K) > 1e-12 || math.Abs(fr.GapEff-g) > 1e-15 {
 		t.Errorf("Fringing = %+v, %v", fr, err)
 	}

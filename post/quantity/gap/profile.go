@@ -5,6 +5,8 @@ import (
 	"io"
 	"math"
 	"strconv"
+
+	"polegap/internal/num"
 )
 
 // Field is what this package needs of a solution: the potential A (Wb/m)
@@ -102,7 +104,7 @@ func ProfileTo(dst []Sample, f Field, p, q [2]float64, n int) []Sample {
 			x, y = q[0], q[1]
 		}
 		s := Sample{S: t * l, X: x, Y: y, Nx: nx, Ny: ny}
-		if a, bx, by, ok := f.At(x, y); ok && finite(a) && finite(bx) && finite(by) {
+		if a, bx, by, ok := f.At(x, y); ok && num.Finite(a) && num.Finite(bx) && num.Finite(by) {
 			s.A, s.Bx, s.By, s.Inside = a, bx, by, true
 		}
 		dst[k] = s
@@ -136,15 +138,13 @@ func WriteCSV(w io.Writer, ss []Sample) error {
 	return bw.Flush()
 }
 
-func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
-
 // potential returns A at pt or an *OutsideError naming the point.
 func potential(f Field, pt [2]float64, what string) (float64, error) {
 	if f == nil {
 		panic(errNilField)
 	}
 	a, bx, by, ok := f.At(pt[0], pt[1])
-	if !ok || !finite(a) || !finite(bx) || !finite(by) {
+	if !ok || !num.Finite(a) || !num.Finite(bx) || !num.Finite(by) {
 		return 0, &OutsideError{What: what, X: pt[0], Y: pt[1]}
 	}
 	return a, nil

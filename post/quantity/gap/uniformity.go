@@ -1,6 +1,10 @@
 package gap
 
-import "math"
+import (
+	"math"
+
+	"polegap/internal/num"
+)
 
 // DefaultTolerances are the relative field tolerances for which
 // GoodFieldWidths reports half-widths when none are given: 1e-3 and 1e-4,
@@ -26,7 +30,7 @@ type Uniformity struct {
 // and an *EmptyError if no sample lies inside the mesh.
 func Deviation(ss []Sample, b0 float64, c Component) (Uniformity, error) {
 	u := Uniformity{Component: c, B0: b0}
-	if b0 == 0 || !finite(b0) {
+	if b0 == 0 || !num.Finite(b0) {
 		return u, &ZeroFieldError{B0: b0}
 	}
 	u.Min, u.Max = math.Inf(1), math.Inf(-1)
@@ -86,11 +90,11 @@ func GoodFieldWidths(ss []Sample, centre, b0 float64, c Component, tols []float6
 		tols = DefaultTolerances
 	}
 	for _, t := range tols {
-		if !(t > 0) || !finite(t) {
+		if !(t > 0) || !num.Finite(t) {
 			panic(errBadTol)
 		}
 	}
-	if b0 == 0 || !finite(b0) {
+	if b0 == 0 || !num.Finite(b0) {
 		return nil, &ZeroFieldError{B0: b0}
 	}
 	if len(ss) == 0 {

@@ -1,6 +1,12 @@
 package searchcoil
 
-import "math"
+import (
+	"math"
+
+	"gonum.org/v1/gonum/integrate/quad"
+
+	"polegap/internal/num"
+)
 
 // Field is what a coil needs of a solution: the potential A (Wb/m) and
 // the flux density (T) at a point, ok = false outside the mesh. It has the
@@ -104,7 +110,7 @@ func (c Small) Linkage(f Field) (float64, error) {
 	nx, ny := c.Axis[0]/l, c.Axis[1]/l
 	if c.Width == 0 {
 		_, bx, by, ok := f.At(c.Centre[0], c.Centre[1])
-		if !ok || !finite(bx) || !finite(by) {
+		if !ok || !num.Finite(bx) || !num.Finite(by) {
 			return 0, &OutsideError{What: "centre", X: c.Centre[0], Y: c.Centre[1]}
 		}
 		return c.Turns * c.Area * (bx*nx + by*ny), nil
@@ -170,10 +176,10 @@ func (c Winding) Linkage(f Field) (float64, error) {
 	if n == 0 {
 		n = 3
 	}
-	if n < 1 || n > len(gaussX) {
+	if n < 1 || n > len(gauss) {
 		panic(errQuadOrder)
 	}
-	xs, ws := gaussX[n-1], gaussW[n-1]
+	xs, ws := gauss[n-1].x, gauss[n-1].w
 	var sum float64
 	for i := range n {
 		r := c.R0 + (c.R1-c.R0)*xs[i]
@@ -189,24 +195,17 @@ func (c Winding) Linkage(f Field) (float64, error) {
 	return c.Turns * sum, nil
 }
 
-// Gauss-Legendre nodes and weights on [0, 1] for 1 to 5 points
-// (Abramowitz and Stegun, "Handbook of Mathematical Functions", 1964,
-// table 25.4, mapped from [−1, 1]).
-var gaussX = [][]float64{
-	{0.5},
-	{0.21132486540518711775, 0.78867513459481288225},
-	{0.11270166537925831148, 0.5, 0.88729833462074168852},
-	{0.06943184420297371239, 0.33000947820757186760, 0.66999052179242813240, 0.93056815579702628761},
-	{0.04691007703066800360, 0.23076534494715845448, 0.5, 0.76923465505284154552, 0.95308992296933199640},
-}
-
-var gaussW = [][]float64{
-	{1},
-	{0.5, 0.5},
-	{0.27777777777777777778, 0.44444444444444444444, 0.27777777777777777778},
-	{0.17392742256872692869, 0.32607257743127307131, 0.32607257743127307131, 0.17392742256872692869},
-	{0.11846344252809454376, 0.23931433524968323402, 0.28444444444444444444, 0.23931433524968323402, 0.11846344252809454376},
-}
+// gauss[n-1] holds the n-point Gauss-Legendre nodes and weights on [0, 1]
+// for n = 1 to 5, computed once by gonum's quad.Legendre (they agree to
+// rounding with Abramowitz and Stegun, "Handbook of Mathematical
+// Functions", 1964, table 25.4, mapped from [−1, 1]).
+var gauss = func() (r [5]struct{ x, w []float64 }) {
+	for i := range r {
+		r[i].x, r[i].w = make([]float64, i+1), make([]float64, i+1)
+		quad.Legendre{}.FixedLocations(r[i].x, r[i].w, 0, 1)
+	}
+	return r
+}()
 
 func checkTurns(n float64) {
 	if !(n > 0) || math.IsInf(n, 0) {
@@ -214,14 +213,12 @@ func checkTurns(n float64) {
 	}
 }
 
-func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
-
 func potential(f Field, pt [2]float64, what string) (float64, error) {
 	if f == nil {
 		panic(errNilField)
 	}
 	a, bx, by, ok := f.At(pt[0], pt[1])
-	if !ok || !finite(a) || !finite(bx) || !finite(by) {
+	if !ok || !num.Finite(a) || !num.Finite(bx) || !num.Finite(by) {
 		return 0, &OutsideError{What: what, X: pt[0], Y: pt[1]}
 	}
 	return a, nil

@@ -3,6 +3,7 @@ package probes
 import (
 	"math"
 
+	"polegap/internal/num"
 	"polegap/models"
 )
 
@@ -103,13 +104,11 @@ func EvaluateOne(f Field, p *models.Probe) Result {
 
 func at(f Field, x, y float64) Sample {
 	a, bx, by, ok := f.At(x, y)
-	if !ok || !finite(a) || !finite(bx) || !finite(by) {
+	if !ok || !num.Finite(a) || !num.Finite(bx) || !num.Finite(by) {
 		return Sample{X: x, Y: y}
 	}
 	return Sample{X: x, Y: y, A: a, Bx: bx, By: by, Inside: true}
 }
-
-func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
 
 // Summarise returns the statistics of the samples inside the mesh.
 func Summarise(ss []Sample) Stats {

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 
+	"polegap/internal/num"
 	"polegap/models"
 	"polegap/post/quantity/circuit"
 	"polegap/post/study"
@@ -368,7 +369,7 @@ func (r *Runner) Sweep(ctx context.Context, opt Options) ([]Point, error) {
 		}
 		p.Index = i
 		if opt.GapLength > 0 && p.AmpereTurns != 0 {
-			p.Efficiency = p.Field * opt.GapLength / (mu0 * math.Abs(p.AmpereTurns))
+			p.Efficiency = p.Field * opt.GapLength / (num.Mu0 * math.Abs(p.AmpereTurns))
 		}
 		pts = append(pts, p)
 		if opt.Progress != nil {
@@ -394,8 +395,6 @@ func Differentiate(pts []Point) {
 		}
 	}
 }
-
-const mu0 = 4e-7 * math.Pi
 
 // Select returns the indices of the points of shard k of n (1-based k)
 // among total points: k-1, k-1+n, k-1+2n, ... With n = 0 it returns all.

@@ -3,12 +3,15 @@ package sweep
 import (
 	"bufio"
 	"encoding/csv"
+	"errors"
 	"fmt"
 	"io"
 	"math"
 	"sort"
 	"strconv"
 	"strings"
+
+	"polegap/internal/csvtab"
 )
 
 // Columns is the header of an excitation-curve table, units in the names.
@@ -55,52 +58,39 @@ func WriteCSV(w io.Writer, meta Meta, pts []Point) error {
 
 func g(v float64) string { return strconv.FormatFloat(v, 'g', 10, 64) }
 
-// ReadCSV reads a table written by WriteCSV.
+// ReadCSV reads a table written by WriteCSV, in polegap's CSV dialect
+// (internal/csvtab). Errors name the file and, for a bad row, its line.
 func ReadCSV(r io.Reader, name string) (Meta, []Point, error) {
-	var meta Meta
-	br := bufio.NewReader(r)
-	var body strings.Builder
-	line := 0
-	for {
-		s, err := br.ReadString('\n')
-		if s != "" {
-			line++
-			if strings.HasPrefix(s, "#") {
-				k, v, _ := strings.Cut(strings.TrimSpace(strings.TrimPrefix(s, "#")), ":")
-				v = strings.TrimSpace(v)
-				switch strings.TrimSpace(k) {
-				case "model":
-					meta.Model = v
-				case "probe":
-					meta.Probe = v
-				case "shard":
-					meta.Shard = v
-				case "partial":
-					meta.Partial = v
-				}
-			} else {
-				body.WriteString(s)
-			}
+	cr := csvtab.NewReader(r)
+	readErr := func(err error) error {
+		var te *csvtab.Error
+		switch {
+		case !errors.As(err, &te):
+			return fmt.Errorf("%s: %w", name, err)
+		case te.Column > 0:
+			return fmt.Errorf("%s:%d:%d: %s", name, te.Line, te.Column, te.Msg)
 		}
+		return fmt.Errorf("%s:%d: %s", name, te.Line, te.Msg)
+	}
+	header, err := cr.Read()
+	if err != nil && err != io.EOF {
+		return Meta{}, nil, readErr(err)
+	}
+	meta := Meta{Model: cr.Meta["model"], Probe: cr.Meta["probe"], Shard: cr.Meta["shard"], Partial: cr.Meta["partial"]}
+	if err == io.EOF || strings.Join(header, ",") != strings.Join(Columns, ",") {
+		return meta, nil, fmt.Errorf("%s: not an excitation-curve table: the header must be %s", name, strings.Join(Columns, ","))
+	}
+	var pts []Point
+	for {
+		row, err := cr.Read()
 		if err == io.EOF {
 			break
 		}
 		if err != nil {
-			return meta, nil, fmt.Errorf("%s: %w", name, err)
+			return meta, nil, readErr(err)
 		}
-	}
-	cr := csv.NewReader(strings.NewReader(body.String()))
-	rows, err := cr.ReadAll()
-	if err != nil {
-		return meta, nil, fmt.Errorf("%s: %w", name, err)
-	}
-	if len(rows) == 0 || strings.Join(rows[0], ",") != strings.Join(Columns, ",") {
-		return meta, nil, fmt.Errorf("%s: not an excitation-curve table: the header must be %s", name, strings.Join(Columns, ","))
-	}
-	var pts []Point
-	for i, row := range rows[1:] {
 		if len(row) != len(Columns) {
-			return meta, nil, fmt.Errorf("%s: data row %d has %d columns, want %d", name, i+1, len(row), len(Columns))
+			return meta, nil, fmt.Errorf("%s:%d: the row has %d columns, want %d", name, cr.Line(), len(row), len(Columns))
 		}
 		var p Point
 		var perr error
@@ -123,7 +113,7 @@ func ReadCSV(r io.Reader, name string) (Meta, []Point, error) {
 		p.MaxIronB, p.Energy, p.Linkage, p.Apparent = num(row[5]), num(row[6]), num(row[7]), num(row[8])
 		p.Incremental, p.Iterations, p.Residual = num(row[9]), in(row[10]), num(row[11])
 		if perr != nil {
-			return meta, nil, fmt.Errorf("%s: data row %d: %v", name, i+1, perr)
+			return meta, nil, fmt.Errorf("%s:%d: %v", name, cr.Line(), perr)
 		}
 		pts = append(pts, p)
 	}

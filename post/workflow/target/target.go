@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"math"
 
+	"polegap/internal/num"
 	"polegap/post/workflow/sweep"
 	"polegap/solver"
 )
@@ -56,8 +57,6 @@ func (e *UnreachableError) Error() string {
 	return fmt.Sprintf("a field of %.4g T is out of reach: at the limit of %.4g ampere-turns the field is only %.4g T (the iron is deep in saturation); enlarge the poles or the yoke, shorten the gap, or raise the limit", e.Target, e.Limit, e.Highest)
 }
 
-const mu0 = 4e-7 * math.Pi
-
 // Search finds the coil current of r's swept coil at which the probe's
 // field equals target (T). The returned Result lists every solve; when the
 // target is out of reach the error is an *UnreachableError.
@@ -89,7 +88,7 @@ func Search(ctx context.Context, r *sweep.Runner, target float64, opt Options) (
 		}
 		p.Index = len(res.Solves)
 		if opt.GapLength > 0 && p.AmpereTurns != 0 {
-			p.Efficiency = p.Field * opt.GapLength / (mu0 * math.Abs(p.AmpereTurns))
+			p.Efficiency = p.Field * opt.GapLength / (num.Mu0 * math.Abs(p.AmpereTurns))
 		}
 		res.Solves = append(res.Solves, p)
 		if opt.Progress != nil {
@@ -104,7 +103,7 @@ func Search(ctx context.Context, r *sweep.Runner, target float64, opt Options) (
 	var guess, limitI float64
 	switch {
 	case opt.GapLength > 0:
-		guess = target * opt.GapLength / (mu0 * turns)
+		guess = target * opt.GapLength / (num.Mu0 * turns)
 	case b0 > 0 && i0 != 0:
 		guess = math.Abs(i0) * target / b0
 	default:

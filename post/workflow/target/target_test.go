@@ -5,6 +5,7 @@ import (
 	"math"
 	"testing"
 
+	"polegap/internal/num"
 	"polegap/models"
 	"polegap/post/internal/fixture"
 	"polegap/post/workflow/sweep"
@@ -53,7 +54,7 @@ func TestSaturatedTarget(t *testing.T) {
 	if math.Abs(res.Point.Field-bt) > 1e-4*bt {
 		t.Errorf("field %g T, want %g within 1e-4", res.Point.Field, bt)
 	}
-	ideal := bt * m.Gap / mu0
+	ideal := bt * m.Gap / num.Mu0
 	if !(res.AmpereTurns > ideal) {
 		t.Errorf("needs %g ampere-turns, no more than the ideal %g", res.AmpereTurns, ideal)
 	}
