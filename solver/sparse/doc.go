@@ -67,6 +67,12 @@
 // from the piece's position, so the permutation is the same on every run
 // and for every GOMAXPROCS.
 //
+// The figures above are the defaults of NDOptions, which tune the
+// dissection (CholeskyOptions.ND, OrderND); SupernodeOptions tune the
+// relaxed supernodes and CholeskyOptions.SplitWork the column split of
+// large supernodes. Every options struct's zero value is the tuned
+// default; the package keeps no mutable settings.
+//
 // Factor size and operations (Cholesky.NNZL, Cholesky.Flops) and ordering
 // time (wall and CPU seconds on the shared 2-core machine, load 1-3), from
 // go test -run OrderingTable -timing -v ./solver/sparse; the C-core

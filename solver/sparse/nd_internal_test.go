@@ -48,7 +48,7 @@ func TestMLNDCompare(t *testing.T) {
 			var p []int32
 			switch name {
 			case "ml":
-				p = multilevelND(newGraph(a))
+				p = multilevelND(newGraph(a), NDOptions{})
 			case "amd":
 				p = amdOrder(newGraph(a))
 			}
@@ -56,7 +56,7 @@ func TestMLNDCompare(t *testing.T) {
 			if !IsPermutation(p) {
 				t.Fatal("not perm")
 			}
-			s := analyze(a, p, 1)
+			s := analyze(a, p, 1, SupernodeOptions{})
 			t.Logf("%s n=%d %s: nnzL=%d flops=%.3g order %.3fs", f, a.N, name, s.nnzL, s.flops, dt.Seconds())
 		}
 	}
@@ -74,33 +74,31 @@ func TestMLNDKnobs(t *testing.T) {
 	if f := os.Getenv("ML_FILE"); f != "" {
 		a = loadMTX(t, f)
 	}
-	oldPar := mlParallel
-	mlParallel = 1 << 30
-	defer func() { mlParallel = oldPar }()
+	opt := NDOptions{Parallel: -1}
 	run := func(label string) {
 		best, bestCPU := time.Hour, 1e9
 		var p []int32
 		for r := 0; r < 3; r++ {
 			c0 := cpuNow()
 			t0 := time.Now()
-			p = multilevelND(newGraph(a))
+			p = multilevelND(newGraph(a), opt)
 			best = min(best, time.Since(t0))
 			bestCPU = min(bestCPU, cpuNow()-c0)
 		}
-		s := analyze(a, p, 1)
+		s := analyze(a, p, 1, SupernodeOptions{})
 		fmt.Printf("%-28s nnzL=%d flops=%.3g order %.3fs cpu %.3fs\n", label, s.nnzL, s.flops, best.Seconds(), bestCPU)
 	}
 	type knob struct {
 		name string
 		p    *int
 	}
-	knobs := []knob{{"leaf", &mlLeaf}, {"trials", &mlTrials}, {"initpasses", &mlInitPasses}, {"passes", &mlPasses}, {"coarsento", &mlCoarsenTo}, {"shuffle", &mlShuffle}}
+	knobs := []knob{{"leaf", &opt.Leaf}, {"trials", &opt.Trials}, {"initpasses", &opt.InitPasses}, {"passes", &opt.Passes}, {"coarsento", &opt.CoarsenTo}}
 	spec := os.Getenv("ML_KNOBS") // e.g. "trials=4,coarsento=80;trials=2"
 	if spec == "" {
 		spec = "base"
 	}
 	for _, set := range strings.Split(spec, ";") {
-		saved := map[*int]int{}
+		saved := opt
 		for _, kv := range strings.Split(set, ",") {
 			k, v, ok := strings.Cut(kv, "=")
 			if !ok {
@@ -108,15 +106,12 @@ func TestMLNDKnobs(t *testing.T) {
 			}
 			for _, kn := range knobs {
 				if kn.name == k {
-					saved[kn.p] = *kn.p
 					*kn.p, _ = strconv.Atoi(v)
 				}
 			}
 		}
 		run(set)
-		for p, v := range saved {
-			*p = v
-		}
+		opt = saved
 	}
 }
 
@@ -125,6 +120,6 @@ func BenchmarkMLND100k(b *testing.B) {
 	a := loadMTX(b, "/tmp/ccore100k.mtx")
 	b.ResetTimer()
 	for i := 0; i < b.N; i++ {
-		multilevelND(newGraph(a))
+		multilevelND(newGraph(a), NDOptions{})
 	}
 }

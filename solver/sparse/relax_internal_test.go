@@ -18,15 +18,8 @@ func TestRelaxVariants(t *testing.T) {
 	}
 	a := grid5(700)
 	perm := Order(a, NestedDissection)
-	old := relaxLimits
-	defer func() { relaxLimits = old }()
-	type lim = struct {
-		always         int
-		z16, z48, zBig float64
-	}
-	for _, l := range []lim{{4, 0.5, 0.1, 0.02}, {8, 0.5, 0.1, 0.02}, {8, 0.6, 0.2, 0.05}, {16, 0.7, 0.3, 0.05}, {2, 0.3, 0.05, 0.01}} {
-		relaxLimits = l
-		c := &Cholesky{Options: CholeskyOptions{Perm: perm, Workers: 1}}
+	for _, l := range []SupernodeOptions{{4, 0.5, 0.1, 0.02}, {8, 0.5, 0.1, 0.02}, {8, 0.6, 0.2, 0.05}, {16, 0.7, 0.3, 0.05}, {2, 0.3, 0.05, 0.01}} {
+		c := &Cholesky{Options: CholeskyOptions{Perm: perm, Workers: 1, Supernodes: l}}
 		c.Analyze(a)
 		best := 1e9
 		for k := 0; k < 3; k++ {
