@@ -280,3 +280,13 @@ func TestMLNDFill(t *testing.T) {
 		t.Errorf("nested dissection flops %.3g, want below 0.9 x AMD's %.3g", ml.flops, amd.flops)
 	}
 }
+
+// BenchmarkOrderGrid5 orders the 5-point Laplacian on a 1000×1000 grid
+// (1M unknowns).
+func BenchmarkOrderGrid5(b *testing.B) {
+	a := grid5(1000)
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		Order(a, NestedDissection)
+	}
+}
