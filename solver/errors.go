@@ -77,8 +77,8 @@ func (e *LinearSolveError) Unwrap() error { return e.Err }
 // NotConvergedError reports a Newton-Raphson run that did not meet its
 // tolerances. No Solution is returned with it.
 type NotConvergedError struct {
-	Iterations int       // Newton steps taken
-	History    []float64 // relative residual after each iteration (index 0: start)
+	Iterations int       // iterations run (the last may have taken no step)
+	History    []float64 // relative residual at the start and after each step taken
 	Residual   float64   // last relative residual
 	// HasUpdate reports whether a next update was estimated (that
 	// happens only once the residual meets Options.Tol); Update is the

@@ -124,15 +124,15 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 
 	// The last estimate of the next update, when one was made.
 	upd, hasUpd := 0.0, false
-	// stopped puts a *MaterialError met after the start (a material that
+	// stopped puts a *MaterialError met in iteration it (a material that
 	// fails at a point it passed before) into a *NotConvergedError with
 	// the history of the steps taken; other errors pass unchanged.
-	stopped := func(err error) error {
+	stopped := func(err error, it int) error {
 		me, ok := err.(*MaterialError)
 		if !ok {
 			return err
 		}
-		return &NotConvergedError{Iterations: s.Iterations, History: s.History, Residual: res,
+		return &NotConvergedError{Iterations: it, History: s.History, Residual: res,
 			HasUpdate: hasUpd, Update: upd, Reason: me.detail(), Err: me}
 	}
 	// direction factors the matrix in hand and solves for the step du.
@@ -208,7 +208,7 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 			as.secant = false
 			s.Time.Assemble += time.Since(t0)
 			if aerr != nil {
-				return stopped(aerr)
+				return stopped(aerr, it)
 			}
 			if derr := direction(); derr != nil {
 				return derr
@@ -255,7 +255,7 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 		}
 		t0 = time.Now()
 		if err := as.assemble(A, R, true); err != nil {
-			return stopped(err)
+			return stopped(err, it)
 		}
 		s.Time.Assemble += time.Since(t0)
 	}
