@@ -89,6 +89,10 @@
 // outcomes are typed errors (*SingularError, *MaterialError,
 // *LinearSolveError, *NotConvergedError) and inconsistent data is a
 // *ProblemError; no failed solve returns a Solution and no NaN escapes.
+// A *NotConvergedError carries the residual history; a material failure
+// met after Newton has started comes inside one (errors.As finds the
+// *MaterialError too), and its Update is set only when HasUpdate says an
+// update was estimated.
 // Programmer misuse panics with a "solver: ..." message: a nil problem or
 // mesh, a wrong-length Options.Initial or destination slice, a negative
 // Options.Workers.

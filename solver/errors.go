@@ -2,7 +2,6 @@ package solver
 
 import (
 	"fmt"
-	"math"
 
 	"polegap/solver/sparse"
 )
@@ -41,6 +40,8 @@ func (e *SingularError) Error() string {
 }
 
 // MaterialError reports a reluctivity that is not finite and positive.
+// Met after Newton-Raphson has started, it is wrapped in a
+// *NotConvergedError carrying the residual history (errors.As finds both).
 type MaterialError struct {
 	Region int32
 	B2     float64 // |B|² (T²) at which the material was asked
@@ -49,8 +50,10 @@ type MaterialError struct {
 }
 
 // Error implements error.
-func (e *MaterialError) Error() string {
-	return fmt.Sprintf("solver: material of region %d returned ν = %g, dν/db² = %g at |B|² = %g T²; ν must be finite and positive", e.Region, e.Nu, e.DNu, e.B2)
+func (e *MaterialError) Error() string { return "solver: " + e.detail() }
+
+func (e *MaterialError) detail() string {
+	return fmt.Sprintf("material of region %d returned ν = %g, dν/db² = %g at |B|² = %g T²; ν must be finite and positive", e.Region, e.Nu, e.DNu, e.B2)
 }
 
 // LinearSolveError reports a failure of the linear solver.
@@ -74,17 +77,27 @@ func (e *LinearSolveError) Unwrap() error { return e.Err }
 // NotConvergedError reports a Newton-Raphson run that did not meet its
 // tolerances. No Solution is returned with it.
 type NotConvergedError struct {
-	Iterations int
-	History    []float64 // relative residual after each iteration (index 0: start)
+	Iterations int       // iterations run (the last may have taken no step)
+	History    []float64 // relative residual at the start and after each step taken
 	Residual   float64   // last relative residual
-	Update     float64   // last relative update estimate
-	Reason     string
+	// HasUpdate reports whether a next update was estimated (that
+	// happens only once the residual meets Options.Tol); Update is the
+	// last estimate relative to max |A|, and 0 when HasUpdate is false.
+	HasUpdate bool
+	Update    float64
+	Reason    string
+	// Err is the error that ended the run, when one did (a
+	// *MaterialError met between steps), or nil.
+	Err error
 }
 
 // Error implements error.
 func (e *NotConvergedError) Error() string {
-	if math.IsInf(e.Update, 0) || math.IsNaN(e.Update) {
+	if !e.HasUpdate {
 		return fmt.Sprintf("solver: Newton-Raphson did not converge after %d iterations (relative residual %.3g): %s", e.Iterations, e.Residual, e.Reason)
 	}
 	return fmt.Sprintf("solver: Newton-Raphson did not converge after %d iterations (relative residual %.3g, update %.3g): %s", e.Iterations, e.Residual, e.Update, e.Reason)
 }
+
+// Unwrap returns the error that ended the run, or nil.
+func (e *NotConvergedError) Unwrap() error { return e.Err }

@@ -3,6 +3,8 @@ package solver
 import (
 	"errors"
 	"math"
+	"strings"
+	"sync/atomic"
 	"testing"
 )
 
@@ -140,21 +142,65 @@ func TestFaultMaterial(t *testing.T) {
 	}
 }
 
-// TestFaultMaterialHistory: a NaN met after Newton has taken steps (the
-// line search backs off from it until no step lowers the residual) ends in
-// a *NotConvergedError carrying the history so far.
+// breakable is the saturating curve until broken is set, then NaN: a
+// material that fails at a point it passed before (a table or an outside
+// model that breaks mid-run). The solver's own materials are functions of
+// |B|² alone, for which the line search meets any failure first.
+type breakable struct {
+	saturating
+	broken *atomic.Bool
+}
+
+func (b breakable) Nu(b2 float64) (float64, float64) {
+	if b.broken.Load() {
+		return math.NaN(), math.NaN()
+	}
+	return b.saturating.Nu(b2)
+}
+
+// TestFaultMaterialHistory: a material failure met after Newton has taken
+// steps ends in a *NotConvergedError carrying the history so far (one
+// entry per step taken plus the start), whether the line search backs off
+// from a NaN until no step lowers the residual, or the material breaks
+// between two steps (after step 2, from Progress); in the second case
+// errors.As also finds the *MaterialError, naming the region.
 func TestFaultMaterialHistory(t *testing.T) {
-	_, err := Solve(faultRing(nanAbove{saturating{1000, 1.5}, 0.5}, 6000), Options{})
-	var nc *NotConvergedError
-	if errors.As(err, &nc) {
-		checkHistory(t, "NaN above 0.5 T", nc)
-		return
+	var broken atomic.Bool
+	for _, c := range []struct {
+		name    string
+		mat     Material
+		breakAt int // Newton step after which the material breaks (0: never)
+	}{
+		{"NaN above 0.5 T", nanAbove{saturating{1000, 1.5}, 0.5}, 0},
+		{"broken after step 2", breakable{saturating{1000, 1.5}, &broken}, 2},
+	} {
+		broken.Store(false)
+		opt := Options{Progress: func(it int, _ float64) {
+			if it == c.breakAt {
+				broken.Store(true)
+			}
+		}}
+		s, err := Solve(faultRing(c.mat, 6000), opt)
+		var nc *NotConvergedError
+		if !errors.As(err, &nc) || s != nil {
+			t.Errorf("%s: solution %v, error %v (%T); want a *NotConvergedError with the history", c.name, s != nil, err, err)
+			continue
+		}
+		checkHistory(t, c.name, nc)
+		if c.breakAt == 0 {
+			continue
+		}
+		if nc.Iterations != c.breakAt || len(nc.History) != c.breakAt+1 {
+			t.Errorf("%s: %d iterations and %d history entries, want %d and %d", c.name, nc.Iterations, len(nc.History), c.breakAt, c.breakAt+1)
+		}
+		if nc.Residual != nc.History[len(nc.History)-1] {
+			t.Errorf("%s: Residual %g is not the last history entry %g", c.name, nc.Residual, nc.History[len(nc.History)-1])
+		}
+		var me *MaterialError
+		if !errors.As(err, &me) || me.Region != 1 {
+			t.Errorf("%s: error %v: want it to wrap a *MaterialError of region 1", c.name, err)
+		}
 	}
-	var me *MaterialError
-	if errors.As(err, &me) {
-		t.Skipf("known: a *MaterialError raised mid-Newton carries no residual history (the steps taken are lost), owner solver: %v", err)
-	}
-	t.Errorf("error %v (%T), want a *NotConvergedError with the history", err, err)
 }
 
 // TestFaultNotConverged: Newton cut short by MaxIter, or asked for a
@@ -189,16 +235,39 @@ func TestFaultNotConverged(t *testing.T) {
 	}
 }
 
-// TestFaultUpdateFinite: the error of a run cut short reports a finite
-// update estimate (or says there is none), not +Inf.
+// TestFaultUpdateFinite: a run cut short before its residual met Tol has
+// estimated no update, and says so (HasUpdate false, Update 0, nothing
+// about an update in the message); one cut short after (Tol met, UpdateTol
+// out of reach) reports its finite estimate and prints it.
 func TestFaultUpdateFinite(t *testing.T) {
-	_, err := Solve(faultRing(saturating{1000, 1.5}, 6000), Options{MaxIter: 1, Tol: 1e-14})
-	var nc *NotConvergedError
-	if !errors.As(err, &nc) {
-		t.Fatalf("error %v, want *NotConvergedError", err)
-	}
-	if math.IsInf(nc.Update, 0) {
-		t.Skip("known: NotConvergedError.Update is +Inf (and printed as 'update +Inf') when no update was estimated, owner solver")
+	p := faultRing(saturating{1000, 1.5}, 6000)
+	for _, c := range []struct {
+		name      string
+		opt       Options
+		hasUpdate bool
+	}{
+		{"residual above Tol", Options{MaxIter: 1, Tol: 1e-14}, false},
+		{"update above UpdateTol", Options{MaxIter: 3, Tol: 0.5, UpdateTol: 1e-300}, true},
+	} {
+		_, err := Solve(p, c.opt)
+		var nc *NotConvergedError
+		if !errors.As(err, &nc) {
+			t.Errorf("%s: error %v, want *NotConvergedError", c.name, err)
+			continue
+		}
+		msg := err.Error()
+		if strings.Contains(msg, "Inf") || strings.Contains(msg, "NaN") {
+			t.Errorf("%s: message %q prints a non-finite value", c.name, msg)
+		}
+		if nc.HasUpdate != c.hasUpdate || strings.Contains(msg, "update") != c.hasUpdate {
+			t.Errorf("%s: HasUpdate %v, message %q; want an update: %v", c.name, nc.HasUpdate, msg, c.hasUpdate)
+		}
+		switch {
+		case !nc.HasUpdate && nc.Update != 0:
+			t.Errorf("%s: no update estimated, but Update = %g (want 0)", c.name, nc.Update)
+		case nc.HasUpdate && !(nc.Update > 0 && !math.IsInf(nc.Update, 0)):
+			t.Errorf("%s: Update = %g, want finite and positive", c.name, nc.Update)
+		}
 	}
 }
 

@@ -123,7 +123,19 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 		return err
 	}
 
-	upd := math.Inf(1)
+	// The last estimate of the next update, when one was made.
+	upd, hasUpd := 0.0, false
+	// stopped puts a *MaterialError met in iteration it (a material that
+	// fails at a point it passed before) into a *NotConvergedError with
+	// the history of the steps taken; other errors pass unchanged.
+	stopped := func(err error, it int) error {
+		me, ok := err.(*MaterialError)
+		if !ok {
+			return err
+		}
+		return &NotConvergedError{Iterations: it, History: s.History, Residual: res,
+			HasUpdate: hasUpd, Update: upd, Reason: me.detail(), Err: me}
+	}
 	// direction factors the matrix in hand and solves for the step du.
 	direction := func() error {
 		t0 := time.Now()
@@ -197,7 +209,7 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 			as.secant = false
 			s.Time.Assemble += time.Since(t0)
 			if aerr != nil {
-				return aerr
+				return stopped(aerr, it)
 			}
 			if derr := direction(); derr != nil {
 				return derr
@@ -206,7 +218,7 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 				return err
 			}
 			if !ok {
-				return &NotConvergedError{Iterations: it, History: s.History, Residual: res, Update: upd,
+				return &NotConvergedError{Iterations: it, History: s.History, Residual: res, HasUpdate: hasUpd, Update: upd,
 					Reason: "neither the Newton nor the fixed-point direction lowers the residual"}
 			}
 			s.FixedPointSteps++
@@ -221,17 +233,22 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 			opt.Progress(it, res)
 		}
 		if !num.Finite(res) {
-			return &NotConvergedError{Iterations: it, History: s.History, Residual: res, Update: upd, Reason: "the residual is not finite"}
+			return &NotConvergedError{Iterations: it, History: s.History, Residual: res, HasUpdate: hasUpd, Update: upd,
+				Reason: "the residual is not finite"}
 		}
 		if res <= opt.Tol {
 			// Estimate the next update with the factorization in hand.
 			t0 = time.Now()
 			lr, err := lin.SolveTo(du, R)
 			s.Time.Solve += time.Since(t0)
+			upd, hasUpd = 0, false
 			if err == nil && lr.Status == sparse.Converged {
-				upd = normInf(du) / math.Max(normInfA(A), math.SmallestNonzeroFloat64)
-				if upd <= opt.UpdateTol {
-					s.Update = upd
+				u := normInf(du) / math.Max(normInfA(A), math.SmallestNonzeroFloat64)
+				if num.Finite(u) {
+					upd, hasUpd = u, true
+				}
+				if u <= opt.UpdateTol {
+					s.Update = u
 					s.Converged = true
 					return nil
 				}
@@ -239,11 +256,11 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 		}
 		t0 = time.Now()
 		if err := as.assemble(A, R, true); err != nil {
-			return err
+			return stopped(err, it)
 		}
 		s.Time.Assemble += time.Since(t0)
 	}
-	return &NotConvergedError{Iterations: opt.MaxIter, History: s.History, Residual: res, Update: upd,
+	return &NotConvergedError{Iterations: opt.MaxIter, History: s.History, Residual: res, HasUpdate: hasUpd, Update: upd,
 		Reason: "iteration limit reached"}
 }
 

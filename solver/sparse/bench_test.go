@@ -3,11 +3,9 @@ package sparse_test
 import (
 	"fmt"
 	"math"
-	"os"
 	"sync"
 	"syscall"
 	"testing"
-	"time"
 
 	"polegap/solver/sparse"
 )
@@ -176,115 +174,23 @@ func BenchmarkLinearSolve(b *testing.B) {
 	}
 }
 
-// TestTimingTable prints the phase timings behind the doc.go figures
-// (go test -run TimingTable -timing -v ./solver/sparse).
-func TestTimingTable(t *testing.T) {
-	if !*timing {
-		t.Skip("timing table only with -timing")
-	}
-	fmt.Printf("%-9s %-17s %11s %9s %9s %9s %9s %9s %9s %8s\n", "n", "method", "nnz(L)", "madds", "analyze", "factor", "solve", "total", "cpu", "iters")
-	for _, nx := range benchSizes {
-		a := benchMatrix(nx)
-		rhs := benchRHS(a.N)
-		x := make([]float64, a.N)
-		for _, o := range []sparse.Ordering{sparse.NestedDissection, sparse.AMD} {
-			ch := &sparse.Cholesky{Options: sparse.CholeskyOptions{Ordering: o}}
-			c0 := cpuSeconds()
-			t0 := time.Now()
-			ch.Analyze(a)
-			t1 := time.Now()
-			if err := ch.Factor(a); err != nil {
-				t.Fatal(err)
-			}
-			t2 := time.Now()
-			if _, err := ch.SolveTo(x, rhs); err != nil {
-				t.Fatal(err)
-			}
-			t3 := time.Now()
-			fmt.Printf("%-9d %-17s %11d %9.3g %9.3f %9.3f %9.3f %9.3f %9.3f %8s\n", a.N, "cholesky/"+o.String(), ch.NNZL(), ch.Flops(),
-				t1.Sub(t0).Seconds(), t2.Sub(t1).Seconds(), t3.Sub(t2).Seconds(), t3.Sub(t0).Seconds(), cpuSeconds()-c0, "-")
-		}
-		p := &sparse.PCG{}
-		c0 := cpuSeconds()
-		t0 := time.Now()
-		p.Analyze(a)
-		t1 := time.Now()
-		p.Factor(a)
-		t2 := time.Now()
-		res, err := p.SolveTo(x, rhs)
-		if err != nil {
-			t.Fatal(err)
-		}
-		t3 := time.Now()
-		fmt.Printf("%-9d %-17s %11s %9s %9.3f %9.3f %9.3f %9.3f %9.3f %8d\n", a.N, "pcg/ic0", "-", "-",
-			t1.Sub(t0).Seconds(), t2.Sub(t1).Seconds(), t3.Sub(t2).Seconds(), t3.Sub(t0).Seconds(), cpuSeconds()-c0, res.Iterations)
-	}
-}
-
-// cCoreFiles are P1 matrices of the benchmark C-core (graded mesh,
-// Dirichlet rows removed) at about 10k, 100k and 1M unknowns, written by
-// the solver's benchmark; tests that use them skip when they are absent.
-var cCoreFiles = []string{"/tmp/ccore10k.mtx", "/tmp/ccore100k.mtx", "/tmp/ccore1m.mtx"}
-
-func readMTX(path string) (*sparse.CSR, error) {
-	f, err := os.Open(path)
-	if err != nil {
-		return nil, err
-	}
-	defer f.Close()
-	return sparse.ReadMatrixMarket(f)
-}
-
-// BenchmarkOrderCCore orders the C-core matrices.
-func BenchmarkOrderCCore(b *testing.B) {
-	for _, path := range cCoreFiles {
-		a, err := readMTX(path)
-		if err != nil {
-			b.Skip(err)
-		}
+// BenchmarkOrderGraded orders the P1 patterns of strongly graded meshes
+// (gradedPattern: 25.6k and about 100k nodes), the shape of the magnet
+// meshes, where nested dissection and AMD differ most.
+func BenchmarkOrderGraded(b *testing.B) {
+	for _, scale := range []float64{1, 2} {
+		a := gradedPattern(b, scale)
 		for _, o := range []sparse.Ordering{sparse.NestedDissection, sparse.AMD} {
 			b.Run(fmt.Sprintf("%v/n=%d", o, a.N), func(b *testing.B) {
 				b.ReportAllocs()
+				var p []int32
 				for i := 0; i < b.N; i++ {
-					sparse.Order(a, o)
+					p = sparse.Order(a, o)
 				}
+				ch := &sparse.Cholesky{Options: sparse.CholeskyOptions{Perm: p}}
+				ch.Analyze(a)
+				b.ReportMetric(ch.Flops(), "madds")
 			})
-		}
-	}
-}
-
-// TestOrderingTable prints the figures behind defaultAMDBelow and the
-// doc.go ordering table: for each ordering, nnz(L), factor multiply-adds
-// and the ordering's wall and CPU time, on the jittered grids and the
-// C-core matrices (go test -run OrderingTable -timing -v ./solver/sparse).
-func TestOrderingTable(t *testing.T) {
-	if !*timing {
-		t.Skip("timing table only with -timing")
-	}
-	type mat struct {
-		name string
-		a    *sparse.CSR
-	}
-	var ms []mat
-	for _, nx := range []int{71, 101, 173, 317, 548, 1001} {
-		ms = append(ms, mat{"grid", benchMatrix(nx)})
-	}
-	for _, path := range cCoreFiles {
-		if a, err := readMTX(path); err == nil {
-			ms = append(ms, mat{"c-core", a})
-		}
-	}
-	fmt.Printf("%-7s %8s %-18s %11s %9s %8s %8s\n", "matrix", "n", "ordering", "nnz(L)", "madds", "wall-s", "cpu-s")
-	for _, m := range ms {
-		for _, o := range []sparse.Ordering{sparse.NestedDissection, sparse.AMD} {
-			c0 := cpuSeconds()
-			t0 := time.Now()
-			p := sparse.Order(m.a, o)
-			wall := time.Since(t0).Seconds()
-			cpu := cpuSeconds() - c0
-			ch := &sparse.Cholesky{Options: sparse.CholeskyOptions{Perm: p}}
-			ch.Analyze(m.a)
-			fmt.Printf("%-7s %8d %-18s %11d %9.3g %8.3f %8.3f\n", m.name, m.a.N, o, ch.NNZL(), ch.Flops(), wall, cpu)
 		}
 	}
 }

@@ -12,7 +12,9 @@ const maxFinite = math.MaxFloat64
 func sqrtf(x float64) float64 { return math.Sqrt(x) }
 
 // CholeskyOptions configure a Cholesky solver. The zero value is ready to
-// use.
+// use, with the tuned defaults.
+//
+// Analyze reads the options; changes take effect at the next Analyze.
 type CholeskyOptions struct {
 	// Ordering is the fill-reducing ordering; DefaultOrdering picks the
 	// best measured on 2D finite-element matrices.
@@ -23,6 +25,18 @@ type CholeskyOptions struct {
 	// Workers is the number of goroutines used by Factor; 0 means
 	// runtime.GOMAXPROCS(0) and 1 factors serially.
 	Workers int
+	// ND tunes NestedDissection, whether Ordering names it or
+	// DefaultOrdering picks it; the zero value is the tuned default.
+	ND NDOptions
+	// Supernodes tunes the relaxed supernode amalgamation; the zero
+	// value is the tuned default.
+	Supernodes SupernodeOptions
+	// SplitWork is the estimated multiply-add count of a supernode at the
+	// top of the elimination tree above which a parallel Factor splits
+	// its columns between two goroutines. 0 means defaultSplitWork; a
+	// negative value splits every top supernode. The factor does not
+	// depend on it.
+	SplitWork float64
 }
 
 // Cholesky is a supernodal left-looking sparse Cholesky solver,
@@ -53,10 +67,11 @@ type Cholesky struct {
 	bwdFns    []func()
 
 	// Two-way split of one large supernode in the top of the tree.
-	inTop    bool
-	job      splitJob
-	helperFn func()
-	pool     *pool
+	splitWork float64 // resolved Options.SplitWork
+	inTop     bool
+	job       splitJob
+	helperFn  func()
+	pool      *pool
 }
 
 type cholWork struct {
@@ -86,9 +101,13 @@ func (ch *Cholesky) Analyze(a *CSR) error {
 		}
 		perm = append([]int32(nil), ch.Options.Perm...)
 	} else {
-		perm = Order(a, ch.Options.Ordering)
+		perm = order(a, ch.Options.Ordering, ch.Options.ND)
 	}
-	ch.sym = analyze(a, perm, workers)
+	ch.sym = analyze(a, perm, workers, ch.Options.Supernodes)
+	ch.splitWork = ch.Options.SplitWork
+	if ch.splitWork == 0 {
+		ch.splitWork = defaultSplitWork
+	}
 	s := ch.sym
 	if cap(ch.lx) < s.valPtr[s.ns] {
 		ch.lx = make([]float64, s.valPtr[s.ns])
@@ -204,7 +223,7 @@ func (ch *Cholesky) factorSuper(t int, a *CSR, ws *cholWork) error {
 	for q, r := range rows {
 		rel[r] = int32(q)
 	}
-	if ch.inTop && s.work[t] > parallelSuperWork {
+	if ch.inTop && s.work[t] > ch.splitWork {
 		return ch.factorSuperPar(t, lt, m, nc)
 	}
 	ch.updateCols(t, rel, ws.c, 0, nc)

@@ -1,9 +1,10 @@
 package sparse
 
-// parallelSuperWork is the estimated multiply-add count of a supernode in
-// the top of the elimination tree above which Factor splits its columns
-// between two goroutines.
-var parallelSuperWork = 4e6 // a variable so tests can force the split
+// defaultSplitWork is the default of CholeskyOptions.SplitWork: the
+// estimated multiply-add count of a supernode in the top of the
+// elimination tree above which Factor splits its columns between two
+// goroutines.
+const defaultSplitWork = 4e6
 
 // splitJob is the helper goroutine's half of a two-way column split.
 type splitJob struct {

@@ -67,11 +67,18 @@
 // from the piece's position, so the permutation is the same on every run
 // and for every GOMAXPROCS.
 //
+// The figures above are the defaults of NDOptions, which tune the
+// dissection (CholeskyOptions.ND, OrderND); SupernodeOptions tune the
+// relaxed supernodes and CholeskyOptions.SplitWork the column split of
+// large supernodes. Every options struct's zero value is the tuned
+// default; the package keeps no mutable settings.
+//
 // Factor size and operations (Cholesky.NNZL, Cholesky.Flops) and ordering
-// time (wall and CPU seconds on the shared 2-core machine, load 1-3), from
-// go test -run OrderingTable -timing -v ./solver/sparse; the C-core
-// matrices are P1 on the graded benchmark C-core mesh (fine in the gap),
-// the grids those of the figures below. The level-structure nested
+// time (wall and CPU seconds on the shared 2-core machine, load 1-3), as
+// go run ./internal/cmd/sparsetune order prints them; the C-core
+// matrices are P1 on the mesher's graded benchmark C-core mesh (fine in
+// the gap), read by that command from Matrix Market files (-mtx) that the
+// repository does not keep, the grids those of the figures below. The level-structure nested
 // dissection this package used before is given for comparison (madds);
 // the rows were measured with leaves of 400 vertices at every size:
 //
@@ -101,8 +108,8 @@
 // Whole linear solve (Analyze + Factor + SolveTo) of the P1 Laplace matrix
 // on a jittered structured triangulation of the unit square, default
 // options, this project's 2-core machine while it was shared (load 2-5,
-// so CPU seconds are the steadier figure; go test -run TimingTable
-// -timing -v ./solver/sparse prints the table):
+// so CPU seconds are the steadier figure; go run
+// ./internal/cmd/sparsetune solve -grid 101,317,1001 prints the table):
 //
 //	unknowns  ordering  nnz(L)  madds    Cholesky CPU-s (AMD)  IC(0)-PCG CPU-s (iterations)
 //	10k       AMD       0.35M   1.5e7    0.025                 0.053 (117)

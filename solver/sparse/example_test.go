@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"os"
+	"slices"
 	"strings"
 
 	"polegap/solver/sparse"
@@ -155,4 +156,14 @@ func ExampleNew() {
 	_, ok := s.(*sparse.PCG)
 	fmt.Println(ok)
 	// Output: true
+}
+
+// OrderND runs the nested dissection under tuning options; the zero
+// NDOptions gives the same permutation as Order.
+func ExampleOrderND() {
+	a := sparse.PatternFromElements(5, []int32{0, 1, 2, 2, 3, 4}, 3)
+	p := sparse.OrderND(a, sparse.NDOptions{Leaf: 2, Parallel: -1})
+	def := sparse.OrderND(a, sparse.NDOptions{})
+	fmt.Println(len(p), sparse.IsPermutation(p), slices.Equal(def, sparse.Order(a, sparse.NestedDissection)))
+	// Output: 5 true true
 }

@@ -1,6 +1,8 @@
 package sparse
 
 import (
+	"fmt"
+	"math"
 	"runtime"
 	"sync"
 )
@@ -19,45 +21,170 @@ import (
 // the start. Inside a subgraph vertices are numbered 0..n-1; vmap maps a
 // slot to the original vertex.
 
-// Tuning knobs, variables so that the internal tuning tests can vary them.
-var (
-	// mlLeaf: subgraphs with at most this many vertices are ordered by
-	// approximate minimum degree. On the 100k C-core matrix leaves of 100
-	// and 400 give 4.05e8 and 4.14e8 multiply-adds for 0.87 and 0.64
-	// CPU-s of ordering; reverse breadth-first leaves (cheaper) give
-	// 4.43e8 and 5.87e8.
-	mlLeaf = 400
-	// mlLeafShare: leaves may also hold up to this share of the whole
-	// graph, which bounds the depth of the dissection (its cost) on large
-	// graphs. On the 1M C-core matrix leaves of 400, 3000 and 10000
-	// vertices took 5.1, 4.0 and 3.4 s of ordering for 1.08e10, 1.12e10
-	// and 1.20e10 multiply-adds (the numeric factor 1.30, 1.35 and 1.52
-	// s); on the 100k one 0.37, 0.26 and 0.22 s for 4.1e8, 4.5e8 and 5.0e8
-	// (0.093 to 0.096 s of factor). A share of 1/100 (leaves of 1000 at
-	// 100k) makes the 316x316 grid's flops 0.906 of AMD's, against 0.87
-	// with 400; 1/256 keeps 100k as it was and gives 3.85 s and 1.14e10
-	// at 1M.
-	mlLeafShare = 1.0 / 256
-	// mlCoarsenTo: coarsening stops at this many vertices.
-	mlCoarsenTo = 120
-	// mlBalance: largest part weight, as a fraction of the subgraph's
-	// weight, that a bisection may leave.
-	mlBalance = 0.55
-	// mlTrials: greedy-growing starts for the initial bisection.
-	mlTrials = 4
-	// mlInitPasses: refinement passes after each greedy growing.
-	mlInitPasses = 2
-	// mlPasses: refinement passes per level.
-	mlPasses = 4
-	// mlParallel: dissections of subgraphs larger than this order their
-	// two halves concurrently.
-	mlParallel = 20000
-	// mlShuffle: matching visits vertices in natural order (0), random
-	// order (1) or natural order with n/8 random swaps (2).
-	mlShuffle = 2
+// NDOptions tune NestedDissection, the multilevel nested dissection of
+// this file. The zero value is the tuned default: a field left at zero
+// takes the default given with it (the constants defaultND*), measured on
+// the C-core and grid matrices of doc.go (Orderings). Any setting gives a
+// valid permutation, and the same one whatever the scheduling or
+// GOMAXPROCS; the settings trade ordering time against the factor's
+// operations.
+type NDOptions struct {
+	// Leaf: subgraphs of at most Leaf vertices are ordered by
+	// approximate minimum degree. Values below 1 mean defaultNDLeaf.
+	Leaf int
+	// LeafShare: leaves may also hold up to this fraction of the whole
+	// graph's vertices, which bounds the depth of the dissection (and
+	// its cost) on large graphs. 0 means defaultNDLeafShare; a negative
+	// value removes the bound (leaves of Leaf vertices at every size).
+	LeafShare float64
+	// CoarsenTo: coarsening stops at this many vertices. Values below 1
+	// mean defaultNDCoarsenTo.
+	CoarsenTo int
+	// Balance: the largest part weight a bisection may leave, as a
+	// fraction of the subgraph's weight (half the weight plus the
+	// heaviest vertex is always allowed). 0 means defaultNDBalance.
+	Balance float64
+	// Trials: greedy-growing starts for the initial bisection of the
+	// coarsest graph. Values below 1 mean defaultNDTrials.
+	Trials int
+	// InitPasses: refinement passes after each greedy growing. 0 means
+	// defaultNDInitPasses; a negative value means none.
+	InitPasses int
+	// Passes: refinement passes per level while uncoarsening, and
+	// separator refinement passes. 0 means defaultNDPasses; a negative
+	// value means none.
+	Passes int
+	// Parallel: a dissection whose two parts hold at least Parallel
+	// vertices together orders them concurrently (when a helper
+	// goroutine is idle). 0 means defaultNDParallel; a negative value
+	// orders everything on the calling goroutine. The permutation does
+	// not depend on it.
+	Parallel int
+	// Visit is the order in which the matching of the coarsening visits
+	// vertices.
+	Visit MatchOrder
+}
+
+// MatchOrder is the order in which the heavy-edge matching visits the
+// vertices of a graph it coarsens.
+type MatchOrder int
+
+const (
+	// MatchSwapped visits in natural order after n/8 random swaps (the
+	// default).
+	MatchSwapped MatchOrder = iota
+	// MatchNatural visits in natural order (the breadth-first numbering
+	// of multilevelND).
+	MatchNatural
+	// MatchShuffled visits in a random order.
+	MatchShuffled
 )
 
+func (o MatchOrder) String() string {
+	switch o {
+	case MatchSwapped:
+		return "swapped"
+	case MatchNatural:
+		return "natural"
+	case MatchShuffled:
+		return "shuffled"
+	}
+	return fmt.Sprintf("MatchOrder(%d)", int(o))
+}
+
+// Defaults of NDOptions.
+const (
+	// defaultNDLeaf: on the 100k C-core matrix leaves of 100 and 400
+	// give 4.05e8 and 4.14e8 multiply-adds for 0.87 and 0.64 CPU-s of
+	// ordering; reverse breadth-first leaves (cheaper) give 4.43e8 and
+	// 5.87e8.
+	defaultNDLeaf = 400
+	// defaultNDLeafShare: on the 1M C-core matrix leaves of 400, 3000
+	// and 10000 vertices took 5.1, 4.0 and 3.4 s of ordering for
+	// 1.08e10, 1.12e10 and 1.20e10 multiply-adds (the numeric factor
+	// 1.30, 1.35 and 1.52 s); on the 100k one 0.37, 0.26 and 0.22 s for
+	// 4.1e8, 4.5e8 and 5.0e8 (0.093 to 0.096 s of factor). A share of
+	// 1/100 (leaves of 1000 at 100k) makes the 316x316 grid's flops
+	// 0.906 of AMD's, against 0.87 with 400; 1/256 keeps 100k as it was
+	// and gives 3.85 s and 1.14e10 at 1M.
+	defaultNDLeafShare = 1.0 / 256
+	// defaultNDCoarsenTo: vertices of the coarsest graph (Karypis and
+	// Kumar 1998 coarsen to about 100).
+	defaultNDCoarsenTo = 120
+	// defaultNDBalance: no part above 55 % of the weight.
+	defaultNDBalance = 0.55
+	// defaultNDTrials: greedy-growing starts.
+	defaultNDTrials = 4
+	// defaultNDInitPasses: refinement passes per start.
+	defaultNDInitPasses = 2
+	// defaultNDPasses: refinement passes per level.
+	defaultNDPasses = 4
+	// defaultNDParallel: vertices of a dissection whose halves are
+	// ordered concurrently.
+	defaultNDParallel = 20000
+)
+
+// ndParams are NDOptions with the defaults applied: every field is the
+// value used.
+type ndParams struct {
+	leaf       int
+	leafShare  float64
+	coarsenTo  int
+	balance    float64
+	trials     int
+	initPasses int
+	passes     int
+	parallel   int // math.MaxInt: never
+	visit      MatchOrder
+}
+
+// params resolves o's zero and negative fields.
+func (o NDOptions) params() ndParams {
+	p := ndParams{
+		leaf: o.Leaf, leafShare: o.LeafShare, coarsenTo: o.CoarsenTo, balance: o.Balance,
+		trials: o.Trials, initPasses: o.InitPasses, passes: o.Passes, parallel: o.Parallel, visit: o.Visit,
+	}
+	if p.leaf < 1 {
+		p.leaf = defaultNDLeaf
+	}
+	switch {
+	case p.leafShare == 0:
+		p.leafShare = defaultNDLeafShare
+	case p.leafShare < 0:
+		p.leafShare = 0
+	}
+	if p.coarsenTo < 1 {
+		p.coarsenTo = defaultNDCoarsenTo
+	}
+	if p.balance == 0 {
+		p.balance = defaultNDBalance
+	}
+	if p.trials < 1 {
+		p.trials = defaultNDTrials
+	}
+	switch {
+	case p.initPasses == 0:
+		p.initPasses = defaultNDInitPasses
+	case p.initPasses < 0:
+		p.initPasses = 0
+	}
+	switch {
+	case p.passes == 0:
+		p.passes = defaultNDPasses
+	case p.passes < 0:
+		p.passes = 0
+	}
+	switch {
+	case p.parallel == 0:
+		p.parallel = defaultNDParallel
+	case p.parallel < 0:
+		p.parallel = math.MaxInt
+	}
+	return p
+}
+
 type mlnd struct {
+	p       ndParams
 	leafMax int        // largest subgraph ordered by minimum degree
 	adj     [2][]int32 // local neighbour indices
 	xend    [2][]int32 // end of a slot's adjacency (absolute offset)
@@ -88,13 +215,14 @@ type mlSub struct {
 // the cut edges (A. Pothen and C.-J. Fan, "Computing the block triangular
 // form of a sparse matrix", ACM TOMS 16 (1990)) refined by moving separator
 // vertices into a part when that shrinks the separator.
-func multilevelND(g *graph) []int32 {
+func multilevelND(g *graph, o NDOptions) []int32 {
 	n := g.n
 	perm := make([]int32, n)
 	if n == 0 {
 		return perm
 	}
-	m := &mlnd{perm: perm, leafMax: max(mlLeaf, int(mlLeafShare*float64(n)))}
+	p := o.params()
+	m := &mlnd{p: p, perm: perm, leafMax: max(p.leaf, int(p.leafShare*float64(n)))}
 	for b := 0; b < 2; b++ {
 		m.adj[b] = make([]int32, len(g.adj))
 		m.xend[b] = make([]int32, n)
@@ -136,9 +264,9 @@ func multilevelND(g *graph) []int32 {
 	helpers := runtime.GOMAXPROCS(0) - 1
 	m.spare = make(chan *mlWork, helpers)
 	for i := 0; i < helpers; i++ {
-		m.spare <- new(mlWork)
+		m.spare <- &mlWork{p: p}
 	}
-	m.dissect(mlSub{lo: 0, n: n, e0: 0, buf: 0}, new(mlWork))
+	m.dissect(mlSub{lo: 0, n: n, e0: 0, buf: 0}, &mlWork{p: p})
 	return perm
 }
 
@@ -196,7 +324,7 @@ func (m *mlnd) dissect(s mlSub, w *mlWork) {
 		}
 		parts := m.split(s, g, label, 2, w)
 		a, b := parts[0], parts[1]
-		if a.n+b.n >= mlParallel {
+		if a.n+b.n >= m.p.parallel {
 			select {
 			case w2 := <-m.spare:
 				var wg sync.WaitGroup

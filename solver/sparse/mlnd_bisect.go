@@ -27,6 +27,7 @@ type mlLevel struct {
 
 // mlWork is one goroutine's scratch; buffers grow and are reused.
 type mlWork struct {
+	p      ndParams
 	rng    uint64
 	g0     mlGraph
 	xadj0  []int32
@@ -96,7 +97,7 @@ func (w *mlWork) nextStamp() int32 {
 func (w *mlWork) bisect(g *mlGraph) []int8 {
 	depth := 0
 	cur := g
-	for cur.n > mlCoarsenTo && depth < 50 {
+	for cur.n > w.p.coarsenTo && depth < 50 {
 		L := w.level(depth)
 		w.coarsen(cur, L)
 		depth++
@@ -123,20 +124,20 @@ func (w *mlWork) bisect(g *mlGraph) []int8 {
 			fine, fw = &F.g, F.where
 		}
 		pw, cut := w.project(fine, fw, L)
-		w.refine(fine, fw, pw, cut, mlPasses)
+		w.refine(fine, fw, pw, cut, w.p.passes)
 	}
 	w.cover(g, w.where0)
-	w.nodeRefine(g, w.where0, mlPasses)
+	w.nodeRefine(g, w.where0, w.p.passes)
 	return w.where0
 }
 
 // maxPart is the largest part weight a bisection of g may leave.
-func maxPart(g *mlGraph) int {
+func (w *mlWork) maxPart(g *mlGraph) int {
 	mv := int32(0)
 	for _, x := range g.vwgt[:g.n] {
 		mv = max(mv, x)
 	}
-	return max(int(mlBalance*float64(g.tvw)), (g.tvw+1)/2+int(mv))
+	return max(int(w.p.balance*float64(g.tvw)), (g.tvw+1)/2+int(mv))
 }
 
 // coarsen contracts a heavy-edge matching of g into L.g.
@@ -151,19 +152,19 @@ func (w *mlWork) coarsen(g *mlGraph, L *mlLevel) {
 		match[i] = -1
 		order[i] = int32(i)
 	}
-	switch mlShuffle {
-	case 1:
+	switch w.p.visit {
+	case MatchShuffled:
 		for i := n - 1; i > 0; i-- {
 			j := w.intn(i + 1)
 			order[i], order[j] = order[j], order[i]
 		}
-	case 2:
+	case MatchSwapped:
 		for k := n / 8; k > 0; k-- {
 			i, j := w.intn(n), w.intn(n)
 			order[i], order[j] = order[j], order[i]
 		}
 	}
-	maxvw := int32(max(2, 3*g.tvw/(2*mlCoarsenTo)))
+	maxvw := int32(max(2, 3*g.tvw/(2*w.p.coarsenTo)))
 	if g.unit {
 		// Unit weights: random matching (every edge is heaviest).
 		for _, v := range order {
@@ -272,17 +273,17 @@ func (w *mlWork) coarsen(g *mlGraph, L *mlLevel) {
 }
 
 // initBisect bisects the coarsest graph by greedy graph growing from
-// mlTrials random starts, each refined, keeping the smallest cut.
+// w.p.trials random starts, each refined, keeping the smallest cut.
 func (w *mlWork) initBisect(g *mlGraph, where []int8) {
 	n := g.n
-	maxw := maxPart(g)
+	maxw := w.maxPart(g)
 	w.best = grow8(w.best, n)
 	w.id = grow32(w.id, n)
 	w.ed = grow32(w.ed, n)
 	w.pos = growNeg(w.pos, n)
 	id, ed, pos := w.id, w.ed, w.pos
 	best := -1
-	for t := 0; t < mlTrials; t++ {
+	for t := 0; t < w.p.trials; t++ {
 		for v := 0; v < n; v++ {
 			where[v] = 1
 			ed[v] = 0
@@ -339,7 +340,7 @@ func (w *mlWork) initBisect(g *mlGraph, where []int8) {
 		}
 		h.reset()
 		pw, cut := w.gains(g, where)
-		cut = w.refine(g, where, pw, cut, mlInitPasses)
+		cut = w.refine(g, where, pw, cut, w.p.initPasses)
 		if best < 0 || cut < best {
 			best = cut
 			copy(w.best, where[:n])

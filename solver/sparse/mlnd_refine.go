@@ -89,14 +89,14 @@ func (w *mlWork) project(fine *mlGraph, fw []int8, L *mlLevel) (pw [2]int, cut i
 }
 
 // refine improves the edge cut of the bisection where of g by passes of
-// boundary Fiduccia-Mattheyses moves under the balance bound maxPart, and
+// boundary Fiduccia-Mattheyses moves under the balance bound w.maxPart, and
 // returns the cut. On entry w.id and w.ed hold each vertex's edge weight
 // to its own and to the other part (see gains), and pw and cut the part
 // weights and the cut; w.id and w.ed are kept up to date.
 func (w *mlWork) refine(g *mlGraph, where []int8, pw [2]int, cut, passes int) int {
 	n := g.n
 	xadj, adj, ewgt, vwgt := g.xadj, g.adj, g.ewgt, g.vwgt
-	maxw := maxPart(g)
+	maxw := w.maxPart(g)
 	w.pos = growNeg(w.pos, n)
 	w.lock = grow32(w.lock, n)
 	id, ed, pos, lock := w.id, w.ed, w.pos, w.lock
@@ -239,11 +239,11 @@ func over2(pw [2]int, maxw int) (int, int) {
 // Fiduccia-Mattheyses moves of separator vertices into a part: moving s
 // into part X pulls its neighbours in the other part into the separator,
 // so the gain is w(s) minus their weight. The largest part stays within
-// maxPart(g), or does not grow if it is already beyond.
+// w.maxPart(g), or does not grow if it is already beyond.
 func (w *mlWork) nodeRefine(g *mlGraph, where []int8, passes int) {
 	n := g.n
 	xadj, adj, vwgt := g.xadj, g.adj, g.vwgt
-	maxw := maxPart(g)
+	maxw := w.maxPart(g)
 	w.id = grow32(w.id, n)
 	w.ed = grow32(w.ed, n)
 	w.pos = growNeg(w.pos, n)

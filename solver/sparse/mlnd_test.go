@@ -124,7 +124,7 @@ func TestMLNDPermutation(t *testing.T) {
 		"twovertice": graphOf(2, nil),
 	}
 	for name, g := range cases {
-		p := multilevelND(g)
+		p := multilevelND(g, NDOptions{})
 		if len(p) != g.n || !IsPermutation(p) {
 			t.Errorf("%s: not a permutation of 0..%d", name, g.n-1)
 		}
@@ -158,7 +158,7 @@ func TestMLNDSeparator(t *testing.T) {
 		{"random", randomGraph(2000, 5000, rng), 0},
 	}
 	for _, c := range cases {
-		w := new(mlWork)
+		w := &mlWork{p: NDOptions{}.params()}
 		w.seed(3, 4)
 		g := mlView(c.g, w)
 		where := slices.Clone(w.bisect(g))
@@ -176,8 +176,8 @@ func TestMLNDSeparator(t *testing.T) {
 		if cnt[0] == 0 || cnt[1] == 0 {
 			t.Errorf("%s: empty part %v", c.name, cnt)
 		}
-		if big := max(cnt[0], cnt[1]); big > maxPart(g) {
-			t.Errorf("%s: part of %d > bound %d", c.name, big, maxPart(g))
+		if big := max(cnt[0], cnt[1]); big > w.maxPart(g) {
+			t.Errorf("%s: part of %d > bound %d", c.name, big, w.maxPart(g))
 		}
 		if c.maxSep > 0 && cnt[2] > c.maxSep {
 			t.Errorf("%s: separator of %d vertices, want <= %d", c.name, cnt[2], c.maxSep)
@@ -198,7 +198,7 @@ func TestMLNDCover(t *testing.T) {
 			e = append(e, [2]int{i - 1, i}, [2]int{k + i - 1, k + i})
 		}
 	}
-	w := new(mlWork)
+	w := &mlWork{p: NDOptions{}.params()}
 	g := mlView(graphOf(2*k, e), w)
 	where := make([]int8, 2*k)
 	for i := k; i < 2*k; i++ {
@@ -234,12 +234,12 @@ func TestMLNDDeterministic(t *testing.T) {
 	}
 	_ = rng
 	for gi, mk := range graphs {
-		p1 := multilevelND(mk())
-		p2 := multilevelND(mk())
+		p1 := multilevelND(mk(), NDOptions{})
+		p2 := multilevelND(mk(), NDOptions{})
 		old := runtime.GOMAXPROCS(1)
-		p3 := multilevelND(mk())
+		p3 := multilevelND(mk(), NDOptions{})
 		runtime.GOMAXPROCS(max(2, old))
-		p4 := multilevelND(mk())
+		p4 := multilevelND(mk(), NDOptions{})
 		runtime.GOMAXPROCS(old)
 		if !slices.Equal(p1, p2) || !slices.Equal(p1, p3) || !slices.Equal(p1, p4) {
 			t.Errorf("graph %d: orderings differ between runs", gi)
@@ -273,10 +273,20 @@ func grid7(m int) *CSR {
 // chapter 8), so at k = 316 (100k unknowns) the new ordering must beat AMD by 10 %.
 func TestMLNDFill(t *testing.T) {
 	a := grid7(316)
-	ml := analyze(a, multilevelND(newGraph(a)), 1)
-	amd := analyze(a, amdOrder(newGraph(a)), 1)
+	ml := analyze(a, multilevelND(newGraph(a), NDOptions{}), 1, SupernodeOptions{})
+	amd := analyze(a, amdOrder(newGraph(a)), 1, SupernodeOptions{})
 	t.Logf("grid 316x316: nested dissection nnz(L)=%d flops=%.3g; AMD nnz(L)=%d flops=%.3g", ml.nnzL, ml.flops, amd.nnzL, amd.flops)
 	if ml.flops > 0.9*amd.flops {
 		t.Errorf("nested dissection flops %.3g, want below 0.9 x AMD's %.3g", ml.flops, amd.flops)
+	}
+}
+
+// BenchmarkOrderGrid5 orders the 5-point Laplacian on a 1000×1000 grid
+// (1M unknowns).
+func BenchmarkOrderGrid5(b *testing.B) {
+	a := grid5(1000)
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		Order(a, NestedDissection)
 	}
 }

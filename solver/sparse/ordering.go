@@ -37,8 +37,21 @@ func (o Ordering) String() string {
 
 // Order returns a fill-reducing permutation of the symmetric pattern of a:
 // perm[k] is the original index of the row and column placed k-th. Values
-// are ignored. It panics on an unknown ordering.
+// are ignored. NestedDissection runs with the default NDOptions. It panics
+// on an unknown ordering.
 func Order(a *CSR, o Ordering) []int32 {
+	return order(a, o, NDOptions{})
+}
+
+// OrderND returns the NestedDissection permutation of the symmetric
+// pattern of a under the tuning opt (see Order; the zero NDOptions gives
+// Order(a, NestedDissection)).
+func OrderND(a *CSR, opt NDOptions) []int32 {
+	return order(a, NestedDissection, opt)
+}
+
+// order is Order with the nested dissection options nd.
+func order(a *CSR, o Ordering, nd NDOptions) []int32 {
 	if o == DefaultOrdering {
 		o = NestedDissection
 		if a.N < defaultAMDBelow {
@@ -53,7 +66,7 @@ func Order(a *CSR, o Ordering) []int32 {
 		}
 		return p
 	case NestedDissection:
-		return multilevelND(newGraph(a))
+		return multilevelND(newGraph(a), nd)
 	case AMD:
 		return amdOrder(newGraph(a))
 	}

@@ -78,8 +78,9 @@ func TestOrderingFill(t *testing.T) {
 // smaller near one spot than far from it (the size grows away from the
 // spot at the mesher's default grading) and returns the P1 pattern: the
 // shape of our magnet meshes, fine in an air gap and coarse far away.
-func gradedPattern(t *testing.T) *sparse.CSR {
-	t.Helper()
+// Scale 1 gives 25.6k nodes; the node count grows like scale².
+func gradedPattern(tb testing.TB, scale float64) *sparse.CSR {
+	tb.Helper()
 	in := &mesh.Input{
 		X:        []float64{0, 1, 1, 0},
 		Y:        []float64{0, 0, 1, 1},
@@ -87,11 +88,11 @@ func gradedPattern(t *testing.T) *sparse.CSR {
 		Markers:  []int32{1, 1, 1, 1},
 	}
 	m, err := mesh.Triangulate(in, mesh.Options{Size: mesh.SizeField{
-		Global: 0.01,
-		Points: []mesh.SizePoint{{X: 0.3, Y: 0.4, Size: 0.0002}},
+		Global: 0.01 / scale,
+		Points: []mesh.SizePoint{{X: 0.3, Y: 0.4, Size: 0.0002 / scale}},
 	}})
 	if err != nil {
-		t.Fatal(err)
+		tb.Fatal(err)
 	}
 	return sparse.PatternFromElements(len(m.X), m.Tri, 3)
 }
@@ -105,7 +106,7 @@ func gradedPattern(t *testing.T) *sparse.CSR {
 // against AMD's 6.5e7; the level-structure nested dissection this package
 // had before needed 9.0e7.
 func TestOrderingGraded(t *testing.T) {
-	a := gradedPattern(t)
+	a := gradedPattern(t, 1)
 	flops := map[sparse.Ordering]float64{}
 	for _, o := range []sparse.Ordering{sparse.NestedDissection, sparse.AMD} {
 		ch := &sparse.Cholesky{Options: sparse.CholeskyOptions{Ordering: o}}

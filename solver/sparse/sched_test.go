@@ -33,13 +33,10 @@ func grid5(m int) *CSR {
 // supernode and compares the factor with the serial one: the same
 // products summed in the same order per entry, so equal to rounding.
 func TestParallelTopSplit(t *testing.T) {
-	old := parallelSuperWork
-	parallelSuperWork = 0
-	defer func() { parallelSuperWork = old }()
 	for _, m := range []int{80, 110} {
 		a := grid5(m)
 		ser := &Cholesky{Options: CholeskyOptions{Workers: 1}}
-		par := &Cholesky{Options: CholeskyOptions{Workers: 2}}
+		par := &Cholesky{Options: CholeskyOptions{Workers: 2, SplitWork: -1}}
 		for _, c := range []*Cholesky{ser, par} {
 			c.Analyze(a)
 			if err := c.Factor(a); err != nil {
@@ -103,7 +100,7 @@ func TestColCountsGNP(t *testing.T) {
 	mats = append(mats, tr.ToCSR())
 	for k, a := range mats {
 		for _, o := range []Ordering{Natural, NestedDissection, AMD} {
-			s := analyze(a, Order(a, o), 1)
+			s := analyze(a, Order(a, o), 1, SupernodeOptions{})
 			want := s.colCountsNaive(a)
 			got := s.colCountsGNP(a)
 			for j := range want {
@@ -119,11 +116,8 @@ func TestColCountsGNP(t *testing.T) {
 // subtrees and top supernode splits, allocates nothing (the goroutines
 // come from the solver's pool).
 func TestParallelFactorAllocs(t *testing.T) {
-	old := parallelSuperWork
-	parallelSuperWork = 0
-	defer func() { parallelSuperWork = old }()
 	a := grid5(90)
-	c := &Cholesky{Options: CholeskyOptions{Workers: 2}}
+	c := &Cholesky{Options: CholeskyOptions{Workers: 2, SplitWork: -1}}
 	c.Analyze(a)
 	if len(c.sym.tasks) == 0 {
 		t.Fatal("no parallel schedule")

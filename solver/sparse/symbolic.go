@@ -50,7 +50,7 @@ type symbolic struct {
 }
 
 // analyze builds the symbolic factorization of the symmetric pattern of a
-// under the permutation perm.
+// under the permutation perm, amalgamating supernodes as sn asks.
 //
 // Elimination tree: J. W. H. Liu, "The role of elimination trees in sparse
 // factorization", SIAM J. Matrix Anal. Appl. 11 (1990), algorithm with path
@@ -59,7 +59,7 @@ type symbolic struct {
 // multifrontal method", ACM TOMS 15 (1989). Left-looking supernodal update
 // lists: E. Ng and B. Peyton, "Block sparse Cholesky algorithms on advanced
 // uniprocessor computers", SIAM J. Sci. Comput. 14 (1993).
-func analyze(a *CSR, perm []int32, workers int) *symbolic {
+func analyze(a *CSR, perm []int32, workers int, sn SupernodeOptions) *symbolic {
 	n := a.N
 	s := &symbolic{n: n, nnzA: a.NNZ(), perm: perm}
 	s.inv = make([]int32, n)
@@ -92,7 +92,7 @@ func analyze(a *CSR, perm []int32, workers int) *symbolic {
 	}
 
 	cc := s.colCountsGNP(a)
-	s.supernodes(cc)
+	s.supernodes(cc, sn.params())
 	s.structure(a)
 	s.scatterMap(a)
 	s.updates()
@@ -185,8 +185,8 @@ func (s *symbolic) colCountsNaive(a *CSR) []int32 {
 
 // supernodes partitions the columns into fundamental supernodes and then
 // merges a child into its parent when the explicit zeros this adds stay
-// small (relaxed amalgamation).
-func (s *symbolic) supernodes(cc []int32) {
+// small (relaxed amalgamation, under r).
+func (s *symbolic) supernodes(cc []int32, r SupernodeOptions) {
 	n := s.n
 	nchild := make([]int32, n)
 	for _, p := range s.parent {
@@ -220,7 +220,7 @@ func (s *symbolic) supernodes(cc []int32) {
 			m := nc + cur.below
 			stored := nc*m - nc*(nc-1)/2
 			z := float64(stored-top.nz-cur.nz) / float64(stored)
-			if !relaxMerge(nc, z) {
+			if !r.merge(nc, z) {
 				break
 			}
 			stack = stack[:len(stack)-1]
@@ -248,30 +248,65 @@ func (s *symbolic) supernodes(cc []int32) {
 	}
 }
 
-// relaxMerge decides whether a merged supernode of nc columns with a
-// fraction z of explicit zeros is worth it. The thresholds are common
-// practice in the spirit of Ashcraft and Grimes (1989), tuned on the 2D
-// grid benchmarks of this package.
-func relaxMerge(nc int, z float64) bool {
-	r := &relaxLimits
-	switch {
-	case nc <= r.always:
-		return true
-	case nc <= 16:
-		return z < r.z16
-	case nc <= 48:
-		return z < r.z48
-	default:
-		return z < r.zBig
-	}
+// SupernodeOptions tune the relaxed amalgamation of Cholesky's symbolic
+// analysis: a supernode is merged into its parent when the merged block
+// keeps few explicit zeros, which trades stored zeros (and their
+// multiply-adds) for larger dense blocks. The zero value is the tuned
+// default: a field left at zero takes the default given with it (the
+// constants defaultRelax*), common practice in the spirit of Ashcraft and
+// Grimes (1989), tuned on the 2D grid benchmarks of this package. A
+// negative value turns its rule off.
+type SupernodeOptions struct {
+	// Always: merges giving at most this many columns are made whatever
+	// their zeros. 0 means defaultRelaxAlways.
+	Always int
+	// Zeros16, Zeros48 and ZerosWide: merges giving up to 16, up to 48
+	// and more columns are made while the fraction of explicit zeros in
+	// the merged block stays below this. 0 means defaultRelaxZeros16,
+	// defaultRelaxZeros48 and defaultRelaxZerosWide.
+	Zeros16, Zeros48, ZerosWide float64
 }
 
-// relaxLimits holds the amalgamation thresholds (a variable so tests can
-// compare settings).
-var relaxLimits = struct {
-	always         int
-	z16, z48, zBig float64
-}{8, 0.5, 0.1, 0.02}
+// Defaults of SupernodeOptions.
+const (
+	defaultRelaxAlways    = 8
+	defaultRelaxZeros16   = 0.5
+	defaultRelaxZeros48   = 0.1
+	defaultRelaxZerosWide = 0.02
+)
+
+// params returns o with the defaults applied.
+func (o SupernodeOptions) params() SupernodeOptions {
+	if o.Always == 0 {
+		o.Always = defaultRelaxAlways
+	}
+	if o.Zeros16 == 0 {
+		o.Zeros16 = defaultRelaxZeros16
+	}
+	if o.Zeros48 == 0 {
+		o.Zeros48 = defaultRelaxZeros48
+	}
+	if o.ZerosWide == 0 {
+		o.ZerosWide = defaultRelaxZerosWide
+	}
+	return o
+}
+
+// merge decides whether a merged supernode of nc columns with a fraction
+// z of explicit zeros is worth it; r has the defaults applied (a negative
+// threshold is never met).
+func (r *SupernodeOptions) merge(nc int, z float64) bool {
+	switch {
+	case nc <= r.Always:
+		return true
+	case nc <= 16:
+		return z < r.Zeros16
+	case nc <= 48:
+		return z < r.Zeros48
+	default:
+		return z < r.ZerosWide
+	}
+}
 
 // structure computes the row list of every supernode: its own columns, the
 // rows of A below them and the rows of its children below it.
