@@ -266,6 +266,19 @@ func ExampleSelfIntersection() {
 	// -1 -1 false
 }
 
+func ExamplePolygonsOverlap() {
+	// A unit square and a box whose left side lies 1e-12 inside it: at
+	// resolution 1e-9 they share an edge; 1e-6 inside, they overlap.
+	sx, sy := []float64{0, 1, 1, 0}, []float64{0, 0, 1, 1}
+	_, _, ok := mesh.PolygonsOverlap(sx, sy, []float64{1 - 1e-12, 2, 2, 1 - 1e-12}, []float64{0, 0, 1, 1}, 1e-9)
+	fmt.Println(ok)
+	x, y, ok := mesh.PolygonsOverlap(sx, sy, []float64{1 - 1e-6, 2, 2, 1 - 1e-6}, []float64{0, 0, 1, 1}, 1e-9)
+	fmt.Println(ok, x > 1-1e-6 && x < 1, y > 0 && y < 1)
+	// Output:
+	// false
+	// true true true
+}
+
 func ExampleMesh_Check() {
 	m := &mesh.Mesh{
 		X: []float64{0, 1, 0}, Y: []float64{0, 0, 1}, NumVertices: 3,

@@ -29,6 +29,7 @@ import (
 //   - a point is on a polygon's boundary when it lies within d of an edge,
 //     otherwise inside or outside by the crossing number (PointInPolygon).
 //
+// PolygonsOverlap applies BuildInput's overlap rule to two polygons.
 // CrossingPoint computes where two edges meet, for messages and for
 // splitting; it decides nothing.
 
@@ -265,4 +266,47 @@ func edgesMeet(x, y []float64, e, f int, d float64) bool {
 // resolution d: r within d of pq, or p within d of qr.
 func foldsBack(px, py, qx, qy, rx, ry, d float64) bool {
 	return NearSegment(rx, ry, px, py, qx, qy, d) || NearSegment(px, py, qx, qy, rx, ry, d)
+}
+
+// PolygonsOverlap reports whether the interiors of the polygons a and b
+// share area at resolution d > 0, by the rule BuildInput applies with
+// OverlapError at MergeTol = d: the two outlines become one graph (vertices
+// within d merged, edges split where they cross and where a vertex lies
+// within d of them), and a face of the graph whose seed point lies inside
+// both is an overlap; (x, y) is that seed. Touching, shared edges and
+// overlaps that the merging closes (thinner than about d) are not
+// overlaps. Edges that keep crossing after the splitting passes count as an
+// overlap at the crossing. Each polygon must be simple at resolution d (at
+// least 3 vertices, consecutive ones more than d apart, not ZeroArea, no
+// SelfIntersection); PolygonsOverlap panics otherwise, or if d <= 0 or
+// len(ax) != len(ay) or len(bx) != len(by).
+func PolygonsOverlap(ax, ay, bx, by []float64, d float64) (x, y float64, ok bool) {
+	if !(d > 0) {
+		panic("mesh: PolygonsOverlap: resolution d must be positive")
+	}
+	opt := GraphOptions{MergeTol: d, ChordTol: 1, MaxArcAngle: 1} // no arcs to chord
+	oa, err := validate(0, Polygon{X: ax, Y: ay}, opt)
+	if err != nil || len(oa.x) != len(ax) {
+		panic("mesh: PolygonsOverlap: polygon a is not simple at resolution d")
+	}
+	ob, err := validate(1, Polygon{X: bx, Y: by}, opt)
+	if err != nil || len(ob.x) != len(bx) {
+		panic("mesh: PolygonsOverlap: polygon b is not simple at resolution d")
+	}
+	g := newGraph(d)
+	g.addOutline(oa)
+	g.addOutline(ob)
+	if err := g.split(); err != nil {
+		ge := err.(*GraphError)
+		return ge.X, ge.Y, true
+	}
+	g.dedupe()
+	sg := newSegGrid(g)
+	for _, f := range g.faces() {
+		sx, sy, found := g.seed(sg, f)
+		if found && oa.contains(sx, sy) && ob.contains(sx, sy) {
+			return sx, sy, true
+		}
+	}
+	return 0, 0, false
 }

@@ -4,6 +4,7 @@ import (
 	"math"
 	"math/big"
 	"math/rand/v2"
+	"strings"
 	"testing"
 )
 
@@ -339,4 +340,62 @@ func FuzzNearSegment(f *testing.F) {
 			t.Fatalf("NearPoint = %v, exact %v", got, want)
 		}
 	})
+}
+
+// TestPolygonsOverlap checks the pairwise overlap rule at scales 1e-9..1e9
+// against BuildInput's verdict for the same two polygons, and that a
+// reported point lies inside both.
+func TestPolygonsOverlap(t *testing.T) {
+	const e = 1e-12
+	sq := [2][]float64{{0, 1, 1, 0}, {0, 0, 1, 1}}
+	box := func(x0, y0, x1, y1 float64) [2][]float64 {
+		return [2][]float64{{x0, x1, x1, x0}, {y0, y0, y1, y1}}
+	}
+	cases := []struct {
+		name string
+		b    [2][]float64
+		want bool
+	}{
+		{"shared edge", box(1, 0, 2, 1), false},
+		{"gap 1e-12", box(1+e, 0, 2, 1), false},
+		{"overlap 1e-12", box(1-e, 0, 2, 1), false},
+		{"overlap 1e-12, shorter side", box(1-e, 0.25, 2, 0.75), false},
+		{"overlap 1e-6 along an edge", box(1-1e-6, 0, 2, 1), true},
+		{"corner cut by 1e-12", [2][]float64{{2, 2, -e}, {-e, 2, 2}}, false},
+		{"corner cut by 1e-6", [2][]float64{{2, 2, -1e-6}, {-1e-6, 2, 2}}, true},
+		{"inside", box(0.25, 0.25, 0.75, 0.75), true},
+		{"identical, clockwise", [2][]float64{{0, 0, 1, 1}, {0, 1, 1, 0}}, true},
+	}
+	for _, s := range predicateScales {
+		scale := func(p [2][]float64) (x, y []float64) {
+			for k := range p[0] {
+				x, y = append(x, p[0][k]*s), append(y, p[1][k]*s)
+			}
+			return x, y
+		}
+		ax, ay := scale(sq)
+		for _, c := range cases {
+			bx, by := scale(c.b)
+			d := 2e-9 * s // 1e-9 of the largest coordinate
+			x, y, ok := PolygonsOverlap(ax, ay, bx, by, d)
+			if ok != c.want {
+				t.Errorf("scale %g, %s: PolygonsOverlap = %v, want %v", s, c.name, ok, c.want)
+				continue
+			}
+			if ok && (PointInPolygon(ax, ay, x, y, 0) != Inside || PointInPolygon(bx, by, x, y, 0) != Inside) {
+				t.Errorf("scale %g, %s: point (%g, %g) not inside both", s, c.name, x, y)
+			}
+			bnd := rect(-2*s, -2*s, 4*s, 4*s, 0, 1)
+			_, err := BuildInput([]Polygon{{X: ax, Y: ay}, {X: bx, Y: by}}, bnd, GraphOptions{MergeTol: d})
+			if (err != nil) != c.want {
+				t.Errorf("scale %g, %s: BuildInput says %v", s, c.name, err)
+			}
+		}
+	}
+	defer func() {
+		if r, _ := recover().(string); !strings.HasPrefix(r, "mesh: PolygonsOverlap") {
+			t.Errorf("a bow tie: recovered %q", r)
+		}
+	}()
+	PolygonsOverlap([]float64{0, 1, 1, 0}, []float64{0, 1, 0, 1}, []float64{0, 1, 1, 0}, []float64{0, 0, 1, 1}, 1e-9)
 }
