@@ -3,9 +3,16 @@
 //
 // # Provides
 //
-//   - Orient2D, InCircle, InDiametralCircle: exact geometric predicates
-//     (Shewchuk 1997 adaptive filter with an exact expansion fallback). Every
-//     geometric decision of the package goes through them.
+//   - Orient2D, InCircle, InDiametralCircle, NearPoint, NearSegment: exact
+//     geometric predicates (Shewchuk 1997 adaptive filter with an exact
+//     expansion fallback). Every geometric decision of the package goes
+//     through them.
+//   - SegmentsNear, SegmentsCross, PointInPolygon, ZeroArea,
+//     SelfIntersection: the polygon checks at a resolution d ("closer than
+//     d counts as touching"), decided exactly. BuildInput applies them at
+//     GraphOptions.MergeTol and package models validates regions with them,
+//     so both accept the same polygons at the same resolution.
+//     CrossingPoint locates a crossing for messages and splitting.
 //   - Triangulate: constrained Delaunay triangulation of an Input (vertices,
 //     marked segments, region seeds), exterior and hole removal, region
 //     tagging, Ruppert/Shewchuk Delaunay refinement to a minimum angle

@@ -191,6 +191,94 @@ func ExampleInCircle() {
 	// 1
 }
 
+func ExampleNearPoint() {
+	// Two vertices 3-4-5 apart: within 5, not within the float just below.
+	fmt.Println(mesh.NearPoint(0, 0, 3, 4, 5), mesh.NearPoint(0, 0, 3, 4, 4.999999999999999))
+	// Output:
+	// true false
+}
+
+func ExampleNearSegment() {
+	// A vertex 1e-12 above an edge is on it at resolution 1e-9, not at 0.
+	fmt.Println(mesh.NearSegment(0.5, 1e-12, 0, 0, 1, 0, 1e-9))
+	fmt.Println(mesh.NearSegment(0.5, 1e-12, 0, 0, 1, 0, 0))
+	// Beyond an end the distance is to the end: (2, 0) is 1 from (1, 0).
+	fmt.Println(mesh.NearSegment(2, 0, 0, 0, 1, 0, 1))
+	// Output:
+	// true
+	// false
+	// true
+}
+
+func ExampleSegmentsNear() {
+	// Two edges of a T that miss each other by 1e-12.
+	fmt.Println(mesh.SegmentsNear(0, 0, 1, 0, 0.5, 1e-12, 0.5, 1, 1e-9))
+	fmt.Println(mesh.SegmentsNear(0, 0, 1, 0, 0.5, 1e-12, 0.5, 1, 0))
+	// Output:
+	// true
+	// false
+}
+
+func ExampleSegmentsCross() {
+	// The diagonals of a square cross; where, CrossingPoint says.
+	fmt.Println(mesh.SegmentsCross(0, 0, 2, 2, 0, 2, 2, 0))
+	fmt.Println(mesh.CrossingPoint(0, 0, 2, 2, 0, 2, 2, 0))
+	// Edges that only touch at an end do not cross.
+	fmt.Println(mesh.SegmentsCross(0, 0, 1, 0, 1, 0, 1, 1))
+	// Output:
+	// true
+	// 1 1
+	// false
+}
+
+func ExamplePointInPolygon() {
+	x, y := []float64{0, 1, 1, 0}, []float64{0, 0, 1, 1}
+	fmt.Println(mesh.PointInPolygon(x, y, 0.5, 0.5, 0))
+	fmt.Println(mesh.PointInPolygon(x, y, 0.5, 1e-12, 0))
+	fmt.Println(mesh.PointInPolygon(x, y, 0.5, 1e-12, 1e-9))
+	fmt.Println(mesh.PointInPolygon(x, y, 1.5, 0.5, 0))
+	// Output:
+	// Inside
+	// Inside
+	// OnBoundary
+	// Outside
+}
+
+func ExampleZeroArea() {
+	// A triangle 1e-12 high has zero area at resolution 1e-9; 1e-6 high
+	// it does not.
+	fmt.Println(mesh.ZeroArea([]float64{0, 1, 0.5}, []float64{0, 0, 1e-12}, 1e-9))
+	fmt.Println(mesh.ZeroArea([]float64{0, 1, 0.5}, []float64{0, 0, 1e-6}, 1e-9))
+	// Output:
+	// true
+	// false
+}
+
+func ExampleSelfIntersection() {
+	// Vertex 3 sits 1e-12 above edge 0: at resolution 1e-9 edges 0 and 2
+	// (the first pair) meet there; exactly, nothing meets.
+	x := []float64{0, 1, 1, 0.5, 0}
+	y := []float64{0, 0, 0.2, 1e-12, 0.2}
+	fmt.Println(mesh.SelfIntersection(x, y, 1e-9))
+	fmt.Println(mesh.SelfIntersection(x, y, 0))
+	// Output:
+	// 0 2 true
+	// -1 -1 false
+}
+
+func ExamplePolygonsOverlap() {
+	// A unit square and a box whose left side lies 1e-12 inside it: at
+	// resolution 1e-9 they share an edge; 1e-6 inside, they overlap.
+	sx, sy := []float64{0, 1, 1, 0}, []float64{0, 0, 1, 1}
+	_, _, ok := mesh.PolygonsOverlap(sx, sy, []float64{1 - 1e-12, 2, 2, 1 - 1e-12}, []float64{0, 0, 1, 1}, 1e-9)
+	fmt.Println(ok)
+	x, y, ok := mesh.PolygonsOverlap(sx, sy, []float64{1 - 1e-6, 2, 2, 1 - 1e-6}, []float64{0, 0, 1, 1}, 1e-9)
+	fmt.Println(ok, x > 1-1e-6 && x < 1, y > 0 && y < 1)
+	// Output:
+	// false
+	// true true true
+}
+
 func ExampleMesh_Check() {
 	m := &mesh.Mesh{
 		X: []float64{0, 1, 0}, Y: []float64{0, 0, 1}, NumVertices: 3,

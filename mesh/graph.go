@@ -14,13 +14,16 @@ import (
 // BuildInput turns region polygons (with arcs) and a boundary polygon into an
 // Input for Triangulate:
 //
-//  1. arcs become chords (DiscretizePolygon), each polygon is checked for
-//     fewer than 3 distinct vertices, zero area and self-intersection;
+//  1. arcs become chords (DiscretizePolygon), vertices within MergeTol of
+//     their predecessor are dropped, and each polygon is checked for fewer
+//     than 3 distinct vertices, zero area (ZeroArea) and self-intersection
+//     (SelfIntersection), all at resolution MergeTol (see polygon.go);
 //  2. all edges go into one list, boundary first, then the regions in order;
-//  3. vertices closer than MergeTol merge (grid hashing);
-//  4. edges are split where they cross (decided by the exact Orient2D, then
-//     the crossing point computed) and where a vertex lies on them
-//     (T-junctions, overlapping collinear edges), until nothing changes;
+//  3. vertices within MergeTol merge (grid hashing, NearPoint);
+//  4. edges are split where they cross (decided by SegmentsCross, then the
+//     crossing point computed) and where a vertex lies within MergeTol of
+//     their interior (T-junctions, overlapping collinear edges; NearSegment),
+//     until nothing changes;
 //  5. duplicate edges collapse to the first one, so a shared edge appears
 //     once with the marker of the first polygon, boundary markers first;
 //  6. the faces of the graph are traced (half-edges sorted by angle around
@@ -76,8 +79,10 @@ type GraphOptions struct {
 	// MaxArcAngle is the largest angle one chord may span, radians;
 	// 0 means 10 degrees.
 	MaxArcAngle float64
-	// MergeTol is the distance below which vertices merge, metres;
-	// 0 means 1e-9 of the model extent.
+	// MergeTol is the resolution of the graph, metres: vertices at most
+	// this far apart merge, a vertex this close to a segment splits it,
+	// and polygons are checked at this resolution (ZeroArea,
+	// SelfIntersection). 0 means 1e-9 of the model extent.
 	MergeTol float64
 	// Overlap selects the rule for overlapping region polygons.
 	Overlap Overlap
@@ -260,7 +265,7 @@ func (o *outline) contains(x, y float64) bool {
 	if x < o.box[0] || y < o.box[1] || x > o.box[2] || y > o.box[3] {
 		return false
 	}
-	return inPolygon(o.x, o.y, x, y)
+	return PointInPolygon(o.x, o.y, x, y, 0) == Inside
 }
 
 // validate discretises p, drops repeated consecutive vertices and checks it.
@@ -280,27 +285,22 @@ func validate(idx int, p Polygon, opt GraphOptions) (outline, error) {
 	tol := opt.MergeTol
 	for i := range x {
 		k := len(o.x)
-		if k > 0 && math.Hypot(x[i]-o.x[k-1], y[i]-o.y[k-1]) <= tol {
+		if k > 0 && NearPoint(x[i], y[i], o.x[k-1], o.y[k-1], tol) {
 			continue
 		}
 		o.x, o.y, o.mk = append(o.x, x[i]), append(o.y, y[i]), append(o.mk, mk[i])
 	}
-	for len(o.x) > 1 && math.Hypot(o.x[0]-o.x[len(o.x)-1], o.y[0]-o.y[len(o.y)-1]) <= tol {
+	for len(o.x) > 1 && NearPoint(o.x[0], o.y[0], o.x[len(o.x)-1], o.y[len(o.y)-1], tol) {
 		o.x, o.y, o.mk = o.x[:len(o.x)-1], o.y[:len(o.y)-1], o.mk[:len(o.mk)-1]
 	}
 	if len(o.x) < 3 {
 		return o, graphErr(idx, fmt.Sprintf("has %d distinct vertices, need at least 3", len(o.x)))
 	}
-	var per float64
-	for i := range o.x {
-		j := (i + 1) % len(o.x)
-		per += math.Hypot(o.x[j]-o.x[i], o.y[j]-o.y[i])
-	}
 	o.area = PolygonArea(o.x, o.y)
-	if math.Abs(o.area) <= tol*per {
+	if ZeroArea(o.x, o.y, tol) {
 		return o, graphErr(idx, fmt.Sprintf("has zero area (%g m²)", o.area))
 	}
-	if i, j, ok := selfIntersection(o.x, o.y); ok {
+	if i, j, ok := SelfIntersection(o.x, o.y, tol); ok {
 		return o, graphErrAt(idx, fmt.Sprintf("intersects itself: edge %d meets edge %d", i, j), o.x[i], o.y[i])
 	}
 	o.ccw = o.area > 0
@@ -320,92 +320,6 @@ func validate(idx int, p Polygon, opt GraphOptions) (outline, error) {
 		o.x, o.y, o.mk, o.area = rx, ry, rm, -o.area
 	}
 	return o, nil
-}
-
-// segmentsMeet reports whether the closed segments ab and cd share a point.
-func segmentsMeet(ax, ay, bx, by, cx, cy, dx, dy float64) bool {
-	o1 := Orient2D(ax, ay, bx, by, cx, cy)
-	o2 := Orient2D(ax, ay, bx, by, dx, dy)
-	o3 := Orient2D(cx, cy, dx, dy, ax, ay)
-	o4 := Orient2D(cx, cy, dx, dy, bx, by)
-	if o1*o2 < 0 && o3*o4 < 0 {
-		return true
-	}
-	return (o1 == Collinear && between(ax, ay, bx, by, cx, cy)) ||
-		(o2 == Collinear && between(ax, ay, bx, by, dx, dy)) ||
-		(o3 == Collinear && between(cx, cy, dx, dy, ax, ay)) ||
-		(o4 == Collinear && between(cx, cy, dx, dy, bx, by))
-}
-
-// between reports whether p, known to be collinear with ab, lies on the
-// closed segment ab.
-func between(ax, ay, bx, by, px, py float64) bool {
-	return px >= math.Min(ax, bx) && px <= math.Max(ax, bx) && py >= math.Min(ay, by) && py <= math.Max(ay, by)
-}
-
-// selfIntersection finds two edges of the closed polygon that meet other
-// than at the vertex adjacent edges share, with a sweep over x.
-func selfIntersection(x, y []float64) (int, int, bool) {
-	n := len(x)
-	order := make([]int, n)
-	lo := make([]float64, n)
-	for i := range order {
-		j := (i + 1) % n
-		order[i], lo[i] = i, math.Min(x[i], x[j])
-	}
-	sort.Slice(order, func(a, b int) bool { return lo[order[a]] < lo[order[b]] })
-	for a, i := range order {
-		i1 := (i + 1) % n
-		hi := math.Max(x[i], x[i1])
-		for _, j := range order[a+1:] {
-			if lo[j] > hi {
-				break
-			}
-			j1 := (j + 1) % n
-			if j1 == i || i1 == j {
-				// Adjacent edges share a vertex; they meet elsewhere only
-				// when collinear and folding back over each other.
-				p, q, r := i, i1, j1 // edge i then edge j
-				if i1 != j {
-					p, q, r = j, j1, i1
-				}
-				if Orient2D(x[p], y[p], x[q], y[q], x[r], y[r]) == Collinear &&
-					(x[r]-x[q])*(x[p]-x[q])+(y[r]-y[q])*(y[p]-y[q]) > 0 {
-					return min(i, j), max(i, j), true
-				}
-				continue
-			}
-			if segmentsMeet(x[i], y[i], x[i1], y[i1], x[j], y[j], x[j1], y[j1]) {
-				return min(i, j), max(i, j), true
-			}
-		}
-	}
-	return 0, 0, false
-}
-
-// inPolygon reports whether (px, py) lies strictly inside the closed
-// polygon (x, y) of either orientation, by the crossing-number test with
-// the side decisions made by Orient2D; a point on an edge counts as
-// outside.
-func inPolygon(x, y []float64, px, py float64) bool {
-	in := false
-	n := len(x)
-	for i := 0; i < n; i++ {
-		j := (i + 1) % n
-		ax, ay, bx, by := x[i], y[i], x[j], y[j]
-		o := Orient2D(ax, ay, bx, by, px, py)
-		if o == Collinear && between(ax, ay, bx, by, px, py) {
-			return false
-		}
-		// Upward edge with p strictly left, or downward with p right:
-		// the half-open rule counts each crossing once.
-		if ay <= py && by > py && o == CCW {
-			in = !in
-		} else if ay > py && by <= py && o == CW {
-			in = !in
-		}
-	}
-	return in
 }
 
 // BuildInput builds the straight-line graph of a model whose region
@@ -496,7 +410,7 @@ func (g *graph) vertex(x, y float64) int32 {
 	for di := int64(-1); di <= 1; di++ {
 		for dj := int64(-1); dj <= 1; dj++ {
 			for _, v := range g.hash[[2]int64{c[0] + di, c[1] + dj}] {
-				if math.Hypot(g.x[v]-x, g.y[v]-y) <= g.tol {
+				if NearPoint(g.x[v], g.y[v], x, y, g.tol) {
 					return v
 				}
 			}
@@ -542,24 +456,12 @@ func (g *graph) split() error {
 					break
 				}
 				p, q, r, s := g.seg[2*i], g.seg[2*i+1], g.seg[2*j], g.seg[2*j+1]
-				o1 := Orient2D(g.x[p], g.y[p], g.x[q], g.y[q], g.x[r], g.y[r])
-				o2 := Orient2D(g.x[p], g.y[p], g.x[q], g.y[q], g.x[s], g.y[s])
-				if o1*o2 >= 0 {
-					continue
-				}
-				o3 := Orient2D(g.x[r], g.y[r], g.x[s], g.y[s], g.x[p], g.y[p])
-				o4 := Orient2D(g.x[r], g.y[r], g.x[s], g.y[s], g.x[q], g.y[q])
-				if o3*o4 >= 0 {
-					continue
-				}
-				// A proper crossing: compute the point on ab,
-				// t = ((c-a) x (d-c)) / ((b-a) x (d-c)).
 				ax, ay, bx, by := g.x[p], g.y[p], g.x[q], g.y[q]
 				cx, cy, dx, dy := g.x[r], g.y[r], g.x[s], g.y[s]
-				den := (bx-ax)*(dy-cy) - (by-ay)*(dx-cx)
-				t := ((cx-ax)*(dy-cy) - (cy-ay)*(dx-cx)) / den
-				t = math.Min(math.Max(t, 0), 1)
-				v := g.vertex(ax+t*(bx-ax), ay+t*(by-ay))
+				if !SegmentsCross(ax, ay, bx, by, cx, cy, dx, dy) {
+					continue
+				}
+				v := g.vertex(CrossingPoint(ax, ay, bx, by, cx, cy, dx, dy))
 				if v != p && v != q {
 					splits[i] = append(splits[i], v)
 				}
@@ -577,23 +479,23 @@ func (g *graph) split() error {
 		for i := 0; i < ns; i++ {
 			p, q := g.seg[2*i], g.seg[2*i+1]
 			ax, ay, bx, by := g.x[p], g.y[p], g.x[q], g.y[q]
-			x0, x1 := math.Min(ax, bx)-g.tol, math.Max(ax, bx)+g.tol
-			y0, y1 := math.Min(ay, by)-g.tol, math.Max(ay, by)+g.tol
+			// Candidates from the box grown by 2 tol (rounding the grown
+			// edge moves it by less than tol); NearSegment decides.
+			x0, x1 := math.Min(ax, bx)-2*g.tol, math.Max(ax, bx)+2*g.tol
+			y0, y1 := math.Min(ay, by)-2*g.tol, math.Max(ay, by)+2*g.tol
 			k := sort.Search(len(vo), func(k int) bool { return g.x[vo[k]] >= x0 })
-			l2 := (bx-ax)*(bx-ax) + (by-ay)*(by-ay)
 			for ; k < len(vo) && g.x[vo[k]] <= x1; k++ {
 				v := vo[k]
 				if v == p || v == q || g.y[v] < y0 || g.y[v] > y1 {
 					continue
 				}
+				// The foot of the perpendicular must lie strictly inside
+				// the segment (exact signs of (v-a)·(b-a) and (v-b)·(a-b)).
 				px, py := g.x[v], g.y[v]
-				t := ((px-ax)*(bx-ax) + (py-ay)*(by-ay)) / l2
-				if !(t > 0 && t < 1) {
+				if dotSign(ax, ay, px, py, bx, by) != CCW || dotSign(bx, by, px, py, ax, ay) != CCW {
 					continue
 				}
-				on := Orient2D(ax, ay, bx, by, px, py) == Collinear ||
-					math.Abs((bx-ax)*(py-ay)-(by-ay)*(px-ax)) <= g.tol*math.Sqrt(l2)
-				if on {
+				if NearSegment(px, py, ax, ay, bx, by, g.tol) {
 					splits[i] = append(splits[i], v)
 				}
 			}
@@ -649,7 +551,7 @@ func (g *graph) firstCrossing() (int, int) {
 			if p == r || p == s || q == r || q == s {
 				continue
 			}
-			if segmentsMeet(g.x[p], g.y[p], g.x[q], g.y[q], g.x[r], g.y[r], g.x[s], g.y[s]) {
+			if SegmentsNear(g.x[p], g.y[p], g.x[q], g.y[q], g.x[r], g.y[r], g.x[s], g.y[s], 0) {
 				return i, j
 			}
 		}
@@ -908,11 +810,7 @@ func (sg *segGrid) near(g *graph, x, y, r float64) bool {
 			c := j*sg.nx + i
 			for _, s := range sg.items[sg.start[c]:sg.start[c+1]] {
 				p, q := g.seg[2*s], g.seg[2*s+1]
-				ax, ay, bx, by := g.x[p], g.y[p], g.x[q], g.y[q]
-				ex, ey := bx-ax, by-ay
-				t := ((x-ax)*ex + (y-ay)*ey) / (ex*ex + ey*ey)
-				t = math.Min(math.Max(t, 0), 1)
-				if math.Hypot(ax+t*ex-x, ay+t*ey-y) <= r {
+				if NearSegment(x, y, g.x[p], g.y[p], g.x[q], g.y[q], r) {
 					return true
 				}
 			}

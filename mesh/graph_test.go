@@ -117,7 +117,7 @@ func TestBuildInputSharedEdge(t *testing.T) {
 		if s.Region == 20 {
 			p = b
 		}
-		if !inPolygon(p.X, p.Y, s.X, s.Y) {
+		if PointInPolygon(p.X, p.Y, s.X, s.Y, 0) != Inside {
 			t.Errorf("seed %+v not strictly inside its rectangle", s)
 		}
 	}
@@ -212,7 +212,7 @@ func TestDiscretizeCircle(t *testing.T) {
 		t.Fatal(err)
 	}
 	checkGraph(t, "disc", in)
-	if len(in.Seeds) != 1 || in.Seeds[0].Region != 5 || !inPolygon(x, y, in.Seeds[0].X, in.Seeds[0].Y) {
+	if len(in.Seeds) != 1 || in.Seeds[0].Region != 5 || PointInPolygon(x, y, in.Seeds[0].X, in.Seeds[0].Y, 0) != Inside {
 		t.Errorf("disc seeds %+v", in.Seeds)
 	}
 }
@@ -288,7 +288,7 @@ func TestBuildInputSeedInsideNonConvex(t *testing.T) {
 		if s.Region == 2 {
 			p = coil
 		}
-		if !inPolygon(p.X, p.Y, s.X, s.Y) {
+		if PointInPolygon(p.X, p.Y, s.X, s.Y, 0) != Inside {
 			t.Errorf("seed %+v not inside its polygon", s)
 		}
 	}
@@ -486,7 +486,7 @@ func TestBuildInputRandomOverlaps(t *testing.T) {
 					u := math.Min(math.Max(((x-p.X[e])*ex+(y-p.Y[e])*ey)/(ex*ex+ey*ey), 0), 1)
 					near = near || math.Hypot(p.X[e]+u*ex-x, p.Y[e]+u*ey-y) < 1e-6
 				}
-				if inPolygon(p.X, p.Y, x, y) {
+				if PointInPolygon(p.X, p.Y, x, y, 0) == Inside {
 					want = p.Region
 				}
 			}

@@ -24,7 +24,12 @@ package mesh
 // up to about 1e70 in magnitude and nonzero coordinate differences above
 // about 1e-60. Triangulate rejects larger coordinates.
 //
-// Every geometric decision in this package goes through this file.
+// NearPoint and NearSegment compare a distance with a resolution d exactly,
+// with a floating-point filter and the same expansions behind it.
+//
+// Every geometric decision in this package, and in the model validation of
+// package models, goes through this file (polygon.go composes these
+// predicates into the polygon checks).
 
 import (
 	"math"
@@ -267,21 +272,116 @@ func InCircleDet(ax, ay, bx, by, cx, cy, dx, dy float64) float64 {
 // degrees (Ruppert 1995, "encroachment"). The test is a dot product evaluated
 // exactly with expansions when the rounded value is too small to trust.
 func InDiametralCircle(ax, ay, bx, by, px, py float64) bool {
-	ux, uy := ax-px, ay-py
-	vx, vy := bx-px, by-py
-	d := float64(ux*vx) + float64(uy*vy)
-	perm := math.Abs(ux*vx) + math.Abs(uy*vy)
+	return dotSign(px, py, ax, ay, bx, by) < 0
+}
+
+// dotSign returns the sign of (p-v)·(q-v), exactly. The rounded dot product
+// of rounded differences has the error bound of orient2d (a sum of two
+// products instead of a difference), ccwErrBoundA times its permanent.
+func dotSign(vx, vy, px, py, qx, qy float64) Orientation {
+	ux, uy := px-vx, py-vy
+	wx, wy := qx-vx, qy-vy
+	d := float64(ux*wx) + float64(uy*wy)
+	perm := math.Abs(ux*wx) + math.Abs(uy*wy)
 	if bound := ccwErrBoundA * perm; d > bound || -d > bound {
-		return d < 0
+		return sign(d)
 	}
 	a := getArena()
 	defer putArena(a)
-	ue := a.diff(ax, px)
-	ve := a.diff(bx, px)
-	ue2 := a.diff(ay, py)
-	ve2 := a.diff(by, py)
-	s := a.sum(a.mul(ue, ve), a.mul(ue2, ve2))
-	return s[len(s)-1] < 0
+	s := a.sum(a.mul(a.diff(px, vx), a.diff(qx, vx)), a.mul(a.diff(py, vy), a.diff(qy, vy)))
+	return sign(s[len(s)-1])
+}
+
+// Distance predicates at a resolution d.
+//
+// A tolerance is a statement of intent ("closer than d counts as touching"),
+// not a remedy for rounding: NearPoint and NearSegment compare a distance
+// with d exactly, so the answer depends only on the inputs and d. Squares
+// keep them polynomial: |p-a|^2 <= d^2, and for the interior of a segment
+// ((b-a) x (p-a))^2 <= d^2 |b-a|^2, a degree-4 polynomial in coordinate
+// differences, in the range stated above for Orient2D (d itself above about
+// 1e-60, so that d^2 stays a normal number).
+
+// nearSlack is the relative error allowed for the rounded squares and
+// products in the distance filters: a few ε per operation, taken generously
+// (64ε); anything closer goes to the exact stage.
+const nearSlack = 64 * epsilon
+
+// NearPoint reports whether the distance between a and b is at most d
+// (d >= 0; d = 0 tests equality), deciding |b-a|^2 <= d^2 exactly.
+func NearPoint(ax, ay, bx, by, d float64) bool {
+	dx, dy := bx-ax, by-ay
+	s := dx*dx + dy*dy
+	dd := d * d
+	if bound := nearSlack * (s + dd); s-dd > bound {
+		return false
+	} else if dd-s > bound {
+		return true
+	}
+	a := getArena()
+	defer putArena(a)
+	ex, ey := a.diff(bx, ax), a.diff(by, ay)
+	return atMost(a, a.sum(a.mul(ex, ex), a.mul(ey, ey)), a.square(d))
+}
+
+// NearSegment reports whether the distance from p to the closed segment ab
+// is at most d (d >= 0; a == b is allowed and tests the point). With d = 0
+// it reports whether p lies on the segment. The decision is exact: the
+// closest point is a when (p-a)·(b-a) <= 0, b when (p-b)·(a-b) <= 0 (both
+// signs from exact dot products), else the foot of the perpendicular.
+func NearSegment(px, py, ax, ay, bx, by, d float64) bool {
+	// Cheap rejection outside the segment's box grown by 2d: rounding the
+	// grown edge moves it by at most d, so p is farther than d.
+	if px < math.Min(ax, bx)-2*d || px > math.Max(ax, bx)+2*d ||
+		py < math.Min(ay, by)-2*d || py > math.Max(ay, by)+2*d {
+		return false
+	}
+	if dotSign(ax, ay, px, py, bx, by) != CCW {
+		return NearPoint(px, py, ax, ay, d)
+	}
+	if dotSign(bx, by, px, py, ax, ay) != CCW {
+		return NearPoint(px, py, bx, by, d)
+	}
+	// The foot lies strictly inside ab: compare c^2 with d^2 l^2, where
+	// c = (a-p) x (b-p) is twice the area of (a, b, p) and l = |b-a|.
+	detLeft := (ax - px) * (by - py)
+	detRight := (ay - py) * (bx - px)
+	c := math.Abs(detLeft - detRight)
+	errc := ccwErrBoundA * (math.Abs(detLeft) + math.Abs(detRight))
+	ux, uy := bx-ax, by-ay
+	r := d * d * (ux*ux + uy*uy)
+	if lo := c - errc; lo > 0 && lo*lo > r*(1+nearSlack) {
+		return false
+	}
+	if hi := c + errc; hi*hi*(1+nearSlack) < r {
+		return true
+	}
+	a := getArena()
+	defer putArena(a)
+	cross := a.sum(a.mul(a.diff(ax, px), a.diff(by, py)), negate(a.mul(a.diff(ay, py), a.diff(bx, px))))
+	ex, ey := a.diff(bx, ax), a.diff(by, ay)
+	l2 := a.sum(a.mul(ex, ex), a.mul(ey, ey))
+	return atMost(a, a.mul(cross, cross), a.mul(l2, a.square(d)))
+}
+
+// square returns d*d exactly (Two-Product) as an expansion.
+func (ar *arena) square(d float64) []float64 {
+	x, y := twoProduct(d, d)
+	h := ar.get(2)
+	if y != 0 {
+		h = append(h, y)
+	}
+	return append(h, x)
+}
+
+// atMost reports whether the expansion e is at most the expansion f.
+func atMost(ar *arena, e, f []float64) bool {
+	g := ar.get(len(f))
+	for _, v := range f {
+		g = append(g, -v)
+	}
+	s := ar.sum(e, g)
+	return s[len(s)-1] <= 0
 }
 
 func sign(x float64) Orientation {

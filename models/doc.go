@@ -60,9 +60,21 @@
 // REFERENCE.md documents every key of the file, with its units, default and
 // allowed values. Top level: name, description, geometry, units, depth,
 // template, dimensions, materials, regions, coils, boundary, mesh, probes,
-// target. Geometry validation uses plain floating point with a tolerance of
-// 1e-9 times the model's largest coordinate; the mesher decides the fine
-// cases again with robust predicates.
+// target.
+//
+// # Geometry
+//
+// Validation decides every geometric question (repeated vertices, zero
+// area, self-intersection, overlap, inside or on an edge) with package
+// mesh's exact predicates, at a resolution of 1e-9 times the model's
+// largest coordinate: features closer than that count as touching. The
+// rules are mesh's own (mesh.ZeroArea, mesh.SelfIntersection,
+// mesh.PolygonsOverlap), so mesh.BuildInput with MergeTol equal to that
+// resolution accepts the straight-edged models Parse accepts and refuses
+// the others (TestValidationAgreesWithMesh checks this on near-degenerate
+// cases at scales 1e-9 to 1e9 m; arcs are validated on 5° chords and meshed
+// on the mesher's). Beyond the mesher, Parse refuses repeated consecutive
+// vertices, which BuildInput would drop.
 //
 // # Panics
 //

@@ -3,11 +3,15 @@ package models
 import (
 	"math"
 	"sort"
+
+	"polegap/mesh"
 )
 
-// Plain floating-point geometry with a relative tolerance: enough to reject
-// bad input. The mesher repeats the decisions that matter with robust
-// predicates (Shewchuk 1997).
+// Region outlines and the geometric checks of validation. Every decision
+// (touching, crossing, inside, zero area) is made by package mesh's exact
+// predicates at the resolution tol of the model (see validate.go), under the
+// same rules mesh.BuildInput applies at its MergeTol; this file only builds
+// outlines, picks sample points and computes where to report a problem.
 
 // arcStep is the largest angle one chord of an arc spans in outlines used for
 // validation (5°).
@@ -123,118 +127,39 @@ func (r *Region) reverse() {
 	}
 }
 
-// orient returns the cross product (b-a)×(c-a).
-func orient(ax, ay, bx, by, cx, cy float64) float64 {
-	return (bx-ax)*(cy-ay) - (by-ay)*(cx-ax)
+// clearCross reports whether segments a-b and c-d cross at a single point
+// interior to both with every end farther than tol from the other segment:
+// a crossing that is not a touch at resolution tol.
+func clearCross(ax, ay, bx, by, cx, cy, dx, dy, tol float64) bool {
+	return mesh.SegmentsCross(ax, ay, bx, by, cx, cy, dx, dy) &&
+		!mesh.NearSegment(cx, cy, ax, ay, bx, by, tol) && !mesh.NearSegment(dx, dy, ax, ay, bx, by, tol) &&
+		!mesh.NearSegment(ax, ay, cx, cy, dx, dy, tol) && !mesh.NearSegment(bx, by, cx, cy, dx, dy, tol)
 }
 
-// segDist returns the distance from (px, py) to segment a-b.
-func segDist(px, py, ax, ay, bx, by float64) float64 {
-	dx, dy := bx-ax, by-ay
-	l2 := dx*dx + dy*dy
-	t := 0.0
-	if l2 > 0 {
-		t = ((px-ax)*dx + (py-ay)*dy) / l2
-		t = math.Max(0, math.Min(1, t))
-	}
-	return math.Hypot(px-ax-t*dx, py-ay-t*dy)
-}
-
-// properCross reports whether segments a-b and c-d cross at a single point
-// interior to both, each endpoint clearly (more than tol) off the other line.
-func properCross(ax, ay, bx, by, cx, cy, dx, dy, tol float64) bool {
-	lab := math.Hypot(bx-ax, by-ay)
-	lcd := math.Hypot(dx-cx, dy-cy)
-	o1 := orient(ax, ay, bx, by, cx, cy)
-	o2 := orient(ax, ay, bx, by, dx, dy)
-	o3 := orient(cx, cy, dx, dy, ax, ay)
-	o4 := orient(cx, cy, dx, dy, bx, by)
-	if math.Abs(o1) <= tol*lab || math.Abs(o2) <= tol*lab || math.Abs(o3) <= tol*lcd || math.Abs(o4) <= tol*lcd {
-		return false
-	}
-	return (o1 > 0) != (o2 > 0) && (o3 > 0) != (o4 > 0)
-}
-
-// segsTouch reports whether segments a-b and c-d share any point (within tol).
-func segsTouch(ax, ay, bx, by, cx, cy, dx, dy, tol float64) bool {
-	if properCross(ax, ay, bx, by, cx, cy, dx, dy, tol) {
-		return true
-	}
-	return segDist(cx, cy, ax, ay, bx, by) <= tol || segDist(dx, dy, ax, ay, bx, by) <= tol ||
-		segDist(ax, ay, cx, cy, dx, dy) <= tol || segDist(bx, by, cx, cy, dx, dy) <= tol
-}
-
-// inside classifies a point against a closed polyline: +1 strictly inside,
-// 0 on the boundary (within tol), -1 outside.
-func inside(x, y float64, px, py []float64, tol float64) int {
-	n := len(px)
-	in := false
-	for i := 0; i < n; i++ {
-		j := (i + 1) % n
-		if x >= math.Min(px[i], px[j])-tol && x <= math.Max(px[i], px[j])+tol &&
-			y >= math.Min(py[i], py[j])-tol && y <= math.Max(py[i], py[j])+tol &&
-			segDist(x, y, px[i], py[i], px[j], py[j]) <= tol {
-			return 0
-		}
-		if (py[i] > y) != (py[j] > y) {
-			xc := px[i] + (y-py[i])/(py[j]-py[i])*(px[j]-px[i])
-			if x < xc {
-				in = !in
-			}
-		}
-	}
-	if in {
-		return 1
-	}
-	return -1
-}
-
-// selfIntersection looks for two edges of the region that touch other than
-// where consecutive edges meet. It returns the two edge indices (the pair
-// with the smallest indices when there are several), the approximate
-// meeting point and ok = true when it finds one. Candidate pairs come from a
-// sweep over the segments' x-extents, so typical polygons cost O(n log n).
+// selfIntersection looks for two edges of the region's outline that come
+// within tol of each other other than where consecutive edges meet
+// (mesh.SelfIntersection, the rule BuildInput applies). It returns the two
+// region edges they belong to (the outline pair with the smallest indices
+// when there are several), the approximate meeting point and ok = true when
+// it finds one.
 func (r *Region) selfIntersection(tol float64) (e1, e2 int, x, y float64, ok bool) {
 	px, py, edge := r.outlineEdges(0)
-	n := len(px)
-	for i := 0; i < n && n > 2; i++ {
-		// Consecutive segments must not fold back onto each other.
-		i1, i2 := (i+1)%n, (i+2)%n
-		ax, ay := px[i1]-px[i], py[i1]-py[i]
-		bx, by := px[i2]-px[i1], py[i2]-py[i1]
-		cr := ax*by - ay*bx
-		if ax*bx+ay*by < 0 && math.Abs(cr) <= 1e-9*math.Hypot(ax, ay)*math.Hypot(bx, by) {
-			return edge[i], edge[i1], px[i1], py[i1], true
-		}
-	}
-	best := [2]int{-1, -1}
-	segmentPairs(px, py, nil, tol, func(i, j int) {
-		if j == i+1 || (i == 0 && j == n-1) {
-			return // adjacent segments share a vertex
-		}
-		if best[0] >= 0 && (i > best[0] || (i == best[0] && j > best[1])) {
-			return
-		}
-		i1, j1 := (i+1)%n, (j+1)%n
-		if segsTouch(px[i], py[i], px[i1], py[i1], px[j], py[j], px[j1], py[j1], tol) {
-			best = [2]int{i, j}
-		}
-	})
-	if best[0] < 0 {
+	i, j, ok := mesh.SelfIntersection(px, py, tol)
+	if !ok {
 		return 0, 0, 0, 0, false
 	}
-	i, j := best[0], best[1]
-	mx, my := crossPoint(px[i], py[i], px[(i+1)%n], py[(i+1)%n], px[j], py[j], px[(j+1)%n], py[(j+1)%n])
-	return edge[i], edge[j], mx, my, true
+	n := len(px)
+	x, y = mesh.CrossingPoint(px[i], py[i], px[(i+1)%n], py[(i+1)%n], px[j], py[j], px[(j+1)%n], py[(j+1)%n])
+	return edge[i], edge[j], x, y, true
 }
 
 // segmentPairs calls fn(i, j), i < j, for every pair of segments of the
-// closed polylines whose bounding boxes, grown by tol, overlap. Segment k
+// closed polylines whose bounding boxes overlap or touch. Segment k
 // runs from point k to point k+1 of its polyline; owner, when not nil, gives
 // each point's polyline (a point and its successor share an owner) and the
 // closing segment of polyline o runs from its last point back to its first.
 // Pairs are found by sorting on x and sweeping (sweep and prune).
-func segmentPairs(px, py []float64, owner []int, tol float64, fn func(i, j int)) {
+func segmentPairs(px, py []float64, owner []int, fn func(i, j int)) {
 	n := len(px)
 	next := make([]int, n)
 	for k := range next {
@@ -255,8 +180,8 @@ func segmentPairs(px, py []float64, owner []int, tol float64, fn func(i, j int))
 	boxes := make([]box, n)
 	for k := 0; k < n; k++ {
 		q := next[k]
-		boxes[k] = box{math.Min(px[k], px[q]) - tol, math.Max(px[k], px[q]) + tol,
-			math.Min(py[k], py[q]) - tol, math.Max(py[k], py[q]) + tol, k}
+		boxes[k] = box{math.Min(px[k], px[q]), math.Max(px[k], px[q]),
+			math.Min(py[k], py[q]), math.Max(py[k], py[q]), k}
 	}
 	sort.Slice(boxes, func(a, b int) bool { return boxes[a].x0 < boxes[b].x0 })
 	var active []box
@@ -277,24 +202,19 @@ func segmentPairs(px, py []float64, owner []int, tol float64, fn func(i, j int))
 	}
 }
 
-// crossPoint returns the intersection of lines a-b and c-d, or the midpoint
-// of the closest endpoints when they are parallel.
-func crossPoint(ax, ay, bx, by, cx, cy, dx, dy float64) (x, y float64) {
-	den := (bx-ax)*(dy-cy) - (by-ay)*(dx-cx)
-	if den == 0 {
-		return (bx + cx) / 2, (by + cy) / 2
-	}
-	t := ((cx-ax)*(dy-cy) - (cy-ay)*(dx-cx)) / den
-	t = math.Max(0, math.Min(1, t))
-	return ax + t*(bx-ax), ay + t*(by-ay)
-}
-
-// overlap reports whether the interiors of regions a and b share area, and a
-// point in the shared part. Touching and shared edges are not an overlap.
+// overlap reports whether the interiors of regions a and b share area at
+// resolution tol, and a point in the shared part; a and b must have passed
+// checkPolygon. Touching and shared edges are not an overlap, nor is a
+// crossing with an end within tol of the other edge (the mesher snaps that
+// end onto the edge). The point comes from the first of: a clear crossing
+// of two edges, a sample point of one region's interior (see interiorIn)
+// inside the other and farther than tol from its boundary, or else the
+// mesher's rule (mesh.PolygonsOverlap), which decides the remaining cases
+// exactly as BuildInput does; each of the first two implies the third.
 func overlap(a, b *Region, tol float64) (x, y float64, ok bool) {
 	ax0, ay0, ax1, ay1 := a.exactBounds()
 	bx0, by0, bx1, by1 := b.exactBounds()
-	if ax1 <= bx0+tol || bx1 <= ax0+tol || ay1 <= by0+tol || by1 <= ay0+tol {
+	if ax1 < bx0 || bx1 < ax0 || ay1 < by0 || by1 < ay0 {
 		return 0, 0, false
 	}
 	apx, apy := a.outline(0)
@@ -314,7 +234,7 @@ func overlap(a, b *Region, tol float64) (x, y float64, ok bool) {
 	}
 	// Report the crossing with the smallest edge indices, for stable messages.
 	best := [2]int{-1, -1}
-	segmentPairs(px, py, owner, tol, func(i, j int) {
+	segmentPairs(px, py, owner, func(i, j int) {
 		if owner[i] == owner[j] {
 			return // i < j, so i is on a and j on b below
 		}
@@ -322,27 +242,34 @@ func overlap(a, b *Region, tol float64) (x, y float64, ok bool) {
 			return
 		}
 		i1, j1 := nxt(i), nxt(j)
-		if properCross(px[i], py[i], px[i1], py[i1], px[j], py[j], px[j1], py[j1], tol) {
+		if clearCross(px[i], py[i], px[i1], py[i1], px[j], py[j], px[j1], py[j1], tol) {
 			best = [2]int{i, j}
 		}
 	})
 	if i, j := best[0], best[1]; i >= 0 {
-		x, y = crossPoint(px[i], py[i], px[nxt(i)], py[nxt(i)], px[j], py[j], px[nxt(j)], py[nxt(j)])
+		x, y = mesh.CrossingPoint(px[i], py[i], px[nxt(i)], py[nxt(i)], px[j], py[j], px[nxt(j)], py[nxt(j)])
 		return x, y, true
 	}
 	if x, y, ok := interiorIn(apx, apy, bpx, bpy, tol); ok {
 		return x, y, true
 	}
-	return interiorIn(bpx, bpy, apx, apy, tol)
+	if x, y, ok := interiorIn(bpx, bpy, apx, apy, tol); ok {
+		return x, y, true
+	}
+	// Overlaps the samples miss (thin ones along shared edges): the
+	// mesher's own rule, on the same outlines at the same resolution.
+	return mesh.PolygonsOverlap(apx, apy, bpx, bpy, tol)
 }
 
 // interiorIn tests sample points of polygon p's interior (its vertices, and
-// points just inside the midpoint of each edge) against polygon q.
+// points 1e3 tol inside the midpoint of each edge) against polygon q: a
+// point that lies inside q farther than tol from its boundary (and, for the
+// edge samples, inside p in the same sense) is in both interiors.
 func interiorIn(px, py, qx, qy []float64, tol float64) (x, y float64, ok bool) {
 	n := len(px)
 	eps := 1e3 * tol
 	for i := 0; i < n; i++ {
-		if inside(px[i], py[i], qx, qy, tol) > 0 {
+		if mesh.PointInPolygon(qx, qy, px[i], py[i], tol) == mesh.Inside {
 			return px[i], py[i], true
 		}
 		j := (i + 1) % n
@@ -353,7 +280,7 @@ func interiorIn(px, py, qx, qy []float64, tol float64) (x, y float64, ok bool) {
 		}
 		// p is counter-clockwise, so its inside is to the left.
 		mx, my := (px[i]+px[j])/2-eps*dy/l, (py[i]+py[j])/2+eps*dx/l
-		if inside(mx, my, px, py, tol) > 0 && inside(mx, my, qx, qy, tol) > 0 {
+		if mesh.PointInPolygon(px, py, mx, my, tol) == mesh.Inside && mesh.PointInPolygon(qx, qy, mx, my, tol) == mesh.Inside {
 			return mx, my, true
 		}
 	}

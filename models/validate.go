@@ -2,6 +2,8 @@ package models
 
 import (
 	"math"
+
+	"polegap/mesh"
 )
 
 // Defaults filled in on load.
@@ -14,9 +16,39 @@ const (
 	DefaultChordDivisor = 20 // chord = mesh size / 20
 )
 
-// relTol is the relative tolerance of validation geometry: lengths below
-// relTol times the model's largest dimension count as zero.
+// relTol is the relative resolution of validation geometry: lengths up to
+// relTol times the model's largest coordinate count as zero (see
+// resolution).
 const relTol = 1e-9
+
+// resolution returns the length, in metres, below which validation treats
+// two features as touching: relTol times the largest coordinate magnitude
+// of the regions. It is a statement of intent, not a rounding guard; the
+// decisions themselves are exact (package mesh's predicates):
+//
+//   - consecutive vertices at most this far apart repeat each other
+//     (mesh.NearPoint);
+//   - a region whose area is at most this times its perimeter has zero area
+//     (mesh.ZeroArea);
+//   - edges of one region this close meet: a self-intersection
+//     (mesh.SelfIntersection);
+//   - an edge crossing another region's edge with an end this close to it
+//     touches rather than overlaps, and a point this close to an edge is on
+//     it (mesh.NearSegment, mesh.PointInPolygon).
+//
+// mesh.BuildInput applies the same rules at GraphOptions.MergeTol, so with
+// MergeTol = resolution the two accept the same straight-edged regions
+// (arcs are checked here on 5° chords and meshed on the mesher's chords).
+func resolution(m *Model) float64 {
+	size := 0.0
+	for i := range m.Regions {
+		r := &m.Regions[i]
+		for k := range r.X {
+			size = math.Max(size, math.Max(math.Abs(r.X[k]), math.Abs(r.Y[k])))
+		}
+	}
+	return relTol * size
+}
 
 // validate checks cross-references and geometry once everything is decoded.
 func (d *decoder) validate(m *Model) {
@@ -46,15 +78,8 @@ func (d *decoder) validate(m *Model) {
 		}
 	}
 
-	// Polygons one by one, at a tolerance relative to the whole model.
-	size := 0.0
-	for i := range m.Regions {
-		r := &m.Regions[i]
-		for k := range r.X {
-			size = math.Max(size, math.Max(math.Abs(r.X[k]), math.Abs(r.Y[k])))
-		}
-	}
-	tol := relTol * size
+	// Polygons one by one, at a resolution relative to the whole model.
+	tol := resolution(m)
 	valid := make([]bool, len(m.Regions))
 	for i := range m.Regions {
 		valid[i] = d.checkPolygon(m, &m.Regions[i], tol)
@@ -169,7 +194,7 @@ func (d *decoder) checkPolygon(m *Model, r *Region, tol float64) bool {
 	good := true
 	for i := 0; i < n; i++ {
 		j := (i + 1) % n
-		if math.Hypot(r.X[j]-r.X[i], r.Y[j]-r.Y[i]) <= tol {
+		if mesh.NearPoint(r.X[i], r.Y[i], r.X[j], r.Y[j], tol) {
 			if j == 0 {
 				d.failAt(r.VertexPos(i), "the last vertex repeats the first; polygons close by themselves, remove it")
 			} else {
@@ -181,8 +206,8 @@ func (d *decoder) checkPolygon(m *Model, r *Region, tol float64) bool {
 	if !good {
 		return false
 	}
-	area := r.Area()
-	flat := math.Abs(area) <= tol*math.Sqrt(size2(r))
+	px, py := r.outline(0)
+	flat := mesh.ZeroArea(px, py, tol)
 	if flat && collinear(r, tol) {
 		d.failAt(Pos{r.Pos.Line, r.Pos.Column, ppath}, "open or degenerate polygon: region %q has zero area (are all vertices on one line?)", r.Name)
 		return false
@@ -196,7 +221,7 @@ func (d *decoder) checkPolygon(m *Model, r *Region, tol float64) bool {
 		d.failAt(Pos{r.Pos.Line, r.Pos.Column, ppath}, "open or degenerate polygon: region %q has zero area", r.Name)
 		return false
 	}
-	if area < 0 {
+	if r.Area() < 0 { // not flat, so the sign is clear
 		r.reverse()
 	}
 	if m.Geometry == Axisymmetric {
@@ -210,35 +235,33 @@ func (d *decoder) checkPolygon(m *Model, r *Region, tol float64) bool {
 	return true
 }
 
-// collinear reports whether a straight-edged region's vertices all lie on
-// one line.
+// collinear reports whether a straight-edged region's vertices all lie
+// within tol of one segment: the one from the vertex farthest from vertex 0
+// to the vertex farthest from that (the ends of the line when the vertices
+// are on one). It only chooses the wording of a zero-area message.
 func collinear(r *Region, tol float64) bool {
 	for _, s := range r.Sweep {
 		if s != 0 {
 			return false
 		}
 	}
-	// The line through vertex 0 and the vertex farthest from it.
-	far, fd := 0, 0.0
-	for i := range r.X {
-		if d := math.Hypot(r.X[i]-r.X[0], r.Y[i]-r.Y[0]); d > fd {
-			far, fd = i, d
+	farthest := func(k int) int {
+		far, fd := k, 0.0
+		for i := range r.X {
+			if d := math.Hypot(r.X[i]-r.X[k], r.Y[i]-r.Y[k]); d > fd {
+				far, fd = i, d
+			}
 		}
+		return far
 	}
+	a := farthest(0)
+	b := farthest(a)
 	for i := range r.X {
-		if segDist(r.X[i], r.Y[i], r.X[0], r.Y[0], r.X[far], r.Y[far]) > tol &&
-			math.Abs(orient(r.X[0], r.Y[0], r.X[far], r.Y[far], r.X[i], r.Y[i])) > tol*fd {
+		if !mesh.NearSegment(r.X[i], r.Y[i], r.X[a], r.Y[a], r.X[b], r.Y[b], tol) {
 			return false
 		}
 	}
 	return true
-}
-
-// size2 is the squared largest dimension of a region's bounding box.
-func size2(r *Region) float64 {
-	x0, y0, x1, y1 := r.exactBounds()
-	s := math.Max(x1-x0, y1-y0)
-	return s * s
 }
 
 // defaults fills the documented defaults into a decoded model.
