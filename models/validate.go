@@ -39,7 +39,14 @@ const relTol = 1e-9
 // mesh.BuildInput applies the same rules at GraphOptions.MergeTol, so with
 // MergeTol = resolution the two accept the same straight-edged regions
 // (arcs are checked here on 5° chords and meshed on the mesher's chords).
-func resolution(m *Model) float64 {
+func resolution(m *Model) float64 { return m.Resolution() }
+
+// Resolution returns the length (m) below which the model's geometry
+// treats two features as touching: 1e-9 times the largest coordinate
+// magnitude of its regions (see resolution for the rules). The mesher
+// is given the same value as its merge tolerance, so that the model
+// file's checks and the mesher accept the same regions.
+func (m *Model) Resolution() float64 {
 	size := 0.0
 	for i := range m.Regions {
 		r := &m.Regions[i]

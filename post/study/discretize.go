@@ -156,7 +156,7 @@ func discretize(m, outer *models.Model, size func(x, y float64, region int32) fl
 	if err := checkProbes(m, outer, d.Boundary); err != nil {
 		return nil, err
 	}
-	gopt := mesh.GraphOptions{ChordTol: m.Mesh.Chord}
+	gopt := mesh.GraphOptions{ChordTol: m.Mesh.Chord, MergeTol: m.Resolution()}
 	d.Input, err = mesh.BuildInput(Polygons(m), d.Boundary, gopt)
 	if err != nil {
 		return nil, d.locate(err)
