@@ -1,6 +1,7 @@
 package solver
 
 import (
+	"context"
 	"errors"
 	"math"
 	"strings"
@@ -308,5 +309,32 @@ func checkHistory(t *testing.T, name string, nc *NotConvergedError) {
 			}
 			t.Errorf("%s: history[%d] = %g", name, i, r)
 		}
+	}
+}
+
+// TestFaultCancelled: a context cancelled after the second Newton step
+// stops the solve before the third, with a *NotConvergedError that wraps
+// context.Canceled, carries the history of the two steps and returns no
+// solution; a context cancelled before the start stops it with no step.
+func TestFaultCancelled(t *testing.T) {
+	p := faultRing(saturating{1000, 1.5}, 6000)
+	ctx, cancel := context.WithCancel(context.Background())
+	opt := Options{Context: ctx, Progress: func(it int, _ float64) {
+		if it == 2 {
+			cancel()
+		}
+	}}
+	s, err := Solve(p, opt)
+	var nc *NotConvergedError
+	if !errors.As(err, &nc) || s != nil || !errors.Is(err, context.Canceled) {
+		t.Fatalf("solution %v, error %v (%T); want a *NotConvergedError wrapping context.Canceled", s != nil, err, err)
+	}
+	checkHistory(t, "cancelled", nc)
+	if nc.Iterations != 2 || len(nc.History) != 3 {
+		t.Errorf("stopped after %d steps with %d history entries, want 2 and 3", nc.Iterations, len(nc.History))
+	}
+	s, err = Solve(p, Options{Context: ctx})
+	if !errors.As(err, &nc) || s != nil || nc.Iterations != 0 || !errors.Is(err, context.Canceled) {
+		t.Errorf("a cancelled context: solution %v, error %v", s != nil, err)
 	}
 }

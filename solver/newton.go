@@ -191,6 +191,12 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 		return false, nil
 	}
 	for it := 1; it <= opt.MaxIter; it++ {
+		if opt.Context != nil {
+			if err := opt.Context.Err(); err != nil {
+				return &NotConvergedError{Iterations: it - 1, History: s.History, Residual: res, HasUpdate: hasUpd, Update: upd,
+					Reason: "stopped: " + err.Error(), Err: err}
+			}
+		}
 		ok := false
 		err := direction()
 		if err == nil {

@@ -1,6 +1,7 @@
 package solver
 
 import (
+	"context"
 	"runtime"
 
 	"polegap/solver/sparse"
@@ -44,6 +45,12 @@ type Options struct {
 	// Workers is the number of goroutines used for assembly and for the
 	// Cholesky factorization; 0 means GOMAXPROCS.
 	Workers int
+	// Context, when not nil, is checked before each Newton step: once it
+	// is done the solve stops with a *NotConvergedError that wraps the
+	// context's error (errors.Is(err, context.Canceled) holds) and
+	// carries the residual history so far. A Ctrl-C thus ends a long
+	// nonlinear solve within one step.
+	Context context.Context
 	// Progress, when not nil, is called after each Newton step with the
 	// step number (from 1) and the relative residual reached; it must not
 	// modify the problem.

@@ -61,12 +61,16 @@ func oneModel(args []string) error {
 	return usagef("too many arguments: %q", args[1:])
 }
 
-// runStudy meshes, solves and probes m (study.Run). study.Run takes no
-// context, so a Ctrl-C during it takes effect when it returns: the
-// command then stops before it prints or writes anything.
+// runStudy meshes, solves and probes m (study.Run). A Ctrl-C stops the
+// Newton solve before its next step (solver.Options.Context); one during
+// meshing takes effect when meshing returns. The command then stops
+// before it prints or writes anything.
 func runStudy(ctx context.Context, m *models.Model, opt study.Options) (*study.Result, error) {
 	if err := ctx.Err(); err != nil {
 		return nil, err
+	}
+	if opt.Solver.Context == nil {
+		opt.Solver.Context = ctx
 	}
 	s, err := study.Run(m, opt)
 	if err != nil {

@@ -131,9 +131,9 @@ func run(args []string, stdout, stderr io.Writer) int {
 		}()
 		env.Ctx = ctx
 		err = action(env, pos)
-		if err == context.Canceled {
-			err = errInterrupted // a bare ctx.Err(); wrapped ones say more
-		} else if xe, ok := err.(exitError); ok && xe.err == context.Canceled {
+		if err == context.Canceled || stoppedSolve(err) {
+			err = errInterrupted // a bare ctx.Err() or a solve stopped by it; other wrapped ones say more
+		} else if xe, ok := err.(exitError); ok && (xe.err == context.Canceled || stoppedSolve(xe.err)) {
 			err = exitError{xe.code, errInterrupted}
 		}
 	}
@@ -291,4 +291,11 @@ func printHelp(w io.Writer, c *Command) {
 		}
 		fmt.Fprintf(w, "  --%-12s %s%s\n", n, f.Usage, def)
 	}
+}
+
+// stoppedSolve reports whether err is a Newton solve stopped by Ctrl-C
+// (a *solver.NotConvergedError wrapping context.Canceled).
+func stoppedSolve(err error) bool {
+	var nc *solver.NotConvergedError
+	return errors.As(err, &nc) && errors.Is(nc.Err, context.Canceled)
 }

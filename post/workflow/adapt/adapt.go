@@ -115,7 +115,11 @@ func Run(ctx context.Context, m *models.Model, opt Options) (*Result, error) {
 		if len(res.Rounds) > 0 && d.Mesh.NumNodes() > opt.MaxNodes {
 			return res, nil
 		}
-		s, err := cur.SolveAt(opt.Study.Params, opt.Study.Solver)
+		so := opt.Study.Solver
+		if so.Context == nil {
+			so.Context = ctx
+		}
+		s, err := cur.SolveAt(opt.Study.Params, so)
 		if err != nil {
 			return res, err
 		}

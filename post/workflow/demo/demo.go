@@ -11,6 +11,7 @@ import (
 	"polegap/post/workflow/design"
 	"polegap/post/workflow/sweep"
 	"polegap/post/workflow/target"
+	"polegap/solver"
 )
 
 // RunOptions control a full design run.
@@ -44,7 +45,7 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 		}
 	}
 	say("solving")
-	s, err := study.Run(m, study.Options{})
+	s, err := study.Run(m, study.Options{Solver: solver.Options{Context: ctx}})
 	if err != nil {
 		return nil, err
 	}

@@ -2,6 +2,7 @@ package sweep
 
 import (
 	"context"
+	"errors"
 	"fmt"
 	"math"
 
@@ -133,6 +134,9 @@ func NewRunnerOn(ctx context.Context, s *study.Study, base study.Params, coil, p
 	}
 	if err := ctx.Err(); err != nil {
 		return nil, err
+	}
+	if opt.Context == nil {
+		opt.Context = ctx
 	}
 	res, err := s.SolveAt(base, opt)
 	if err != nil {
@@ -363,8 +367,15 @@ func (r *Runner) Sweep(ctx context.Context, opt Options) ([]Point, error) {
 		if err := ctx.Err(); err != nil {
 			return pts, &InterruptedError{Done: n, Total: len(idx), Err: err}
 		}
-		p, err := r.Solve(opt.Currents[i], opt.Solver)
+		so := opt.Solver
+		if so.Context == nil {
+			so.Context = ctx
+		}
+		p, err := r.Solve(opt.Currents[i], so)
 		if err != nil {
+			if ce := ctx.Err(); ce != nil && errors.Is(err, ce) {
+				return pts, &InterruptedError{Done: n, Total: len(idx), Err: ce}
+			}
 			return pts, &PointError{Index: i, Current: opt.Currents[i], Err: err}
 		}
 		p.Index = i

@@ -171,3 +171,25 @@ func TestPredict(t *testing.T) {
 	r = &Runner{recent: []solved{{3, path(3)}, {2.9, path(2.9)}}}
 	check("long step", r.predict(4), []float64{path(3)[0] * 4 / 3, path(3)[1] * 4 / 3, path(3)[2] * 4 / 3})
 }
+
+// TestInterruptedMidSolve: a cancel during the Newton steps of the
+// second point (saturating steel) stops that solve within a step and
+// the sweep returns the first point with an *InterruptedError, not a
+// failed point.
+func TestInterruptedMidSolve(t *testing.T) {
+	m := smallCore(t, "{curve: low-carbon-steel}")
+	ctx, cancel := context.WithCancel(context.Background())
+	done := 0
+	opt := Options{Currents: []float64{100, 400, 800},
+		Progress: func(d, _ int, _ Point) { done = d }}
+	opt.Solver.Progress = func(it int, _ float64) {
+		if done == 1 && it == 1 {
+			cancel()
+		}
+	}
+	pts, err := Run(ctx, m, opt)
+	var ie *InterruptedError
+	if !errors.As(err, &ie) || len(pts) != 1 || ie.Done != 1 || !errors.Is(err, context.Canceled) {
+		t.Fatalf("err %v (%T), %d points; want an *InterruptedError after 1 point", err, err, len(pts))
+	}
+}

@@ -82,7 +82,11 @@ func Search(ctx context.Context, r *sweep.Runner, target float64, opt Options) (
 		if len(res.Solves) >= opt.MaxSolves {
 			return sweep.Point{}, fmt.Errorf("no answer within %d solves", opt.MaxSolves)
 		}
-		p, err := r.Solve(current, opt.Solver)
+		so := opt.Solver
+		if so.Context == nil {
+			so.Context = ctx
+		}
+		p, err := r.Solve(current, so)
 		if err != nil {
 			return p, err
 		}
