@@ -44,7 +44,7 @@
 //
 // VirtualWork moves the named regions of the model by ±δ, meshes and
 // solves each position and returns (W'(+δ) − W'(−δ)) / (2δ), W' the
-// co-energy of post/circuit (the force at constant current). The central
+// co-energy of post/study (the force at constant current). The central
 // difference has an error O(δ²); re-meshing adds a noise of the order of
 // the discretisation error of W' divided by 2δ, so δ should be small
 // against the part but not tiny against the elements (a few per cent of

@@ -138,7 +138,7 @@ mesh:
 // Griffiths 2013, problem 8.4), with B = μ0 N I/(2g) from the ideal
 // circuit of two gaps in series. Fringing adds to the force: with the
 // fringing permeance (μ0/π) ln(1 + π h/g) per gap edge (Roters,
-// Electromagnetic Devices, 1941, quoted from memory, as in post/circuit),
+// Electromagnetic Devices, 1941, quoted from memory, as in post/quantity/circuit),
 // dP/dg grows by the factor 1 + (2/π) g/w, 1.6 % for g = 0.5 mm and
 // w = 40 mm. The test accepts 0 % to 3 % above the ideal force, and
 // checks the virtual work on the same keeper agrees with the stress.
