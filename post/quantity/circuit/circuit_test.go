@@ -52,6 +52,14 @@ func TestLinearIdentities(t *testing.T) {
 	if e := relErr(inc[0], L); e > 1e-6 {
 		t.Errorf("incremental %.9g H, apparent %.9g H", inc[0], L)
 	}
+	// The same on the compiled study (its numbering and ordering reused).
+	at, err := circuit.IncrementalAt(s, 0, circuit.IncrementalOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if e := relErr(at[0], L); e > 1e-6 {
+		t.Errorf("incremental on the study %.9g H, apparent %.9g H", at[0], L)
+	}
 }
 
 // TestIdealGap compares the inductance of a frame of nearly ideal iron

@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"polegap/internal/num"
+	"polegap/post/study"
 	"polegap/solver"
 )
 
@@ -68,6 +69,61 @@ func Incremental(sol *solver.Solution, coils []Coil, j int, opt IncrementalOptio
 			return nil, &PerturbError{Coil: c.Name, Current: c.Current + sign*dI, Err: err}
 		}
 		if lam[k], err = LinkagesTo(nil, ps, coils); err != nil {
+			return nil, err
+		}
+	}
+	out := make([]float64, len(coils))
+	for i := range out {
+		out[i] = (lam[0][i] - lam[1][i]) / (2 * dI)
+		if !num.Finite(out[i]) {
+			return nil, &NotFiniteError{Quantity: "incremental inductance", Value: out[i]}
+		}
+	}
+	return out, nil
+}
+
+// IncrementalAt is Incremental on a solved study: the two perturbation
+// solves run on the result's compiled study (study.Study.SolveAt) with
+// coil j's current changed by ±h·I_j and every other parameter as
+// solved, so they reuse its numbering, pattern and ordering instead of
+// preparing the problem twice more. The coils are those of the result's
+// model at its parameters (CoilsAt). It panics if j is not a coil.
+func IncrementalAt(r *study.Result, j int, opt IncrementalOptions) ([]float64, error) {
+	if r == nil || r.Solution == nil {
+		panic(errNilSolution)
+	}
+	m := r.Model
+	if j < 0 || j >= len(m.Coils) {
+		panic(errCoilIndex)
+	}
+	h := opt.Step
+	if h == 0 {
+		h = 1e-3
+	}
+	if !(h > 0 && h < 0.1) {
+		panic(errBadStep)
+	}
+	coils := CoilsAt(m, r.Params)
+	c := &coils[j]
+	dI := h * math.Abs(c.Current)
+	if dI == 0 {
+		dI = h
+	}
+	var lam [2][]float64
+	for k, sign := range [2]float64{1, -1} {
+		p := r.Params
+		p.Currents = make([]float64, len(m.Coils))
+		for i := range m.Coils {
+			p.Currents[i] = r.Params.Current(m, i)
+		}
+		p.Currents[j] = c.Current + sign*dI
+		so := opt.Solver
+		so.Initial = r.Solution.A
+		ps, err := r.Study.SolveAt(p, so)
+		if err != nil {
+			return nil, &PerturbError{Coil: c.Name, Current: c.Current + sign*dI, Err: err}
+		}
+		if lam[k], err = LinkagesTo(nil, ps.Solution, coils); err != nil {
 			return nil, err
 		}
 	}

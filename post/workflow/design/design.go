@@ -331,7 +331,7 @@ func (d *Design) coils(s *study.Result, opt DesignOptions) {
 	} else {
 		d.Energy = EnergyReport{Energy: w, CoEnergy: wco}
 	}
-	cs := circuit.CoilsOf(s.Model)
+	cs := circuit.CoilsAt(s.Model, s.Params)
 	lambda, err := circuit.LinkagesTo(nil, s.Solution, cs)
 	if err != nil {
 		d.note("coils: %v", err)
@@ -343,7 +343,7 @@ func (d *Design) coils(s *study.Result, opt DesignOptions) {
 			cr.Apparent = circuit.Apparent(lambda[i], c.Current)
 		}
 		if opt.Incremental && c.Current != 0 {
-			col, err := circuit.Incremental(s.Solution, cs, i, circuit.IncrementalOptions{})
+			col, err := circuit.IncrementalAt(s, i, circuit.IncrementalOptions{})
 			if err != nil {
 				d.note("coil %s: incremental inductance: %v", c.Name, err)
 			} else {
