@@ -19,7 +19,7 @@
 //	                 demo; a workflow may use another
 //	post/output/*    text, JSON, CSV, HTML, figures, VTU: formatting only
 //
-// internal/ holds helpers any layer may use (fileout, compsum, ...) and
-// the benchmark tooling (internal/bench), which sits above post beside
+// internal/ holds helpers any layer may use (fileout, compsum, csvtab, num) and
+// the tooling (internal/bench, internal/cmd/...), which sits above post beside
 // cmd/polegap. layout_test.go checks the direction with `go list`.
 package post
