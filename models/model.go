@@ -170,6 +170,10 @@ type MeshControls struct {
 	MinAngle float64 // rad, minimum triangle angle
 	Grading  float64 // allowed relative growth of element size per element, in (0, 1]
 	Chord    float64 // m, largest distance between an arc and its chords
+	// Accuracy is the relative error allowed in every reported quantity:
+	// commands refine the mesh adaptively until each changes by at most
+	// this between two meshes. 0 means the commands' default (1e-3).
+	Accuracy float64 `json:",omitempty"`
 	Refine   []Refine
 	Pos      Pos
 }

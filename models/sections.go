@@ -151,7 +151,7 @@ func (d *decoder) boundary(m *Model, n *yaml.Node) {
 	}
 }
 
-var meshKeys = []string{"size", "order", "min-angle", "grading", "chord", "refine"}
+var meshKeys = []string{"size", "order", "min-angle", "grading", "chord", "accuracy", "refine"}
 
 // mesh decodes the mesh controls. A refine list replaces the template's.
 func (d *decoder) mesh(m *Model, n *yaml.Node) {
@@ -193,6 +193,15 @@ func (d *decoder) mesh(m *Model, n *yaml.Node) {
 	}
 	if v := f.get("chord"); v != nil {
 		mc.Chord, _ = d.length(v, f.sub("chord"), "chord")
+	}
+	if v := f.get("accuracy"); v != nil {
+		if a, ok := d.positive(v, f.sub("accuracy"), "accuracy"); ok {
+			if a >= 0.1 {
+				d.fail(v, f.sub("accuracy"), "accuracy is the relative error allowed in each reported quantity, such as 1e-3; give a value below 0.1, got %s", v.Value)
+			} else {
+				mc.Accuracy = a
+			}
+		}
 	}
 	if v := f.get("refine"); v != nil {
 		mc.Refine = nil

@@ -92,13 +92,13 @@ func TestSolveAccuracyInterrupted(t *testing.T) {
 	ctx, cancel := context.WithCancel(context.Background())
 	withContext(t, ctx, cancel)
 	dir := t.TempDir()
-	stderr := &cancelOn{trigger: "adaptive round", cancel: cancel}
+	stderr := &cancelOn{trigger: "nodes solved", cancel: cancel}
 	var stdout bytes.Buffer
 	start := time.Now()
 	code := run([]string{"solve", "--accuracy", "1e-6", "--vtu", filepath.Join(dir, "a.vtu"), "--png", filepath.Join(dir, "a.png"), "bench-dipole"}, &stdout, stderr)
 	el := time.Since(start)
 	errs := stderr.buf.String()
-	if code != 1 || stdout.Len() != 0 || strings.Count(errs, "adaptive round") != 1 || !strings.Contains(errs, "interrupted (Ctrl-C); no result was written") {
+	if code != 1 || stdout.Len() != 0 || strings.Count(errs, "nodes solved") != 1 || !strings.Contains(errs, "interrupted (Ctrl-C); no result was written") {
 		t.Errorf("exit %d, stdout %q, stderr %q; want exit 1 after one round", code, stdout.String(), errs)
 	}
 	if ents, _ := os.ReadDir(dir); len(ents) != 0 {

@@ -2,22 +2,19 @@ package main
 
 import (
 	"flag"
-	"fmt"
 	"io"
 
 	"polegap/internal/fileout"
-	"polegap/post/workflow/adapt"
 	"polegap/post/workflow/design"
 
 	"polegap/post/output/figure"
 	"polegap/post/output/report"
 	"polegap/post/output/vtu"
-	"polegap/post/study"
 	"polegap/solver"
 )
 
 var cmdSolve = &Command{
-	UsageLine: "solve [--accuracy R [--refine-by goal|energy]] [--virtual-work] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tolerance R] [--max-iterations N] MODEL",
+	UsageLine: "solve [--accuracy R | --quick] [--refine-by energy|goal] [--virtual-work] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tolerance R] [--max-iterations N] MODEL",
 	Short:     "solve a model and print the field and the design quantities",
 	Long: `Solve meshes the model, solves for the magnetic vector potential (with
 Newton–Raphson when the iron is nonlinear) and prints a summary: the mesh
@@ -33,12 +30,18 @@ corners, where the raw maximum is mesh-dependent). With --json it prints the sam
 triangles}, "newton" {iterations, residual, converged}, and "probes" keyed
 by name (point probes give a, bx, by and b in tesla).
 
---accuracy R refines the mesh adaptively and re-solves until the probe
-field changes by less than R between rounds, then reports on the last
-mesh. --refine-by chooses where: goal (the default) weights the error
-indicators of the solution by those of a dual solution for the probe
-field; energy refines where the field's own error is largest, which
-needed half the nodes of goal on a C-core deep in saturation.
+Every number is converged: the mesh is refined adaptively and the model
+solved again until each reported quantity (gap field, pole-face mean,
+fringing, flux linkage, energy and co-energy, saturation figures, forces,
+point probes) changes by less than the accuracy between two meshes
+(--accuracy, else the model's mesh.accuracy, else 1e-3), and the change
+on the last mesh is printed beside each number as its error estimate
+(JSON: "estimates", keyed by the path of each value; "accuracy" says
+whether the target was reached). --refine-by chooses where refinement
+goes: energy (the default) where the field's own error is largest, goal
+weighted by a dual solution for the probe field. --quick solves once on
+the model's own mesh for a preview, and says that its numbers carry no
+estimate.
 
 A solve that does not converge prints its residual history and exits
 with status 1; no result is reported for it.`,
@@ -49,8 +52,7 @@ with status 1; no result is reported for it.`,
 		maxIter := fs.Int("max-iterations", 30, "limit on Newton steps")
 		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png or .svg file")
 		satLimit := quantity(fs, "saturation-limit", field, "flag iron regions whose |B| away from corners exceeds this (e.g. 1.8T)")
-		accuracy := fs.Float64("accuracy", 0, "refine the mesh adaptively until the probe field changes by less than this between rounds (e.g. 1e-4)")
-		refineBy := fs.String("refine-by", "goal", "with --accuracy: goal (weighted by the probe's dual solution) or energy (the field's own error)")
+		af := addAccuracyFlags(fs)
 		vw := fs.Bool("virtual-work", false, "also compute the forces on the model's parts by virtual work (more solves)")
 		vtuPath := fs.String("vtu", "", "write the solution (A, B, |B|, H, μr, region) to this VTK .vtu file")
 		return func(env *Env, args []string) error {
@@ -65,31 +67,11 @@ with status 1; no result is reported for it.`,
 				return err
 			}
 			dopt := design.DesignOptions{Incremental: true, VirtualWork: *vw, SaturationLimit: satLimit.SI(m)}
-			marking := adapt.GoalOriented
-			switch *refineBy {
-			case "goal":
-			case "energy":
-				marking = adapt.Energy
-			default:
-				return usagef("--refine-by is goal or energy, not %q", *refineBy)
-			}
-			var s *study.Result
-			if *accuracy > 0 {
-				res, err := adapt.Run(env.Ctx, m, adapt.Options{Accuracy: *accuracy, Marking: marking, Study: study.Options{Solver: solver.Options{Tol: *tol, MaxIter: *maxIter}},
-					Progress: func(r adapt.Round) {
-						fmt.Fprintf(env.Stderr, "adaptive round: %d nodes, field %.6f T, change %.2e\n", r.Nodes, r.Value, r.Change)
-					}})
-				if err != nil {
-					return err
-				}
-				if !res.Converged {
-					fmt.Fprintf(env.Stderr, "adaptive refinement stopped at its round or node limit before reaching %g\n", *accuracy)
-				}
-				s = res.Study
-			} else if s, err = runStudy(env.Ctx, m, study.Options{Solver: solver.Options{Tol: *tol, MaxIter: *maxIter}}); err != nil {
+			s, coarse, acc, err := solveToAccuracy(env, "solve", m, af, solver.Options{Tol: *tol, MaxIter: *maxIter})
+			if err != nil {
 				return err
 			}
-			r := design.New(s, dopt)
+			r := designReport(s, coarse, acc, dopt)
 			if err := env.Ctx.Err(); err != nil {
 				return err // interrupted during the last round or the virtual work
 			}

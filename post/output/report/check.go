@@ -28,6 +28,16 @@ func WriteCheck(w io.Writer, c *check.Check) error {
 	if f := c.Fringing; f != nil {
 		ew.printf("info  fringing factor %.3f, effective width %.1f mm\n", f.Factor, f.WidthEff*1e3)
 	}
+	if a := c.Accuracy; a != nil {
+		switch {
+		case a.Target == 0:
+			ew.printf("info  quick mode: one solve on the model's own mesh; the values are not converged\n")
+		case a.Reached:
+			ew.printf("info  values converged to %.0e relative (%d meshes)\n", a.Target, a.Rounds)
+		default:
+			ew.printf("info  values NOT converged to %.0e relative (refinement limit, %d meshes): a verdict near its limit is uncertain\n", a.Target, a.Rounds)
+		}
+	}
 	if c.Pass {
 		ew.printf("\nall checks pass\n")
 	} else {

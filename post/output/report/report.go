@@ -42,6 +42,7 @@ func WriteText(w io.Writer, r *design.Report) error {
 	if r.Design != nil {
 		writeDesign(ew, r.Design)
 	}
+	writeAccuracy(ew, r)
 	return ew.err
 }
 

@@ -26,7 +26,12 @@ type Options struct {
 	Fraction float64
 	// Quantity is what must converge; nil means the field at the model's
 	// target probe (or the gap-centre probe, or its first point probe).
-	Quantity func(*study.Result) (float64, error)
+	// Quantities, when set, replaces it: every named quantity must change
+	// by at most Accuracy (relative to its own magnitude) between two
+	// rounds. Each must be a magnitude whose relative change means
+	// something (a field, a flux, an energy), not a component near zero.
+	Quantity   func(*study.Result) (float64, error)
+	Quantities func(*study.Result) (map[string]float64, error)
 	// Progress, when set, is told of each round.
 	Progress func(Round)
 	Study    study.Options
@@ -58,15 +63,19 @@ const (
 // Round is one mesh of the sequence.
 type Round struct {
 	Nodes, Triangles int
-	Value            float64 // the quantity
-	Change           float64 // |value − previous| / |value|; +Inf in the first round
+	Value            float64 // the quantity (with Quantities: the one that changed most)
+	Change           float64 // |value − previous| / |value|, the largest over the quantities; +Inf in the first round
+	Worst            string  // with Quantities: the name of the quantity that changed most
 	Estimate         float64 // global error estimate (ZZ, energy norm, J^½ per m^½)
 }
 
-// Result is the adaptive sequence; Study is the last solved mesh.
+// Result is the adaptive sequence; Study is the last solved mesh and
+// Previous the one before it (nil after a single round): the difference
+// of a quantity between the two estimates its error on Study's mesh.
 type Result struct {
 	Rounds    []Round
 	Study     *study.Result
+	Previous  *study.Result
 	Converged bool
 }
 
@@ -85,7 +94,7 @@ func Run(ctx context.Context, m *models.Model, opt Options) (*Result, error) {
 	if opt.Fraction <= 0 || opt.Fraction >= 1 {
 		opt.Fraction = 0.5
 	}
-	if opt.Quantity == nil {
+	if opt.Quantity == nil && opt.Quantities == nil {
 		q, err := FieldAt(m)
 		if err != nil {
 			return nil, err
@@ -95,7 +104,7 @@ func Run(ctx context.Context, m *models.Model, opt Options) (*Result, error) {
 	res := &Result{}
 	var size func(x, y float64, region int32) float64
 	var base *study.Study
-	prev := math.NaN()
+	var prev map[string]float64
 	for round := 0; round < opt.MaxRounds; round++ {
 		if err := ctx.Err(); err != nil {
 			return res, err
@@ -123,17 +132,15 @@ func Run(ctx context.Context, m *models.Model, opt Options) (*Result, error) {
 		if err != nil {
 			return res, err
 		}
-		q, err := opt.Quantity(s)
+		qs, err := quantities(s, opt)
 		if err != nil {
 			return res, err
 		}
 		eta, est := s.Solution.ErrorIndicatorTo(nil)
-		r := Round{Nodes: d.Mesh.NumNodes(), Triangles: d.Mesh.NumTriangles(), Value: q, Estimate: math.Sqrt(math.Max(est, 0)), Change: math.Inf(1)}
-		if !math.IsNaN(prev) && q != 0 {
-			r.Change = math.Abs(q-prev) / math.Abs(q)
-		}
+		r := Round{Nodes: d.Mesh.NumNodes(), Triangles: d.Mesh.NumTriangles(), Estimate: math.Sqrt(math.Max(est, 0))}
+		r.Change, r.Worst, r.Value = change(qs, prev)
 		res.Rounds = append(res.Rounds, r)
-		res.Study = s
+		res.Previous, res.Study = res.Study, s
 		if opt.Progress != nil {
 			opt.Progress(r)
 		}
@@ -141,7 +148,7 @@ func Run(ctx context.Context, m *models.Model, opt Options) (*Result, error) {
 			res.Converged = true
 			return res, nil
 		}
-		prev = q
+		prev = qs
 		if opt.Marking == GoalOriented {
 			z, err := dualIndicator(s, opt)
 			if err != nil {
@@ -154,6 +161,50 @@ func Run(ctx context.Context, m *models.Model, opt Options) (*Result, error) {
 		size = NextSize(d.Mesh, eta, opt.Fraction)
 	}
 	return res, nil
+}
+
+// quantities evaluates what must converge on one round.
+func quantities(s *study.Result, opt Options) (map[string]float64, error) {
+	if opt.Quantities != nil {
+		return opt.Quantities(s)
+	}
+	q, err := opt.Quantity(s)
+	if err != nil {
+		return nil, err
+	}
+	return map[string]float64{"": q}, nil
+}
+
+// change returns the largest relative change of the quantities since the
+// previous round (+Inf without one, or when a quantity is new), the name
+// of that quantity and its value. Quantities that are zero on both rounds
+// have not changed.
+func change(q, prev map[string]float64) (float64, string, float64) {
+	names := make([]string, 0, len(q))
+	for k := range q {
+		names = append(names, k)
+	}
+	sort.Strings(names)
+	worst, name, value := -1.0, "", math.NaN()
+	for _, k := range names {
+		v := q[k]
+		c := math.Inf(1)
+		if p, ok := prev[k]; ok {
+			switch d := math.Abs(v - p); {
+			case d == 0:
+				c = 0
+			case v != 0:
+				c = d / math.Abs(v)
+			}
+		}
+		if c > worst {
+			worst, name, value = c, k, v
+		}
+	}
+	if worst < 0 {
+		return math.Inf(1), "", math.NaN()
+	}
+	return worst, name, value
 }
 
 // NextSize returns the size field of the next round: half the current

@@ -42,6 +42,9 @@ type Check struct {
 	Items    []CheckItem          `json:"items"`
 	Fringing *design.FringeReport `json:"fringing,omitempty"`
 	Pass     bool                 `json:"pass"`
+	// Accuracy says how converged the checked numbers are (nil: not
+	// recorded).
+	Accuracy *design.Accuracy `json:"accuracy,omitempty"`
 }
 
 // NewCheck checks the design quantities of a solved study against the

@@ -287,7 +287,14 @@ func (d *Design) fringing(s *study.Result, f gap.Field, c [2]float64, b0, w floa
 	var ks []float64
 	var gapEff float64
 	for _, dir := range []float64{-1, 1} {
-		reach, _ := gap.Reach(f, c, [2]float64{dir, 0}, n, b0, gap.DefaultEndFraction, step, limit)
+		reach, ok := gap.Reach(f, c, [2]float64{dir, 0}, n, b0, gap.DefaultEndFraction, step, limit)
+		if ok {
+			// End on the first sample past the crossing, where the field is
+			// below the end fraction for sure: the interpolated crossing
+			// itself may read just above it on another mesh and flip the
+			// side to truncated.
+			reach = math.Min(reach+step, limit)
+		}
 		q := [2]float64{c[0] + dir*reach, c[1]}
 		p := c
 		if dir < 0 {

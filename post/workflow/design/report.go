@@ -18,7 +18,13 @@ type Report struct {
 	Energy   float64          `json:"energy_j"`
 	Probes   map[string]Probe `json:"probes"`
 	*Design
-	order []string
+	// Accuracy says how the numbers were converged (nil: not recorded).
+	Accuracy *Accuracy `json:"accuracy,omitempty"`
+	// Estimates holds the error estimate (absolute, in the value's unit)
+	// of each computed number, keyed by the number's path in this JSON
+	// ("gap.centre_B_T", "coils[0].flux_linkage_Wb"); empty in quick mode.
+	Estimates map[string]float64 `json:"estimates,omitempty"`
+	order     []string
 }
 
 // Mesh sizes the discretisation.

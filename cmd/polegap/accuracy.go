@@ -1,0 +1,105 @@
+package main
+
+import (
+	"flag"
+	"fmt"
+	"math"
+
+	"polegap/models"
+	"polegap/post/study"
+	"polegap/post/workflow/adapt"
+	"polegap/post/workflow/design"
+	"polegap/solver"
+)
+
+// accuracyFlags are the flags of every command that reports solved
+// quantities: how accurate they must be, or none (quick).
+type accuracyFlags struct {
+	accuracy *float64
+	quick    *bool
+	refineBy *string
+}
+
+func addAccuracyFlags(fs *flag.FlagSet) accuracyFlags {
+	return accuracyFlags{
+		accuracy: fs.Float64("accuracy", 0, "relative error allowed in each reported quantity; the mesh is refined adaptively until each changes by less than this (default: the model's mesh.accuracy, else 1e-3)"),
+		quick:    fs.Bool("quick", false, "one solve on the model's own mesh, for a preview: no refinement and no error estimates"),
+		refineBy: fs.String("refine-by", "energy", "where refinement goes: energy (the field's own error, serves every quantity) or goal (weighted by a dual solution for the probe field; converges that field only)"),
+	}
+}
+
+// target returns the accuracy asked for, and a usage error for a bad one.
+func (a accuracyFlags) target(m *models.Model) (float64, error) {
+	acc := *a.accuracy
+	if acc < 0 || acc >= 0.1 || math.IsNaN(acc) {
+		return 0, usagef("--accuracy is a relative error below 0.1, such as 1e-3; got %g", acc)
+	}
+	if *a.refineBy != "energy" && *a.refineBy != "goal" {
+		return 0, usagef("--refine-by is energy or goal, not %q", *a.refineBy)
+	}
+	if acc == 0 {
+		acc = m.Mesh.Accuracy
+	}
+	if acc == 0 {
+		acc = design.DefaultAccuracy
+	}
+	return acc, nil
+}
+
+// solveToAccuracy solves m to the accuracy the flags ask for. It returns
+// the final solve, the one on the mesh before it (nil in quick mode or
+// after a single round: no estimate) and the record of the refinement.
+func solveToAccuracy(env *Env, name string, m *models.Model, a accuracyFlags, so solver.Options) (fine, coarse *study.Result, acc *design.Accuracy, err error) {
+	if *a.quick {
+		s, err := runStudy(env.Ctx, m, study.Options{Solver: so})
+		if err != nil {
+			return nil, nil, nil, err
+		}
+		fmt.Fprintf(env.Stderr, "polegap %s: quick mode: one solve on the model's own mesh; the numbers carry no error estimate\n", name)
+		return s, nil, &design.Accuracy{Rounds: 1}, nil
+	}
+	target, err := a.target(m)
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	progress := func(r adapt.Round) {
+		if math.IsInf(r.Change, 1) {
+			fmt.Fprintf(env.Stderr, "polegap %s: mesh of %d nodes solved\n", name, r.Nodes)
+			return
+		}
+		fmt.Fprintf(env.Stderr, "polegap %s: refined to %d nodes: largest change %.2e (%s), asked %.0e\n", name, r.Nodes, r.Change, r.Worst, target)
+	}
+	var res *adapt.Result
+	if *a.refineBy == "goal" {
+		res, err = adapt.Run(env.Ctx, m, adapt.Options{Accuracy: target, Marking: adapt.GoalOriented, Quantities: design.StopQuantities,
+			Study: study.Options{Solver: so}, Progress: progress})
+	} else {
+		res, err = design.Converge(env.Ctx, m, target, so, progress)
+	}
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	if err := env.Ctx.Err(); err != nil {
+		return nil, nil, nil, err
+	}
+	last := res.Rounds[len(res.Rounds)-1]
+	acc = &design.Accuracy{Target: target, Reached: res.Converged, Rounds: len(res.Rounds), Worst: last.Worst}
+	if !math.IsInf(last.Change, 1) {
+		acc.Change = last.Change
+	}
+	if !res.Converged {
+		fmt.Fprintf(env.Stderr, "polegap %s: refinement stopped at its round or node limit before every quantity changed by less than %g; the estimates say how far each can be trusted\n", name, target)
+	}
+	return res.Study, res.Previous, acc, nil
+}
+
+// designReport builds the design report of the final solve with the
+// estimates from the solve before it.
+func designReport(fine, coarse *study.Result, acc *design.Accuracy, opt design.DesignOptions) *design.Report {
+	r := design.New(fine, opt)
+	r.Accuracy = acc
+	if coarse != nil {
+		r.SetEstimates(design.New(coarse, opt))
+	}
+	return r
+}
