@@ -6,8 +6,8 @@ import (
 	"sort"
 )
 
-// KelvinExterior is the result of AddKelvinDisk: the combined mesh and the
-// couplings the solver needs.
+// KelvinExterior is the result of AddKelvinDisk or AddKelvinHalfDisk: the
+// combined mesh and the couplings the solver needs.
 type KelvinExterior struct {
 	// Mesh holds the original triangles followed by those of the disk.
 	Mesh *Mesh
