@@ -45,7 +45,6 @@ func Boundary(m *models.Model) (mesh.Polygon, error) {
 		cx, cy, r := circle(m)
 		if axi {
 			// A half disc centred on the axis.
-			r = math.Hypot(xmax, 0.5*dy) + d
 			return mesh.Polygon{
 				X:           []float64{0, 0},
 				Y:           []float64{cy - r, cy + r},
@@ -100,11 +99,16 @@ func Polygons(m *models.Model) []mesh.Polygon {
 }
 
 // circle returns the centre and radius of a circular boundary: centred on
-// the model's extent, the margin beyond its half diagonal.
+// the model's extent, the margin beyond its half diagonal. In an
+// axisymmetric model the circle is centred on the axis (cx = 0) at the
+// extent's mid-height, the margin beyond the extent's farthest corner.
 func circle(m *models.Model) (cx, cy, r float64) {
 	xmin, ymin, xmax, ymax := m.Extent()
 	dx, dy := xmax-xmin, ymax-ymin
 	d := m.Boundary.Margin * math.Max(dx, dy)
+	if m.Geometry == models.Axisymmetric {
+		return 0, 0.5 * (ymin + ymax), math.Hypot(xmax, 0.5*dy) + d
+	}
 	return 0.5 * (xmin + xmax), 0.5 * (ymin + ymax), 0.5*math.Hypot(dx, dy) + d
 }
 
@@ -147,8 +151,8 @@ func insideBoundary(m *models.Model, b mesh.Polygon) func(x, y float64) bool {
 		cx, cy, r := circle(m)
 		axi := m.Geometry == models.Axisymmetric
 		return func(x, y float64) bool {
-			if axi {
-				return x >= 0 && math.Hypot(x, y-cy) <= r*(1+1e-9)
+			if axi && x < 0 {
+				return false
 			}
 			return math.Hypot(x-cx, y-cy) <= r*(1+1e-9)
 		}
