@@ -109,12 +109,14 @@ var (
 	boxSides           = []string{"left", "right", "bottom", "top"}
 )
 
-// boundary decodes the boundary mapping.
+// boundary decodes the boundary mapping. It replaces a template's
+// boundary as a whole: keys it leaves out take the plain defaults.
 func (d *decoder) boundary(m *Model, n *yaml.Node) {
 	f, _ := d.mapping(n, "boundary", []string{"shape", "margin", "condition", "sides"}, "the boundary")
 	if f == nil {
 		return
 	}
+	m.Boundary = Boundary{}
 	b := &m.Boundary
 	b.Pos = pos(f.node, "boundary")
 	if v := f.get("shape"); v != nil {
