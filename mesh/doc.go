@@ -21,6 +21,10 @@
 //     targets run it on every mesh they make.
 //   - BuildInput, Stats, Locator, WriteVTU, Elevate: polygons to Input,
 //     quality statistics, point location, VTK export, midside nodes.
+//   - AddKelvinDisk, AddKelvinHalfDisk: the exterior of a circle (planar)
+//     or of a sphere (axisymmetric half disc on the axis) as a Kelvin
+//     image meshed beside the model, with the node pairs joining the rims
+//     (open boundaries; ElevateKelvin for second order).
 //
 // # Units and conventions
 //

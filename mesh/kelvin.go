@@ -6,8 +6,8 @@ import (
 	"sort"
 )
 
-// KelvinExterior is the result of AddKelvinDisk: the combined mesh and the
-// couplings the solver needs.
+// KelvinExterior is the result of AddKelvinDisk or AddKelvinHalfDisk: the
+// combined mesh and the couplings the solver needs.
 type KelvinExterior struct {
 	// Mesh holds the original triangles followed by those of the disk.
 	Mesh *Mesh
@@ -19,6 +19,10 @@ type KelvinExterior struct {
 	Infinity int32
 	// Centre and Radius describe the disk (metres).
 	CX, CY, Radius float64
+	// Half marks the half disc of an axisymmetric model
+	// (AddKelvinHalfDisk): its rim is an arc from the axis to the axis,
+	// not a closed circle.
+	Half bool
 }
 
 // AddKelvinDisk appends the exterior disk of the Kelvin transformation to a
@@ -43,34 +47,9 @@ type KelvinExterior struct {
 // edge since the pair coupling replaces it. The original mesh is not
 // modified.
 func AddKelvinDisk(m *Mesh, marker int32, cx, cy, r float64, region int32) (*KelvinExterior, error) {
-	if m.Mid != nil {
-		panic("mesh: AddKelvinDisk needs a first-order mesh; elevate afterwards with ElevateKelvin")
-	}
-	// The rim nodes, sorted by angle.
-	onRim := map[int32]bool{}
-	for t := 0; t < m.NumTriangles(); t++ {
-		for k := 0; k < 3; k++ {
-			if m.Nbr[3*t+k] == -1 && m.EdgeMarker[3*t+k] == marker {
-				onRim[m.Tri[3*t+(k+1)%3]] = true
-				onRim[m.Tri[3*t+(k+2)%3]] = true
-			}
-		}
-	}
-	if len(onRim) < 3 {
-		return nil, fmt.Errorf("mesh: Kelvin disk: the boundary with marker %d has %d nodes, need a closed circle", marker, len(onRim))
-	}
-	rim := make([]int32, 0, len(onRim))
-	for v := range onRim {
-		rim = append(rim, v)
-	}
-	ang := func(v int32) float64 { return math.Atan2(m.Y[v]-cy, m.X[v]-cx) }
-	sort.Slice(rim, func(i, j int) bool { return ang(rim[i]) < ang(rim[j]) })
-	for _, v := range rim {
-		// Refinement splits rim chords at their midpoints, so nodes lie on
-		// the circle or on its chords: allow the sagitta of a 30° chord.
-		if d := math.Hypot(m.X[v]-cx, m.Y[v]-cy); math.Abs(d-r) > 0.035*r {
-			return nil, fmt.Errorf("mesh: Kelvin disk: boundary node %d lies %g m from the centre, not on the circle of radius %g m", v, d, r)
-		}
+	rim, err := kelvinRim(m, marker, cx, cy, r, false)
+	if err != nil {
+		return nil, err
 	}
 	// The disk's input: rim vertices at the same angles, plus its centre.
 	dx := 2.5 * r
@@ -86,9 +65,108 @@ func AddKelvinDisk(m *Mesh, marker int32, cx, cy, r float64, region int32) (*Kel
 		in.Segments = append(in.Segments, int32(i), int32((i+1)%n))
 		in.Markers = append(in.Markers, marker)
 	}
+	out := &KelvinExterior{CX: cx + dx, CY: cy, Radius: r}
+	return out, out.join(m, rim, in, marker)
+}
+
+// AddKelvinHalfDisk is AddKelvinDisk for an axisymmetric model, meshed in
+// the half-plane r = x >= 0 with z = y: the first-order mesh m fills a half
+// disc of radius r about the point (0, cz) of the axis, whose arc carries
+// marker and whose straight side lies on the axis x = 0.
+//
+// Inversion in the sphere of radius r about (0, cz) maps the space outside
+// it onto the inside, and the meridian half-plane onto itself (the axis
+// stays the axis). The image is an air half disc of the same radius meshed
+// on the axis 2.5 r above (its centre, the point at infinity, at
+// (0, cz + 2.5 r)), with the same rim vertices (frozen) and quality
+// refinement; its arc carries marker and its straight side axisMarker.
+// Unlike the planar disk the axisymmetric energy is not invariant under
+// the map: the solver must scale the image's reluctivity by ρ'²/r²
+// (solver.Problem.Exterior; Freeman and Lowther 1989, cited at
+// AddKelvinDisk, treat the axisymmetric case). Pairs join the nodes of the
+// two arcs from the bottom of the axis (angle −π/2) to its top (+π/2);
+// both ends lie on the axis. The original mesh is not modified.
+func AddKelvinHalfDisk(m *Mesh, marker, axisMarker int32, cz, r float64, region int32) (*KelvinExterior, error) {
+	rim, err := kelvinRim(m, marker, 0, cz, r, true)
+	if err != nil {
+		return nil, err
+	}
+	dz := 2.5 * r
+	n := len(rim)
+	in := &Input{DefaultRegion: region}
+	for _, v := range rim {
+		in.X = append(in.X, m.X[v])
+		in.Y = append(in.Y, m.Y[v]+dz)
+	}
+	in.X = append(in.X, 0)
+	in.Y = append(in.Y, cz+dz)
+	for i := 0; i+1 < n; i++ {
+		in.Segments = append(in.Segments, int32(i), int32(i+1))
+		in.Markers = append(in.Markers, marker)
+	}
+	// The straight side: top of the arc, centre, bottom of the arc.
+	in.Segments = append(in.Segments, int32(n-1), int32(n), int32(n), 0)
+	in.Markers = append(in.Markers, axisMarker, axisMarker)
+	out := &KelvinExterior{CX: 0, CY: cz + dz, Radius: r, Half: true}
+	return out, out.join(m, rim, in, marker)
+}
+
+// kelvinRim returns the nodes of m on the boundary edges with the given
+// marker, sorted by angle about (cx, cy), and checks that they lie on the
+// circle of radius r (half: on the half circle x >= 0 whose ends lie on the
+// axis x = 0).
+func kelvinRim(m *Mesh, marker int32, cx, cy, r float64, half bool) ([]int32, error) {
+	if m.Mid != nil {
+		panic("mesh: AddKelvinDisk needs a first-order mesh; elevate afterwards with ElevateKelvin")
+	}
+	onRim := map[int32]bool{}
+	for t := 0; t < m.NumTriangles(); t++ {
+		for k := 0; k < 3; k++ {
+			if m.Nbr[3*t+k] == -1 && m.EdgeMarker[3*t+k] == marker {
+				onRim[m.Tri[3*t+(k+1)%3]] = true
+				onRim[m.Tri[3*t+(k+2)%3]] = true
+			}
+		}
+	}
+	shape := "a closed circle"
+	if half {
+		shape = "a half circle on the axis"
+	}
+	if len(onRim) < 3 {
+		return nil, fmt.Errorf("mesh: Kelvin disk: the boundary with marker %d has %d nodes, need %s", marker, len(onRim), shape)
+	}
+	rim := make([]int32, 0, len(onRim))
+	for v := range onRim {
+		rim = append(rim, v)
+	}
+	ang := func(v int32) float64 { return math.Atan2(m.Y[v]-cy, m.X[v]-cx) }
+	sort.Slice(rim, func(i, j int) bool { return ang(rim[i]) < ang(rim[j]) })
+	for _, v := range rim {
+		// Refinement splits rim chords at their midpoints, so nodes lie on
+		// the circle or on its chords: allow the sagitta of a 30° chord.
+		if d := math.Hypot(m.X[v]-cx, m.Y[v]-cy); math.Abs(d-r) > 0.035*r {
+			return nil, fmt.Errorf("mesh: Kelvin disk: boundary node %d lies %g m from the centre, not on the circle of radius %g m", v, d, r)
+		}
+		if half && m.X[v] < 0 {
+			return nil, fmt.Errorf("mesh: Kelvin disk: boundary node %d lies at x = %g m < 0, off the half plane of an axisymmetric model", v, m.X[v])
+		}
+	}
+	if half {
+		lo, hi := rim[0], rim[len(rim)-1]
+		if m.X[lo] != 0 || m.X[hi] != 0 || !(m.Y[lo] < cy) || !(m.Y[hi] > cy) {
+			return nil, fmt.Errorf("mesh: Kelvin disk: the boundary with marker %d does not end on the axis x = 0 below and above the centre; need %s", marker, shape)
+		}
+	}
+	return rim, nil
+}
+
+// join meshes the image input in (rim vertices first, in the order of rim,
+// then the image centre; rim segments carry marker, which stays frozen) and
+// appends it to m, pairing the rims.
+func (k *KelvinExterior) join(m *Mesh, rim []int32, in *Input, marker int32) error {
 	disk, err := Triangulate(in, Options{Frozen: []int32{marker}})
 	if err != nil {
-		return nil, fmt.Errorf("mesh: Kelvin disk: %w", err)
+		return fmt.Errorf("mesh: Kelvin disk: %w", err)
 	}
 	// Find the disk's rim and centre nodes by their exact coordinates.
 	type key struct{ x, y float64 }
@@ -97,21 +175,21 @@ func AddKelvinDisk(m *Mesh, marker int32, cx, cy, r float64, region int32) (*Kel
 		where[key{disk.X[i], disk.Y[i]}] = int32(i)
 	}
 	off := int32(m.NumNodes())
-	out := &KelvinExterior{CX: cx + dx, CY: cy, Radius: r}
+	n := len(rim)
 	for i, v := range rim {
 		d, ok := where[key{in.X[i], in.Y[i]}]
 		if !ok {
-			return nil, fmt.Errorf("mesh: Kelvin disk: rim vertex %d lost in meshing", i)
+			return fmt.Errorf("mesh: Kelvin disk: rim vertex %d lost in meshing", i)
 		}
-		out.Pairs = append(out.Pairs, [2]int32{v, d + off})
+		k.Pairs = append(k.Pairs, [2]int32{v, d + off})
 	}
 	c, ok := where[key{in.X[n], in.Y[n]}]
 	if !ok {
-		return nil, fmt.Errorf("mesh: Kelvin disk: centre vertex lost in meshing")
+		return fmt.Errorf("mesh: Kelvin disk: centre vertex lost in meshing")
 	}
-	out.Infinity = c + off
-	out.Mesh = appendMesh(m, disk)
-	return out, nil
+	k.Infinity = c + off
+	k.Mesh = appendMesh(m, disk)
+	return nil
 }
 
 // appendMesh returns a new first-order mesh with b's nodes and triangles
@@ -165,7 +243,11 @@ func (k *KelvinExterior) ElevateKelvin() {
 		}
 	}
 	n := len(k.Pairs)
-	for i := 0; i < n; i++ {
+	last := n // a closed rim: the last node joins the first
+	if k.Half {
+		last = n - 1
+	}
+	for i := 0; i < last; i++ {
 		p, q := k.Pairs[i], k.Pairs[(i+1)%n]
 		a, b := p[0], q[0]
 		c, d := partner[a], partner[b]

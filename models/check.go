@@ -125,6 +125,16 @@ func (m *Model) Check() error {
 	if !contains(boundaryShapes, b.Shape) || !contains(boundaryConditions, b.Condition) || !(b.Margin > 0) || !finite(b.Margin) {
 		return bad("boundary %+v", b)
 	}
+	for side, g := range b.Margins {
+		if !contains(boxSides, side) || !(g > 0) || !finite(g) || b.Shape != "box" {
+			return bad("boundary margin %s = %g", side, g)
+		}
+	}
+	if bx := b.Box; bx != nil {
+		if b.Shape != "box" || !finite(bx[0][0], bx[0][1], bx[1][0], bx[1][1]) || !(bx[0][0] < bx[1][0] && bx[0][1] < bx[1][1]) {
+			return bad("boundary box %v", *bx)
+		}
+	}
 	mc := m.Mesh
 	if !(mc.Size > 0) || (mc.Order != 1 && mc.Order != 2) || !(mc.MinAngle > 0) || !(mc.Grading > 0) || !(mc.Chord > 0) ||
 		!finite(mc.Size, mc.MinAngle, mc.Grading, mc.Chord) {

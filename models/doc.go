@@ -39,7 +39,11 @@
 //   - Every coil side names an existing region, and no region is a side of
 //     two coils or twice of one coil. Sense is +1 or -1; Turns > 0.
 //   - Refine.Near names a region or a probe; Target.Probe names a probe.
-//   - Defaults are filled in: Boundary (box, margin 1.0, zero-potential),
+//   - Boundary.Margins (side -> margin > 0) and Boundary.Box (lower-left
+//     corner first) appear only with shape box, Box never with Margins; a
+//     Box holds every region and, axisymmetric, starts at x = 0.
+//   - Defaults are filled in: Boundary (box, margin 1.0, zero-potential;
+//     with a template: circle, margin 1.0, open),
 //     Mesh.Size (largest model dimension / 30), Order 1, MinAngle 28°,
 //     Grading 0.3, Chord (Mesh.Size / 20); material Stacking 1; magnet
 //     MuRecoil 1; line probes 101 samples, circle probes 180.
@@ -51,8 +55,8 @@
 // "main", default probes, default mesh refinement and, when dimensions give
 // field, a target. The user's own regions, coils and probes are added after
 // the template's; one with the same name as a template entry replaces it,
-// a mesh refine list replaces the template's and a target replaces its
-// target. The sketches in template_*.go and REFERENCE.md define every
+// a mesh refine list replaces the template's, a target replaces its
+// target and a boundary mapping replaces its open boundary. The sketches in template_*.go and REFERENCE.md define every
 // dimension.
 //
 // # Keys

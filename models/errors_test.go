@@ -1,6 +1,9 @@
 package models
 
-import "testing"
+import (
+	"strings"
+	"testing"
+)
 
 // Each kind of bad input has its own table; every expected message carries
 // file:line:column, the field path and what to do.
@@ -186,4 +189,28 @@ func replace(t *testing.T, s, old, new string) string {
 		t.Fatalf("replace: %q occurs %d times", old, n)
 	}
 	return replaceOnce(s, old, new)
+}
+
+// Per-side margins and an explicit boundary box (REFERENCE.md, boundary).
+func TestErrBoundaryBox(t *testing.T) {
+	ax := replace(t, edit(t, "depth: 100\n", "geometry: axisymmetric\n"), "target:", "boundary: BND\ntarget:")
+	axi := func(b string) string { return strings.Replace(ax, "BND", b, 1) }
+	runErrCases(t, []errCase{
+		{"margins circle", base + "boundary: {shape: circle, margins: {left: 2}}\n", `m.yaml:21:27: boundary.margins: margins applies to a box boundary only; remove it or use shape: box`},
+		{"margins side", base + "boundary: {margins: {middle: 2}}\n", `m.yaml:21:22: boundary.margins.middle: unknown key "middle" in box side -> margin; known keys are left, right, bottom or top`},
+		{"margins zero", base + "boundary: {margins: {top: 0}}\n", `m.yaml:21:27: boundary.margins.top: a side's margin (a multiple of the model's largest dimension) must be greater than zero, got 0`},
+		{"margins text", base + "boundary: {margins: {top: wide}}\n", `m.yaml:21:27: boundary.margins.top: expected a number, got "wide"`},
+		{"margins list", base + "boundary: {margins: [1, 2]}\n", `m.yaml:21:21: boundary.margins: expected a mapping (box side -> margin), got a list`},
+		{"margins and sides", base + "boundary: {sides: {bottom: flux-normal}, margins: {bottom: 1}}\n", `m.yaml:21:52: boundary.margins.bottom: the bottom side is a symmetry side (boundary.sides.bottom) lying on the model's extent, without margin; remove one of the two`},
+		{"margins axis", axi("{margins: {left: 1}}"), `m.yaml:20:22: boundary.margins.left: in an axisymmetric model the left side is the axis r = 0 and has no margin; remove it`},
+		{"box circle", base + "boundary: {shape: circle, box: [[-10, -10], [110, 60]]}\n", `m.yaml:21:27: boundary.box: box applies to a box boundary only; remove it or use shape: box`},
+		{"box and margin", base + "boundary: {margin: 2, box: [[-10, -10], [110, 60]]}\n", `m.yaml:21:12: boundary.margin: boundary.box places all four sides; remove margin (or remove box)`},
+		{"box and margins", base + "boundary: {margins: {top: 2}, box: [[-10, -10], [110, 60]]}\n", `m.yaml:21:12: boundary.margins: boundary.box places all four sides; remove margins (or remove box)`},
+		{"box order", base + "boundary: {box: [[110, 60], [-10, -10]]}\n", `m.yaml:21:17: boundary.box: a box is [[x0, y0], [x1, y1]] with its lower-left corner first (x0 < x1, y0 < y1), got (110, 60) mm to (-10, -10) mm`},
+		{"box flat", base + "boundary: {box: [[-10, 60], [110, 60]]}\n", `m.yaml:21:17: boundary.box: a box is [[x0, y0], [x1, y1]] with its lower-left corner first (x0 < x1, y0 < y1), got (-10, 60) mm to (110, 60) mm`},
+		{"box shape", base + "boundary: {box: [-10, -10, 110, 60]}\n", `m.yaml:21:17: boundary.box: expected two points [[x0, y0], [x1, y1]], got a list of 4 items`},
+		{"box small", base + "boundary: {box: [[-10, -10], [90, 60]]}\n", `m.yaml:21:17: boundary.box: region "core" reaches from (0, 0) mm to (100, 20) mm, outside the boundary box (-10, -10) mm to (90, 60) mm; enlarge the box (or use margin)`},
+		{"box open", base + "boundary: {box: [[-10, -10], [110, 60]], condition: open}\n", `m.yaml:21:53: boundary.condition: an open boundary (Kelvin transformation) needs shape: circle`},
+		{"box axis", axi("{box: [[-10, -10], [110, 60]]}"), `m.yaml:20:18: boundary.box[0]: in an axisymmetric model the box starts at the axis: x0 must be 0, got -10 mm`},
+	})
 }

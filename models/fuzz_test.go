@@ -19,6 +19,8 @@ func FuzzParse(f *testing.F) {
 		f.Add(data)
 	}
 	f.Add([]byte(base))
+	f.Add([]byte(base + "boundary: {margin: 0.5, margins: {left: 2, top: 0.25}, sides: {bottom: flux-normal}}\n"))
+	f.Add([]byte(base + "boundary: {box: [[-10, -5], [110, 60]], sides: {left: flux-normal}}\n"))
 	f.Fuzz(func(t *testing.T, data []byte) {
 		m, err := Parse("f.yaml", data)
 		if err != nil {

@@ -156,11 +156,17 @@ type Coil struct {
 
 // Boundary sets the outer boundary of the air domain.
 type Boundary struct {
-	Shape     string            // "box" or "circle"
-	Margin    float64           // distance from the model's bounding box, as a multiple of its largest dimension
-	Condition string            // "zero-potential", "flux-normal" or "open"
-	Sides     map[string]string // box only: side ("left", "right", "bottom", "top") -> condition; such a side lies on the bounding box
-	Pos       Pos
+	Shape     string             // "box" or "circle"
+	Margin    float64            // distance from the model's bounding box, as a multiple of its largest dimension
+	Margins   map[string]float64 // box only: side ("left", "right", "bottom", "top") -> its own margin, in place of Margin
+	Box       *[2][2]float64     // box only: the box's lower-left and upper-right corners (m), in place of the margins; nil when not given
+	Condition string             // "zero-potential", "flux-normal" or "open"
+	// Sides (box only): side -> condition. Such a side lies on the
+	// bounding box (no margin), or where Box puts it.
+	Sides map[string]string
+	Pos   Pos
+
+	boxPos Pos // where box was written
 }
 
 // MeshControls set element size and quality.

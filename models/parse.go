@@ -121,6 +121,7 @@ func (d *decoder) parse(data []byte) *Model {
 		m.Probes = t.probes
 		m.Target = t.target
 		m.Mesh.Refine = t.refine
+		m.Boundary = t.boundary
 		for _, mat := range t.materials {
 			if _, ok := m.Material(mat.Name); !ok {
 				m.Materials = append(m.Materials, mat)

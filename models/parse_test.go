@@ -329,3 +329,31 @@ func TestMergeBomb(t *testing.T) {
 		t.Errorf("merge bomb: %v", err)
 	}
 }
+
+// TestBoundaryMarginsBox: boundary.margins keeps its multiples as given,
+// boundary.box is read in file units and stored in metres, and Clone
+// copies both (a change to the copy leaves the original alone).
+func TestBoundaryMarginsBox(t *testing.T) {
+	m := mustParse(t, "margins", base+"boundary: {margin: 0.5, margins: {left: 2, top: 0.25}}\n")
+	if b := m.Boundary; b.Shape != "box" || b.Margin != 0.5 || len(b.Margins) != 2 || b.Margins["left"] != 2 || b.Margins["top"] != 0.25 || b.Box != nil {
+		t.Errorf("margins: boundary %+v", b)
+	}
+	c := m.Clone()
+	c.Boundary.Margins["left"] = 9
+	if m.Boundary.Margins["left"] != 2 {
+		t.Error("Clone shares boundary.margins")
+	}
+	m = mustParse(t, "box", strings.Replace(base, "units: mm", "units: cm", 1)+"boundary: {box: [[-1, -2.5], [110, 60]], sides: {left: flux-normal}}\n")
+	want := [2][2]float64{{-0.01, -0.025}, {1.1, 0.6}}
+	if b := m.Boundary; b.Box == nil || *b.Box != want || b.Sides["left"] != "flux-normal" || b.Margins != nil {
+		t.Errorf("box: boundary %+v, box %v want %v", b, b.Box, want)
+	}
+	c = m.Clone()
+	c.Boundary.Box[0][0] = 5
+	if m.Boundary.Box[0][0] != -0.01 {
+		t.Error("Clone shares boundary.box")
+	}
+	if err := m.Check(); err != nil {
+		t.Error(err)
+	}
+}

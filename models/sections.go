@@ -109,12 +109,14 @@ var (
 	boxSides           = []string{"left", "right", "bottom", "top"}
 )
 
-// boundary decodes the boundary mapping.
+// boundary decodes the boundary mapping. It replaces a template's
+// boundary as a whole: keys it leaves out take the plain defaults.
 func (d *decoder) boundary(m *Model, n *yaml.Node) {
-	f, _ := d.mapping(n, "boundary", []string{"shape", "margin", "condition", "sides"}, "the boundary")
+	f, _ := d.mapping(n, "boundary", []string{"shape", "margin", "margins", "box", "condition", "sides"}, "the boundary")
 	if f == nil {
 		return
 	}
+	m.Boundary = Boundary{}
 	b := &m.Boundary
 	b.Pos = pos(f.node, "boundary")
 	if v := f.get("shape"); v != nil {
@@ -132,23 +134,86 @@ func (d *decoder) boundary(m *Model, n *yaml.Node) {
 	if v := f.get("sides"); v != nil {
 		if b.Shape == "circle" {
 			d.fail(f.key["sides"], f.sub("sides"), "sides applies to a box boundary only; remove it or use shape: box")
-			return
-		}
-		sf, _ := d.mapping(v, f.sub("sides"), boxSides, "box side -> condition")
-		if sf == nil {
-			return
-		}
-		b.Sides = map[string]string{}
-		for _, k := range sf.keys {
-			if k == "left" && m.Geometry == Axisymmetric {
-				d.fail(sf.key[k], sf.sub(k), "in an axisymmetric model the left side is the axis r = 0; remove it")
-				continue
-			}
-			if c, ok := d.enum(sf.val[k], sf.sub(k), "side condition", sideConditions); ok {
-				b.Sides[k] = c
+		} else if sf, _ := d.mapping(v, f.sub("sides"), boxSides, "box side -> condition"); sf != nil {
+			b.Sides = map[string]string{}
+			for _, k := range sf.keys {
+				if k == "left" && m.Geometry == Axisymmetric {
+					d.fail(sf.key[k], sf.sub(k), "in an axisymmetric model the left side is the axis r = 0; remove it")
+					continue
+				}
+				if c, ok := d.enum(sf.val[k], sf.sub(k), "side condition", sideConditions); ok {
+					b.Sides[k] = c
+				}
 			}
 		}
 	}
+	if v := f.get("margins"); v != nil {
+		d.margins(m, f, v)
+	}
+	if v := f.get("box"); v != nil {
+		d.boundaryBox(m, f, v)
+	}
+}
+
+// margins decodes boundary.margins: box side -> margin, each a multiple of
+// the model's largest dimension like margin, which the sides not listed
+// keep.
+func (d *decoder) margins(m *Model, f *fields, v *yaml.Node) {
+	b := &m.Boundary
+	if b.Shape == "circle" {
+		d.fail(f.key["margins"], f.sub("margins"), "margins applies to a box boundary only; remove it or use shape: box")
+		return
+	}
+	mf, _ := d.mapping(v, f.sub("margins"), boxSides, "box side -> margin")
+	if mf == nil {
+		return
+	}
+	b.Margins = map[string]float64{}
+	for _, k := range mf.keys {
+		switch {
+		case k == "left" && m.Geometry == Axisymmetric:
+			d.fail(mf.key[k], mf.sub(k), "in an axisymmetric model the left side is the axis r = 0 and has no margin; remove it")
+			continue
+		case b.Sides[k] != "":
+			d.fail(mf.key[k], mf.sub(k), "the %s side is a symmetry side (boundary.sides.%s) lying on the model's extent, without margin; remove one of the two", k, k)
+			continue
+		}
+		if x, ok := d.positive(mf.val[k], mf.sub(k), "a side's margin (a multiple of the model's largest dimension)"); ok {
+			b.Margins[k] = x
+		}
+	}
+}
+
+// boundaryBox decodes boundary.box: the box's corners in file units, in
+// place of margins. That the regions lie inside it is checked in validate.
+func (d *decoder) boundaryBox(m *Model, f *fields, v *yaml.Node) {
+	b := &m.Boundary
+	path := f.sub("box")
+	if b.Shape == "circle" {
+		d.fail(f.key["box"], path, "box applies to a box boundary only; remove it or use shape: box")
+		return
+	}
+	for _, k := range []string{"margin", "margins"} {
+		if f.get(k) != nil {
+			d.fail(f.key[k], f.sub(k), "boundary.box places all four sides; remove %s (or remove box)", k)
+			return
+		}
+	}
+	c, ok := d.segment(v, path)
+	if !ok {
+		return
+	}
+	if !(c[0][0] < c[1][0] && c[0][1] < c[1][1]) {
+		d.fail(v, path, "a box is [[x0, y0], [x1, y1]] with its lower-left corner first (x0 < x1, y0 < y1), got %s to %s",
+			d.fmtPoint(c[0][0], c[0][1]), d.fmtPoint(c[1][0], c[1][1]))
+		return
+	}
+	if m.Geometry == Axisymmetric && c[0][0] != 0 {
+		d.fail(resolve(v).Content[0], index(path, 0), "in an axisymmetric model the box starts at the axis: x0 must be 0, got %s %s", d.fmtLen(c[0][0]), d.units)
+		return
+	}
+	b.Box = &c
+	b.boxPos = pos(resolve(v), path)
 }
 
 var meshKeys = []string{"size", "order", "min-angle", "grading", "chord", "accuracy", "refine"}

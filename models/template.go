@@ -18,6 +18,7 @@ type expansion struct {
 	refine    []Refine
 	target    *Target
 	materials []Material
+	boundary  Boundary // the template's default boundary; a boundary mapping in the file replaces it
 }
 
 // templateInfo describes one template: its geometry and its dimension keys.
@@ -137,6 +138,10 @@ func (d *decoder) template(m *Model, n, dimsNode, key *yaml.Node) *expansion {
 	if !t.ok {
 		return nil
 	}
+	// Every template is a magnet in open air: the default boundary is the
+	// open one (Kelvin transformation) on a circle at the default margin.
+	x.boundary = Boundary{Shape: "circle", Condition: "open", Pos: t.at}
+	x.boundary.Pos.Path = fmt.Sprintf("template (%s boundary)", name)
 	if d.generated == nil {
 		d.generated = map[string]bool{}
 	}

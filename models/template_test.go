@@ -239,3 +239,52 @@ target: {probe: extra, field: 0.1}
 	runErrCases(t, []errCase{{"overlaps template", bad,
 		`m.yaml:6:11: regions[0]: region "plate" overlaps region "back-leg" near (5, 0.0005) mm; regions may touch or share edges but not overlap (one inside another is an overlap too: cut a hole by splitting the outer region)`}})
 }
+
+// TestTemplateBoundary: every template defaults to the open boundary on a
+// circle at the default margin (the Kelvin transformation; a box held at
+// A = 0 one model size away leaves a finite solenoid's centre field
+// several per cent low, post/study TestSolenoidTemplateDefaults). A
+// boundary mapping in the file replaces the template's as a whole, and a
+// model without a template keeps the box.
+func TestTemplateBoundary(t *testing.T) {
+	sol := `units: mm
+template: solenoid
+dimensions: {inner-radius: 40, thickness: 50, length: 100, turns: 1000, current: 14}
+`
+	rp := `units: mm
+template: round-pole
+dimensions: {gap: 30, pole-diameter: 160, pole-height: 90, plate-thickness: 70, window-width: 90,
+  return-thickness: 60, coil-width: 70, coil-height: 70, clearance: 8, turns: 220, current: 32}
+`
+	hc := `units: mm
+depth: 100
+template: h-core
+dimensions: {gap: 40, pole-width: 200, pole-height: 80, yoke-thickness: 150, leg-width: 100,
+  window-width: 120, coil-width: 100, coil-height: 60, turns: 160, current: 100}
+`
+	open := Boundary{Shape: "circle", Margin: DefaultMargin, Condition: "open"}
+	box := Boundary{Shape: "box", Margin: DefaultMargin, Condition: "zero-potential"}
+	for _, c := range []struct {
+		name, src string
+		want      Boundary
+	}{
+		{"solenoid", sol, open},
+		{"round-pole", rp, open},
+		{"c-core", cCore, open},
+		{"h-core", hc, open},
+		{"solenoid, margin only", sol + "boundary: {margin: 2}\n", Boundary{Shape: "box", Margin: 2, Condition: "zero-potential"}},
+		{"c-core, box", cCore + "boundary: {shape: box, margin: 1.0, condition: zero-potential}\n", box},
+		{"c-core, open margin", cCore + "boundary: {shape: circle, margin: 0.5, condition: open}\n", Boundary{Shape: "circle", Margin: 0.5, Condition: "open"}},
+		{"no template", "units: mm\ndepth: 1\nregions: [{name: a, material: air, polygon: [[0, 0], [1, 0], [0, 1]]}]\n", box},
+	} {
+		m := mustParse(t, c.name, c.src)
+		got := m.Boundary
+		got.Pos = Pos{}
+		if got.Shape != c.want.Shape || got.Margin != c.want.Margin || got.Condition != c.want.Condition || got.Sides != nil {
+			t.Errorf("%s: boundary %+v, want %+v", c.name, got, c.want)
+		}
+		if c.want.Condition == "open" && m.Boundary.Pos.Line == 0 {
+			t.Errorf("%s: the boundary has no position for messages", c.name)
+		}
+	}
+}

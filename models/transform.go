@@ -37,6 +37,16 @@ func (m *Model) Clone() *Model {
 			c.Boundary.Sides[k] = v
 		}
 	}
+	if m.Boundary.Margins != nil {
+		c.Boundary.Margins = make(map[string]float64, len(m.Boundary.Margins))
+		for k, v := range m.Boundary.Margins {
+			c.Boundary.Margins[k] = v
+		}
+	}
+	if m.Boundary.Box != nil {
+		bx := *m.Boundary.Box
+		c.Boundary.Box = &bx
+	}
 	if m.Target != nil {
 		t := *m.Target
 		c.Target = &t

@@ -105,6 +105,22 @@ func (d *decoder) validate(m *Model) {
 		}
 	}
 
+	// An explicit boundary box must hold every region.
+	if bx := m.Boundary.Box; bx != nil {
+		for i := range m.Regions {
+			r := &m.Regions[i]
+			if !valid[i] {
+				continue
+			}
+			x0, y0, x1, y1 := r.exactBounds()
+			if x0 < bx[0][0]-tol || y0 < bx[0][1]-tol || x1 > bx[1][0]+tol || y1 > bx[1][1]+tol {
+				d.failAt(m.Boundary.boxPos, "region %q reaches from %s to %s, outside the boundary box %s to %s; enlarge the box (or use margin)",
+					r.Name, d.fmtPoint(x0, y0), d.fmtPoint(x1, y1), d.fmtPoint(bx[0][0], bx[0][1]), d.fmtPoint(bx[1][0], bx[1][1]))
+				break
+			}
+		}
+	}
+
 	// Coils.
 	used := map[string]Pos{}
 	for i := range m.Coils {

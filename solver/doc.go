@@ -54,7 +54,8 @@
 // radius R about a point of the axis maps into a half-disk of radius R
 // about another point of the axis (shifted along z); list that region in
 // Problem.Exterior, whose reluctivity the solver scales by ρ'²/R², and
-// join the two rims with Identify (rim edges FluxNormal).
+// join the two rims with Identify (rim edges FluxNormal);
+// mesh.AddKelvinHalfDisk meshes that half-disk and pairs the rims.
 //
 // Solve runs Newton-Raphson with the exact tangent
 // K_t = K(ν) + 2 ν'(|B|²) (B·c_i)(B·c_j) and a backtracking line search;

@@ -71,6 +71,8 @@ func TestBadInputs(t *testing.T) {
 			[]string{"bh-file-empty.yaml:7:3: materials.steel: ", "bh-empty.csv: the table is empty"}},
 		{"axisymmetric r < 0", []string{"solve", "axisymmetric-negative-r.yaml"}, 1,
 			[]string{`axisymmetric-negative-r.yaml:11:15: regions[0].polygon[0]: region "core" reaches r = -5`, "the axis is x = 0"}},
+		{"boundary box cutting a region", []string{"solve", "box-cuts-region.yaml"}, 1,
+			[]string{`box-cuts-region.yaml:23:17: boundary.box: region "core" reaches from (0, 0) mm to (100, 20) mm, outside the boundary box`, "enlarge the box"}},
 		{"too fine for memory", []string{"solve", "too-fine.yaml"}, 1,
 			[]string{"too-fine.yaml:24:7: mesh: the mesh would need at least ", "over the limit of 20000000 triangles", "enlarge mesh.size (now 0.001 mm) at least"}},
 		{"target above the iron", []string{"size", "--field", "8T", "unreachable-field.yaml"}, 1,
@@ -112,7 +114,7 @@ func TestBadInputsEveryFileUsed(t *testing.T) {
 		"coil-side-zero-area.yaml": true, "zero-turns.yaml": true, "bh-empty.yaml": true, "bh-nonmonotone.yaml": true,
 		"bh-repeated-h.yaml": true, "bh-file-nonmonotone.yaml": true, "bh-file-bad-row.yaml": true,
 		"bh-file-empty.yaml": true, "axisymmetric-negative-r.yaml": true, "too-fine.yaml": true,
-		"unreachable-field.yaml": true,
+		"unreachable-field.yaml": true, "box-cuts-region.yaml": true,
 		// tables read by those models
 		"bh-nonmonotone.csv": true, "bh-bad-row.csv": true, "bh-empty.csv": true,
 		// TestBadMeasuredCSV

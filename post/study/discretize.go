@@ -16,8 +16,10 @@ type Discretization struct {
 	Input    *mesh.Input
 	Options  mesh.Options
 	Mesh     *mesh.Mesh
-	// Kelvin is the exterior disk of an open boundary, nil otherwise. Its
-	// triangles in Mesh carry KelvinTag(model).
+	// Kelvin is the exterior disk of an open boundary (a half disc on the
+	// axis in an axisymmetric model), nil otherwise. Its triangles in Mesh
+	// carry KelvinTag(model); fields there are those of the image problem,
+	// so Result.Field reports nothing outside the real boundary.
 	Kelvin *mesh.KelvinExterior
 
 	// outer is the model whose extent places the outer boundary: Model
@@ -172,11 +174,12 @@ func discretize(m, outer *models.Model, size func(x, y float64, region int32) fl
 }
 
 // openBoundary meshes the model to first order, appends the Kelvin
-// transformation's exterior disk and elevates both together.
+// transformation's exterior disk (a half disc on the axis in an
+// axisymmetric model) and elevates both together.
 func (d *Discretization) openBoundary() error {
 	m := d.Model
-	if m.Boundary.Shape != "circle" || m.Geometry != models.Planar {
-		return m.Errorf(m.Boundary.Pos, "the open boundary needs shape: circle in a planar model; for an axisymmetric model use zero-potential with a margin of 3 or more")
+	if m.Boundary.Shape != "circle" {
+		return m.Errorf(m.Boundary.Pos, "the open boundary needs shape: circle")
 	}
 	opt := d.Options
 	opt.Order = 1
@@ -185,7 +188,12 @@ func (d *Discretization) openBoundary() error {
 		return fmt.Errorf("%s: meshing: %w", m.File, err)
 	}
 	cx, cy, r := circle(d.outer)
-	k, err := mesh.AddKelvinDisk(inner, MarkerCircle, cx, cy, r, KelvinTag(m))
+	var k *mesh.KelvinExterior
+	if m.Geometry == models.Axisymmetric {
+		k, err = mesh.AddKelvinHalfDisk(inner, MarkerCircle, MarkerLeft, cy, r, KelvinTag(m))
+	} else {
+		k, err = mesh.AddKelvinDisk(inner, MarkerCircle, cx, cy, r, KelvinTag(m))
+	}
 	if err != nil {
 		return fmt.Errorf("%s: open boundary: %w", m.File, err)
 	}

@@ -23,7 +23,9 @@
 //
 // Region tags: 0 is the air around the model (the default region); model
 // region i (0-based, in file order) has tag i+1; the Kelvin disk of an open
-// boundary has KelvinTag. Edge markers: 1 on region interfaces,
+// boundary (a half disc on the axis in an axisymmetric model, whose
+// reluctivity the solver weights by ρ'²/R²) has KelvinTag. Result.Field
+// and the probes read only the real region inside the outer boundary. Edge markers: 1 on region interfaces,
 // MarkerLeft..MarkerTop on the sides of a box boundary, MarkerCircle on a
 // circular boundary.
 //

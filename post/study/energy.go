@@ -119,7 +119,7 @@ func glPanels(mat solver.Material, b0, b1 float64) float64 {
 
 // Energies returns the stored energy W and the co-energy W' of a solution
 // (J): planar values times the problem's Depth, axisymmetric ones over the
-// full revolution. It returns a *NotFiniteError if either is not finite.
+// full revolution, the exterior of an open boundary included. It returns a *NotFiniteError if either is not finite.
 func Energies(sol *solver.Solution) (w, wco float64, err error) {
 	if sol == nil || sol.Problem == nil || sol.Problem.Mesh == nil {
 		panic(errNilSolution)
@@ -134,15 +134,26 @@ func Energies(sol *solver.Solution) (w, wco float64, err error) {
 			bs[r] = breaks(mat)
 		}
 	}
+	// The Kelvin image of an axisymmetric open boundary holds the energy
+	// of the exterior with the weight ρ'²/R² (solver.Exterior).
+	ext := map[int32]solver.Exterior{}
+	for _, e := range p.Exterior {
+		ext[e.Region] = e
+	}
 	for t := 0; t < p.Mesh.NumTriangles(); t++ {
 		reg := p.Mesh.Region[t]
 		mat := p.Materials[reg]
+		ex, isExt := ext[reg]
 		var et, ct float64
 		for q := 0; q < nq; q++ {
 			pt := f.At(t, q)
 			e, c := energyDensity(mat, bs[reg], pt.Bx*pt.Bx+pt.By*pt.By)
-			et += pt.W * e
-			ct += pt.W * c
+			wt := pt.W
+			if isExt {
+				wt *= ((pt.X-ex.CX)*(pt.X-ex.CX) + (pt.Y-ex.CY)*(pt.Y-ex.CY)) / (ex.Radius * ex.Radius)
+			}
+			et += wt * e
+			ct += wt * c
 		}
 		sw.Add(et)
 		sc.Add(ct)

@@ -30,8 +30,10 @@ var SideMarker = map[string]int32{
 }
 
 // Boundary returns the outer boundary polygon of the model: a box or circle
-// around its extent with the model's margin, with sides declared in
-// boundary.sides (and the axis of an axisymmetric model) lying on the extent.
+// around its extent with the model's margin (per side for a box with
+// boundary.margins), with sides declared in boundary.sides (and the axis of
+// an axisymmetric model) lying on the extent; or the box the model gives
+// (boundary.box).
 func Boundary(m *models.Model) (mesh.Polygon, error) {
 	xmin, ymin, xmax, ymax := m.Extent()
 	dx, dy := xmax-xmin, ymax-ymin
@@ -45,7 +47,6 @@ func Boundary(m *models.Model) (mesh.Polygon, error) {
 		cx, cy, r := circle(m)
 		if axi {
 			// A half disc centred on the axis.
-			r = math.Hypot(xmax, 0.5*dy) + d
 			return mesh.Polygon{
 				X:           []float64{0, 0},
 				Y:           []float64{cy - r, cy + r},
@@ -64,7 +65,20 @@ func Boundary(m *models.Model) (mesh.Polygon, error) {
 		return p, nil
 	default: // box
 		side := func(name string) bool { _, ok := m.Boundary.Sides[name]; return ok }
-		x0, x1, y0, y1 := xmin-d, xmax+d, ymin-d, ymax+d
+		margin := func(name string) float64 {
+			if g, ok := m.Boundary.Margins[name]; ok {
+				return g * math.Max(dx, dy)
+			}
+			return d
+		}
+		x0, x1, y0, y1 := xmin-margin("left"), xmax+margin("right"), ymin-margin("bottom"), ymax+margin("top")
+		if b := m.Boundary.Box; b != nil {
+			x0, y0, x1, y1 = b[0][0], b[0][1], b[1][0], b[1][1]
+			if axi {
+				x0 = 0
+			}
+			return boxPolygon(x0, x1, y0, y1), nil
+		}
 		if side("left") || axi {
 			x0 = xmin
 		}
@@ -80,12 +94,17 @@ func Boundary(m *models.Model) (mesh.Polygon, error) {
 		if side("top") {
 			y1 = ymax
 		}
-		return mesh.Polygon{
-			X:           []float64{x0, x1, x1, x0},
-			Y:           []float64{y0, y0, y1, y1},
-			Region:      AirTag,
-			EdgeMarkers: []int32{MarkerBottom, MarkerRight, MarkerTop, MarkerLeft},
-		}, nil
+		return boxPolygon(x0, x1, y0, y1), nil
+	}
+}
+
+// boxPolygon returns the box boundary with its side markers.
+func boxPolygon(x0, x1, y0, y1 float64) mesh.Polygon {
+	return mesh.Polygon{
+		X:           []float64{x0, x1, x1, x0},
+		Y:           []float64{y0, y0, y1, y1},
+		Region:      AirTag,
+		EdgeMarkers: []int32{MarkerBottom, MarkerRight, MarkerTop, MarkerLeft},
 	}
 }
 
@@ -100,11 +119,16 @@ func Polygons(m *models.Model) []mesh.Polygon {
 }
 
 // circle returns the centre and radius of a circular boundary: centred on
-// the model's extent, the margin beyond its half diagonal.
+// the model's extent, the margin beyond its half diagonal. In an
+// axisymmetric model the circle is centred on the axis (cx = 0) at the
+// extent's mid-height, the margin beyond the extent's farthest corner.
 func circle(m *models.Model) (cx, cy, r float64) {
 	xmin, ymin, xmax, ymax := m.Extent()
 	dx, dy := xmax-xmin, ymax-ymin
 	d := m.Boundary.Margin * math.Max(dx, dy)
+	if m.Geometry == models.Axisymmetric {
+		return 0, 0.5 * (ymin + ymax), math.Hypot(xmax, 0.5*dy) + d
+	}
 	return 0.5 * (xmin + xmax), 0.5 * (ymin + ymax), 0.5*math.Hypot(dx, dy) + d
 }
 
@@ -147,8 +171,8 @@ func insideBoundary(m *models.Model, b mesh.Polygon) func(x, y float64) bool {
 		cx, cy, r := circle(m)
 		axi := m.Geometry == models.Axisymmetric
 		return func(x, y float64) bool {
-			if axi {
-				return x >= 0 && math.Hypot(x, y-cy) <= r*(1+1e-9)
+			if axi && x < 0 {
+				return false
 			}
 			return math.Hypot(x-cx, y-cy) <= r*(1+1e-9)
 		}

@@ -168,6 +168,13 @@ func newProblem(d *Discretization, src *sources) (*solver.Problem, error) {
 		p.Boundary[MarkerCircle] = solver.FluxNormal
 		p.Identify = d.Kelvin.Pairs
 		p.Fixed = []solver.NodeValue{{Node: d.Kelvin.Infinity, A: 0}}
+		if d.Kelvin.Half {
+			// Axisymmetric: the image of the space outside the sphere
+			// carries the reluctivity factor ρ'²/R² (solver.Exterior);
+			// the axis of both half discs holds A = 0.
+			p.Boundary[MarkerLeft] = solver.ZeroPotential
+			p.Exterior = []solver.Exterior{{Region: KelvinTag(m), CX: d.Kelvin.CX, CY: d.Kelvin.CY, Radius: d.Kelvin.Radius}}
+		}
 		return p, nil
 	}
 	cond, ok := Conditions[m.Boundary.Condition]

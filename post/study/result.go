@@ -53,15 +53,33 @@ func (r *Result) Probe(name string) (probes.Result, bool) {
 
 // Field returns the field the probes read: the solution itself for
 // second-order meshes, and the recovered (corner-averaged) flux density
-// for first-order ones, whose element values are constant.
+// for first-order ones, whose element values are constant. With an open
+// boundary it reports points outside the real boundary as outside the
+// mesh: the Kelvin disk there holds the image problem, not the field.
 func (r *Result) Field() probes.Field {
 	if r.field != nil {
 		return r.field
 	}
 	if r.Disc.Mesh.Order() == 2 {
 		r.field = r.Solution
-		return r.field
+	} else {
+		r.field = probes.NewRecovered(r.Solution, r.Study.patches(), r.ElementB(), r.Study.locator())
 	}
-	r.field = probes.NewRecovered(r.Solution, r.Study.patches(), r.ElementB(), r.Study.locator())
+	if r.Disc.Kelvin != nil {
+		r.field = realField{r.field, insideBoundary(r.Disc.outer, r.Disc.Boundary)}
+	}
 	return r.field
+}
+
+// realField is a field limited to the real region of an open boundary.
+type realField struct {
+	f      probes.Field
+	inside func(x, y float64) bool
+}
+
+func (f realField) At(x, y float64) (a, bx, by float64, ok bool) {
+	if !f.inside(x, y) {
+		return 0, 0, 0, false
+	}
+	return f.f.At(x, y)
 }
