@@ -62,35 +62,24 @@ func solveToAccuracy(env *Env, name string, m *models.Model, a accuracyFlags, so
 	if err != nil {
 		return nil, nil, nil, err
 	}
-	progress := func(r adapt.Round) {
+	opt := design.SolveOptions{Accuracy: target, Solver: so, Marking: adapt.Energy, Progress: func(r adapt.Round) {
 		if math.IsInf(r.Change, 1) {
 			fmt.Fprintf(env.Stderr, "polegap %s: mesh of %d nodes solved\n", name, r.Nodes)
 			return
 		}
 		fmt.Fprintf(env.Stderr, "polegap %s: refined to %d nodes: largest change %.2e (%s), asked %.0e\n", name, r.Nodes, r.Change, r.Worst, target)
-	}
-	var res *adapt.Result
+	}}
 	if *a.refineBy == "goal" {
-		res, err = adapt.Run(env.Ctx, m, adapt.Options{Accuracy: target, Marking: adapt.GoalOriented, Quantities: design.StopQuantities,
-			Study: study.Options{Solver: so}, Progress: progress})
-	} else {
-		res, err = design.Converge(env.Ctx, m, target, so, progress)
+		opt.Marking = adapt.GoalOriented
 	}
+	fine, coarse, acc, err = design.SolveAccurate(env.Ctx, m, opt)
 	if err != nil {
 		return nil, nil, nil, err
 	}
-	if err := env.Ctx.Err(); err != nil {
-		return nil, nil, nil, err
-	}
-	last := res.Rounds[len(res.Rounds)-1]
-	acc = &design.Accuracy{Target: target, Reached: res.Converged, Rounds: len(res.Rounds), Worst: last.Worst}
-	if !math.IsInf(last.Change, 1) {
-		acc.Change = last.Change
-	}
-	if !res.Converged {
+	if !acc.Reached {
 		fmt.Fprintf(env.Stderr, "polegap %s: refinement stopped at its round or node limit before every quantity changed by less than %g; the estimates say how far each can be trusted\n", name, target)
 	}
-	return res.Study, res.Previous, acc, nil
+	return fine, coarse, acc, nil
 }
 
 // designReport builds the design report of the final solve with the

@@ -4,6 +4,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"math"
 	"strings"
 
 	"polegap/internal/fileout"
@@ -52,6 +53,7 @@ the cautions printed with the result apply.`,
 		maxNI := quantity(fs, "max-ampere-turns", ampereTurns, "give up beyond this (default 5 × the ideal)")
 		csvOut := fs.String("csv", "", "write the winding options to this CSV file")
 		asJSON := fs.Bool("json", false, "print the result as JSON")
+		af := addAccuracyFlags(fs)
 		return func(env *Env, args []string) error {
 			m, err := modelArg(args)
 			if err != nil {
@@ -70,13 +72,31 @@ the cautions printed with the result apply.`,
 				return usagef("--wires: %v", err)
 			}
 			topt := target.Options{GapLength: m.Gap, MaxAmpereTurns: maxNI.SI(m)}
-			r, err := sweep.NewRunner(env.Ctx, m, *coilName, pname, solver.Options{})
+			fine, coarse, acc, err := solveToAccuracy(env, "size", m, af, solver.Options{})
+			if err != nil {
+				return err
+			}
+			r, err := sweep.NewRunnerFrom(fine, *coilName, pname)
 			if err != nil {
 				return err
 			}
 			res, err := target.Search(env.Ctx, r, bt, topt)
 			if err != nil {
 				return err
+			}
+			var niEst float64
+			if coarse != nil {
+				// The same search on the mesh before the last: the change of
+				// the answer is its error estimate.
+				rc, err := sweep.NewRunnerFrom(coarse, *coilName, pname)
+				if err != nil {
+					return err
+				}
+				cres, err := target.Search(env.Ctx, rc, bt, topt)
+				if err != nil {
+					return err
+				}
+				niEst = math.Abs(res.AmpereTurns - cres.AmpereTurns)
 			}
 			c := &m.Coils[0]
 			if *coilName != "" {
@@ -92,6 +112,7 @@ the cautions printed with the result apply.`,
 			}
 			opts := coil.Options(spec, table)
 			s := coil.NewSizing(m.Name, pname, &res, w, spec, opts)
+			s.AmpereTurnsEstimate, s.Accuracy = niEst, accuracyNote(acc)
 			if *csvOut != "" {
 				if err := fileout.Write(*csvOut, func(w io.Writer) error { return coil.WriteCSV(w, opts) }); err != nil {
 					return err

@@ -16,6 +16,8 @@ import (
 	"polegap/models"
 	"polegap/post/output/figure"
 	"polegap/post/output/plot"
+	"polegap/post/study"
+	"polegap/post/workflow/design"
 	"polegap/post/workflow/sweep"
 	"polegap/solver"
 )
@@ -55,6 +57,7 @@ job array can run a long sweep in parallel; join the shards' tables with
 		csvOut := fs.String("csv", "", "write the table to this CSV file")
 		png := fs.String("png", "", "draw the curve to this .png or .svg file")
 		shard := fs.String("shard", "", "run shard K of N (e.g. 2/8)")
+		af := addAccuracyFlags(fs)
 		return func(env *Env, args []string) error {
 			m, err := modelArg(args)
 			if err != nil {
@@ -72,9 +75,13 @@ job array can run a long sweep in parallel; join the shards' tables with
 			if gap.set {
 				opt.GapLength = gap.SI(m)
 			}
+			fine, coarse, acc, err := solveToAccuracy(env, "sweep", m, af, opt.Solver)
+			if err != nil {
+				return err
+			}
 			opt.Progress = newProgress(env.Stderr)
-			pts, runErr := sweep.Run(env.Ctx, m, opt)
-			meta := sweep.Meta{Model: m.Name, Probe: probeFor(m, *probe), Shard: *shard}
+			pts, runErr := sweepOn(env, fine, coarse, opt)
+			meta := sweep.Meta{Model: m.Name, Probe: probeFor(m, *probe), Shard: *shard, Accuracy: accuracyNote(acc)}
 			if runErr != nil {
 				meta.Partial = runErr.Error()
 			}
@@ -242,4 +249,44 @@ func progressBar(w io.Writer) func(done, total int, p sweep.Point) {
 			fmt.Fprintln(w)
 		}
 	}
+}
+
+// sweepOn runs the sweep on the final mesh of the adaptive refinement
+// and, when there is one, again on the mesh before it, whose difference
+// gives each point's error estimates (sweep.Estimate).
+func sweepOn(env *Env, fine, coarse *study.Result, opt sweep.Options) ([]sweep.Point, error) {
+	r, err := sweep.NewRunnerFrom(fine, opt.Coil, opt.Probe)
+	if err != nil {
+		return nil, err
+	}
+	pts, runErr := r.Sweep(env.Ctx, opt)
+	if runErr != nil || coarse == nil {
+		return pts, runErr
+	}
+	fmt.Fprintf(env.Stderr, "polegap sweep: the same points on the coarser mesh, for the error estimates\n")
+	rc, err := sweep.NewRunnerFrom(coarse, opt.Coil, opt.Probe)
+	if err != nil {
+		return pts, err
+	}
+	co := opt
+	co.Progress = nil
+	cpts, err := rc.Sweep(env.Ctx, co)
+	if err != nil {
+		return pts, err
+	}
+	sweep.Estimate(pts, cpts)
+	return pts, nil
+}
+
+// accuracyNote says in a line how converged a table's numbers are.
+func accuracyNote(a *design.Accuracy) string {
+	switch {
+	case a == nil:
+		return ""
+	case a.Target == 0:
+		return "quick mode, not converged, no estimates"
+	case a.Reached:
+		return fmt.Sprintf("%.0e relative reached at the model's currents after %d meshes; estimates per point from the mesh before", a.Target, a.Rounds)
+	}
+	return fmt.Sprintf("%.0e relative NOT reached at the model's currents (refinement limit, %d meshes); estimates per point from the mesh before", a.Target, a.Rounds)
 }

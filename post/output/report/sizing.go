@@ -14,6 +14,12 @@ func WriteSizing(w io.Writer, s *coil.Sizing) error {
 	ew.printf("needs       %.0f ampere-turns per winding (%d winding(s) in series), found in %d nonlinear solves\n", s.AmpereTurns, s.Windings, s.Solves)
 	ew.printf("            reached %.5f T; magnet efficiency %.1f %%; largest element |B| in the iron %.2f T\n", s.Field, 100*s.Efficiency, s.MaxIronB)
 	ew.printf("            with the model's turns that is %.4g A\n", s.Current)
+	if s.AmpereTurnsEstimate > 0 {
+		ew.printf("            ampere-turns ± %.2g (%.1e relative; change from the coarser mesh)\n", s.AmpereTurnsEstimate, s.AmpereTurnsEstimate/s.AmpereTurns)
+	}
+	if s.Accuracy != "" {
+		ew.printf("accuracy    %s\n", s.Accuracy)
+	}
 	ew.printf("window      radial build %.1f mm, height %.1f mm, mean turn %.0f mm; fill %.2f, copper at %.0f °C, %s cooling\n\n",
 		s.Window.Width, s.Window.Height, s.Window.MeanTurn, s.Spec.FillFactor, s.Spec.Temperature, s.Spec.Cooling)
 	if ew.err != nil {

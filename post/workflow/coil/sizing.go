@@ -8,25 +8,31 @@ import (
 // ampere-turns found by nonlinear solves and the windings that deliver
 // them in the model's coil window.
 type Sizing struct {
-	Model       string         `json:"model"`
-	Probe       string         `json:"probe"`
-	Target      float64        `json:"target_T"`
-	Reached     bool           `json:"reached"`
-	Field       float64        `json:"field_T"`
-	AmpereTurns float64        `json:"ampere_turns_per_winding"`
-	Windings    int            `json:"windings_in_series"`
-	Current     float64        `json:"model_turns_current_A"`
-	Efficiency  float64        `json:"efficiency"`
-	MaxIronB    float64        `json:"max_iron_B_T"`
-	Solves      int            `json:"solves"`
-	Limit       float64        `json:"ampere_turn_limit"`
-	Window      WindowReport   `json:"window"`
-	Options     []Option       `json:"options"`
-	Best        *Option        `json:"best,omitempty"`
-	NoneReason  string         `json:"none_meets_limits,omitempty"`
-	Cautions    []string       `json:"cautions"`
-	Spec        Spec           `json:"-"`
-	Result      *target.Result `json:"-"`
+	Model       string       `json:"model"`
+	Probe       string       `json:"probe"`
+	Target      float64      `json:"target_T"`
+	Reached     bool         `json:"reached"`
+	Field       float64      `json:"field_T"`
+	AmpereTurns float64      `json:"ampere_turns_per_winding"`
+	Windings    int          `json:"windings_in_series"`
+	Current     float64      `json:"model_turns_current_A"`
+	Efficiency  float64      `json:"efficiency"`
+	MaxIronB    float64      `json:"max_iron_B_T"`
+	Solves      int          `json:"solves"`
+	Limit       float64      `json:"ampere_turn_limit"`
+	Window      WindowReport `json:"window"`
+	Options     []Option     `json:"options"`
+	Best        *Option      `json:"best,omitempty"`
+	NoneReason  string       `json:"none_meets_limits,omitempty"`
+	Cautions    []string     `json:"cautions"`
+	// AmpereTurnsEstimate is the error estimate of AmpereTurns: the
+	// change of the answer between the last two meshes of the adaptive
+	// refinement (0 when not estimated); Accuracy says in a line how
+	// converged the solves are.
+	AmpereTurnsEstimate float64        `json:"ampere_turns_estimate,omitempty"`
+	Accuracy            string         `json:"accuracy,omitempty"`
+	Spec                Spec           `json:"-"`
+	Result              *target.Result `json:"-"`
 }
 
 // WindowReport is the coil window in millimetres.

@@ -11,7 +11,6 @@ import (
 	"polegap/post/workflow/design"
 	"polegap/post/workflow/sweep"
 	"polegap/post/workflow/target"
-	"polegap/solver"
 )
 
 // RunOptions control a full design run.
@@ -19,6 +18,11 @@ type RunOptions struct {
 	SweepPoints int          // default 20, from 1/SweepPoints to 2× the model's current
 	Cooling     coil.Cooling // for the coil sizing
 	Progress    func(stage string)
+	// Accuracy and Quick choose how far the solves are converged
+	// (design.SolveOptions): 0 and false refine to the model's
+	// mesh.accuracy, else design.DefaultAccuracy.
+	Accuracy float64
+	Quick    bool
 }
 
 // Run is a full design run of one model: the solve with its design
@@ -44,12 +48,16 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 			opt.Progress(s)
 		}
 	}
-	say("solving")
-	s, err := study.Run(m, study.Options{Solver: solver.Options{Context: ctx}})
+	say("solving and refining the mesh until every quantity converges")
+	s, coarse, acc, err := design.SolveAccurate(ctx, m, design.SolveOptions{Accuracy: opt.Accuracy, Quick: opt.Quick})
 	if err != nil {
 		return nil, err
 	}
 	r := design.New(s, design.DesignOptions{Incremental: true})
+	r.Accuracy = acc
+	if coarse != nil {
+		r.SetEstimates(design.New(coarse, design.DesignOptions{Incremental: true}))
+	}
 	b := &Run{Result: s, Report: r, When: time.Now()}
 	b.Check = check.NewCheck(s, r.Design, check.CheckOptions{})
 	// One runner on the solved mesh serves the curve and the target
@@ -76,6 +84,19 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 			return nil, err
 		}
 		b.Sweep = pts
+		if coarse != nil {
+			// The same curve on the mesh before the last, for the
+			// estimates of each point.
+			rc, err := sweep.NewRunnerFrom(coarse, "", "")
+			if err != nil {
+				return nil, err
+			}
+			cpts, err := rc.Sweep(ctx, sweep.Options{Currents: sweep.Range(hi/float64(opt.SweepPoints), hi, opt.SweepPoints), GapLength: m.Gap})
+			if err != nil {
+				return nil, err
+			}
+			sweep.Estimate(b.Sweep, cpts)
+		}
 	}
 	if m.Target != nil && len(m.Coils) > 0 {
 		say("finding the ampere-turns for the target")

@@ -36,6 +36,60 @@ type Accuracy struct {
 	Worst  string  `json:"largest_change_of,omitempty"`
 }
 
+// SolveOptions control SolveAccurate. The zero value refines to the
+// model's mesh.accuracy, else DefaultAccuracy, with energy marking.
+type SolveOptions struct {
+	Accuracy float64 // relative; 0: the model's mesh.accuracy, else DefaultAccuracy
+	Quick    bool    // one solve on the model's mesh, no estimate
+	Marking  adapt.Marking
+	Solver   solver.Options
+	Progress func(adapt.Round)
+}
+
+// SolveAccurate solves m to the accuracy asked for (Converge, or with
+// Marking adapt.GoalOriented refinement for the probe field) and returns
+// the final solve, the one on the mesh before it (nil in quick mode or
+// after a single round) and the record of the refinement.
+func SolveAccurate(ctx context.Context, m *models.Model, opt SolveOptions) (fine, coarse *study.Result, acc *Accuracy, err error) {
+	if opt.Quick {
+		so := opt.Solver
+		if so.Context == nil {
+			so.Context = ctx
+		}
+		s, err := study.Run(m, study.Options{Solver: so})
+		if err != nil {
+			return nil, nil, nil, err
+		}
+		return s, nil, &Accuracy{Rounds: 1}, nil
+	}
+	target := opt.Accuracy
+	if target == 0 {
+		target = m.Mesh.Accuracy
+	}
+	if target == 0 {
+		target = DefaultAccuracy
+	}
+	res, err := adapt.Run(ctx, m, adapt.Options{
+		Accuracy:   target,
+		Marking:    opt.Marking,
+		Quantities: StopQuantities,
+		Study:      study.Options{Solver: opt.Solver},
+		Progress:   opt.Progress,
+	})
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	if err := ctx.Err(); err != nil {
+		return nil, nil, nil, err
+	}
+	last := res.Rounds[len(res.Rounds)-1]
+	acc = &Accuracy{Target: target, Reached: res.Converged, Rounds: len(res.Rounds), Worst: last.Worst}
+	if !math.IsInf(last.Change, 1) {
+		acc.Change = last.Change
+	}
+	return res.Study, res.Previous, acc, nil
+}
+
 // Converge solves m by adaptive refinement (adapt.Run with energy
 // marking, which refines where the field's error is largest and so serves
 // every quantity at once) until every quantity StopQuantities lists

@@ -28,6 +28,10 @@ type Point struct {
 	Incremental float64 // H, dλ/dI from the neighbouring points (0 with fewer than 2 points)
 	Iterations  int     // Newton steps
 	Residual    float64 // final relative residual
+	// Error estimates (absolute) of Field, Energy and Linkage: the change
+	// from the same point solved on the coarser mesh before the final one
+	// of the adaptive refinement (Estimate); 0 when not estimated.
+	FieldEstimate, EnergyEstimate, LinkageEstimate float64
 }
 
 // Options control a sweep.
@@ -418,4 +422,21 @@ func Select(total, k, n int) []int {
 		out = append(out, i)
 	}
 	return out
+}
+
+// Estimate sets the error estimates of the points solved on the final
+// mesh from the same points solved on the mesh before it: the absolute
+// difference of each quantity (see design.Report.SetEstimates for why
+// the change between the last two adaptive meshes estimates the error of
+// the last). The two lists must hold the same currents in the same order;
+// points without a partner keep no estimate.
+func Estimate(fine, coarse []Point) {
+	for i := range fine {
+		if i >= len(coarse) || coarse[i].Index != fine[i].Index || coarse[i].Current != fine[i].Current {
+			continue
+		}
+		fine[i].FieldEstimate = math.Abs(fine[i].Field - coarse[i].Field)
+		fine[i].EnergyEstimate = math.Abs(fine[i].Energy - coarse[i].Energy)
+		fine[i].LinkageEstimate = math.Abs(fine[i].Linkage - coarse[i].Linkage)
+	}
 }

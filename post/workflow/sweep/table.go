@@ -16,7 +16,12 @@ import (
 
 // Columns is the header of an excitation-curve table, units in the names.
 var Columns = []string{"index", "current_A", "ampere_turns", "field_T", "efficiency",
-	"max_iron_B_T", "energy_J", "flux_linkage_Wb", "L_apparent_H", "L_incremental_H", "iterations", "residual"}
+	"max_iron_B_T", "energy_J", "flux_linkage_Wb", "L_apparent_H", "L_incremental_H", "iterations", "residual",
+	"field_estimate_T", "energy_estimate_J", "flux_linkage_estimate_Wb"}
+
+// oldColumns is the header of tables written before the estimates were
+// added; ReadCSV still reads them (estimates zero).
+var oldColumns = Columns[:12]
 
 // Meta is the comment block at the top of a table.
 type Meta struct {
@@ -24,6 +29,8 @@ type Meta struct {
 	Probe   string
 	Shard   string // "k/n" or ""
 	Partial string // why the table is incomplete, or ""
+	// Accuracy says in a line how converged the numbers are, or "".
+	Accuracy string
 }
 
 // WriteCSV writes the points as CSV with a comment block ("# key: value"
@@ -37,12 +44,17 @@ func WriteCSV(w io.Writer, meta Meta, pts []Point) error {
 	if meta.Partial != "" {
 		fmt.Fprintf(bw, "# partial: %s\n", meta.Partial)
 	}
+	if meta.Accuracy != "" {
+		fmt.Fprintf(bw, "# accuracy: %s\n", meta.Accuracy)
+	}
 	cw := csv.NewWriter(bw)
 	cw.Write(Columns)
 	for _, p := range pts {
 		row := []string{strconv.Itoa(p.Index), g(p.Current), g(p.AmpereTurns), g(p.Field), g(p.Efficiency),
-			g(p.MaxIronB), g(p.Energy), g(p.Linkage), g(p.Apparent), g(p.Incremental), strconv.Itoa(p.Iterations), g(p.Residual)}
-		for _, v := range []float64{p.Current, p.AmpereTurns, p.Field, p.Efficiency, p.MaxIronB, p.Energy, p.Linkage, p.Apparent, p.Incremental, p.Residual} {
+			g(p.MaxIronB), g(p.Energy), g(p.Linkage), g(p.Apparent), g(p.Incremental), strconv.Itoa(p.Iterations), g(p.Residual),
+			g(p.FieldEstimate), g(p.EnergyEstimate), g(p.LinkageEstimate)}
+		for _, v := range []float64{p.Current, p.AmpereTurns, p.Field, p.Efficiency, p.MaxIronB, p.Energy, p.Linkage, p.Apparent, p.Incremental, p.Residual,
+			p.FieldEstimate, p.EnergyEstimate, p.LinkageEstimate} {
 			if math.IsNaN(v) || math.IsInf(v, 0) {
 				return fmt.Errorf("sweep: point %d has a non-finite value", p.Index+1)
 			}
@@ -76,8 +88,12 @@ func ReadCSV(r io.Reader, name string) (Meta, []Point, error) {
 	if err != nil && err != io.EOF {
 		return Meta{}, nil, readErr(err)
 	}
-	meta := Meta{Model: cr.Meta["model"], Probe: cr.Meta["probe"], Shard: cr.Meta["shard"], Partial: cr.Meta["partial"]}
-	if err == io.EOF || strings.Join(header, ",") != strings.Join(Columns, ",") {
+	meta := Meta{Model: cr.Meta["model"], Probe: cr.Meta["probe"], Shard: cr.Meta["shard"], Partial: cr.Meta["partial"], Accuracy: cr.Meta["accuracy"]}
+	ncol := len(Columns)
+	if err == nil && strings.Join(header, ",") == strings.Join(oldColumns, ",") {
+		ncol = len(oldColumns)
+	}
+	if err == io.EOF || strings.Join(header, ",") != strings.Join(Columns[:ncol], ",") {
 		return meta, nil, fmt.Errorf("%s: not an excitation-curve table: the header must be %s", name, strings.Join(Columns, ","))
 	}
 	var pts []Point
@@ -89,8 +105,8 @@ func ReadCSV(r io.Reader, name string) (Meta, []Point, error) {
 		if err != nil {
 			return meta, nil, readErr(err)
 		}
-		if len(row) != len(Columns) {
-			return meta, nil, fmt.Errorf("%s:%d: the row has %d columns, want %d", name, cr.Line(), len(row), len(Columns))
+		if len(row) != ncol {
+			return meta, nil, fmt.Errorf("%s:%d: the row has %d columns, want %d", name, cr.Line(), len(row), ncol)
 		}
 		var p Point
 		var perr error
@@ -112,6 +128,9 @@ func ReadCSV(r io.Reader, name string) (Meta, []Point, error) {
 		p.Current, p.AmpereTurns, p.Field, p.Efficiency = num(row[1]), num(row[2]), num(row[3]), num(row[4])
 		p.MaxIronB, p.Energy, p.Linkage, p.Apparent = num(row[5]), num(row[6]), num(row[7]), num(row[8])
 		p.Incremental, p.Iterations, p.Residual = num(row[9]), in(row[10]), num(row[11])
+		if ncol == len(Columns) {
+			p.FieldEstimate, p.EnergyEstimate, p.LinkageEstimate = num(row[12]), num(row[13]), num(row[14])
+		}
 		if perr != nil {
 			return meta, nil, fmt.Errorf("%s:%d: %v", name, cr.Line(), perr)
 		}
