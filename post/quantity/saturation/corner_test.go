@@ -91,3 +91,93 @@ func TestCornerMaximumIsMeshDependent(t *testing.T) {
 		t.Errorf("maximum away from corners changed by %.3g, want <= 6 %%", d)
 	}
 }
+
+// The corners of outlines with straight edges and arcs, in either
+// orientation, and with a mirror line.
+func TestCorners(t *testing.T) {
+	reverse := func(p mesh.Polygon) mesh.Polygon {
+		n := len(p.X)
+		q := mesh.Polygon{X: make([]float64, n), Y: make([]float64, n)}
+		if p.Sweep != nil {
+			q.Sweep = make([]float64, n)
+		}
+		for i := range n {
+			q.X[n-1-i], q.Y[n-1-i] = p.X[i], p.Y[i]
+			if p.Sweep != nil {
+				// edge i (i -> i+1) becomes edge n-2-i, run the other way
+				q.Sweep[(2*n-2-i)%n] = -p.Sweep[i]
+			}
+		}
+		return q
+	}
+	// A square with a concave quarter-circle bite of radius 1 about
+	// (2, 2), chorded in 18 steps of 5°.
+	bx, by := []float64{0, 2, 2}, []float64{0, 0, 1}
+	for k := 1; k <= 18; k++ {
+		a := math.Pi / 2 * float64(k) / 18
+		bx = append(bx, 2-math.Sin(a))
+		by = append(by, 2-math.Cos(a))
+	}
+	bx, by = append(bx, 0), append(by, 2)
+	axis := []Line{{X0: 0, Y0: -1, X1: 0, Y1: 1}}
+	for _, c := range []struct {
+		name string
+		p    mesh.Polygon
+		opt  CornerOptions
+		want [][2]float64
+	}{
+		// Convex and re-entrant alike.
+		{"L", mesh.Polygon{X: []float64{0, 2, 2, 1, 1, 0}, Y: []float64{0, 0, 1, 1, 2, 2}}, CornerOptions{},
+			[][2]float64{{0, 0}, {2, 0}, {2, 1}, {1, 1}, {1, 2}, {0, 2}}},
+		// A straight joint (5° and 0° turns) is no corner.
+		{"joints", mesh.Polygon{X: []float64{0, 1, 2, 2 + math.Cos(5*math.Pi/180)*2, 0}, Y: []float64{0, 0, 0, math.Sin(5*math.Pi/180) * 2, 2}}, CornerOptions{},
+			[][2]float64{{0, 0}, {2 + math.Cos(5*math.Pi/180)*2, math.Sin(5*math.Pi/180) * 2}, {0, 2}}},
+		// The bite as an arc: its ends are corners (90° turns there).
+		{"arc bite", mesh.Polygon{X: []float64{0, 2, 2, 1, 0}, Y: []float64{0, 0, 1, 2, 2}, Sweep: []float64{0, 0, -math.Pi / 2, 0, 0}}, CornerOptions{},
+			[][2]float64{{0, 0}, {2, 0}, {2, 1}, {1, 2}, {0, 2}}},
+		// The bite as chords: the joints turn by 5°, only the ends count.
+		{"chorded bite", mesh.Polygon{X: bx, Y: by}, CornerOptions{},
+			[][2]float64{{0, 0}, {2, 0}, {2, 1}, {1, 2}, {0, 2}}},
+		// A rounded corner meets its edges tangentially; its ends count
+		// all the same (arc ends are corners by definition).
+		{"rounded", mesh.Polygon{X: []float64{0, 1, 1, 0.8, 0}, Y: []float64{0, 0, 0.8, 1, 1}, Sweep: []float64{0, 0, math.Pi / 2, 0, 0}}, CornerOptions{},
+			[][2]float64{{0, 0}, {1, 0}, {1, 0.8}, {0.8, 1}, {0, 1}}},
+		// A pole piece on the axis of an axisymmetric model: its face
+		// meets the axis at 90°, a flat disc in the solid, no corner.
+		{"on the axis", mesh.Polygon{X: []float64{0, 1, 1, 0}, Y: []float64{0, 0, 2, 2}}, CornerOptions{Mirrors: axis},
+			[][2]float64{{1, 0}, {1, 2}}},
+		// A cone on the axis, tip at the origin: 45° to the axis, a 90°
+		// tip in the solid; its base meets the axis at 90°.
+		{"cone", mesh.Polygon{X: []float64{0, 1, 0}, Y: []float64{0, 1, 1}}, CornerOptions{Mirrors: axis},
+			[][2]float64{{0, 0}, {1, 1}}},
+		// With a 2° threshold the 17 inner joints of the chords count.
+		{"chorded bite 2°", mesh.Polygon{X: bx, Y: by}, CornerOptions{MinTurn: 2}, nil},
+	} {
+		for _, rev := range []bool{false, true} {
+			p := c.p
+			if rev {
+				p = reverse(p)
+			}
+			got := Corners(p, c.opt)
+			if c.want == nil {
+				if len(got) != 22 {
+					t.Errorf("%s (reversed %v): %d corners, want 22", c.name, rev, len(got))
+				}
+				continue
+			}
+			if len(got) != len(c.want) {
+				t.Errorf("%s (reversed %v): %v, want %v", c.name, rev, got, c.want)
+				continue
+			}
+			for _, w := range c.want {
+				found := false
+				for _, g := range got {
+					found = found || g == w
+				}
+				if !found {
+					t.Errorf("%s (reversed %v): %v lacks %v", c.name, rev, got, w)
+				}
+			}
+		}
+	}
+}

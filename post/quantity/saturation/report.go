@@ -230,16 +230,11 @@ func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Op
 // babs returns |B|; flux densities are far from overflow, so no Hypot.
 func babs(v [2]float64) float64 { return math.Sqrt(v[0]*v[0] + v[1]*v[1]) }
 
-// DefaultMinTurn is the least turn, in degrees, that makes a polygon
-// vertex a re-entrant corner for ReentrantCorners: interior angles of
-// 180° to 190° (chords of a concave arc, nearly straight joints) carry a
-// weak singularity r^(π/α − 1) with exponent above −0.06 and are skipped.
-const DefaultMinTurn = 10.0
-
 // ReentrantCorners returns the vertices of the polygon (x, y) (either
 // orientation, first vertex not repeated) whose interior angle exceeds
 // 180° + minTurn degrees (0 means DefaultMinTurn): the corners where the
-// field inside a highly permeable region is singular. The orientation of
+// field inside a highly permeable region is singular. Corners finds the
+// convex ones too. The orientation of
 // each vertex is decided by mesh.Orient2D. It panics if the polygon has
 // fewer than 3 vertices or minTurn is outside [0, 180).
 func ReentrantCorners(x, y []float64, minTurn float64) [][2]float64 {
