@@ -53,22 +53,27 @@ func cCoreB(t *testing.T, corner float64) (*mesh.Mesh, [][2]float64) {
 }
 
 // Refining the mesh at the window's re-entrant corners eightfold raises
-// the raw maximum, which sits at a corner (|B| ~ r^(−1/3) there: the
-// field at a corner of angle 3π/2 in highly permeable iron, from the
-// local solution r^(π/α) of Laplace's equation in a wedge of angle α; e.g.
-// J. D. Jackson, "Classical Electrodynamics", 3rd ed. 1998, section 2.11).
-// The corner element's centroid sits at about h/3, so the maximum should
-// grow by about 8^(1/3) = 2 (measured: 2.0); at least 1.5 is asserted.
-// The maximum away from the corners (beyond the default radius, 5 % of
-// √area ≈ 8.6 mm) changes far less: it sits in the first triangles
-// outside that circle, where |B| still falls like r^(−1/3), and their
-// centroids lie up to about a third of the local size (≈ 1.5 mm with the
-// 0.3 grading) beyond it, so it can move by (1 + 1.5/8.6)^(1/3) − 1 ≈
-// 5.5 % between meshes (measured: 2.1 %); 6 % is asserted.
+// the raw maximum, which sits at a corner: near a corner of interior angle
+// α the potential goes as r^(π/α) and the field as r^(π/α − 1), r^(−1/3)
+// at a 90° notch of highly permeable iron (α = 3π/2 on the iron side; J.
+// Meixner, "The behavior of electromagnetic fields at edges", IEEE Trans.
+// Antennas Propag. 20(4), 1972, pp. 442-446; J. D. Jackson, "Classical
+// Electrodynamics", 3rd ed. 1998, section 2.11, for the 2D wedge; both
+// from memory). The corner element's centroid sits at about h/3, so the
+// maximum should grow by about 8^(1/3) = 2 (measured: 2.0); at least 1.5
+// is asserted.
+//
+// The peak, the mean over a disc, converges: |B| ~ r^(−1/3) is
+// integrable, and the corner elements' share of the disc's integral
+// falls as (h/R)^(5/3) (area h² times a field of h^(−1/3), against R²
+// times R^(−1/3)). With R = 10 mm (the default: 1/20 of the 0.2 m core)
+// and h = 2 mm the share is about 7 %, and the first-order elements get
+// a good part of it right: the peak moved by 0.11 % (measured); 1 % is
+// asserted, against a raw maximum that doubles.
 func TestCornerMaximumIsMeshDependent(t *testing.T) {
-	corners := ReentrantCorners(yokeX, yokeY, 0)
-	if len(corners) != 4 {
-		t.Fatalf("C-core re-entrant corners: %v, want the 4 window corners", corners)
+	corners := Corners(mesh.Polygon{X: yokeX, Y: yokeY}, CornerOptions{})
+	if len(corners) != len(yokeX) {
+		t.Fatalf("C-core corners: %v, want all %d vertices", corners, len(yokeX))
 	}
 	var reps [2]Report
 	for i, h := range []float64{0.002, 0.00025} {
@@ -78,8 +83,8 @@ func TestCornerMaximumIsMeshDependent(t *testing.T) {
 			t.Fatal(err)
 		}
 		reps[i] = r[0]
-		t.Logf("corner size %g m: max %.4f T at %v (corner %v), away %.4f T at %v, mean %.4f T, radius %.4f m",
-			h, r[0].Max, r[0].MaxAt, r[0].MaxAtCorner, r[0].MaxAway, r[0].MaxAwayAt, r[0].Mean, r[0].CornerRadius)
+		t.Logf("corner size %g m: max %.4f T at %v (corner %v), peak %.4f T at %v, mean %.4f T, radius %.4f m",
+			h, r[0].Max, r[0].MaxAt, r[0].MaxAtCorner, r[0].Peak, r[0].PeakAt, r[0].Mean, r[0].Radius)
 	}
 	if !reps[0].MaxAtCorner || !reps[1].MaxAtCorner {
 		t.Errorf("raw maxima not flagged at a corner: %v, %v", reps[0].MaxAtCorner, reps[1].MaxAtCorner)
@@ -87,8 +92,8 @@ func TestCornerMaximumIsMeshDependent(t *testing.T) {
 	if g := reps[1].Max / reps[0].Max; g < 1.5 {
 		t.Errorf("raw maximum grew by %.3g under 8x corner refinement, want >= 1.5", g)
 	}
-	if d := math.Abs(reps[1].MaxAway/reps[0].MaxAway - 1); d > 0.06 {
-		t.Errorf("maximum away from corners changed by %.3g, want <= 6 %%", d)
+	if d := math.Abs(reps[1].Peak/reps[0].Peak - 1); d > 0.01 {
+		t.Errorf("peak changed by %.3g, want <= 1 %%", d)
 	}
 }
 
