@@ -28,10 +28,11 @@ across the pole face, the field uniformity (the half-width within 1e-3 and
 fringing (factor, effective width w + 2kg, effective gap), each coil's
 flux linkage and apparent and incremental inductance, stored energy and
 co-energy, and the saturation of each iron region (mean |B|, the area
-above the knee of its curve, the largest |B| away from re-entrant
-corners, where the raw maximum is mesh-dependent). With --json it prints the same as JSON: "mesh" {nodes,
-triangles}, "newton" {iterations, residual, converged}, and "probes" keyed
-by name (point probes give a, bx, by and b in tesla).
+above the knee of its curve, the peak: the largest mean |B| over a disc
+of the printed radius, and the raw maximum, which is mesh-dependent).
+With --json it prints the same as JSON: "mesh" {nodes, triangles},
+"newton" {iterations, residual, converged}, and "probes" keyed by name
+(point probes give a, bx, by and b in tesla).
 
 --accuracy R refines the mesh adaptively and re-solves until the probe
 field changes by less than R between rounds, then reports on the last
@@ -48,7 +49,7 @@ with status 1; no result is reported for it.`,
 		alias(fs, "tol", "tolerance")
 		maxIter := fs.Int("max-iterations", 30, "limit on Newton steps")
 		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png or .svg file")
-		satLimit := quantity(fs, "saturation-limit", field, "flag iron regions whose |B| away from corners exceeds this (e.g. 1.8T)")
+		satLimit := quantity(fs, "saturation-limit", field, "flag iron regions whose peak |B| exceeds this (e.g. 1.8T)")
 		accuracy := fs.Float64("accuracy", 0, "refine the mesh adaptively until the probe field changes by less than this between rounds (e.g. 1e-4)")
 		refineBy := fs.String("refine-by", "goal", "with --accuracy: goal (weighted by the probe's dual solution) or energy (the field's own error)")
 		vw := fs.Bool("virtual-work", false, "also compute the forces on the model's parts by virtual work (more solves)")

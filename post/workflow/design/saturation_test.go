@@ -37,7 +37,8 @@ func refined(m *models.Model, k int) *models.Model {
 // the 2D wedge; both from memory): each halving of the elements there
 // raises it (by 4^(1/3) − 1 = 59 % over two halvings in linear iron,
 // less where the corner saturates; measured 0.4 % on the holding magnet's
-// plate, whose corners see little flux, to 37 % on the solenoid's poles),
+// plate, whose corners see little flux, to 49 % on the relaxometry
+// magnet's return yoke),
 // whereas |B| averaged over a disc converges: r^(−1/3) is integrable, the
 // corner elements' share of the disc's integral falls as (h/R)^(5/3).
 // Measured changes of the peak: at most 0.69 % (the bench dipole's upper
