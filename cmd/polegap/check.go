@@ -12,14 +12,18 @@ import (
 var cmdCheck = &Command{
 	UsageLine: "check [--saturation-limit B] [--tolerance T --half-width LENGTH] [--json] MODEL",
 	Short:     "check saturation, target field and field quality: exit 0 pass, 1 fail, 2 error",
-	Long: `Check solves the model and checks it against requirements: the largest
-|B| of each iron region away from re-entrant corners against a limit
-(--saturation-limit for all, or by default where the region's own curve
-has fallen to μr = 100), the field at the target probe against the
+	Long: `Check solves the model and checks it against requirements: the peak |B|
+of each iron region (the largest mean |B| over a disc of radius half the
+gap, at least 1/40 of the iron's size, printed with the result) against a
+limit (--saturation-limit for all, or by default where the region's own
+curve has fallen to μr = 100), the field at the target probe against the
 model's target, and, with --tolerance and --half-width, that the field
 stays within the tolerance of its centre value over ±half-width along the
 mid-plane line probe. A --half-width without a unit is in the model's
-units. The fringing factor is printed for information.
+units. The fringing factor is printed for information. The raw largest
+|B| of each region is printed in the note but never checked: it sits at a
+corner of the iron, where it grows without bound as the mesh is refined,
+whereas the peak converges.
 
 The numbers checked are converged first, as solve converges them
 (--accuracy, else the model's mesh.accuracy, else 1e-3; --quick for a
@@ -29,7 +33,7 @@ The exit status is 0 when every check passes, 1 when one fails and 2 on
 an error (a bad model, a solve that did not converge), so that scripts
 can use it.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
-		satLimit := quantity(fs, "saturation-limit", field, "limit on |B| in the iron (e.g. 1.8T); default per curve")
+		satLimit := quantity(fs, "saturation-limit", field, "limit on the peak |B| of each iron region (e.g. 1.8T); default per curve")
 		tol := fs.Float64("tolerance", 0, "field-uniformity tolerance |ΔB/B0| (1e-3 or 1e-4)")
 		half := quantity(fs, "half-width", length, "half-width over which the tolerance must hold (e.g. 30mm)")
 		half.metresBefore = true

@@ -25,10 +25,11 @@ across the pole face, the field uniformity (the half-width within 1e-3 and
 fringing (factor, effective width w + 2kg, effective gap), each coil's
 flux linkage and apparent and incremental inductance, stored energy and
 co-energy, and the saturation of each iron region (mean |B|, the area
-above the knee of its curve, the largest |B| away from re-entrant
-corners, where the raw maximum is mesh-dependent). With --json it prints the same as JSON: "mesh" {nodes,
-triangles}, "newton" {iterations, residual, converged}, and "probes" keyed
-by name (point probes give a, bx, by and b in tesla).
+above the knee of its curve, the peak: the largest mean |B| over a disc
+of the printed radius, and the raw maximum, which is mesh-dependent).
+With --json it prints the same as JSON: "mesh" {nodes, triangles},
+"newton" {iterations, residual, converged}, and "probes" keyed by name
+(point probes give a, bx, by and b in tesla).
 
 Every number is converged: the mesh is refined adaptively and the model
 solved again until each reported quantity (gap field, pole-face mean,
@@ -51,7 +52,7 @@ with status 1; no result is reported for it.`,
 		alias(fs, "tol", "tolerance")
 		maxIter := fs.Int("max-iterations", 30, "limit on Newton steps")
 		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png or .svg file")
-		satLimit := quantity(fs, "saturation-limit", field, "flag iron regions whose |B| away from corners exceeds this (e.g. 1.8T)")
+		satLimit := quantity(fs, "saturation-limit", field, "flag iron regions whose peak |B| exceeds this (e.g. 1.8T)")
 		af := addAccuracyFlags(fs)
 		vw := fs.Bool("virtual-work", false, "also compute the forces on the model's parts by virtual work (more solves)")
 		vtuPath := fs.String("vtu", "", "write the solution (A, B, |B|, H, μr, region) to this VTK .vtu file")

@@ -51,7 +51,7 @@ func writeAccuracy(ew *errWriter, r *design.Report) {
 // every estimate.
 func shownEstimate(k string) bool {
 	for _, s := range []string{"centre_B_T", "pole_face_mean_By_T", "fringing_factor", "flux_linkage_Wb", "apparent_inductance_H",
-		"incremental_inductance_H", "stored_J", "coenergy_J", "mean_B_T", "max_B_away", "maxwell_stress_N", "virtual_work_N"} {
+		"incremental_inductance_H", "stored_J", "coenergy_J", "mean_B_T", "peak_disc_mean_B_T", "maxwell_stress_N", "virtual_work_N"} {
 		if strings.Contains(k, s) {
 			return !strings.HasPrefix(k, "energy_j")
 		}

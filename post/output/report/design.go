@@ -36,17 +36,19 @@ func writeDesign(ew *errWriter, d *design.Design) {
 	}
 	ew.printf("energy     stored %.5g J, co-energy %.5g J\n", d.Energy.Energy, d.Energy.CoEnergy)
 	if len(d.Saturation) > 0 {
-		ew.printf("\n%-16s %8s %8s %12s %14s %12s\n", "iron region", "knee T", "mean T", "above knee", "max away T", "max raw T")
+		ew.printf("\n%-16s %8s %8s %12s %10s %12s\n", "iron region", "knee T", "mean T", "above knee", "peak T", "max raw T")
 		for _, s := range d.Saturation {
 			flag := ""
 			if s.MaxAtCorner {
-				flag = " (corner: mesh-dependent)"
+				flag = " (at a corner)"
 			}
 			if s.Limit > 0 && !s.Pass {
 				flag += "  OVER LIMIT"
 			}
-			ew.printf("%-16s %8.2f %8.3f %11.1f%% %14.3f %12.3f%s\n", s.Region, s.Knee, s.Mean, 100*s.AboveKnee, s.MaxAway, s.Max, flag)
+			ew.printf("%-16s %8.2f %8.3f %11.1f%% %10.3f %12.3f%s\n", s.Region, s.Knee, s.Mean, 100*s.AboveKnee, s.Peak, s.Max, flag)
 		}
+		ew.printf("peak T: largest mean |B| over a disc of radius %.3g mm in the region; limits apply to it\n"+
+			"max raw T: largest element value, mesh-dependent (grows without bound at corners); never checked\n", d.Saturation[0].Radius*1e3)
 	}
 	for _, f := range d.Forces {
 		if f.Error != "" {

@@ -53,22 +53,27 @@ func cCoreB(t *testing.T, corner float64) (*mesh.Mesh, [][2]float64) {
 }
 
 // Refining the mesh at the window's re-entrant corners eightfold raises
-// the raw maximum, which sits at a corner (|B| ~ r^(−1/3) there: the
-// field at a corner of angle 3π/2 in highly permeable iron, from the
-// local solution r^(π/α) of Laplace's equation in a wedge of angle α; e.g.
-// J. D. Jackson, "Classical Electrodynamics", 3rd ed. 1998, section 2.11).
-// The corner element's centroid sits at about h/3, so the maximum should
-// grow by about 8^(1/3) = 2 (measured: 2.0); at least 1.5 is asserted.
-// The maximum away from the corners (beyond the default radius, 5 % of
-// √area ≈ 8.6 mm) changes far less: it sits in the first triangles
-// outside that circle, where |B| still falls like r^(−1/3), and their
-// centroids lie up to about a third of the local size (≈ 1.5 mm with the
-// 0.3 grading) beyond it, so it can move by (1 + 1.5/8.6)^(1/3) − 1 ≈
-// 5.5 % between meshes (measured: 2.1 %); 6 % is asserted.
+// the raw maximum, which sits at a corner: near a corner of interior angle
+// α the potential goes as r^(π/α) and the field as r^(π/α − 1), r^(−1/3)
+// at a 90° notch of highly permeable iron (α = 3π/2 on the iron side; J.
+// Meixner, "The behavior of electromagnetic fields at edges", IEEE Trans.
+// Antennas Propag. 20(4), 1972, pp. 442-446; J. D. Jackson, "Classical
+// Electrodynamics", 3rd ed. 1998, section 2.11, for the 2D wedge; both
+// from memory). The corner element's centroid sits at about h/3, so the
+// maximum should grow by about 8^(1/3) = 2 (measured: 2.0); at least 1.5
+// is asserted.
+//
+// The peak, the mean over a disc, converges: |B| ~ r^(−1/3) is
+// integrable, and the corner elements' share of the disc's integral
+// falls as (h/R)^(5/3) (area h² times a field of h^(−1/3), against R²
+// times R^(−1/3)). With R = 10 mm (the default: 1/20 of the 0.2 m core)
+// and h = 2 mm the share is about 7 %, and the first-order elements get
+// a good part of it right: the peak moved by 0.11 % (measured); 1 % is
+// asserted, against a raw maximum that doubles.
 func TestCornerMaximumIsMeshDependent(t *testing.T) {
-	corners := ReentrantCorners(yokeX, yokeY, 0)
-	if len(corners) != 4 {
-		t.Fatalf("C-core re-entrant corners: %v, want the 4 window corners", corners)
+	corners := Corners(mesh.Polygon{X: yokeX, Y: yokeY}, CornerOptions{})
+	if len(corners) != len(yokeX) {
+		t.Fatalf("C-core corners: %v, want all %d vertices", corners, len(yokeX))
 	}
 	var reps [2]Report
 	for i, h := range []float64{0.002, 0.00025} {
@@ -78,8 +83,8 @@ func TestCornerMaximumIsMeshDependent(t *testing.T) {
 			t.Fatal(err)
 		}
 		reps[i] = r[0]
-		t.Logf("corner size %g m: max %.4f T at %v (corner %v), away %.4f T at %v, mean %.4f T, radius %.4f m",
-			h, r[0].Max, r[0].MaxAt, r[0].MaxAtCorner, r[0].MaxAway, r[0].MaxAwayAt, r[0].Mean, r[0].CornerRadius)
+		t.Logf("corner size %g m: max %.4f T at %v (corner %v), peak %.4f T at %v, mean %.4f T, radius %.4f m",
+			h, r[0].Max, r[0].MaxAt, r[0].MaxAtCorner, r[0].Peak, r[0].PeakAt, r[0].Mean, r[0].Radius)
 	}
 	if !reps[0].MaxAtCorner || !reps[1].MaxAtCorner {
 		t.Errorf("raw maxima not flagged at a corner: %v, %v", reps[0].MaxAtCorner, reps[1].MaxAtCorner)
@@ -87,7 +92,97 @@ func TestCornerMaximumIsMeshDependent(t *testing.T) {
 	if g := reps[1].Max / reps[0].Max; g < 1.5 {
 		t.Errorf("raw maximum grew by %.3g under 8x corner refinement, want >= 1.5", g)
 	}
-	if d := math.Abs(reps[1].MaxAway/reps[0].MaxAway - 1); d > 0.06 {
-		t.Errorf("maximum away from corners changed by %.3g, want <= 6 %%", d)
+	if d := math.Abs(reps[1].Peak/reps[0].Peak - 1); d > 0.01 {
+		t.Errorf("peak changed by %.3g, want <= 1 %%", d)
+	}
+}
+
+// The corners of outlines with straight edges and arcs, in either
+// orientation, and with a mirror line.
+func TestCorners(t *testing.T) {
+	reverse := func(p mesh.Polygon) mesh.Polygon {
+		n := len(p.X)
+		q := mesh.Polygon{X: make([]float64, n), Y: make([]float64, n)}
+		if p.Sweep != nil {
+			q.Sweep = make([]float64, n)
+		}
+		for i := range n {
+			q.X[n-1-i], q.Y[n-1-i] = p.X[i], p.Y[i]
+			if p.Sweep != nil {
+				// edge i (i -> i+1) becomes edge n-2-i, run the other way
+				q.Sweep[(2*n-2-i)%n] = -p.Sweep[i]
+			}
+		}
+		return q
+	}
+	// A square with a concave quarter-circle bite of radius 1 about
+	// (2, 2), chorded in 18 steps of 5°.
+	bx, by := []float64{0, 2, 2}, []float64{0, 0, 1}
+	for k := 1; k <= 18; k++ {
+		a := math.Pi / 2 * float64(k) / 18
+		bx = append(bx, 2-math.Sin(a))
+		by = append(by, 2-math.Cos(a))
+	}
+	bx, by = append(bx, 0), append(by, 2)
+	axis := []Line{{X0: 0, Y0: -1, X1: 0, Y1: 1}}
+	for _, c := range []struct {
+		name string
+		p    mesh.Polygon
+		opt  CornerOptions
+		want [][2]float64
+	}{
+		// Convex and re-entrant alike.
+		{"L", mesh.Polygon{X: []float64{0, 2, 2, 1, 1, 0}, Y: []float64{0, 0, 1, 1, 2, 2}}, CornerOptions{},
+			[][2]float64{{0, 0}, {2, 0}, {2, 1}, {1, 1}, {1, 2}, {0, 2}}},
+		// A straight joint (5° and 0° turns) is no corner.
+		{"joints", mesh.Polygon{X: []float64{0, 1, 2, 2 + math.Cos(5*math.Pi/180)*2, 0}, Y: []float64{0, 0, 0, math.Sin(5*math.Pi/180) * 2, 2}}, CornerOptions{},
+			[][2]float64{{0, 0}, {2 + math.Cos(5*math.Pi/180)*2, math.Sin(5*math.Pi/180) * 2}, {0, 2}}},
+		// The bite as an arc: its ends are corners (90° turns there).
+		{"arc bite", mesh.Polygon{X: []float64{0, 2, 2, 1, 0}, Y: []float64{0, 0, 1, 2, 2}, Sweep: []float64{0, 0, -math.Pi / 2, 0, 0}}, CornerOptions{},
+			[][2]float64{{0, 0}, {2, 0}, {2, 1}, {1, 2}, {0, 2}}},
+		// The bite as chords: the joints turn by 5°, only the ends count.
+		{"chorded bite", mesh.Polygon{X: bx, Y: by}, CornerOptions{},
+			[][2]float64{{0, 0}, {2, 0}, {2, 1}, {1, 2}, {0, 2}}},
+		// A rounded corner meets its edges tangentially; its ends count
+		// all the same (arc ends are corners by definition).
+		{"rounded", mesh.Polygon{X: []float64{0, 1, 1, 0.8, 0}, Y: []float64{0, 0, 0.8, 1, 1}, Sweep: []float64{0, 0, math.Pi / 2, 0, 0}}, CornerOptions{},
+			[][2]float64{{0, 0}, {1, 0}, {1, 0.8}, {0.8, 1}, {0, 1}}},
+		// A pole piece on the axis of an axisymmetric model: its face
+		// meets the axis at 90°, a flat disc in the solid, no corner.
+		{"on the axis", mesh.Polygon{X: []float64{0, 1, 1, 0}, Y: []float64{0, 0, 2, 2}}, CornerOptions{Mirrors: axis},
+			[][2]float64{{1, 0}, {1, 2}}},
+		// A cone on the axis, tip at the origin: 45° to the axis, a 90°
+		// tip in the solid; its base meets the axis at 90°.
+		{"cone", mesh.Polygon{X: []float64{0, 1, 0}, Y: []float64{0, 1, 1}}, CornerOptions{Mirrors: axis},
+			[][2]float64{{0, 0}, {1, 1}}},
+		// With a 2° threshold the 17 inner joints of the chords count.
+		{"chorded bite 2°", mesh.Polygon{X: bx, Y: by}, CornerOptions{MinTurn: 2}, nil},
+	} {
+		for _, rev := range []bool{false, true} {
+			p := c.p
+			if rev {
+				p = reverse(p)
+			}
+			got := Corners(p, c.opt)
+			if c.want == nil {
+				if len(got) != 22 {
+					t.Errorf("%s (reversed %v): %d corners, want 22", c.name, rev, len(got))
+				}
+				continue
+			}
+			if len(got) != len(c.want) {
+				t.Errorf("%s (reversed %v): %v, want %v", c.name, rev, got, c.want)
+				continue
+			}
+			for _, w := range c.want {
+				found := false
+				for _, g := range got {
+					found = found || g == w
+				}
+				if !found {
+					t.Errorf("%s (reversed %v): %v lacks %v", c.name, rev, got, w)
+				}
+			}
+		}
 	}
 }

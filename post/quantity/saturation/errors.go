@@ -6,7 +6,7 @@ import "fmt"
 const (
 	errBLen       = "saturation: one flux density per triangle needed"
 	errNoCurve    = "saturation: Region needs a Curve or a Knee"
-	errNegative   = "saturation: negative corner radius, limit or level"
+	errNegative   = "saturation: negative radius, gap, limit or level"
 	errNilMesh    = "saturation: nil mesh"
 	errPolygonLen = "saturation: polygon needs len(x) == len(y) >= 3"
 	errMinTurn    = "saturation: minimum turn must be in [0, 180) degrees"

@@ -7,10 +7,13 @@ import (
 	"polegap/mesh"
 )
 
-// DefaultCornerFraction sets the default corner radius: this fraction of
-// the square root of the region's area (our choice; see the package
-// documentation).
-const DefaultCornerFraction = 0.05
+// Default disc radius of Peak (our choice; see the package
+// documentation): GapFraction of the model's gap, but at least
+// SizeFraction of the iron's size.
+const (
+	GapFraction  = 0.5   // a disc one gap across
+	SizeFraction = 0.025 // of the longer side of the box around the iron
+)
 
 // Region is one iron region to report on.
 type Region struct {
@@ -21,18 +24,28 @@ type Region struct {
 	// Knee, T, overrides the curve's knee as the level of AboveKnee.
 	Knee float64
 	// Corners are the points near which the raw maximum is
-	// mesh-dependent: the region's re-entrant corners (ReentrantCorners).
+	// mesh-dependent: the geometric corners of the iron (Corners).
 	Corners [][2]float64
-	// Limit, T, is the largest acceptable MaxAway; 0 means no check.
+	// Limit, T, is the largest acceptable Peak; 0 means no check.
 	Limit float64
 }
 
 // Options control Analyse. The zero value uses the defaults.
 type Options struct {
-	// CornerRadius, m, is the distance from a corner within which
-	// triangles are left out of MaxAway; 0 means DefaultCornerFraction
-	// times the square root of the region's area.
-	CornerRadius float64
+	// Radius, m, is the radius of the discs over which Peak averages
+	// |B|. 0 means the default: the larger of GapFraction × Gap and
+	// SizeFraction × the iron's size, the longer side of the box around
+	// the triangles of all the regions asked for.
+	Radius float64
+	// Gap, m, is the model's air gap, 0 when it has none; it only sets
+	// the default Radius.
+	Gap float64
+	// LinearB optionally gives each triangle's own flux density at its
+	// three corners (T, in the order of the corners in m.Tri), for
+	// elements whose field varies linearly (second order): Peak then
+	// integrates that linear field. nil treats B as constant (b) in each
+	// triangle. The raw maximum, the mean and the fractions use b alone.
+	LinearB [][3][2]float64
 	// Levels are further flux densities (T) at which to report the
 	// area fraction above.
 	Levels []float64
@@ -51,31 +64,30 @@ type Report struct {
 	Triangles int
 	Area      float64 // m²
 
+	// Peak is the largest mean |B| (T) over a disc of radius Radius (m)
+	// centred in the region, at PeakAt, the disc clipped to the region:
+	// the figure that converges as the mesh is refined, and the one the
+	// limit is checked against.
+	Peak   float64
+	PeakAt [2]float64
+	Radius float64
+
 	// Max is the largest |B| (T) of any triangle, at the centroid MaxAt
-	// of triangle MaxTriangle. When MaxAtCorner is true it lies within
-	// CornerRadius of a re-entrant corner, where |B| grows without bound
-	// under refinement (~ r^(−1/3) at a 90° notch): a mesh-dependent
-	// number, not a property of the magnet.
+	// of triangle MaxTriangle: a mesh-dependent number when it sits at a
+	// corner, where |B| grows without bound under refinement (~ r^(−1/3)
+	// at a 90° corner). MaxAtCorner is true when MaxAt lies within Radius
+	// of a listed corner.
 	Max         float64
 	MaxAt       [2]float64
 	MaxTriangle int
 	MaxAtCorner bool
-
-	// MaxAway is the largest |B| (T) over triangles whose centroid lies
-	// farther than CornerRadius (m) from every corner, at MaxAwayAt; it
-	// equals Max when no corner is listed. AwayTriangles counts those
-	// triangles (0: every triangle is near a corner, MaxAway is 0).
-	MaxAway       float64
-	MaxAwayAt     [2]float64
-	AwayTriangles int
-	CornerRadius  float64
 
 	Mean      float64 // area-weighted mean |B|, T
 	Knee      float64 // T
 	AboveKnee float64 // area fraction with |B| > Knee
 	Levels    []Level
 
-	// Limit (T, 0 for none) and Pass: MaxAway <= Limit.
+	// Limit (T, 0 for none) and Pass: Peak <= Limit.
 	Limit float64
 	Pass  bool
 }
@@ -91,8 +103,11 @@ func Analyse(m *mesh.Mesh, b [][2]float64, regions []Region, opt Options) ([]Rep
 	if len(b) != nt {
 		panic(errBLen)
 	}
-	if opt.CornerRadius < 0 {
+	if opt.Radius < 0 || opt.Gap < 0 {
 		panic(errNegative)
+	}
+	if opt.LinearB != nil && len(opt.LinearB) != nt {
+		panic(errBLen)
 	}
 	for _, l := range opt.Levels {
 		if l < 0 {
@@ -103,6 +118,15 @@ func Analyse(m *mesh.Mesh, b [][2]float64, regions []Region, opt Options) ([]Rep
 		for _, v := range b[t] {
 			if math.IsNaN(v) || math.IsInf(v, 0) {
 				return nil, &NonFiniteError{What: "B", Triangle: t, Value: v}
+			}
+		}
+	}
+	for t := range opt.LinearB {
+		for _, c := range opt.LinearB[t] {
+			for _, v := range c {
+				if math.IsNaN(v) || math.IsInf(v, 0) {
+					return nil, &NonFiniteError{What: "B", Triangle: t, Value: v}
+				}
 			}
 		}
 	}
@@ -141,6 +165,9 @@ func Analyse(m *mesh.Mesh, b [][2]float64, regions []Region, opt Options) ([]Rep
 		if r >= 0 && want[r] >= 0 {
 			tris[want[r]] = append(tris[want[r]], int32(t))
 		}
+	}
+	if opt.Radius == 0 {
+		opt.Radius = defaultRadius(m, tris, opt.Gap)
 	}
 	out := make([]Report, len(regions))
 	for i := range regions {
@@ -182,14 +209,11 @@ func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Op
 	total := totalS.Value()
 	rep.Area = total
 	rep.Mean = sumS.Value() / total
-	rep.CornerRadius = opt.CornerRadius
-	if rep.CornerRadius == 0 {
-		rep.CornerRadius = DefaultCornerFraction * math.Sqrt(total)
-	}
+	rep.Radius = opt.Radius
 	rep.Levels = make([]Level, len(opt.Levels))
 	var above compsum.Sum
 	aboveL := make([]compsum.Sum, len(opt.Levels))
-	rad2 := rep.CornerRadius * rep.CornerRadius
+	rad2 := rep.Radius * rep.Radius
 	rep.Max = -1
 	for j, t := range tris {
 		v := mag[j]
@@ -201,76 +225,40 @@ func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Op
 				aboveL[k].Add(area[j])
 			}
 		}
-		near := false
-		for _, c := range r.Corners {
-			dx, dy := cx[j]-c[0], cy[j]-c[1]
-			if dx*dx+dy*dy <= rad2 {
-				near = true
-				break
-			}
-		}
 		if v > rep.Max {
-			rep.Max, rep.MaxAt, rep.MaxTriangle, rep.MaxAtCorner = v, [2]float64{cx[j], cy[j]}, int(t), near
+			rep.Max, rep.MaxAt, rep.MaxTriangle = v, [2]float64{cx[j], cy[j]}, int(t)
 		}
-		if !near {
-			rep.AwayTriangles++
-			if v > rep.MaxAway || rep.AwayTriangles == 1 {
-				rep.MaxAway, rep.MaxAwayAt = v, [2]float64{cx[j], cy[j]}
-			}
-		}
+	}
+	for _, c := range r.Corners {
+		dx, dy := rep.MaxAt[0]-c[0], rep.MaxAt[1]-c[1]
+		rep.MaxAtCorner = rep.MaxAtCorner || dx*dx+dy*dy <= rad2
 	}
 	rep.AboveKnee = above.Value() / total
 	for k, l := range opt.Levels {
 		rep.Levels[k] = Level{B: l, Fraction: aboveL[k].Value() / total}
 	}
-	rep.Pass = r.Limit == 0 || rep.MaxAway <= r.Limit
+	g := newDiscGrid(m, tris, mag, area, opt.LinearB, rep.Radius)
+	seeds := append(append(make([][2]float64, 0, len(r.Corners)+1), r.Corners...), rep.MaxAt)
+	rep.Peak, rep.PeakAt = g.peak(rep.Radius, seeds)
+	rep.Pass = r.Limit == 0 || rep.Peak <= r.Limit
 	return rep, nil
 }
 
 // babs returns |B|; flux densities are far from overflow, so no Hypot.
 func babs(v [2]float64) float64 { return math.Sqrt(v[0]*v[0] + v[1]*v[1]) }
 
-// DefaultMinTurn is the least turn, in degrees, that makes a polygon
-// vertex a re-entrant corner for ReentrantCorners: interior angles of
-// 180° to 190° (chords of a concave arc, nearly straight joints) carry a
-// weak singularity r^(π/α − 1) with exponent above −0.06 and are skipped.
-const DefaultMinTurn = 10.0
-
-// ReentrantCorners returns the vertices of the polygon (x, y) (either
-// orientation, first vertex not repeated) whose interior angle exceeds
-// 180° + minTurn degrees (0 means DefaultMinTurn): the corners where the
-// field inside a highly permeable region is singular. The orientation of
-// each vertex is decided by mesh.Orient2D. It panics if the polygon has
-// fewer than 3 vertices or minTurn is outside [0, 180).
-func ReentrantCorners(x, y []float64, minTurn float64) [][2]float64 {
-	n := len(x)
-	if n != len(y) || n < 3 {
-		panic(errPolygonLen)
-	}
-	if !(minTurn >= 0 && minTurn < 180) {
-		panic(errMinTurn)
-	}
-	if minTurn == 0 {
-		minTurn = DefaultMinTurn
-	}
-	ccw := mesh.PolygonArea(x, y) > 0
-	cosMax := math.Cos(minTurn * math.Pi / 180)
-	var out [][2]float64
-	for i := range n {
-		p, q := (i+n-1)%n, (i+1)%n
-		o := mesh.Orient2D(x[p], y[p], x[i], y[i], x[q], y[q])
-		// A right turn on a counter-clockwise polygon is a reflex vertex.
-		reflex := (ccw && o == mesh.CW) || (!ccw && o == mesh.CCW)
-		if !reflex {
-			continue
-		}
-		// The turn angle between the incoming and outgoing edges.
-		ux, uy := x[i]-x[p], y[i]-y[p]
-		vx, vy := x[q]-x[i], y[q]-y[i]
-		cos := (ux*vx + uy*vy) / (math.Hypot(ux, uy) * math.Hypot(vx, vy))
-		if cos < cosMax {
-			out = append(out, [2]float64{x[i], y[i]})
+// defaultRadius returns the default disc radius (see Options.Radius) for
+// the triangles tris of m.
+func defaultRadius(m *mesh.Mesh, tris [][]int32, gap float64) float64 {
+	xmin, ymin, xmax, ymax := math.Inf(1), math.Inf(1), math.Inf(-1), math.Inf(-1)
+	for _, ts := range tris {
+		for _, t := range ts {
+			for k := 0; k < 3; k++ {
+				v := m.Tri[3*int(t)+k]
+				xmin, xmax = min(xmin, m.X[v]), max(xmax, m.X[v])
+				ymin, ymax = min(ymin, m.Y[v]), max(ymax, m.Y[v])
+			}
 		}
 	}
-	return out
+	return max(GapFraction*gap, SizeFraction*max(xmax-xmin, ymax-ymin, 0))
 }

@@ -92,17 +92,25 @@ func TestAreaFractionHandMesh(t *testing.T) {
 	}
 	exact("yoke area", y.Area, 1.5)
 	exact("yoke above knee", y.AboveKnee, 1)
-	if y.Pass || y.MaxAway != 2 {
+	if y.Pass || y.Peak != 2 {
 		t.Errorf("yoke over its limit: %+v", y)
 	}
-	// A corner at (0, 0): triangle 0's centroid (1/3, 1/3) lies within
-	// 0.5 of it, triangle 1's (4/3, 1/3) does not.
+	// A corner at (0, 0) and a high field in triangle 0: its centroid
+	// (1/3, 1/3) lies 0.47 from the corner, within a radius of 0.5 but
+	// not of 0.2. The quarter disc about the corner (a seed of the
+	// search) lies wholly in triangle 0 for either radius (it reaches
+	// x + y = r√2 < 1), so the peak is that triangle's 5 T.
 	regs[0].Corners = [][2]float64{{0, 0}}
-	b[0] = [2]float64{0, 5} // a corner peak
-	reps, _ = Analyse(m, b, regs[:1], Options{CornerRadius: 0.5})
-	p = reps[0]
-	if p.Max != 5 || !p.MaxAtCorner || p.MaxAway != 1.7 || p.AwayTriangles != 1 || !p.Pass {
-		t.Errorf("corner peak: %+v", p)
+	b[0] = [2]float64{0, 5}
+	for _, c := range []struct {
+		radius float64
+		near   bool
+	}{{0.5, true}, {0.2, false}} {
+		reps, _ = Analyse(m, b, regs[:1], Options{Radius: c.radius})
+		p = reps[0]
+		if p.Max != 5 || p.MaxAtCorner != c.near || math.Abs(p.Peak-5) > 1e-14 || p.Pass || p.Radius != c.radius {
+			t.Errorf("corner peak, radius %g: %+v", c.radius, p)
+		}
 	}
 }
 
@@ -141,51 +149,20 @@ func TestUniformExact(t *testing.T) {
 		// few ulps (4e-16 relative asserted; the area's triangle areas
 		// each carry one rounding of their own).
 		if math.Abs(rp.Area-0.0024) > 4e-16*0.0024*float64(rp.Triangles) ||
-			math.Abs(rp.Mean-1.5) > 4e-16*1.5 || rp.Max != 1.5 || rp.MaxAway != 1.5 ||
+			math.Abs(rp.Mean-1.5) > 4e-16*1.5 || rp.Max != 1.5 || math.Abs(rp.Peak-1.5) > 4e-16*1.5*float64(rp.Triangles) ||
 			rp.AboveKnee != c.above || rp.Pass != c.pass || rp.MaxAtCorner {
 			t.Errorf("knee %g limit %g: %+v", c.knee, c.limit, rp)
 		}
-		if want := DefaultCornerFraction * math.Sqrt(rp.Area); rp.CornerRadius != want {
-			t.Errorf("default corner radius %g, want %g", rp.CornerRadius, want)
+		// The default radius: no gap, so SizeFraction of the region's
+		// longer side (0.06 m); the box's corners are exact in binary
+		// to within one rounding each.
+		if want := SizeFraction * 0.06; math.Abs(rp.Radius-want) > 1e-16 {
+			t.Errorf("default radius %g, want %g", rp.Radius, want)
 		}
 	}
 }
 
 const frohlichKnee = -1 // marker for the case that uses the curve
-
-// The re-entrant corners of an L-shaped polygon, either orientation, and
-// the chords of a concave arc (turns of 5°) are not corners.
-func TestReentrantCorners(t *testing.T) {
-	x := []float64{0, 2, 2, 1, 1, 0}
-	y := []float64{0, 0, 1, 1, 2, 2}
-	got := ReentrantCorners(x, y, 0)
-	if len(got) != 1 || got[0] != [2]float64{1, 1} {
-		t.Errorf("L, counter-clockwise: %v, want [[1 1]]", got)
-	}
-	rx, ry := make([]float64, len(x)), make([]float64, len(y))
-	for i := range x {
-		rx[len(x)-1-i], ry[len(y)-1-i] = x[i], y[i]
-	}
-	if got := ReentrantCorners(rx, ry, 0); len(got) != 1 || got[0] != [2]float64{1, 1} {
-		t.Errorf("L, clockwise: %v, want [[1 1]]", got)
-	}
-	// A square with a concave quarter-circle bite of 18 chords (5° turns).
-	px, py := []float64{0, 2, 2}, []float64{0, 0, 1}
-	for k := 1; k <= 18; k++ {
-		a := math.Pi / 2 * float64(k) / 18
-		px = append(px, 2-math.Sin(a))
-		py = append(py, 2-math.Cos(a))
-	}
-	px, py = append(px, 0), append(py, 2)
-	got = ReentrantCorners(px, py, 0)
-	if len(got) != 0 {
-		t.Errorf("concave arc: %v, want none", got)
-	}
-	// With a 2° threshold the 17 inner chord joints count.
-	if got := ReentrantCorners(px, py, 2); len(got) != 17 {
-		t.Errorf("concave arc, 2° threshold: %d corners, want 17", len(got))
-	}
-}
 
 func TestMisuse(t *testing.T) {
 	m := handMesh()
@@ -193,7 +170,14 @@ func TestMisuse(t *testing.T) {
 		"short B":   func() { Analyse(m, nil, nil, Options{}) },
 		"no curve":  func() { Analyse(m, make([][2]float64, 3), []Region{{Tag: 1}}, Options{}) },
 		"neg limit": func() { Analyse(m, make([][2]float64, 3), []Region{{Tag: 1, Knee: 1, Limit: -1}}, Options{}) },
-		"polygon":   func() { ReentrantCorners([]float64{0, 1}, []float64{0, 1}, 0) },
+		"polygon":   func() { Corners(mesh.Polygon{X: []float64{0, 1}, Y: []float64{0, 1}}, CornerOptions{}) },
+		"min turn": func() {
+			Corners(mesh.Polygon{X: []float64{0, 1, 0}, Y: []float64{0, 0, 1}}, CornerOptions{MinTurn: 180})
+		},
+		"LinearB": func() {
+			Analyse(m, make([][2]float64, 3), []Region{{Tag: 1, Knee: 1}}, Options{LinearB: make([][3][2]float64, 2)})
+		},
+		"neg gap": func() { Analyse(m, make([][2]float64, 3), []Region{{Tag: 1, Knee: 1}}, Options{Gap: -1}) },
 	} {
 		func() {
 			defer func() {

@@ -109,8 +109,9 @@ func Converge(ctx context.Context, m *models.Model, acc float64, so solver.Optio
 // StopQuantities returns the quantities adaptive refinement must
 // converge, by their path in the report's JSON: the gap-centre field and
 // the pole-face mean, the fringing factor and gap flux, each coil's flux
-// linkage, the stored energy and co-energy, each iron region's mean |B|,
-// the magnitude of each force, and
+// linkage, the stored energy and co-energy, each iron region's mean |B|
+// and its peak (the largest mean |B| over a disc, which converges), the
+// magnitude of each force, and
 // |B| at every point probe. Components that may be near zero (Bx at a
 // symmetric centre, a force component) are not among them: their
 // relative change means nothing. The incremental inductance and the
@@ -143,10 +144,9 @@ func stopKey(k string) bool {
 		return true
 	case strings.HasPrefix(k, "coils[") && strings.HasSuffix(k, ".flux_linkage_Wb"):
 		return true
-	case strings.HasPrefix(k, "saturation[") && strings.HasSuffix(k, ".mean_B_T"):
-		// The largest |B| of a region is left out until it is measured
-		// away from every corner: at a corner it grows without bound
-		// under refinement and would never converge.
+	case strings.HasPrefix(k, "saturation[") && (strings.HasSuffix(k, ".mean_B_T") || strings.HasSuffix(k, ".peak_disc_mean_B_T")):
+		// The raw largest |B| of a region is left out: at a corner it
+		// grows without bound under refinement and would never converge.
 		return true
 	case strings.HasPrefix(k, "probes.") && strings.HasSuffix(k, ".b"):
 		return true

@@ -100,9 +100,11 @@ type SatReport struct {
 	Knee        float64    `json:"knee_T"`
 	Mean        float64    `json:"mean_B_T"`
 	AboveKnee   float64    `json:"area_fraction_above_knee"`
-	MaxAway     float64    `json:"max_B_away_from_corners_T"`
-	MaxAwayAt   [2]float64 `json:"max_away_at_m"`
-	Max         float64    `json:"max_B_raw_T"`
+	Peak        float64    `json:"peak_disc_mean_B_T"`
+	PeakAt      [2]float64 `json:"peak_disc_centre_m"`
+	Radius      float64    `json:"disc_radius_m"`
+	Max         float64    `json:"max_B_raw_mesh_dependent_T"`
+	MaxAt       [2]float64 `json:"max_raw_at_m"`
 	MaxAtCorner bool       `json:"max_raw_at_corner"`
 	Limit       float64    `json:"limit_T,omitempty"`
 	Pass        bool       `json:"pass"`
@@ -113,8 +115,9 @@ type DesignOptions struct {
 	// Incremental asks for the incremental inductance (two more solves per
 	// coil).
 	Incremental bool
-	// SaturationLimit (T) flags iron regions whose |B| away from corners
-	// exceeds it; 0 means no check.
+	// SaturationLimit (T) flags iron regions whose peak |B| (the largest
+	// mean over a disc, saturation.Report.Peak) exceeds it; 0 means no
+	// check.
 	SaturationLimit float64
 	// VirtualWork adds the force by virtual work (co-energy change with
 	// the part moved ±δ in x and in y: four more meshes and solves per
@@ -364,6 +367,11 @@ func (d *Design) coils(s *study.Result, opt DesignOptions) {
 func (d *Design) saturation(s *study.Result, opt DesignOptions) {
 	m := s.Model
 	var regs []saturation.Region
+	var corners [][2]float64
+	var mirrors []saturation.Line
+	if m.Geometry == models.Axisymmetric {
+		mirrors = []saturation.Line{{X0: 0, Y0: 0, X1: 0, Y1: 1}} // the axis r = 0
+	}
 	for i := range m.Regions {
 		r := &m.Regions[i]
 		mat, _, err := study.Material(m, r)
@@ -374,14 +382,19 @@ func (d *Design) saturation(s *study.Result, opt DesignOptions) {
 		if !ok {
 			continue
 		}
-		x, y := mesh.DiscretizePolygon(mesh.Polygon{X: r.X, Y: r.Y, Sweep: r.Sweep}, mesh.GraphOptions{ChordTol: m.Mesh.Chord}.WithDefaults(study.Polygons(m), s.Disc.Boundary))
-		regs = append(regs, saturation.Region{Tag: study.Tag(i), Name: r.Name, Curve: c,
-			Corners: saturation.ReentrantCorners(x, y, 0), Limit: opt.SaturationLimit})
+		corners = append(corners, saturation.Corners(mesh.Polygon{X: r.X, Y: r.Y, Sweep: r.Sweep}, saturation.CornerOptions{Mirrors: mirrors})...)
+		regs = append(regs, saturation.Region{Tag: study.Tag(i), Name: r.Name, Curve: c, Limit: opt.SaturationLimit})
 	}
 	if len(regs) == 0 {
 		return
 	}
-	reps, err := saturation.Analyse(s.Disc.Mesh, s.ElementB(), regs, saturation.Options{})
+	// A corner of one iron region is where the field of its neighbours
+	// is singular too (a pole's root on an arm's face): every region
+	// gets them all.
+	for i := range regs {
+		regs[i].Corners = corners
+	}
+	reps, err := saturation.Analyse(s.Disc.Mesh, s.ElementB(), regs, saturation.Options{Gap: m.Gap, LinearB: linearB(s.Solution)})
 	if err != nil {
 		var nk *saturation.NoKneeError
 		if !errors.As(err, &nk) {
@@ -391,6 +404,47 @@ func (d *Design) saturation(s *study.Result, opt DesignOptions) {
 	}
 	for _, r := range reps {
 		d.Saturation = append(d.Saturation, SatReport{Region: r.Name, Knee: r.Knee, Mean: r.Mean, AboveKnee: r.AboveKnee,
-			MaxAway: r.MaxAway, MaxAwayAt: r.MaxAwayAt, Max: r.Max, MaxAtCorner: r.MaxAtCorner, Limit: r.Limit, Pass: r.Pass})
+			Peak: r.Peak, PeakAt: r.PeakAt, Radius: r.Radius, Max: r.Max, MaxAt: r.MaxAt, MaxAtCorner: r.MaxAtCorner, Limit: r.Limit, Pass: r.Pass})
 	}
+}
+
+// linearB returns each triangle's own flux density at its three corners
+// when the solution is second order (B is then linear in each triangle,
+// so the three points of the degree-2 quadrature rule fix it exactly),
+// and nil for first order (B constant per triangle).
+func linearB(sol *solver.Solution) [][3][2]float64 {
+	m := sol.Problem.Mesh
+	if m.Order() != 2 {
+		return nil
+	}
+	qf := study.NewQuadField(sol, 2)
+	l := qf.Rule.L
+	if len(l) != 3 {
+		panic("design: the degree-2 quadrature rule must have 3 points")
+	}
+	// B at point q is Σ_k l[q][k] B_k: invert the 3×3 matrix l (cofactors).
+	var inv [3][3]float64
+	det := l[0][0]*(l[1][1]*l[2][2]-l[1][2]*l[2][1]) - l[0][1]*(l[1][0]*l[2][2]-l[1][2]*l[2][0]) + l[0][2]*(l[1][0]*l[2][1]-l[1][1]*l[2][0])
+	for i := 0; i < 3; i++ {
+		for j := 0; j < 3; j++ {
+			a, b := (j+1)%3, (j+2)%3
+			c, e := (i+1)%3, (i+2)%3
+			inv[i][j] = (l[a][c]*l[b][e] - l[a][e]*l[b][c]) / det
+		}
+	}
+	out := make([][3][2]float64, m.NumTriangles())
+	for t := range out {
+		var pb [3][2]float64
+		for q := 0; q < 3; q++ {
+			p := qf.At(t, q)
+			pb[q] = [2]float64{p.Bx, p.By}
+		}
+		for k := 0; k < 3; k++ {
+			for q := 0; q < 3; q++ {
+				out[t][k][0] += inv[k][q] * pb[q][0]
+				out[t][k][1] += inv[k][q] * pb[q][1]
+			}
+		}
+	}
+	return out
 }
