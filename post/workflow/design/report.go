@@ -15,7 +15,7 @@ type Report struct {
 	Mesh     Mesh             `json:"mesh"`
 	Newton   Newton           `json:"newton"`
 	Time     Times            `json:"time_s"`
-	Energy   float64          `json:"energy_j"`
+	Energy   float64          `json:"energy_j"` // = Design.Energy.Energy (J)
 	Probes   map[string]Probe `json:"probes"`
 	*Design
 	order []string
@@ -84,15 +84,14 @@ func New(s *study.Result, opt DesignOptions) *Report {
 			Factor: seconds(sol.Time.Factor), Solve: seconds(sol.Time.Solve)},
 		Probes: map[string]Probe{},
 	}
-	r.Energy = sol.Energy()
-	if m.Geometry.String() == "planar" {
-		r.Energy *= m.Depth
-	}
 	for _, p := range s.Probes {
 		r.Probes[p.Name] = probe(p)
 		r.order = append(r.order, p.Name)
 	}
 	r.Design = NewDesign(s, opt)
+	// The summary line's energy is the design section's (study.Energies):
+	// one stored energy everywhere.
+	r.Energy = r.Design.Energy.Energy
 	return r
 }
 
