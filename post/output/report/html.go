@@ -80,7 +80,8 @@ Produced by polegap{{if not $.When.IsZero}} on {{$.When.Format "2006-01-02 15:04
 {{range $name, $p := .Probes}}<tr><td>{{$name}}</td><td>{{$p.Kind}}</td>
 {{if not $p.Valid}}<td colspan="4">outside the mesh</td>{{else if $p.B}}<td>{{f "%.5f" (deref $p.B)}}</td><td>{{f "%.5f" (deref $p.By)}}</td><td></td><td></td>
 {{else}}<td>{{f "%.5f" (deref $p.BMean)}}</td><td>{{f "%.5f" (deref $p.ByMean)}}</td><td>{{f "%.5f" (deref $p.BMin)}}</td><td>{{f "%.5f" (deref $p.BMax)}}</td>{{end}}</tr>
-{{end}}</table>
+{{range $p.Sides}}<tr class="note"><td>&nbsp;&nbsp;side {{.Region}}{{if .Reported}} (reported){{end}}</td><td>μr {{f "%.4g" .MuR}}</td><td>{{f "%.5f" .B}}</td><td>{{f "%.5f" .By}}</td><td></td><td></td></tr>
+{{end}}{{end}}</table>
 
 {{with .Design}}
 <h2>Gap, uniformity and fringing</h2>

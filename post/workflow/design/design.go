@@ -189,11 +189,13 @@ func (d *Design) gapQuantities(s *study.Result) {
 		return
 	}
 	f := s.Field()
-	_, bx, by, ok := f.At(cp.Point[0], cp.Point[1])
-	if !ok {
+	// The probe as evaluated: on an interface, the low-permeability side.
+	pr, ok := s.Probe(cp.Name)
+	if !ok || !pr.Valid {
 		d.note("gap: probe %s lies outside the mesh", cp.Name)
 		return
 	}
+	bx, by := pr.Point.Bx, pr.Point.By
 	g := &GapReport{Probe: cp.Name, CentreB: math.Hypot(bx, by), CentreBy: by, GapLength: m.Gap}
 	d.Gap = g
 	if m.Geometry != models.Planar {
