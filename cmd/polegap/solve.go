@@ -17,7 +17,7 @@ import (
 )
 
 var cmdSolve = &Command{
-	UsageLine: "solve [--accuracy R [--refine-by goal|energy]] [--virtual-work] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tolerance R] [--max-iterations N] MODEL",
+	UsageLine: "solve [--accuracy R [--refine-by goal|energy]] [--stress-only] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tolerance R] [--max-iterations N] MODEL",
 	Short:     "solve a model and print the field and the design quantities",
 	Long: `Solve meshes the model, solves for the magnetic vector potential (with
 Newton–Raphson when the iron is nonlinear) and prints a summary: the mesh
@@ -29,7 +29,13 @@ fringing (factor, effective width w + 2kg, effective gap), each coil's
 flux linkage and apparent and incremental inductance, stored energy and
 co-energy, and the saturation of each iron region (mean |B|, the area
 above the knee of its curve, the largest |B| away from re-entrant
-corners, where the raw maximum is mesh-dependent). With --json it prints the same as JSON: "mesh" {nodes,
+corners, where the raw maximum is mesh-dependent). Forces: each part the
+model lists under forces and, for a model with a gap, the attraction
+between its poles (the iron wholly above the gap's mid-plane), each by the
+Maxwell stress and by virtual work, with their difference as the error
+estimate; --stress-only skips the virtual work's solves. A point probe on
+an interface between materials lists the field on each side. With --json
+it prints the same as JSON: "mesh" {nodes,
 triangles}, "newton" {iterations, residual, converged}, and "probes" keyed
 by name (point probes give a, bx, by and b in tesla).
 
@@ -51,7 +57,8 @@ with status 1; no result is reported for it.`,
 		satLimit := quantity(fs, "saturation-limit", field, "flag iron regions whose |B| away from corners exceeds this (e.g. 1.8T)")
 		accuracy := fs.Float64("accuracy", 0, "refine the mesh adaptively until the probe field changes by less than this between rounds (e.g. 1e-4)")
 		refineBy := fs.String("refine-by", "goal", "with --accuracy: goal (weighted by the probe's dual solution) or energy (the field's own error)")
-		vw := fs.Bool("virtual-work", false, "also compute the forces on the model's parts by virtual work (more solves)")
+		stressOnly := fs.Bool("stress-only", false, "forces by Maxwell stress only: skip the virtual work (two solves per direction and part) and the error estimate")
+		fs.Bool("virtual-work", false, aliasPrefix+"virtual work is computed by default now; the flag is kept for old scripts")
 		vtuPath := fs.String("vtu", "", "write the solution (A, B, |B|, H, μr, region) to this VTK .vtu file")
 		return func(env *Env, args []string) error {
 			if err := oneModel(args); err != nil {
@@ -64,7 +71,7 @@ with status 1; no result is reported for it.`,
 			if err != nil {
 				return err
 			}
-			dopt := design.DesignOptions{Incremental: true, VirtualWork: *vw, SaturationLimit: satLimit.SI(m)}
+			dopt := design.DesignOptions{Incremental: true, StressOnly: *stressOnly, SaturationLimit: satLimit.SI(m)}
 			marking := adapt.GoalOriented
 			switch *refineBy {
 			case "goal":

@@ -15,7 +15,8 @@ import (
 
 // TestSummaryFlagsLimit: the terminal summary of the default example with
 // a 1.7 T saturation limit marks the saturating poles (the design test
-// shows the limit is exceeded there) and prints no non-finite number.
+// shows the limit is exceeded there), reports the pole attraction and
+// prints no non-finite number.
 func TestSummaryFlagsLimit(t *testing.T) {
 	m, err := models.LoadExample("bench-dipole")
 	if err != nil {
@@ -32,6 +33,13 @@ func TestSummaryFlagsLimit(t *testing.T) {
 	out := buf.String()
 	if !strings.Contains(out, "OVER LIMIT") {
 		t.Errorf("text summary does not flag the region over the limit:\n%s", out)
+	}
+	// The attraction between the poles, by both methods, with its error
+	// estimate and the caution about pole forces.
+	for _, want := range []string{"force on pole attraction (upper-arm, upper-pole) Maxwell stress", "; virtual work (", "; error estimate ±", "caution:   iron poles attract"} {
+		if !strings.Contains(out, want) {
+			t.Errorf("text summary lacks %q:\n%s", want, out)
+		}
 	}
 	for _, bad := range []string{"NaN", "Inf"} {
 		if strings.Contains(out, bad) {
