@@ -1,6 +1,9 @@
 package mesh
 
-import "math"
+import (
+	"math"
+	"slices"
+)
 
 // Point location.
 //
@@ -164,6 +167,43 @@ func (l *Locator) Find(x, y float64) (t int32, b0, b1, b2 float64, ok bool) {
 		}
 	}
 	return -1, 0, 0, 0, false
+}
+
+// Bounds returns the bounding box of the mesh's corner nodes (m).
+func (l *Locator) Bounds() (x0, y0, x1, y1 float64) { return l.x0, l.y0, l.x1, l.y1 }
+
+// TouchingTo appends to dst the triangles whose closure lies within
+// distance d (d >= 0) of (x, y): the triangle Find returns, then across
+// every edge within d of the point (NearSegment, exact) its neighbour,
+// and so on. A point inside a triangle gets that triangle; on an edge
+// shared by two triangles, both; at a vertex, its whole fan. Nothing is
+// appended for a point outside the mesh. The order is that of the
+// search, from the triangle Find returns.
+func (l *Locator) TouchingTo(dst []int32, x, y, d float64) []int32 {
+	t, _, _, _, ok := l.Find(x, y)
+	if !ok {
+		return dst
+	}
+	m := l.m
+	n0 := len(dst)
+	dst = append(dst, t)
+	for i := n0; i < len(dst); i++ {
+		t := dst[i]
+		for k := int32(0); k < 3; k++ {
+			u := int32(-1)
+			if m.Nbr != nil {
+				u = m.Nbr[3*t+k]
+			}
+			if u < 0 || slices.Contains(dst[n0:], u) {
+				continue
+			}
+			a, b := m.Tri[3*t+(k+1)%3], m.Tri[3*t+(k+2)%3]
+			if NearSegment(x, y, m.X[a], m.Y[a], m.X[b], m.Y[b], d) {
+				dst = append(dst, u)
+			}
+		}
+	}
+	return dst
 }
 
 // inside reports whether (x, y) lies in triangle t or on its boundary.

@@ -235,3 +235,48 @@ func BenchmarkLocatorGapModel(b *testing.B) {
 		}
 	})
 }
+
+// TestTouching: with d = 0 the triangles touching a point are exactly
+// those whose closure holds it (bruteFind): one inside a triangle, two on
+// an interior edge, the fan at a vertex (6 or 8 on this grid), none
+// outside; a point 1e-12 off an edge is touched by both of its triangles
+// only when d covers the offset.
+func TestTouching(t *testing.T) {
+	m := gridMesh(6, 6, 0, 0, 1.0/6, nil, nil)
+	l := NewLocator(m)
+	h := 1.0 / 6
+	pts := [][2]float64{
+		{0.3 * h, 0.1 * h},       // inside
+		{2 * h, 2.5 * h},         // on a vertical edge
+		{2.5 * h, 3 * h},         // on a horizontal edge
+		{3 * h, 3 * h},           // vertex
+		{2 * h, 3 * h},           // vertex of the other diagonal kind
+		{0, 0.5 * h},             // boundary edge
+		{1 + h, 0.5},             // outside
+		{2.5 * h, 2.5 * h},       // on a diagonal
+		{1.0 / 3, 1.0 / 6 * 3.5}, // on a vertical edge, coordinates rounded
+	}
+	for _, p := range pts {
+		got := l.TouchingTo(nil, p[0], p[1], 0)
+		want := bruteFind(m, l, p[0], p[1])
+		if len(got) != len(want) {
+			t.Errorf("(%g, %g): touching %v, closures holding it %v", p[0], p[1], got, want)
+			continue
+		}
+		for _, tr := range got {
+			if !want[tr] {
+				t.Errorf("(%g, %g): touching %v, closures holding it %v", p[0], p[1], got, want)
+			}
+		}
+	}
+	x, y := 2*h+1e-12, 2.5*h
+	if got := l.TouchingTo(nil, x, y, 0); len(got) != 1 {
+		t.Errorf("1e-12 off the edge, d = 0: %v, want one triangle", got)
+	}
+	if got := l.TouchingTo(nil, x, y, 2e-12); len(got) != 2 {
+		t.Errorf("1e-12 off the edge, d = 2e-12: %v, want two triangles", got)
+	}
+	if got := l.TouchingTo([]int32{99}, 1+h, 0.5, 0); len(got) != 1 || got[0] != 99 {
+		t.Errorf("outside: dst changed to %v", got)
+	}
+}

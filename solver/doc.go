@@ -8,7 +8,7 @@
 //
 // Planar: the unknown is Az(x, y) and ∇·(ν ∇Az) = −Jz − (curl M)z, with
 // B = curl(Az ẑ) = (∂A/∂y, −∂A/∂x). All integrals are per metre of depth:
-// Energy is in J/m, and multiplying by Problem.Depth is left to the caller
+// energies are in J/m, and multiplying by Problem.Depth is left to the caller
 // (package post).
 //
 // Axisymmetric: x is the radius r >= 0 and y the axial coordinate z; the
@@ -25,7 +25,7 @@
 // logarithmically. Aφ = 0 on the axis (nodes with |r| <= 1e-10 of the
 // model's extent) is imposed automatically: it is the physical condition
 // for a finite field on the axis. Bz on the axis is evaluated as the limit
-// 2 ∂A/∂r. Energy is integrated over the full revolution (2π).
+// 2 ∂A/∂r. Energies are integrated over the full revolution (2π).
 //
 // Sign conventions: B = curl A; a positive current density (or
 // PointCurrent) points out of the page (+z, planar) or along +φ
@@ -73,7 +73,9 @@
 // more factor operations.
 //
 // Fields of a Solution: BTo and HTo per triangle, NodalBTo smoothed for
-// plots, At at any point (through a mesh.Locator), Energy, and
+// plots, At at any point (through a mesh.Locator), Energies (stored energy
+// and co-energy with EnergyDensity's rule, the one every energy polegap
+// reports uses; Energy is the first of the two), and
 // ErrorIndicatorTo, a Zienkiewicz-Zhu indicator per triangle for adaptive
 // refinement.
 //

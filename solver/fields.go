@@ -1,13 +1,6 @@
 package solver
 
-import (
-	"math"
-	"sync"
-
-	"gonum.org/v1/gonum/integrate/quad"
-
-	"polegap/internal/compsum"
-)
+import "sync"
 
 // evalElement returns A and B at reference point (xi, eta) of triangle t.
 func (s *Solution) evalElement(t int, xi, eta float64) (a, bx, by float64) {
@@ -153,73 +146,4 @@ func (s *Solution) At(x, y float64) (a, bx, by float64, ok bool) {
 	}
 	a, bx, by = s.evalElement(t, xi, eta)
 	return a, bx, by, true
-}
-
-// Energy returns the stored magnetic energy W = ∫ ∫₀^B H·dB dV: J per
-// metre of depth (planar) or J for the full revolution (axisymmetric).
-// For a nonlinear material ∫₀^{|B|²} ν(s) ds/2 is integrated with
-// 5-point Gauss-Legendre; magnets' −M·B term is not included.
-func (s *Solution) Energy() float64 {
-	as := s.as
-	nt := as.m.NumTriangles()
-	// Fixed contiguous chunks, each summed with compensation, then added
-	// in order: the same result run to run for a given worker count.
-	nw := as.workers()
-	part := make([]compsum.Sum, nw)
-	parallelRange(nt, nw, func(k, t0, t1 int) {
-		var w elemWork
-		sum := &part[k]
-		for t := t0; t < t1; t++ {
-			as.gather(t, s.A, &w)
-			x0, y0, a, b, c, d, det := as.affine(t)
-			mat := s.Problem.Materials[as.m.Region[t]]
-			ext, isExt := as.ext[as.m.Region[t]]
-			var et float64
-			for q := range as.rule.W {
-				wt, x, y := as.curlAt(t, q, &w, x0, y0, a, b, c, d, det)
-				if isExt {
-					wt *= ((x-ext.CX)*(x-ext.CX) + (y-ext.CY)*(y-ext.CY)) / (ext.Radius * ext.Radius)
-				}
-				var bx, by float64
-				for i := 0; i < as.nn; i++ {
-					bx += w.a[i] * w.c[i][0]
-					by += w.a[i] * w.c[i][1]
-				}
-				et += wt * energyDensity(mat, bx*bx+by*by)
-			}
-			sum.Add(et)
-		}
-	})
-	var total compsum.Sum
-	for i := range part {
-		total.Add(part[i].Value())
-	}
-	e := total.Value()
-	if as.axi {
-		e *= 2 * math.Pi
-	}
-	return e
-}
-
-// 5-point Gauss-Legendre nodes and weights on [0, 1], computed once by
-// gonum's quad.Legendre (they agree to rounding with Abramowitz and
-// Stegun, Handbook of Mathematical Functions, 1964, table 25.4).
-var gl5x, gl5w = legendre5()
-
-func legendre5() (x, w [5]float64) {
-	quad.Legendre{}.FixedLocations(x[:], w[:], 0, 1)
-	return x, w
-}
-
-// energyDensity returns ∫₀^{b2} ν(s) ds / 2 (J/m³).
-func energyDensity(mat Material, b2 float64) float64 {
-	if b2 == 0 {
-		return 0
-	}
-	var e float64
-	for k := range gl5x {
-		nu, _ := mat.Nu(gl5x[k] * b2)
-		e += gl5w[k] * nu
-	}
-	return 0.5 * e * b2
 }

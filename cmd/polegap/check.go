@@ -53,7 +53,7 @@ can use it.`,
 			if err != nil {
 				return exitError{2, err}
 			}
-			c := check.NewCheck(s, design.NewDesign(s, design.DesignOptions{}), opt)
+			c := check.NewCheck(s, design.NewDesign(s, design.DesignOptions{StressOnly: true, NoPoleForce: true}), opt) // the check reads no force
 			c.Accuracy = acc
 			if *asJSON {
 				err = writeJSON(env.Stdout, c)

@@ -14,7 +14,7 @@ import (
 )
 
 var cmdSolve = &Command{
-	UsageLine: "solve [--accuracy R | --quick] [--refine-by energy|goal] [--virtual-work] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tolerance R] [--max-iterations N] MODEL",
+	UsageLine: "solve [--accuracy R | --quick] [--refine-by energy|goal] [--stress-only] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tolerance R] [--max-iterations N] MODEL",
 	Short:     "solve a model and print the field and the design quantities",
 	Long: `Solve meshes the model, solves for the magnetic vector potential (with
 Newton–Raphson when the iron is nonlinear) and prints a summary: the mesh
@@ -27,9 +27,14 @@ flux linkage and apparent and incremental inductance, stored energy and
 co-energy, and the saturation of each iron region (mean |B|, the area
 above the knee of its curve, the peak: the largest mean |B| over a disc
 of the printed radius, and the raw maximum, which is mesh-dependent).
-With --json it prints the same as JSON: "mesh" {nodes, triangles},
-"newton" {iterations, residual, converged}, and "probes" keyed by name
-(point probes give a, bx, by and b in tesla).
+Forces: each part the model lists under forces and, for a model with a
+gap, the attraction between its poles (the iron wholly above the gap's
+mid-plane), each by the Maxwell stress and by virtual work, with their
+difference as the error estimate; --stress-only skips the virtual work's
+solves. A point probe on an interface between materials lists the field
+on each side. With --json it prints the same as JSON: "mesh" {nodes,
+triangles}, "newton" {iterations, residual, converged}, and "probes"
+keyed by name (point probes give a, bx, by and b in tesla).
 
 Every number is converged: the mesh is refined adaptively and the model
 solved again until each reported quantity (gap field, pole-face mean,
@@ -54,7 +59,8 @@ with status 1; no result is reported for it.`,
 		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png or .svg file")
 		satLimit := quantity(fs, "saturation-limit", field, "flag iron regions whose peak |B| exceeds this (e.g. 1.8T)")
 		af := addAccuracyFlags(fs)
-		vw := fs.Bool("virtual-work", false, "also compute the forces on the model's parts by virtual work (more solves)")
+		stressOnly := fs.Bool("stress-only", false, "forces by Maxwell stress only: skip the virtual work (two solves per direction and part) and the error estimate")
+		fs.Bool("virtual-work", false, aliasPrefix+"virtual work is computed by default now; the flag is kept for old scripts")
 		vtuPath := fs.String("vtu", "", "write the solution (A, B, |B|, H, μr, region) to this VTK .vtu file")
 		return func(env *Env, args []string) error {
 			if err := oneModel(args); err != nil {
@@ -67,7 +73,7 @@ with status 1; no result is reported for it.`,
 			if err != nil {
 				return err
 			}
-			dopt := design.DesignOptions{Incremental: true, VirtualWork: *vw, SaturationLimit: satLimit.SI(m)}
+			dopt := design.DesignOptions{Incremental: true, StressOnly: *stressOnly, SaturationLimit: satLimit.SI(m)}
 			s, coarse, acc, err := solveToAccuracy(env, "solve", m, af, solver.Options{Tol: *tol, MaxIter: *maxIter})
 			if err != nil {
 				return err

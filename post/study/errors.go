@@ -14,3 +14,17 @@ type NotFiniteError struct {
 func (e *NotFiniteError) Error() string {
 	return fmt.Sprintf("study: %s is not finite (%g)", e.Quantity, e.Value)
 }
+
+const errShortWeights = "study: Deformed needs one weight per corner node"
+
+// FoldError reports a mesh deformation (Study.Deformed) that turns a
+// triangle over: the displacement is too large for the elements it
+// stretches.
+type FoldError struct {
+	X, Y   float64 // a corner of the folded triangle (m)
+	DX, DY float64 // the displacement asked for (m)
+}
+
+func (e *FoldError) Error() string {
+	return fmt.Sprintf("study: moving by (%g, %g) m folds an element near (%g, %g) m over; take a smaller step", e.DX, e.DY, e.X, e.Y)
+}

@@ -1,6 +1,11 @@
 package report
 
-import "polegap/post/workflow/design"
+import (
+	"fmt"
+	"strings"
+
+	"polegap/post/workflow/design"
+)
 
 // writeDesign writes the design quantities of the summary.
 func writeDesign(ew *errWriter, d *design.Design) {
@@ -51,15 +56,26 @@ func writeDesign(ew *errWriter, d *design.Design) {
 			"max raw T: largest element value, mesh-dependent (grows without bound at corners); never checked\n", d.Saturation[0].Radius*1e3)
 	}
 	for _, f := range d.Forces {
+		name := f.Part
+		if f.Automatic {
+			name = fmt.Sprintf("%s (%s)", f.Part, strings.Join(f.Regions, ", "))
+		}
 		if f.Error != "" {
-			ew.printf("force on %s: not computed: %s\n", f.Part, f.Error)
+			ew.printf("force on %s: not computed: %s\n", name, f.Error)
 			continue
 		}
-		ew.printf("force on %-8s Maxwell stress (%.5g, %.5g) N", f.Part, f.Stress[0], f.Stress[1])
+		ew.printf("force on %-8s Maxwell stress (%.5g, %.5g) N", name, f.Stress[0], f.Stress[1])
 		if f.VirtualWork != nil {
 			ew.printf("; virtual work (%.5g, %.5g) N", f.VirtualWork[0], f.VirtualWork[1])
 		}
+		if f.ErrorEstimate != nil {
+			ew.printf("; error estimate ±%.2g N", *f.ErrorEstimate)
+		}
 		ew.printf("\n")
+	}
+	if len(d.Forces) > 0 {
+		ew.printf("caution:   iron poles attract tools and steel objects with large forces; design frames and\n" +
+			"           fixings to local codes and licensed engineering practice, not to these estimates alone\n")
 	}
 	for _, n := range d.Notes {
 		ew.printf("note: %s\n", n)

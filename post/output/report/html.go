@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"html/template"
 	"io"
+	"strings"
 	"time"
 
 	"polegap/post/workflow/check"
@@ -47,6 +48,7 @@ var page = template.Must(template.New("report").Funcs(template.FuncMap{
 	"amm2":     func(v float64) string { return fmt.Sprintf("%.2f", v*1e-6) },
 	"flags":    func(f coil.Flags) string { return f.String() },
 	"cautions": coil.Cautions,
+	"join":     func(s []string) string { return strings.Join(s, ", ") },
 	"deref": func(p *float64) float64 {
 		if p == nil {
 			return 0
@@ -80,7 +82,8 @@ Produced by polegap{{if not $.When.IsZero}} on {{$.When.Format "2006-01-02 15:04
 {{range $name, $p := .Probes}}<tr><td>{{$name}}</td><td>{{$p.Kind}}</td>
 {{if not $p.Valid}}<td colspan="4">outside the mesh</td>{{else if $p.B}}<td>{{f "%.5f" (deref $p.B)}}</td><td>{{f "%.5f" (deref $p.By)}}</td><td></td><td></td>
 {{else}}<td>{{f "%.5f" (deref $p.BMean)}}</td><td>{{f "%.5f" (deref $p.ByMean)}}</td><td>{{f "%.5f" (deref $p.BMin)}}</td><td>{{f "%.5f" (deref $p.BMax)}}</td>{{end}}</tr>
-{{end}}</table>
+{{range $p.Sides}}<tr class="note"><td>&nbsp;&nbsp;side {{.Region}}{{if .Reported}} (reported){{end}}</td><td>μr {{f "%.4g" .MuR}}</td><td>{{f "%.5f" .B}}</td><td>{{f "%.5f" .By}}</td><td></td><td></td></tr>
+{{end}}{{end}}</table>
 
 {{with .Design}}
 <h2>Gap, uniformity and fringing</h2>
@@ -105,10 +108,10 @@ Produced by polegap{{if not $.When.IsZero}} on {{$.When.Format "2006-01-02 15:04
 {{range .Saturation}}<tr><td>{{.Region}}</td><td>{{f "%.2f" .Knee}}</td><td>{{f "%.3f" .Mean}}</td><td>{{pct .AboveKnee}} %</td><td>{{f "%.3f" .Peak}}</td><td>{{f "%.3f" .Max}}{{if .MaxAtCorner}} (at a corner){{end}}</td></tr>{{end}}
 </table>{{end}}
 {{if .Forces}}<h2>Forces</h2>
-<table><tr><th>part</th><th>Fx by Maxwell stress (N)</th><th>Fy by Maxwell stress (N)</th><th>by virtual work (N)</th></tr>
-{{range .Forces}}<tr><td>{{.Part}}</td>{{if .Error}}<td colspan="3">not computed: {{.Error}}</td>{{else}}<td>{{f "%.5g" (index .Stress 0)}}</td><td>{{f "%.5g" (index .Stress 1)}}</td><td>{{with .VirtualWork}}({{f "%.5g" (index . 0)}}, {{f "%.5g" (index . 1)}}){{end}}</td>{{end}}</tr>{{end}}
+<table><tr><th>part</th><th>Fx by Maxwell stress (N)</th><th>Fy by Maxwell stress (N)</th><th>by virtual work (N)</th><th>error estimate (N)</th></tr>
+{{range .Forces}}<tr><td>{{.Part}}{{if .Automatic}} ({{join .Regions}}){{end}}</td>{{if .Error}}<td colspan="4">not computed: {{.Error}}</td>{{else}}<td>{{f "%.5g" (index .Stress 0)}}</td><td>{{f "%.5g" (index .Stress 1)}}</td><td>{{with .VirtualWork}}({{f "%.5g" (index . 0)}}, {{f "%.5g" (index . 1)}}){{end}}</td><td>{{with .ErrorEstimate}}±{{f "%.2g" (deref .)}}{{end}}</td>{{end}}</tr>{{end}}
 </table>
-<p class="caution">Iron poles attract tools and steel objects with large forces: keep hands and loose steel away from an energised magnet.</p>{{end}}
+<p class="caution">Iron poles attract tools and steel objects with large forces: keep hands and loose steel away from an energised magnet, and design frames and fixings to local codes and licensed engineering practice, not to these estimates alone.</p>{{end}}
 {{range .Notes}}<p class="note">Note: {{.}}</p>{{end}}
 {{end}}
 {{end}}

@@ -35,6 +35,13 @@ func WriteText(w io.Writer, r *design.Report) error {
 		}
 		if p.Kind == "point" {
 			ew.printf("%-16s %-6s %10.5f %10.5f\n", n, p.Kind, *p.B, *p.By)
+			for _, sd := range p.Sides {
+				mark := ""
+				if sd.Reported {
+					mark = ", reported"
+				}
+				ew.printf("  side %-10.10s %-6s %10.5f %10.5f   (μr %.4g%s)\n", sd.Region, "", sd.B, sd.By, sd.MuR, mark)
+			}
 			continue
 		}
 		ew.printf("%-16s %-6s %10.5f %10.5f %10.5f %10.5f   (mean of %d samples)\n", n, p.Kind, *p.BMean, *p.ByMean, *p.BMin, *p.BMax, p.Samples-p.Outside)

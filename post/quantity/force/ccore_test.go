@@ -7,7 +7,6 @@ import (
 
 	"polegap/models"
 	"polegap/post/quantity/force"
-	"polegap/solver"
 )
 
 // TestBenchDipoleStressVsVirtualWork compares the two methods on the
@@ -17,9 +16,11 @@ import (
 // slit, and the gap's air region is dropped, so that the upper half is a separate part with air all round
 // (the stress method's condition) that can be moved for the virtual work.
 // Both are the same physical force, the derivative of the co-energy at
-// constant current (Coulomb 1983, IEEE Trans. Magn. 19(6)); the 2 %
-// agreement asked of the project bounds the band's discretisation error
-// against the central difference's O(δ²) and re-meshing noise.
+// constant current (Coulomb 1983, IEEE Trans. Magn. 19(6)); with the
+// virtual displacement on the deformed mesh they differ only by how the
+// field's discretisation error falls on a narrow band and on all the air
+// around the part (measured 4e-5); 1e-3 bounds it with room (the 2 % the
+// project first asked allowed for re-meshing noise).
 func TestBenchDipoleStressVsVirtualWork(t *testing.T) {
 	if testing.Short() {
 		t.Skip("three nonlinear solves of the bench dipole")
@@ -54,15 +55,16 @@ func TestBenchDipoleStressVsVirtualWork(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	fv, err := force.VirtualWork(s, []string{"upper-arm", "upper-pole"}, [2]float64{0, 1}, 0.5e-3, solver.Options{})
+	w, err := force.VirtualWork(s, []string{"upper-arm", "upper-pole"}, [2]float64{0, 1}, force.VirtualWorkOptions{})
 	if err != nil {
 		t.Fatal(err)
 	}
+	fv := w.F
 	t.Logf("stress F = %v N (band %g m, %d elements), virtual work Fy = %g N", f.F, f.Band, f.Elements, fv)
 	if f.F[1] >= 0 {
 		t.Errorf("stress Fy = %g N: the upper half should be pulled down", f.F[1])
 	}
-	if e := math.Abs(f.F[1]-fv) / math.Abs(fv); e > 0.02 {
+	if e := math.Abs(f.F[1]-fv) / math.Abs(fv); e > 1e-3 {
 		t.Errorf("stress Fy = %g N, virtual work %g N: differ by %.2g", f.F[1], fv, e)
 	}
 }

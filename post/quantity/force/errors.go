@@ -5,8 +5,9 @@ import "fmt"
 const (
 	errNilSolution = "force: nil solution or problem"
 	errEmptyPart   = "force: empty part (no region tags)"
-	errBadDelta    = "force: displacement must be positive and finite"
+	errBadDelta    = "force: displacement must be finite and not negative"
 	errBadDir      = "force: direction must be a non-zero vector"
+	errBadAxis     = "force: axis must be 0 (x) or 1 (y)"
 )
 
 // ContactError reports a part that touches a region other than air, so

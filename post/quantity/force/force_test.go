@@ -9,7 +9,6 @@ import (
 	"polegap/models"
 	"polegap/post/quantity/force"
 	"polegap/post/study"
-	"polegap/solver"
 )
 
 const mu0 = 4e-7 * math.Pi // H/m, the SI value before 2019 (within 1e-9 of today's)
@@ -89,22 +88,35 @@ func TestParallelWires(t *testing.T) {
 		if math.Abs(f.F[0]-want) > 1e-3*math.Abs(want) || math.Abs(f.F[1]) > 1e-3*math.Abs(want) {
 			t.Errorf("%s: F = %v N, want (%g, 0) N", c.name, f.F, want)
 		}
-		// Virtual work with the wire moved ±0.5 mm and re-meshed: the
-		// central difference's O(δ²) error is (δ/d)² ≈ 2e-4, plus the
-		// re-meshing noise; 0.5 % (DESIGN.md's P1 target) bounds both.
-		// Only with zero net current: otherwise the co-energy of an open
-		// 2D domain is infinite (the field falls as 1/r) and the finite
-		// value the Kelvin exterior gives depends on its mesh.
-		if c.sign > 0 {
-			continue
-		}
-		fv, err := force.VirtualWork(s, []string{"left"}, [2]float64{1, 0}, 0.5e-3, solver.Options{})
+		// Virtual work on the deformed mesh (the default): O(δ²) with δ a
+		// hundredth of the wire's boundary edges, so only the field's
+		// discretisation error remains; the 0.1 % of the stress bounds it
+		// (measured 1.6e-5 and 3.5e-5). The exterior of the open boundary does not
+		// move, so a net current is no obstacle here.
+		w, err := force.VirtualWork(s, []string{"left"}, [2]float64{1, 0}, force.VirtualWorkOptions{})
 		if err != nil {
 			t.Fatalf("%s: virtual work: %v", c.name, err)
 		}
-		t.Logf("%s: virtual work Fx = %g N", c.name, fv)
-		if math.Abs(fv-want) > 5e-3*math.Abs(want) {
-			t.Errorf("%s: virtual work Fx = %g N, want %g N", c.name, fv, want)
+		t.Logf("%s: virtual work Fx = %g N (δ %g m)", c.name, w.F, w.Delta)
+		if math.Abs(w.F-want) > 1e-3*math.Abs(want) {
+			t.Errorf("%s: virtual work Fx = %g N, want %g N", c.name, w.F, want)
+		}
+		// Re-meshed at ±0.5 mm: the central difference's O(δ²) error is
+		// (δ/d)² ≈ 2e-4, plus the noise of the changed meshes; 0.5 %
+		// (DESIGN.md's P1 target) bounds both. Only with zero net current:
+		// otherwise the co-energy of an open 2D domain is infinite (the
+		// field falls as 1/r) and the finite value the Kelvin exterior
+		// gives depends on its mesh, which re-meshing changes.
+		if c.sign > 0 {
+			continue
+		}
+		w, err = force.VirtualWork(s, []string{"left"}, [2]float64{1, 0}, force.VirtualWorkOptions{Remesh: true, Delta: 0.5e-3})
+		if err != nil {
+			t.Fatalf("%s: virtual work: %v", c.name, err)
+		}
+		t.Logf("%s: virtual work re-meshed Fx = %g N", c.name, w.F)
+		if math.Abs(w.F-want) > 5e-3*math.Abs(want) {
+			t.Errorf("%s: virtual work re-meshed Fx = %g N, want %g N", c.name, w.F, want)
 		}
 	}
 }

@@ -1,32 +1,36 @@
 package force
 
 import (
-	"container/heap"
 	"math"
-	"sort"
 
 	"polegap/internal/compsum"
 	"polegap/internal/num"
-	"polegap/mesh"
 	"polegap/post/study"
 	"polegap/solver"
 )
 
-// Node states of the band weight.
-const (
-	free    uint8 = iota // air node: weight from its distance to the part
-	inside               // node of the part: weight 1
-	blocked              // node of another non-air region: weight 0
-)
-
-// StressOptions control Stress. The zero value picks the band width.
+// StressOptions control Stress. The zero value picks the band width and
+// asks for air all round the part.
 type StressOptions struct {
 	// Band is the width (m) over which the weight falls from 1 at the
-	// part to 0. Zero means 3 times the median length of the element
-	// edges on the part's boundary. The weight is 0 on other non-air
-	// regions whatever the width, so a wide band is always safe.
+	// part to 0. Zero means DefaultBand: BandLayers times the larger of
+	// the median length of the part's boundary edges and the median size
+	// of the elements around it, so that the band holds a few layers of
+	// elements whatever the grading. The weight is 0 on other bodies and
+	// on the outer boundary whatever the width, so a wide band is always
+	// safe.
 	Band float64
+	// Joints lets the part touch other regions (a pole on its yoke): the
+	// weight then also falls through the regions the part touches, and
+	// the force includes the magnetic stress B⊗H − w' I in that iron
+	// across the joint (small beside the gap's B²/(2μ0) while the iron is
+	// far from saturation, and the less certain the more it saturates).
+	// Without Joints such a part is a *ContactError.
+	Joints bool
 }
+
+// BandLayers is the default band width in element sizes at the part.
+const BandLayers = 3
 
 // Force is a computed force.
 type Force struct {
@@ -50,48 +54,28 @@ func Stress(sol *solver.Solution, part []int32, opt StressOptions) (Force, error
 		panic(errEmptyPart)
 	}
 	p := sol.Problem
-	m := p.Mesh
-	nt := m.NumTriangles()
-	inPart := make([]bool, len(p.Materials))
-	for _, tg := range part {
-		if tg >= 0 && int(tg) < len(inPart) {
-			inPart[tg] = true
-		}
-	}
-	air := airTags(p)
-	nv := m.NumVertices
-	state := make([]uint8, nv)
-	npart := 0
-	for t := 0; t < nt; t++ {
-		if inPart[m.Region[t]] {
-			npart++
-			for k := 0; k < 3; k++ {
-				state[m.Tri[3*t+k]] = inside
-			}
-		}
-	}
-	if npart == 0 {
-		return Force{}, &PartError{Tags: append([]int32(nil), part...)}
-	}
-	for t := 0; t < nt; t++ {
-		r := m.Region[t]
-		if inPart[r] || air[r] {
-			continue
-		}
-		for k := 0; k < 3; k++ {
-			v := m.Tri[3*t+k]
-			if state[v] == inside {
-				return Force{}, &ContactError{Tag: r, X: m.X[v], Y: m.Y[v]}
-			}
-			state[v] = blocked
-		}
+	pt, err := newPart(p, part, opt.Joints)
+	if err != nil {
+		return Force{}, err
 	}
 	band := opt.Band
 	if !(band > 0) {
-		band = 3 * medianBoundaryEdge(m, inPart)
+		band = pt.defaultBand()
 	}
-	g := weights(m, air, state, band)
+	return pt.stress(sol, pt.band(band), band)
+}
 
+// defaultBand is the band width of StressOptions' zero value.
+func (pt *part) defaultBand() float64 {
+	edge, outside := pt.sizes()
+	return BandLayers * math.Max(edge, outside)
+}
+
+// stress integrates −T·∇g over the elements where the weight g varies.
+func (pt *part) stress(sol *solver.Solution, g []float64, band float64) (Force, error) {
+	p := sol.Problem
+	m := p.Mesh
+	nt := m.NumTriangles()
 	deg := study.QuadDegree(m.Order(), p.Formulation)
 	if p.Formulation == solver.Axisymmetric || m.Order() == 2 {
 		deg = 4 // the stress is quadratic in B; axisymmetric B carries A/r
@@ -118,15 +102,15 @@ func Stress(sol *solver.Solution, part []int32, opt StressOptions) (Force, error
 		mat := p.Materials[m.Region[t]]
 		var ex, ey float64
 		for q := 0; q < nq; q++ {
-			pt := f.At(t, q)
-			b2 := pt.Bx*pt.Bx + pt.By*pt.By
+			qp := f.At(t, q)
+			b2 := qp.Bx*qp.Bx + qp.By*qp.By
 			nu, _ := mat.Nu(b2)
 			_, wco := study.EnergyDensity(mat, b2)
-			hx, hy := nu*pt.Bx, nu*pt.By
+			hx, hy := nu*qp.Bx, nu*qp.By
 			hg := hx*gx + hy*gy
 			// −T·∇g with T = B⊗H − w' I.
-			ex += pt.W * (wco*gx - pt.Bx*hg)
-			ey += pt.W * (wco*gy - pt.By*hg)
+			ex += qp.W * (wco*gx - qp.Bx*hg)
+			ey += qp.W * (wco*gy - qp.By*hg)
 		}
 		fx.Add(ex)
 		fy.Add(ey)
@@ -141,143 +125,4 @@ func Stress(sol *solver.Solution, part []int32, opt StressOptions) (Force, error
 		return Force{}, &NotFiniteError{Value: out.F}
 	}
 	return out, nil
-}
-
-// airTags marks the region tags whose material is air: linear with
-// ν = 1/μ0 (to 1e-9), no current density, no magnetisation.
-func airTags(p *solver.Problem) []bool {
-	air := make([]bool, len(p.Materials))
-	nu0 := 1 / num.Mu0
-	for r, mat := range p.Materials {
-		if mat == nil {
-			continue
-		}
-		n0, d0 := mat.Nu(0)
-		n1, d1 := mat.Nu(4)
-		if d0 != 0 || d1 != 0 || math.Abs(n0-nu0) > 1e-9*nu0 || n1 != n0 {
-			continue
-		}
-		if r < len(p.CurrentDensity) && p.CurrentDensity[r] != 0 {
-			continue
-		}
-		if r < len(p.Magnetization) && p.Magnetization[r] != [2]float64{} {
-			continue
-		}
-		air[r] = true
-	}
-	return air
-}
-
-// medianBoundaryEdge returns the median length of the edges between part
-// and non-part elements.
-func medianBoundaryEdge(mm *mesh.Mesh, inPart []bool) float64 {
-	var ls []float64
-	for t := 0; t < mm.NumTriangles(); t++ {
-		if !inPart[mm.Region[t]] {
-			continue
-		}
-		for k := 0; k < 3; k++ {
-			o := mm.Nbr[3*t+k]
-			if o >= 0 && inPart[mm.Region[o]] {
-				continue
-			}
-			a, b := mm.Tri[3*t+(k+1)%3], mm.Tri[3*t+(k+2)%3]
-			ls = append(ls, math.Hypot(mm.X[a]-mm.X[b], mm.Y[a]-mm.Y[b]))
-		}
-	}
-	if len(ls) == 0 {
-		return 0
-	}
-	sort.Float64s(ls)
-	return ls[len(ls)/2]
-}
-
-// weights returns the band weight per node (corners only; midside nodes
-// are not used): 1 inside the part, 1 − d/band on free nodes at edge-path
-// distance d through air elements, 0 on blocked nodes and beyond the band.
-func weights(m *mesh.Mesh, air []bool, state []uint8, band float64) []float64 {
-	nv := m.NumVertices
-	dist := make([]float64, nv)
-	for i := range dist {
-		dist[i] = math.Inf(1)
-	}
-	// Adjacency through air elements, as a list of (node, node) edges
-	// per node, built once.
-	start := make([]int32, nv+1)
-	nt := m.NumTriangles()
-	for t := 0; t < nt; t++ {
-		if !air[m.Region[t]] {
-			continue
-		}
-		for k := 0; k < 3; k++ {
-			start[m.Tri[3*t+k]+1] += 2
-		}
-	}
-	for i := 0; i < nv; i++ {
-		start[i+1] += start[i]
-	}
-	adj := make([]int32, start[nv])
-	fill := append([]int32(nil), start[:nv]...)
-	for t := 0; t < nt; t++ {
-		if !air[m.Region[t]] {
-			continue
-		}
-		for k := 0; k < 3; k++ {
-			v := m.Tri[3*t+k]
-			adj[fill[v]] = m.Tri[3*t+(k+1)%3]
-			adj[fill[v]+1] = m.Tri[3*t+(k+2)%3]
-			fill[v] += 2
-		}
-	}
-	h := &nodeHeap{}
-	for v := 0; v < nv; v++ {
-		if state[v] == inside {
-			dist[v] = 0
-			heap.Push(h, item{int32(v), 0})
-		}
-	}
-	for h.Len() > 0 {
-		it := heap.Pop(h).(item)
-		if it.d > dist[it.v] || it.d >= band {
-			continue
-		}
-		for _, u := range adj[start[it.v]:start[it.v+1]] {
-			if state[u] != free {
-				continue
-			}
-			d := it.d + math.Hypot(m.X[u]-m.X[it.v], m.Y[u]-m.Y[it.v])
-			if d < dist[u] {
-				dist[u] = d
-				heap.Push(h, item{u, d})
-			}
-		}
-	}
-	g := make([]float64, m.NumNodes())
-	for v := 0; v < nv; v++ {
-		switch {
-		case state[v] == inside:
-			g[v] = 1
-		case state[v] == free && dist[v] < band:
-			g[v] = 1 - dist[v]/band
-		}
-	}
-	return g
-}
-
-type item struct {
-	v int32
-	d float64
-}
-
-type nodeHeap []item
-
-func (h nodeHeap) Len() int           { return len(h) }
-func (h nodeHeap) Less(i, j int) bool { return h[i].d < h[j].d }
-func (h nodeHeap) Swap(i, j int)      { h[i], h[j] = h[j], h[i] }
-func (h *nodeHeap) Push(x any)        { *h = append(*h, x.(item)) }
-func (h *nodeHeap) Pop() any {
-	old := *h
-	x := old[len(old)-1]
-	*h = old[:len(old)-1]
-	return x
 }

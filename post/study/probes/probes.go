@@ -5,12 +5,22 @@ import (
 
 	"polegap/internal/num"
 	"polegap/models"
+	"polegap/solver"
 )
 
 // Field is what the probes need of a solution: the potential and flux
 // density at a point, ok = false outside the mesh.
 type Field interface {
 	At(x, y float64) (a, bx, by float64, ok bool)
+}
+
+// Sided is a Field that also evaluates each region meeting at a point on
+// its own (solver.Solution.SidesTo; Recovered when its base field is
+// Sided). A point probe on such a field is checked for lying on an
+// interface.
+type Sided interface {
+	Field
+	SidesTo(dst []solver.Side, x, y float64) []solver.Side
 }
 
 // Sample is the field at one point.
@@ -36,9 +46,13 @@ type Stats struct {
 type Result struct {
 	Name    string
 	Kind    string
-	Valid   bool     // at least one sample lies inside the mesh
-	Outside int      // samples outside the mesh
-	Point   Sample   // point probes
+	Valid   bool   // at least one sample lies inside the mesh
+	Outside int    // samples outside the mesh
+	Point   Sample // point probes
+	// Sides, for a point probe on an interface between materials of
+	// different permeability (see Interface), is the field on each side;
+	// Point is then the side of the largest reluctivity.
+	Sides   []solver.Side
 	Samples []Sample // line, box and circle probes
 	Stats   Stats
 }
@@ -64,6 +78,13 @@ func EvaluateOne(f Field, p *models.Probe) Result {
 	switch p.Kind {
 	case models.ProbePoint:
 		r.Point = at(f, p.Point[0], p.Point[1])
+		if sf, ok := f.(Sided); ok && r.Point.Inside {
+			if sides, ok := Interface(sf, p.Point[0], p.Point[1]); ok {
+				r.Sides = sides
+				s := sides[Reported(sides)]
+				r.Point = Sample{X: r.Point.X, Y: r.Point.Y, A: s.A, Bx: s.Bx, By: s.By, Inside: true}
+			}
+		}
 		r.Samples = []Sample{r.Point}
 	case models.ProbeLine:
 		n := p.Samples
@@ -100,6 +121,55 @@ func EvaluateOne(f Field, p *models.Probe) Result {
 	r.Valid = r.Stats.N > 0
 	r.Outside = len(r.Samples) - r.Stats.N
 	return r
+}
+
+// nuTol is the relative difference of reluctivity below which two sides
+// count as the same material (air against copper, two air regions): B
+// does not jump there, and the point is not on a magnetic interface.
+const nuTol = 1e-9
+
+// Interface reports whether (x, y) lies on an interface between materials
+// of different permeability: within solver.SideTol of the mesh's extent
+// of an edge or corner where elements of two or more regions meet whose
+// reluctivities there differ by more than 1e-9 relative. It returns the
+// field on each side (in region-tag order). On such an interface B jumps
+// (its normal component is continuous, its tangential one scales with μ:
+// J. D. Jackson, Classical Electrodynamics, 3rd ed. 1998, section 5.9),
+// so a point there has no single field.
+func Interface(f Sided, x, y float64) ([]solver.Side, bool) {
+	sides := f.SidesTo(nil, x, y)
+	if len(sides) < 2 {
+		return nil, false
+	}
+	lo, hi := sides[0].Nu, sides[0].Nu
+	for _, s := range sides[1:] {
+		lo, hi = math.Min(lo, s.Nu), math.Max(hi, s.Nu)
+	}
+	if !(hi-lo > nuTol*hi) {
+		return nil, false
+	}
+	for _, s := range sides {
+		if !num.Finite(s.A) || !num.Finite(s.Bx) || !num.Finite(s.By) {
+			return nil, false
+		}
+	}
+	return sides, true
+}
+
+// Reported returns the index of the side whose field a point probe on an
+// interface reports: the one of the largest reluctivity, the lowest
+// permeability, usually air. A probe placed on a pole face stands for the
+// field in the gap, which is what a Hall probe or search coil, always in
+// air, reads; the iron side's field is not measurable there. The first
+// such side in tag order on a tie.
+func Reported(sides []solver.Side) int {
+	k := 0
+	for i, s := range sides {
+		if s.Nu > sides[k].Nu {
+			k = i
+		}
+	}
+	return k
 }
 
 func at(f Field, x, y float64) Sample {

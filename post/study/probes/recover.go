@@ -2,6 +2,7 @@ package probes
 
 import (
 	"polegap/mesh"
+	"polegap/solver"
 )
 
 // Recovered is a smoother field for first-order solutions, whose element
@@ -106,4 +107,36 @@ func (r *Recovered) At(x, y float64) (a, bx, by float64, ok bool) {
 		by += bk * cy
 	}
 	return a, bx, by, true
+}
+
+// SidesTo implements Sided when the base field does: the regions and
+// potentials of the base field's sides, with each side's flux density
+// recovered from the corner averages of its own region (continuous
+// within a region, so any of its triangles touching the point gives the
+// same value). Nu stays the base field's: it only ranks the sides.
+func (r *Recovered) SidesTo(dst []solver.Side, x, y float64) []solver.Side {
+	sb, ok := r.base.(Sided)
+	if !ok {
+		return dst
+	}
+	n0 := len(dst)
+	dst = sb.SidesTo(dst, x, y)
+	m := r.p.m
+	for i := n0; i < len(dst); i++ {
+		sd := &dst[i]
+		t := sd.Triangle
+		i0, i1, i2 := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
+		area := r.p.area[t]
+		b0 := 0.5 * ((m.X[i1]-x)*(m.Y[i2]-y) - (m.X[i2]-x)*(m.Y[i1]-y)) / area
+		b1 := 0.5 * ((m.X[i2]-x)*(m.Y[i0]-y) - (m.X[i0]-x)*(m.Y[i2]-y)) / area
+		b2 := 1 - b0 - b1
+		var bx, by float64
+		for k, bk := range [3]float64{b0, b1, b2} {
+			cx, cy := r.corner(m.Tri[3*int(t)+k], sd.Region)
+			bx += bk * cx
+			by += bk * cy
+		}
+		sd.Bx, sd.By = bx, by
+	}
+	return dst
 }

@@ -109,16 +109,17 @@ func Converge(ctx context.Context, m *models.Model, acc float64, so solver.Optio
 // StopQuantities returns the quantities adaptive refinement must
 // converge, by their path in the report's JSON: the gap-centre field and
 // the pole-face mean, the fringing factor and gap flux, each coil's flux
-// linkage, the stored energy and co-energy, each iron region's mean |B|
-// and its peak (the largest mean |B| over a disc, which converges), the
-// magnitude of each force, and
+// linkage, the stored energy and co-energy, each iron region's mean |B|,
+// the magnitude of each force, and
 // |B| at every point probe. Components that may be near zero (Bx at a
 // symmetric centre, a force component) are not among them: their
 // relative change means nothing. The incremental inductance and the
 // virtual-work forces, which cost more solves, are estimated but not
-// driven.
+// driven, nor is the saturation peak (a disc mean, which converges too
+// slowly to drive at 1e-3: it would double the meshes; its estimate is
+// reported beside it).
 func StopQuantities(r *study.Result) (map[string]float64, error) {
-	rep := New(r, DesignOptions{})
+	rep := New(r, DesignOptions{StressOnly: true})
 	flat := Flatten(rep)
 	out := map[string]float64{}
 	for k, v := range flat {
@@ -144,9 +145,12 @@ func stopKey(k string) bool {
 		return true
 	case strings.HasPrefix(k, "coils[") && strings.HasSuffix(k, ".flux_linkage_Wb"):
 		return true
-	case strings.HasPrefix(k, "saturation[") && (strings.HasSuffix(k, ".mean_B_T") || strings.HasSuffix(k, ".peak_disc_mean_B_T")):
+	case strings.HasPrefix(k, "saturation[") && strings.HasSuffix(k, ".mean_B_T"):
 		// The raw largest |B| of a region is left out: at a corner it
 		// grows without bound under refinement and would never converge.
+		// The peak (a disc mean) converges, but slowly (about 0.5 % over
+		// two uniform refinements on the examples): it is estimated, not
+		// driven, and its estimate is printed beside it.
 		return true
 	case strings.HasPrefix(k, "probes.") && strings.HasSuffix(k, ".b"):
 		return true

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 
+	"polegap/internal/num"
 	"polegap/materials"
 	"polegap/mesh"
 	"polegap/models"
@@ -34,10 +35,24 @@ type Design struct {
 // ForceReport is the force on one part of the model (N; planar models
 // times their depth, axisymmetric: the axial force in Fy).
 type ForceReport struct {
-	Part        string      `json:"part"`
-	Stress      [2]float64  `json:"maxwell_stress_N"`
-	VirtualWork *[2]float64 `json:"virtual_work_N,omitempty"`
-	Error       string      `json:"error,omitempty"`
+	Part    string   `json:"part"`
+	Regions []string `json:"regions"`
+	// Automatic marks the attraction between the poles that the report
+	// adds for a model with a gap: the force on the iron above the gap's
+	// mid-plane (see DesignOptions).
+	Automatic bool `json:"automatic,omitempty"`
+	// Stress is the Maxwell-stress force over a narrow band around the
+	// part, Band its width (m).
+	Stress [2]float64 `json:"maxwell_stress_N"`
+	Band   float64    `json:"stress_band_m,omitempty"`
+	// VirtualWork is the force by virtual work on the deformed mesh with
+	// the step Delta (m); ErrorEstimate is |Stress − VirtualWork| (N), how
+	// far to trust either (force.Estimated).
+	VirtualWork   *[2]float64 `json:"virtual_work_N,omitempty"`
+	Delta         float64     `json:"virtual_work_step_m,omitempty"`
+	ErrorEstimate *float64    `json:"error_estimate_N,omitempty"`
+	// Error says why the force was not computed.
+	Error string `json:"error,omitempty"`
 }
 
 // GapReport is the field in the gap.
@@ -119,10 +134,15 @@ type DesignOptions struct {
 	// mean over a disc, saturation.Report.Peak) exceeds it; 0 means no
 	// check.
 	SaturationLimit float64
-	// VirtualWork adds the force by virtual work (co-energy change with
-	// the part moved ±δ in x and in y: four more meshes and solves per
-	// part) beside the Maxwell-stress force.
-	VirtualWork bool
+	// StressOnly skips the virtual work (two solves per direction and
+	// part) and with it the forces' error estimates.
+	StressOnly bool
+	// NoPoleForce leaves out the attraction between the poles that a
+	// model with a gap gets by default: the force on the iron regions
+	// that lie wholly above the mid-plane through the gap-centre probe,
+	// cut from any iron that crosses the mid-plane (force.Options.Joints),
+	// unless a force part of the model already is the iron of one side.
+	NoPoleForce bool
 }
 
 // NewDesign computes the design quantities of a solved study.
@@ -138,46 +158,138 @@ func NewDesign(s *study.Result, opt DesignOptions) *Design {
 func (d *Design) forces(s *study.Result, opt DesignOptions) {
 	m := s.Model
 	for _, part := range m.Forces {
-		fr := ForceReport{Part: part.Name}
-		var tags []int32
-		for _, name := range part.Regions {
-			for i := range m.Regions {
-				if m.Regions[i].Name == name {
-					tags = append(tags, study.Tag(i))
-				}
-			}
-		}
-		f, err := force.Stress(s.Solution, tags, force.StressOptions{})
-		if err != nil {
-			fr.Error = err.Error()
-			d.Forces = append(d.Forces, fr)
-			continue
-		}
-		fr.Stress = f.F
-		if opt.VirtualWork {
-			// δ: a fiftieth of the smallest mesh size near the part, at most
-			// a thousandth of the model; common practice for central
-			// differences of co-energy on re-meshed models.
-			xmin, _, xmax, _ := m.Extent()
-			delta := math.Min(m.Mesh.Size/50, (xmax-xmin)/1000)
-			var vw [2]float64
-			for k, dir := range [][2]float64{{1, 0}, {0, 1}} {
-				if m.Geometry == models.Axisymmetric && k == 0 {
-					continue
-				}
-				v, err := force.VirtualWork(s, part.Regions, dir, delta, solver.Options{})
-				if err != nil {
-					fr.Error = "virtual work: " + err.Error()
-					break
-				}
-				vw[k] = v
-			}
-			if fr.Error == "" {
-				fr.VirtualWork = &vw
-			}
-		}
+		d.force(s, ForceReport{Part: part.Name, Regions: part.Regions}, opt, false)
+	}
+	if opt.NoPoleForce {
+		return
+	}
+	if regions, ok := d.poleRegions(s); ok {
+		d.force(s, ForceReport{Part: "pole attraction", Regions: regions, Automatic: true}, opt, true)
+	}
+}
+
+// force computes one part's force and appends its report.
+func (d *Design) force(s *study.Result, fr ForceReport, opt DesignOptions, pole bool) {
+	fail := func(err error) {
+		fr.Error = err.Error()
 		d.Forces = append(d.Forces, fr)
 	}
+	fo := force.Options{Joints: pole}
+	if opt.StressOnly {
+		tags := make([]int32, 0, len(fr.Regions))
+		for _, name := range fr.Regions {
+			if i := regionIndex(s.Model, name); i >= 0 {
+				tags = append(tags, study.Tag(i))
+			}
+		}
+		f, err := force.Stress(s.Solution, tags, force.StressOptions{Joints: fo.Joints})
+		if err != nil {
+			fail(err)
+			return
+		}
+		fr.Stress, fr.Band = f.F, f.Band
+		d.Forces = append(d.Forces, fr)
+		return
+	}
+	var e force.Estimated
+	var err error
+	if pole {
+		// Only the pull across the gap: along y (the axis when
+		// axisymmetric), two solves.
+		e, err = force.EstimateAlong(s, fr.Regions, 1, fo)
+	} else {
+		e, err = force.Estimate(s, fr.Regions, fo)
+	}
+	if err != nil {
+		fail(err)
+		return
+	}
+	vw := e.VirtualWork
+	fr.Stress, fr.Band, fr.VirtualWork, fr.Delta, fr.ErrorEstimate = e.Stress.F, e.Stress.Band, &vw, e.Delta, &e.Error
+	d.Forces = append(d.Forces, fr)
+}
+
+// poleRegions returns the iron regions (not air, not a coil side) that lie
+// wholly above the mid-plane through the gap-centre probe, for a model
+// with a gap, unless a force part of the model is already the iron of one
+// side.
+func (d *Design) poleRegions(s *study.Result) ([]string, bool) {
+	m := s.Model
+	cp, ok := m.CentreProbe()
+	if m.Gap <= 0 || !ok {
+		return nil, false
+	}
+	y0 := cp.Point[1]
+	coil := map[string]bool{}
+	for _, c := range m.Coils {
+		for _, sd := range c.Sides {
+			coil[sd.Region] = true
+		}
+	}
+	var above, below []string
+	for i := range m.Regions {
+		r := &m.Regions[i]
+		if coil[r.Name] || !iron(m, r) {
+			continue
+		}
+		_, ymin, _, ymax := r.Bounds()
+		switch {
+		case ymin >= y0:
+			above = append(above, r.Name)
+		case ymax <= y0:
+			below = append(below, r.Name)
+		}
+	}
+	if len(above) == 0 || len(below) == 0 {
+		d.note("pole attraction: no iron wholly on each side of the mid-plane through %s; not computed", cp.Name)
+		return nil, false
+	}
+	for _, f := range m.Forces {
+		if sameSet(f.Regions, above) || sameSet(f.Regions, below) {
+			return nil, false
+		}
+	}
+	return above, true
+}
+
+// iron reports whether a region's material is magnetic: anything but a
+// linear material of μr 1 without magnetisation.
+func iron(m *models.Model, r *models.Region) bool {
+	mat, mag, err := study.Material(m, r)
+	if err != nil || mat == nil {
+		return false
+	}
+	if mag != [2]float64{} {
+		return true
+	}
+	n0, d0 := mat.Nu(0)
+	n1, _ := mat.Nu(4)
+	return d0 != 0 || n0 != n1 || math.Abs(n0*num.Mu0-1) > 1e-9
+}
+
+func sameSet(a, b []string) bool {
+	if len(a) != len(b) {
+		return false
+	}
+	seen := map[string]bool{}
+	for _, x := range a {
+		seen[x] = true
+	}
+	for _, x := range b {
+		if !seen[x] {
+			return false
+		}
+	}
+	return true
+}
+
+func regionIndex(m *models.Model, name string) int {
+	for i := range m.Regions {
+		if m.Regions[i].Name == name {
+			return i
+		}
+	}
+	return -1
 }
 
 func (d *Design) note(format string, args ...any) {
@@ -192,11 +304,13 @@ func (d *Design) gapQuantities(s *study.Result) {
 		return
 	}
 	f := s.Field()
-	_, bx, by, ok := f.At(cp.Point[0], cp.Point[1])
-	if !ok {
+	// The probe as evaluated: on an interface, the low-permeability side.
+	pr, ok := s.Probe(cp.Name)
+	if !ok || !pr.Valid {
 		d.note("gap: probe %s lies outside the mesh", cp.Name)
 		return
 	}
+	bx, by := pr.Point.Bx, pr.Point.By
 	g := &GapReport{Probe: cp.Name, CentreB: math.Hypot(bx, by), CentreBy: by, GapLength: m.Gap}
 	d.Gap = g
 	if m.Geometry != models.Planar {

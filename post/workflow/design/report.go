@@ -1,8 +1,12 @@
 package design
 
 import (
+	"fmt"
+	"math"
+	"strings"
 	"time"
 
+	"polegap/internal/num"
 	"polegap/post/study"
 	"polegap/post/study/probes"
 )
@@ -15,7 +19,7 @@ type Report struct {
 	Mesh     Mesh             `json:"mesh"`
 	Newton   Newton           `json:"newton"`
 	Time     Times            `json:"time_s"`
-	Energy   float64          `json:"energy_j"`
+	Energy   float64          `json:"energy_j"` // = Design.Energy.Energy (J)
 	Probes   map[string]Probe `json:"probes"`
 	*Design
 	// Accuracy says how the numbers were converged (nil: not recorded).
@@ -69,6 +73,21 @@ type Probe struct {
 	BMax       *float64 `json:"b_max,omitempty"`
 	ByMean     *float64 `json:"by_mean,omitempty"`
 	Uniformity *float64 `json:"uniformity,omitempty"`
+	// Sides: a point probe on an interface between materials of
+	// different permeability reads a different field on each side; B,
+	// Bx, By are then the side of the lowest permeability (usually air:
+	// what a Hall probe there reads), and each side is listed.
+	Sides []ProbeSide `json:"interface_sides,omitempty"`
+}
+
+// ProbeSide is the field of one region at a point probe on an interface.
+type ProbeSide struct {
+	Region   string  `json:"region"`
+	MuR      float64 `json:"mu_r"` // relative permeability 1/(ν μ0) at that side's B
+	Bx       float64 `json:"bx"`
+	By       float64 `json:"by"`
+	B        float64 `json:"b"`
+	Reported bool    `json:"reported"` // the side the probe's value is
 }
 
 func ptr(v float64) *float64 { return &v }
@@ -90,25 +109,36 @@ func New(s *study.Result, opt DesignOptions) *Report {
 			Factor: seconds(sol.Time.Factor), Solve: seconds(sol.Time.Solve)},
 		Probes: map[string]Probe{},
 	}
-	r.Energy = sol.Energy()
-	if m.Geometry.String() == "planar" {
-		r.Energy *= m.Depth
-	}
 	for _, p := range s.Probes {
-		r.Probes[p.Name] = probe(p)
+		r.Probes[p.Name] = probe(p, s.Disc)
 		r.order = append(r.order, p.Name)
 	}
 	r.Design = NewDesign(s, opt)
+	for _, name := range r.order {
+		if p := r.Probes[name]; len(p.Sides) > 0 {
+			r.Design.note("%s", interfaceNote(name, p.Sides))
+		}
+	}
+	// The summary line's energy is the design section's (study.Energies):
+	// one stored energy everywhere.
+	r.Energy = r.Design.Energy.Energy
 	return r
 }
 
-func probe(p probes.Result) Probe {
+func probe(p probes.Result, disc *study.Discretization) Probe {
 	out := Probe{Kind: p.Kind, Valid: p.Valid}
 	if p.Kind == "point" {
 		s := p.Point
 		out.X, out.Y = ptr(s.X), ptr(s.Y)
 		if p.Valid {
 			out.A, out.Bx, out.By, out.B = ptr(s.A), ptr(s.Bx), ptr(s.By), ptr(s.B())
+		}
+		if len(p.Sides) > 0 {
+			k := probes.Reported(p.Sides)
+			for i, sd := range p.Sides {
+				out.Sides = append(out.Sides, ProbeSide{Region: disc.RegionName(sd.Region), MuR: 1 / (sd.Nu * num.Mu0),
+					Bx: sd.Bx, By: sd.By, B: math.Hypot(sd.Bx, sd.By), Reported: i == k})
+			}
 		}
 		return out
 	}
@@ -118,6 +148,21 @@ func probe(p probes.Result) Probe {
 		out.BMean, out.BMin, out.BMax, out.ByMean, out.Uniformity = ptr(st.Mean), ptr(st.Min), ptr(st.Max), ptr(st.MeanBy), ptr(st.Uniformity)
 	}
 	return out
+}
+
+// interfaceNote is the warning for a point probe on an interface.
+func interfaceNote(name string, sides []ProbeSide) string {
+	var rep ProbeSide
+	var others []string
+	for _, sd := range sides {
+		if sd.Reported {
+			rep = sd
+			continue
+		}
+		others = append(others, fmt.Sprintf("%.5g T in %s (μr %.4g)", sd.B, sd.Region, sd.MuR))
+	}
+	return fmt.Sprintf("probe %s lies on an interface, where B jumps: it reports %.5g T, the side of the lowest permeability (%s, μr %.4g), what a Hall probe in air there reads; the other side reads %s; move the probe off the interface to read one material",
+		name, rep.B, rep.Region, rep.MuR, strings.Join(others, ", "))
 }
 
 // Order returns the probe names in the model's order.

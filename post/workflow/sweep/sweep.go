@@ -22,7 +22,7 @@ type Point struct {
 	Field       float64 // T: |B| at a point probe, or the mean |B| over a line, box or circle probe
 	Efficiency  float64 // B g / (μ0 NI) when the gap length is known, else 0
 	MaxIronB    float64 // T, largest element |B| in nonlinear iron (mesh-dependent at re-entrant corners)
-	Energy      float64 // J, stored magnetic energy (planar: times depth)
+	Energy      float64 // J, stored magnetic energy (study.Energies; planar: times depth)
 	Linkage     float64 // Wb, flux linkage of the swept coil
 	Apparent    float64 // H, apparent inductance λ/I of the swept coil
 	Incremental float64 // H, dλ/dI from the neighbouring points (0 with fewer than 2 points)
@@ -289,12 +289,11 @@ func (r *Runner) Solve(current float64, opt solver.Options) (Point, error) {
 		AmpereTurns: r.Turns() * current,
 		Field:       fieldOf(pr),
 		MaxIronB:    maxIronB(res),
-		Energy:      sol.Energy(),
 		Iterations:  sol.Iterations,
 		Residual:    sol.Residual,
 	}
-	if m.Geometry == models.Planar {
-		p.Energy *= m.Depth
+	if p.Energy, _, err = study.Energies(sol); err != nil {
+		return Point{}, err
 	}
 	c := circuit.CoilOf(m, res.Params, r.coil)
 	lam, err := circuit.Linkage(sol, &c)
