@@ -40,9 +40,11 @@
 //     two coils or twice of one coil. Sense is +1 or -1; Turns > 0.
 //   - Refine.Near names a region or a probe; Target.Probe names a probe.
 //   - Defaults are filled in: Boundary (box, margin 1.0, zero-potential),
-//     Mesh.Size (largest model dimension / 30), Order 1, MinAngle 28°,
-//     Grading 0.3, Chord (Mesh.Size / 20); material Stacking 1; magnet
-//     MuRecoil 1; line probes 101 samples, circle probes 180.
+//     Mesh.Size (largest model dimension / 30), Order 1 (2 when
+//     Mesh.Auto), MinAngle 28°, Grading 0.3, Chord (Mesh.Size / 20);
+//     material Stacking 1; magnet MuRecoil 1; line probes 101 samples,
+//     circle probes 180. Mesh.Auto is set when the file states no element
+//     size (no mesh.size, no region mesh-size, no mesh.refine list).
 //
 // # Templates
 //

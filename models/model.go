@@ -171,7 +171,14 @@ type MeshControls struct {
 	Grading  float64 // allowed relative growth of element size per element, in (0, 1]
 	Chord    float64 // m, largest distance between an arc and its chords
 	Refine   []Refine
-	Pos      Pos
+	// Auto is true when the file sets no element size: no mesh.size, no
+	// mesh-size on any region and no mesh.refine list (a template's own
+	// refinements do not count). Size then holds the default, and
+	// post/study derives the size field from the geometry (air gaps, iron
+	// corners, thin iron parts, coil sides); Order defaults to 2 instead
+	// of 1. The zero value (false) keeps the sizes as stated.
+	Auto bool
+	Pos  Pos
 }
 
 // MinAngleDegrees returns MinAngle in degrees, the unit package mesh takes.

@@ -195,6 +195,7 @@ func (d *decoder) mesh(m *Model, n *yaml.Node) {
 		mc.Chord, _ = d.length(v, f.sub("chord"), "chord")
 	}
 	if v := f.get("refine"); v != nil {
+		d.refineKey = true
 		mc.Refine = nil
 		items, ok := d.list(v, f.sub("refine"), "refinements")
 		if !ok {
