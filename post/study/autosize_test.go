@@ -1,8 +1,10 @@
 package study_test
 
 import (
+	"errors"
 	"math"
 	"slices"
+	"strings"
 	"testing"
 
 	"polegap/mesh"
@@ -214,5 +216,19 @@ func TestAutoMeshCCore(t *testing.T) {
 				t.Errorf("%g kA-t: %s %.7g on the automatic mesh, reference %.7g: error %.2g above 1e-3", cCoreCurrents[k], name, got[k][q], ref[k][q], e)
 			}
 		}
+	}
+}
+
+// TestAutoTooLarge: a mesh the automatic sizes make too large says what
+// to check rather than which stated size to enlarge.
+func TestAutoTooLarge(t *testing.T) {
+	m := featureModel(t, "two-blocks", twoBlocks, "")
+	_, err := study.CheckFootprint(m, study.MeshOptions(m), study.Limits{MaxTriangles: 1000})
+	var tl *study.TooLargeError
+	if !errors.As(err, &tl) || !tl.Auto || tl.Size != 0 {
+		t.Fatalf("error %v, want a *TooLargeError with Auto set and no size", err)
+	}
+	if msg := err.Error(); !strings.Contains(msg, "automatic sizes") || !strings.Contains(msg, "set mesh.size") {
+		t.Errorf("message %q does not explain the automatic sizes", msg)
 	}
 }
