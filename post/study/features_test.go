@@ -187,3 +187,102 @@ func TestFindFeaturesThinAndSources(t *testing.T) {
 		t.Errorf("sources %+v, want region 1, 40 mm wide", ft.Sources)
 	}
 }
+
+// FuzzFindFeatures runs feature detection and the automatic size field on
+// every model Parse accepts: no panic, and every feature and size is
+// finite and positive (corner exponents in [-1/2, -0.05]).
+func FuzzFindFeatures(f *testing.F) {
+	for _, n := range models.Examples() {
+		data, err := models.Example(n)
+		if err != nil {
+			f.Fatal(err)
+		}
+		f.Add(data)
+	}
+	for _, regions := range []string{twoBlocks,
+		`  - {name: r, material: steel, polygon: [[0, 0], [40, 0], {at: [40, 30], arc: 90}, [30, 40], [0, 40]]}`,
+		`  - {name: arm, material: steel, polygon: [[0, 0], [100, 0], [100, 20], [0, 20]]}
+  - {name: pole, material: steel, polygon: [[40, 20], [60, 20], [60, 50], [40, 50]]}`} {
+		f.Add([]byte("units: mm\ndepth: 100\nmaterials:\n  steel: {curve: low-carbon-steel}\nregions:\n" + regions + "\nboundary: {sides: {bottom: flux-normal}}\n"))
+	}
+	f.Fuzz(func(t *testing.T, data []byte) {
+		m, err := models.Parse("f.yaml", data)
+		if err != nil {
+			return
+		}
+		checkFeatures(t, m)
+	})
+}
+
+// FuzzFeatureBlocks runs feature detection on two iron quadrilaterals
+// (a block and a skewed block, in mm) placed anywhere, touching,
+// overlapping (rejected by Parse) or nearly aligned, optionally on a
+// symmetry side: the invariants of FuzzFindFeatures hold.
+func FuzzFeatureBlocks(f *testing.F) {
+	f.Add(0.0, -45.0, 50.0, 40.0, 0.0, 5.0, 50.0, 40.0, 0.0, uint8(0))
+	f.Add(0.0, 0.0, 100.0, 20.0, 40.0, 20.0, 20.0, 30.0, 0.0, uint8(1))
+	f.Add(0.0, 0.0, 10.0, 10.0, 10.0, 0.0, 10.0, 10.0, 1e-7, uint8(2))
+	f.Add(0.0, 0.0, 10.0, 10.0, 10.000001, 0.0, 10.0, 10.0, 3.0, uint8(3))
+	f.Fuzz(func(t *testing.T, ax, ay, aw, ah, bx, by, bw, bh, skew float64, side uint8) {
+		for _, v := range []float64{ax, ay, aw, ah, bx, by, bw, bh, skew} {
+			if math.IsNaN(v) || math.Abs(v) > 1e4 {
+				return
+			}
+		}
+		sides := []string{"", "boundary: {sides: {bottom: flux-normal}}\n", "boundary: {sides: {left: zero-potential}}\n", "geometry: axisymmetric\n"}
+		extra := sides[int(side)%len(sides)]
+		depth := "depth: 100\n"
+		if strings.HasPrefix(extra, "geometry") {
+			depth = ""
+		}
+		src := fmt.Sprintf("units: mm\n%s%smaterials:\n  steel: {mu-r: 1000}\nregions:\n"+
+			"  - {name: a, material: steel, polygon: [[%g, %g], [%g, %g], [%g, %g], [%g, %g]]}\n"+
+			"  - {name: b, material: steel, polygon: [[%g, %g], [%g, %g], [%g, %g], [%g, %g]]}\n",
+			depth, extra, ax, ay, ax+aw, ay, ax+aw, ay+ah, ax, ay+ah,
+			bx, by, bx+bw, by+skew, bx+bw, by+bh, bx+skew, by+bh)
+		m, err := models.Parse("f.yaml", []byte(src))
+		if err != nil {
+			return
+		}
+		checkFeatures(t, m)
+	})
+}
+
+// checkFeatures asserts the invariants of m's features and automatic
+// size field.
+func checkFeatures(t *testing.T, m *models.Model) {
+	t.Helper()
+	ft := study.FindFeatures(m)
+	ok := func(x float64) bool { return x > 0 && !math.IsInf(x, 0) }
+	for _, g := range ft.Gaps {
+		if !ok(g.Width) || !ok(g.Length) {
+			t.Fatalf("gap %+v", g)
+		}
+	}
+	for _, p := range ft.Thin {
+		if !ok(p.Thickness) || !ok(p.Length) {
+			t.Fatalf("thin part %+v", p)
+		}
+	}
+	for _, c := range ft.Corners {
+		if !(c.Exponent >= -0.5 && c.Exponent <= -0.05) || !(c.Angle > 0 && c.Angle < 2*math.Pi) {
+			t.Fatalf("corner %+v", c)
+		}
+	}
+	for _, s := range ft.Sources {
+		if !ok(s.Width) {
+			t.Fatalf("source %+v", s)
+		}
+	}
+	sf := study.AutoSizeField(m)
+	for _, l := range sf.Lines {
+		if !ok(l.Size) {
+			t.Fatalf("size line %+v", l)
+		}
+	}
+	for _, p := range sf.Points {
+		if !ok(p.Size) {
+			t.Fatalf("size point %+v", p)
+		}
+	}
+}
