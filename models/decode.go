@@ -18,9 +18,10 @@ type decoder struct {
 	units string
 
 	generated   map[string]bool
-	targetProbe Pos // where target.probe was written
-	depth       int // nesting of merge keys being expanded
-	merges      int // merged mappings expanded so far (bounded by maxMerges) // "region:name", "coil:name", "probe:name" made by a template
+	targetProbe Pos  // where target.probe was written
+	depth       int  // nesting of merge keys being expanded
+	merges      int  // merged mappings expanded so far (bounded by maxMerges) // "region:name", "coil:name", "probe:name" made by a template
+	refineKey   bool // the file has a mesh.refine list (perhaps empty)
 }
 
 // fail records an error at node n (at the start of the file when n is nil).

@@ -26,11 +26,11 @@ probes:
 	bar, _ := m.Region("bar")
 	fmt.Printf("%s: %s, depth %g m\n", m.Name, m.Geometry, m.Depth)
 	fmt.Printf("bar: %d vertices, area %.6f m², material %s\n", len(bar.X), bar.Area(), bar.Material)
-	fmt.Printf("default mesh size %.6f m, order %d\n", m.Mesh.Size, m.Mesh.Order)
+	fmt.Printf("default mesh size %.6f m, order %d, automatic %t\n", m.Mesh.Size, m.Mesh.Order, m.Mesh.Auto)
 	// Output:
 	// coupon: planar, depth 0.05 m
 	// bar: 4 vertices, area 0.000800 m², material steel
-	// default mesh size 0.002667 m, order 1
+	// default mesh size 0.002667 m, order 2, automatic true
 }
 
 func ExampleParse_errors() {

@@ -181,7 +181,14 @@ type MeshControls struct {
 	// this between two meshes. 0 means the commands' default (1e-3).
 	Accuracy float64 `json:",omitempty"`
 	Refine   []Refine
-	Pos      Pos
+	// Auto is true when the file sets no element size: no mesh.size, no
+	// mesh-size on any region and no mesh.refine list (a template's own
+	// refinements do not count). Size then holds the default, and
+	// post/study derives the size field from the geometry (air gaps, iron
+	// corners, thin iron parts, coil sides); Order defaults to 2 instead
+	// of 1. The zero value (false) keeps the sizes as stated.
+	Auto bool
+	Pos  Pos
 }
 
 // MinAngleDegrees returns MinAngle in degrees, the unit package mesh takes.

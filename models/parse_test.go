@@ -180,7 +180,9 @@ func TestDefaults(t *testing.T) {
 	if x0 != 0 || y0 != 0 || x1 != 0.1 || y1 != 0.05 {
 		t.Errorf("extent %g %g %g %g", x0, y0, x1, y1)
 	}
-	if m.Mesh.Size != 0.1/30 || m.Mesh.Order != 1 || m.Mesh.Grading != 0.3 ||
+	// base states no element size: the size field is automatic and the
+	// elements second order.
+	if m.Mesh.Size != 0.1/30 || m.Mesh.Order != 2 || !m.Mesh.Auto || m.Mesh.Grading != 0.3 ||
 		m.Mesh.MinAngle != 28*math.Pi/180 || m.Mesh.Chord != m.Mesh.Size/20 {
 		t.Errorf("mesh defaults %+v", m.Mesh)
 	}
@@ -355,5 +357,46 @@ func TestBoundaryMarginsBox(t *testing.T) {
 	}
 	if err := m.Check(); err != nil {
 		t.Error(err)
+	}
+}
+
+// TestMeshAuto pins when the size field is automatic: the file states no
+// element size (no mesh.size, no region mesh-size, no mesh.refine list,
+// even an empty one); a template's own refinements do not count. The
+// element order defaults to 2 then, and to 1 when sizes are stated.
+func TestMeshAuto(t *testing.T) {
+	const tmpl = `name: t
+units: mm
+depth: 100
+template: c-core
+dimensions: {gap: 10, pole-width: 50, pole-height: 40, arm-thickness: 40, leg-width: 40,
+  window-width: 80, coil-width: 30, coil-height: 60, turns: 100, current: 10}
+`
+	cases := []struct {
+		name      string
+		src       string
+		auto      bool
+		order     int
+		keepsSize bool // Mesh.Size is the stated 5 mm
+	}{
+		{"no mesh section", base, true, 2, false},
+		{"order only", base + "mesh: {order: 1}\n", true, 1, false},
+		{"grading only", base + "mesh: {grading: 0.2}\n", true, 2, false},
+		{"size", base + "mesh: {size: 5}\n", false, 1, true},
+		{"size and order", base + "mesh: {size: 5, order: 2}\n", false, 2, true},
+		{"refine", base + "mesh: {refine: [{point: [10, 10], size: 1}]}\n", false, 1, false},
+		{"empty refine", base + "mesh: {refine: []}\n", false, 1, false},
+		{"region mesh-size", edit(t, "    material: steel\n", "    material: steel\n    mesh-size: 5\n"), false, 1, false},
+		{"template, no mesh section", tmpl, true, 2, false},
+		{"template with size", tmpl + "mesh: {size: 5}\n", false, 1, true},
+	}
+	for _, c := range cases {
+		m := mustParse(t, c.name, c.src)
+		if m.Mesh.Auto != c.auto || m.Mesh.Order != c.order {
+			t.Errorf("%s: Auto %t, Order %d; want %t, %d", c.name, m.Mesh.Auto, m.Mesh.Order, c.auto, c.order)
+		}
+		if c.keepsSize && m.Mesh.Size != 0.005 {
+			t.Errorf("%s: Size %g, want the stated 0.005 m", c.name, m.Mesh.Size)
+		}
 	}
 }

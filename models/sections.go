@@ -269,6 +269,7 @@ func (d *decoder) mesh(m *Model, n *yaml.Node) {
 		}
 	}
 	if v := f.get("refine"); v != nil {
+		d.refineKey = true
 		mc.Refine = nil
 		items, ok := d.list(v, f.sub("refine"), "refinements")
 		if !ok {

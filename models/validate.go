@@ -10,7 +10,8 @@ import (
 const (
 	DefaultMargin       = 1.0  // boundary margin, multiples of the model's largest dimension
 	DefaultSizeDivisor  = 30   // mesh size = largest model dimension / 30
-	DefaultOrder        = 1    // first-order triangles
+	DefaultOrder        = 1    // first-order triangles, when the file sets element sizes
+	AutoOrder           = 2    // second-order triangles, when the size field is automatic (MeshControls.Auto)
 	DefaultMinAngleDeg  = 28.0 // degrees
 	DefaultGrading      = 0.3
 	DefaultChordDivisor = 20 // chord = mesh size / 20
@@ -301,11 +302,18 @@ func (d *decoder) defaults(m *Model) {
 	}
 	mc := &m.Mesh
 	if mc.Size == 0 {
+		mc.Auto = !d.refineKey
+		for i := range m.Regions {
+			mc.Auto = mc.Auto && m.Regions[i].MeshSize == 0
+		}
 		x0, y0, x1, y1 := m.Extent()
 		mc.Size = math.Max(x1-x0, y1-y0) / DefaultSizeDivisor
 	}
 	if mc.Order == 0 {
 		mc.Order = DefaultOrder
+		if mc.Auto {
+			mc.Order = AutoOrder
+		}
 	}
 	if mc.MinAngle == 0 {
 		mc.MinAngle = DefaultMinAngleDeg * math.Pi / 180

@@ -50,8 +50,13 @@ const FarSizeDivisor = 6
 
 // SizeField returns the mesher's size field for the model: the global size,
 // each region's mesh-size and the refine entries (near a region's edges, a
-// probe, a point or a line).
+// probe, a point or a line); when the file states no size
+// (m.Mesh.Auto), the automatic field AutoSizeField derives from the
+// geometry.
 func SizeField(m *models.Model) mesh.SizeField {
+	if m.Mesh.Auto {
+		return AutoSizeField(m)
+	}
 	xmin, ymin, xmax, ymax := m.Extent()
 	far := math.Max(xmax-xmin, ymax-ymin) / FarSizeDivisor
 	f := mesh.SizeField{Global: math.Max(far, m.Mesh.Size), Grading: m.Mesh.Grading, Region: map[int32]float64{}}

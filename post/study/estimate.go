@@ -154,7 +154,11 @@ func CheckFootprint(m *models.Model, opt mesh.Options, lim Limits) (Footprint, e
 		return fp, err
 	}
 	if fp.Triangles > maxT || fp.Bytes > maxB {
-		return fp, &TooLargeError{File: m.File, Line: m.Mesh.Pos.Line, Column: m.Mesh.Pos.Column, Footprint: fp, MaxTriangles: maxT, MaxBytes: maxB, Size: m.Mesh.Size, Units: m.Units}
+		e := &TooLargeError{File: m.File, Line: m.Mesh.Pos.Line, Column: m.Mesh.Pos.Column, Footprint: fp, MaxTriangles: maxT, MaxBytes: maxB, Size: m.Mesh.Size, Units: m.Units}
+		if m.Mesh.Auto {
+			e.Size, e.Auto = 0, true
+		}
+		return fp, e
 	}
 	return fp, nil
 }
@@ -169,6 +173,9 @@ type TooLargeError struct {
 	MaxBytes     int64
 	Size         float64 // the model's mesh size in metres (0: none)
 	Units        string
+	// Auto is true when the sizes were the automatic ones
+	// (models.MeshControls.Auto): the file states none to enlarge.
+	Auto bool
 }
 
 func (e *TooLargeError) Error() string {
@@ -184,6 +191,9 @@ func (e *TooLargeError) Error() string {
 		over = fmt.Sprintf("over the %s of memory available", formatBytes(e.MaxBytes))
 	}
 	fix := "enlarge mesh.size, the regions' mesh-size or the refine sizes"
+	if e.Auto {
+		fix = "the automatic sizes follow the model's narrowest gaps, thinnest iron and sharpest corners; check for a sliver of air or iron you did not mean, or set mesh.size (and refine where it matters) to choose the sizes yourself"
+	}
 	if e.Size > 0 {
 		// Triangles scale as 1/size²: the size that would fit.
 		r := math.Sqrt(float64(fp.Triangles) / float64(e.MaxTriangles))

@@ -323,8 +323,8 @@ dimensions: {inner-radius: %g, thickness: %g, length: %g, turns: %d, current: %g
 				t.Fatalf("%s: no centre probe", name)
 			}
 			errs[k] = math.Abs(c.Point.By-want) / want
-			if k == 0 && (r.Disc.Kelvin == nil || r.Disc.Mesh.Order() != 1) {
-				t.Fatalf("%s: the defaults are not the open boundary and P1", name)
+			if k == 0 && (r.Disc.Kelvin == nil || r.Disc.Mesh.Order() != 2) {
+				t.Fatalf("%s: the defaults are not the open boundary and automatic P2", name)
 			}
 		}
 		t.Logf("%s: B0 %.6g T; open %.2g, box %.2g", name, want, errs[0], errs[1])
