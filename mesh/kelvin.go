@@ -86,6 +86,12 @@ func AddKelvinDisk(m *Mesh, marker int32, cx, cy, r float64, region int32) (*Kel
 		in.Segments = append(in.Segments, int32(i), int32((i+1)%n))
 		in.Markers = append(in.Markers, marker)
 	}
+	if m.EdgeArc != nil {
+		// The model's circle is curved: so is the disk's rim, so that
+		// paired midside nodes sit at the same angle on both.
+		in.Arcs = []Arc{{X: cx + dx, Y: cy, R: r}}
+		in.SegmentArc = make([]int32, n)
+	}
 	disk, err := Triangulate(in, Options{Frozen: []int32{marker}})
 	if err != nil {
 		return nil, fmt.Errorf("mesh: Kelvin disk: %w", err)
@@ -115,7 +121,8 @@ func AddKelvinDisk(m *Mesh, marker int32, cx, cy, r float64, region int32) (*Kel
 }
 
 // appendMesh returns a new first-order mesh with b's nodes and triangles
-// after a's (no nodes are merged; neighbours stay within each part).
+// after a's (no nodes are merged; neighbours stay within each part), and
+// both meshes' arcs.
 func appendMesh(a, b *Mesh) *Mesh {
 	off := int32(a.NumNodes())
 	toff := int32(a.NumTriangles())
@@ -136,6 +143,27 @@ func appendMesh(a, b *Mesh) *Mesh {
 			t += toff
 		}
 		out.Nbr = append(out.Nbr, t)
+	}
+	if a.EdgeArc != nil || b.EdgeArc != nil {
+		out.Arcs = append(append([]Arc(nil), a.Arcs...), b.Arcs...)
+		out.EdgeArc = make([]int32, 0, len(out.Tri))
+		for _, part := range []struct {
+			m   *Mesh
+			off int32
+		}{{a, 0}, {b, int32(len(a.Arcs))}} {
+			if part.m.EdgeArc == nil {
+				for range part.m.Tri {
+					out.EdgeArc = append(out.EdgeArc, -1)
+				}
+				continue
+			}
+			for _, e := range part.m.EdgeArc {
+				if e >= 0 {
+					e += part.off
+				}
+				out.EdgeArc = append(out.EdgeArc, e)
+			}
+		}
 	}
 	return out
 }
