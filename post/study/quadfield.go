@@ -7,8 +7,11 @@ import (
 
 // QuadField evaluates a solution element by element at the points of a
 // quadrature rule: the potential, the flux density and the integration
-// weight. It is the kernel shared by the integrals of post/quantity (circuit, force); it holds the tabulated shape functions and never
-// allocates after NewQuadField.
+// weight. It is the kernel shared by the integrals of post/quantity
+// (circuit, force); it holds the tabulated shape functions and never
+// allocates after NewQuadField. On a curved triangle (mesh.Mesh.Curved) the
+// point, the weight and B come from the quadratic map of its six nodes,
+// its Jacobian evaluated at each quadrature point, as the solver does.
 type QuadField struct {
 	Mesh *mesh.Mesh
 	A    []float64
@@ -76,6 +79,22 @@ func (f *QuadField) At(t, q int) QuadPoint {
 		nodes[3], nodes[4], nodes[5] = m.Mid[3*t], m.Mid[3*t+1], m.Mid[3*t+2]
 	}
 	val, rg := &f.val[q], &f.rg[q]
+	if m.IsCurved(t) {
+		var x, y float64
+		ja, jb, jc, jd = 0, 0, 0, 0
+		for i := 0; i < 6; i++ {
+			px, py := m.X[nodes[i]], m.Y[nodes[i]]
+			x += val[i] * px
+			y += val[i] * py
+			ja += rg[i][0] * px
+			jb += rg[i][1] * px
+			jc += rg[i][0] * py
+			jd += rg[i][1] * py
+		}
+		det = ja*jd - jb*jc
+		inv = 1 / det
+		p.X, p.Y, p.W = x, y, f.Rule.W[q]*0.5*det
+	}
 	var gx, gy float64
 	for i := 0; i < f.nn; i++ {
 		ai := f.A[nodes[i]]
