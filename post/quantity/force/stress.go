@@ -116,9 +116,13 @@ func Stress(sol *solver.Solution, part []int32, opt StressOptions) (Force, error
 		gx := (jd*d1 - jc*d2) / det
 		gy := (-jb*d1 + ja*d2) / det
 		mat := p.Materials[m.Region[t]]
+		curved := m.IsCurved(t)
 		var ex, ey float64
 		for q := 0; q < nq; q++ {
 			pt := f.At(t, q)
+			if curved {
+				gx, gy = f.LinearGrad(t, q, g0, g1, g2)
+			}
 			b2 := pt.Bx*pt.Bx + pt.By*pt.By
 			nu, _ := mat.Nu(b2)
 			_, wco := study.EnergyDensity(mat, b2)
