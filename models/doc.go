@@ -41,7 +41,8 @@
 //   - Refine.Near names a region or a probe; Target.Probe names a probe.
 //   - Defaults are filled in: Boundary (box, margin 1.0, zero-potential),
 //     Mesh.Size (largest model dimension / 30), Order 1, MinAngle 28°,
-//     Grading 0.3, Chord (Mesh.Size / 20); material Stacking 1; magnet
+//     Grading 0.3, Chord 0 (arcs follow the local element size: the
+//     mesher's chords stay within 1/20 of it); material Stacking 1; magnet
 //     MuRecoil 1; line probes 101 samples, circle probes 180.
 //
 // # Templates

@@ -8,12 +8,11 @@ import (
 
 // Defaults filled in on load.
 const (
-	DefaultMargin       = 1.0  // boundary margin, multiples of the model's largest dimension
-	DefaultSizeDivisor  = 30   // mesh size = largest model dimension / 30
-	DefaultOrder        = 1    // first-order triangles
-	DefaultMinAngleDeg  = 28.0 // degrees
-	DefaultGrading      = 0.3
-	DefaultChordDivisor = 20 // chord = mesh size / 20
+	DefaultMargin      = 1.0  // boundary margin, multiples of the model's largest dimension
+	DefaultSizeDivisor = 30   // mesh size = largest model dimension / 30
+	DefaultOrder       = 1    // first-order triangles
+	DefaultMinAngleDeg = 28.0 // degrees
+	DefaultGrading     = 0.3
 )
 
 // relTol is the relative resolution of validation geometry: lengths up to
@@ -296,8 +295,5 @@ func (d *decoder) defaults(m *Model) {
 	}
 	if mc.Grading == 0 {
 		mc.Grading = DefaultGrading
-	}
-	if mc.Chord == 0 {
-		mc.Chord = mc.Size / DefaultChordDivisor
 	}
 }

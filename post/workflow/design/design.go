@@ -367,7 +367,10 @@ func (d *Design) saturation(s *study.Result, opt DesignOptions) {
 		if !ok {
 			continue
 		}
-		x, y := mesh.DiscretizePolygon(mesh.Polygon{X: r.X, Y: r.Y, Sweep: r.Sweep}, mesh.GraphOptions{ChordTol: m.Mesh.Chord}.WithDefaults(study.Polygons(m), s.Disc.Boundary))
+		// Chords of at most 5°: their joints turn by less than
+		// saturation.DefaultMinTurn and are not taken for corners.
+		x, y := mesh.DiscretizePolygon(mesh.Polygon{X: r.X, Y: r.Y, Sweep: r.Sweep},
+			mesh.GraphOptions{ChordTol: m.Mesh.Chord, MaxArcAngle: 5 * math.Pi / 180}.WithDefaults(study.Polygons(m), s.Disc.Boundary))
 		regs = append(regs, saturation.Region{Tag: study.Tag(i), Name: r.Name, Curve: c,
 			Corners: saturation.ReentrantCorners(x, y, 0), Limit: opt.SaturationLimit})
 	}
