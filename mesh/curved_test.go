@@ -262,3 +262,51 @@ func TestLocatorCurved(t *testing.T) {
 	}
 	t.Logf("%d points in the wrong region of the straight mesh", wrongStraight)
 }
+
+// TestKelvinDiskCurved: the Kelvin disk of a curved circular boundary is
+// curved too, and after ElevateKelvin every pair of joined nodes (corners
+// and midside nodes) sits at the same angle on the two circles (to
+// rounding), so the identified unknowns describe the same point.
+func TestKelvinDiskCurved(t *testing.T) {
+	const r = 0.1
+	circle := Polygon{Marker: 5}
+	for k := 0; k < 4; k++ {
+		a := float64(k) * math.Pi / 2
+		circle.X, circle.Y = append(circle.X, r*math.Cos(a)), append(circle.Y, r*math.Sin(a))
+		circle.Sweep = append(circle.Sweep, math.Pi/2)
+	}
+	size := SizeField{Global: r / 6}
+	in, err := BuildInput(nil, circle, GraphOptions{Size: &size})
+	if err != nil {
+		t.Fatal(err)
+	}
+	m, err := Triangulate(in, Options{Size: size})
+	if err != nil {
+		t.Fatal(err)
+	}
+	k, err := AddKelvinDisk(m, 5, 0, 0, r, 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	k.ElevateKelvin()
+	km := k.Mesh
+	if err := km.checkCurved(); err != nil {
+		t.Fatal(err)
+	}
+	mids := 0
+	for _, p := range k.Pairs {
+		a, b := p[0], p[1]
+		if int(a) >= km.NumVertices {
+			mids++
+		}
+		ta := math.Atan2(km.Y[a], km.X[a])
+		tb := math.Atan2(km.Y[b]-k.CY, km.X[b]-k.CX)
+		ra, rb := math.Hypot(km.X[a], km.Y[a]), math.Hypot(km.X[b]-k.CX, km.Y[b]-k.CY)
+		if math.Abs(ta-tb) > 1e-12 || math.Abs(ra-r) > 1e-15 || math.Abs(rb-r) > 1e-15 {
+			t.Errorf("pair %v: angles %.15g, %.15g, radii %.15g, %.15g", p, ta, tb, ra, rb)
+		}
+	}
+	if mids == 0 || km.Curved == nil {
+		t.Errorf("%d midside pairs, curved %v", mids, km.Curved != nil)
+	}
+}
