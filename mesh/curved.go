@@ -31,7 +31,11 @@ import "math"
 // of a mesh are straight, and a mesh without arcs is exactly what it was
 // before curved elements existed.
 //
-// Elevate keeps an arc edge straight when curving it would make the
+// Only an edge whose two ends lie on the arc is curved (or split on the
+// arc by refinement): where another edge crossed a chord of the arc, the
+// crossing vertex lies on the chord, and the pieces next to it stay
+// straight. Elevate also keeps an arc edge straight when curving it would
+// make the
 // Jacobian of a neighbouring triangle smaller than a quarter of the
 // straight triangle's anywhere at the corners, edge midpoints and centroid
 // (a chord spanning a large angle next to a thin triangle); the model's
@@ -52,6 +56,31 @@ func (a Arc) project(x, y float64) (px, py float64, ok bool) {
 	}
 	s := a.R / d
 	return a.X + s*dx, a.Y + s*dy, true
+}
+
+// holds reports whether (x, y) lies on the circle, to 1e-9 of its radius
+// and position (rounding of points placed on it is far smaller; a vertex
+// where an edge crossed a chord of the arc, computed on the chord, is
+// usually much farther).
+func (a Arc) holds(x, y float64) bool {
+	return math.Abs(math.Hypot(x-a.X, y-a.Y)-a.R) <= 1e-9*(a.R+math.Abs(a.X)+math.Abs(a.Y))
+}
+
+// pointAt returns the point of the circle at straight distance d from
+// its point (ax, ay), on the side of the shorter arc towards (bx, by): at
+// the angle 2 asin(d/2R) from a about the centre.
+func (a Arc) pointAt(ax, ay, bx, by, d float64) (px, py float64, ok bool) {
+	if !(a.R > 0) || !(d > 0) || d >= 2*a.R {
+		return ax, ay, false
+	}
+	ux, uy := ax-a.X, ay-a.Y
+	vx, vy := bx-a.X, by-a.Y
+	psi := 2 * math.Asin(d/(2*a.R))
+	if ux*vy-uy*vx < 0 {
+		psi = -psi
+	}
+	a0 := math.Atan2(uy, ux)
+	return a.X + a.R*math.Cos(a0+psi), a.Y + a.R*math.Sin(a0+psi), true
 }
 
 // IsCurved reports whether triangle t is curved (see Mesh.Curved).
@@ -168,10 +197,12 @@ func (m *Mesh) Reference(t int, x, y float64) (xi, eta float64, ok bool) {
 		return xi, eta, true
 	}
 	// The straight triangle's coordinates are the starting guess; the
-	// curved map differs from it by a small fraction of the element, so a
-	// few steps reach rounding level.
-	scale := math.Abs(bx-ax) + math.Abs(by-ay) + math.Abs(cx-ax) + math.Abs(cy-ay)
-	for it := 0; it < 30; it++ {
+	// curved map differs from it by a small fraction of the element, so
+	// Newton's quadratic convergence reaches rounding in a few steps.
+	// Reference coordinates are of order 1: a step below 1e-12 is
+	// rounding whatever the element's size and position.
+	step := math.Inf(1)
+	for it := 0; it < 20; it++ {
 		px, py, j := m.MapAt(t, xi, eta)
 		rx, ry := x-px, y-py
 		det := j[0][0]*j[1][1] - j[0][1]*j[1][0]
@@ -182,14 +213,15 @@ func (m *Mesh) Reference(t int, x, y float64) (xi, eta float64, ok bool) {
 		deta := (-j[1][0]*rx + j[0][0]*ry) / det
 		xi += dxi
 		eta += deta
-		if math.Abs(rx)+math.Abs(ry) <= 1e-15*scale || math.Abs(dxi)+math.Abs(deta) <= 1e-15 {
+		step = math.Abs(dxi) + math.Abs(deta)
+		if step <= 1e-12 {
 			return xi, eta, true
 		}
 		if math.Abs(xi) > 1e3 || math.Abs(eta) > 1e3 || math.IsNaN(xi+eta) {
 			return xi, eta, false
 		}
 	}
-	return xi, eta, true
+	return xi, eta, step <= 1e-9
 }
 
 // curvedBox returns the bounding box of curved triangle t: its curved sides

@@ -1,6 +1,7 @@
 package mesh
 
 import (
+	"errors"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -308,5 +309,93 @@ func TestKelvinDiskCurved(t *testing.T) {
 	}
 	if mids == 0 || km.Curved == nil {
 		t.Errorf("%d midside pairs, curved %v", mids, km.Curved != nil)
+	}
+}
+
+// TestCurvedRandomDiscs meshes random groups of discs and arcs (touching,
+// overlapping with the later-wins rule, near the box and each other, of
+// radii from 1e-3 to 1 of the box, some cut by a straight edge that other
+// arcs cross) at random sizes, to second order. Every
+// mesh must pass Check (with the curved invariants), keep every node of an
+// arc edge on its circle, and cover the unit box, or fail with a typed
+// error.
+func TestCurvedRandomDiscs(t *testing.T) {
+	rng := rand.New(rand.NewPCG(1, 1))
+	n := 150
+	if testing.Short() {
+		n = 40
+	}
+	for it := 0; it < n; it++ {
+		box := rect(0, 0, 1, 1, 0, 1)
+		var regions []Polygon
+		nd := 1 + rng.IntN(4)
+		for k := 0; k < nd; k++ {
+			r := math.Pow(10, -3*rng.Float64())
+			cx, cy := r+(1-2*r)*rng.Float64(), r+(1-2*r)*rng.Float64()
+			if r > 0.45 {
+				r, cx, cy = 0.45, 0.5, 0.5
+			}
+			// Three or four arcs, sometimes with a straight edge cut off.
+			nv := 3 + rng.IntN(2)
+			p := Polygon{Region: int32(k + 1), Marker: int32(k + 2)}
+			a0 := 2 * math.Pi * rng.Float64()
+			for v := 0; v < nv; v++ {
+				a := a0 + 2*math.Pi*float64(v)/float64(nv)
+				p.X, p.Y = append(p.X, cx+r*math.Cos(a)), append(p.Y, cy+r*math.Sin(a))
+				s := 2 * math.Pi / float64(nv)
+				if v == 0 && rng.IntN(3) == 0 {
+					s = 0
+				}
+				p.Sweep = append(p.Sweep, s)
+			}
+			regions = append(regions, p)
+		}
+		h := math.Pow(10, -1-rng.Float64())
+		size := SizeField{Global: h}
+		in, err := BuildInput(regions, box, GraphOptions{Size: &size, Overlap: OverlapLaterWins})
+		if err != nil {
+			var ge *GraphError
+			if !errors.As(err, &ge) {
+				t.Fatalf("case %d: untyped error %T: %v", it, err, err)
+			}
+			continue
+		}
+		m, err := Triangulate(in, Options{Size: size, Order: 2, MaxTriangles: 400000})
+		if err != nil {
+			var te *TooManyTrianglesError
+			var re *ResolutionError
+			if !errors.As(err, &te) && !errors.As(err, &re) {
+				t.Fatalf("case %d: %v", it, err)
+			}
+			continue
+		}
+		if err := m.Check(CheckOptions{MinAngle: DefaultMinAngle, Input: in}); err != nil {
+			t.Errorf("case %d (%d discs, size %g): %v", it, nd, h, err)
+			continue
+		}
+		for tr := 0; tr < m.NumTriangles(); tr++ {
+			for k := 0; k < 3; k++ {
+				ai := m.EdgeArc[3*tr+k]
+				if ai < 0 {
+					continue
+				}
+				arc := m.Arcs[ai]
+				for _, v := range []int32{m.Tri[3*tr+(k+1)%3], m.Tri[3*tr+(k+2)%3], m.Mid[3*tr+k]} {
+					// Vertices where arcs cross other edges are computed
+					// on the chords (BuildInput), up to a sagitta of 1/20
+					// of the size from the arc; all others lie on it.
+					if d := math.Abs(math.Hypot(m.X[v]-arc.X, m.Y[v]-arc.Y) - arc.R); d > 1e-12*arc.R && d > h/20 {
+						t.Fatalf("case %d: triangle %d edge %d: node %d %.3g from its arc", it, tr, k, v, d)
+					}
+				}
+			}
+		}
+		var sum float64
+		for _, a := range m.RegionAreas() {
+			sum += a
+		}
+		if math.Abs(sum-1) > 1e-6 {
+			t.Errorf("case %d: regions cover %.12g of the unit box", it, sum)
+		}
 	}
 }

@@ -111,7 +111,12 @@ func (m *Mesh) curve() {
 			}
 			n := m.Mid[3*t+k]
 			if !onArc[int(n)-nv] {
-				px, py, ok := m.Arcs[ai].project(m.X[n], m.Y[n])
+				arc := m.Arcs[ai]
+				a, b := m.Tri[3*t+(k+1)%3], m.Tri[3*t+(k+2)%3]
+				if !arc.holds(m.X[a], m.Y[a]) || !arc.holds(m.X[b], m.Y[b]) {
+					continue
+				}
+				px, py, ok := arc.project(m.X[n], m.Y[n])
 				if !ok {
 					continue
 				}

@@ -27,9 +27,13 @@ import "math"
 //   - Frozen segments are never split; a circumcentre behind one is not
 //     inserted and the triangle is left as it is.
 //   - A segment that is the chord of an arc (Input.SegmentArc) is split at
-//     the point of the arc nearest the split point above (its radial
-//     projection), so that every vertex refinement puts on an arc lies on
-//     it; the two halves are chords of the same arc. The point lies off the
+//     a point of the arc, so that every vertex refinement puts on an arc
+//     lies on it, and the two halves are chords of the same arc: at the
+//     middle of the arc, or, for a shell split, at the point of the arc
+//     whose straight distance from the input end is the shell's power of
+//     two (so that the small-angle exemption still sees equal distances).
+//     A piece with an end off the arc (a vertex where another edge
+//     crossed the chord, computed on the chord) is split on the chord. The point lies off the
 //     chord by the chord's sagitta, a small fraction of the triangles there
 //     (GraphOptions); when the triangles around it would not all stay
 //     counter-clockwise, the split falls back to the point on the chord.
@@ -411,8 +415,18 @@ func (r *refiner) splitSegment(u, v int32) error {
 			seg = s
 		}
 	}
-	if a, ok := r.arcOf(seg); ok {
-		if qx, qy, ok := a.project(px, py); ok {
+	if a, ok := r.arcOf(seg); ok && a.holds(ux, uy) && a.holds(vx, vy) {
+		qx, qy, ok := a.project(px, py)
+		if uIn != vIn {
+			// Keep the concentric shells: the point of the arc at the
+			// same straight distance from the input end.
+			if uIn {
+				qx, qy, ok = a.pointAt(ux, uy, vx, vy, s*math.Hypot(vx-ux, vy-uy))
+			} else {
+				qx, qy, ok = a.pointAt(vx, vy, ux, uy, (1-s)*math.Hypot(vx-ux, vy-uy))
+			}
+		}
+		if ok {
 			su, sv, sm := d.findCavity(qx, qy, t, k, locEdge)
 			if r.fanOK(qx, qy) {
 				p := r.newVertex(qx, qy, seg)
