@@ -86,6 +86,7 @@ func TestCurvedDiscAreaOrder(t *testing.T) {
 			a/h, m.NumTriangles(), countCurved(m), arcEdges/2, ec, es)
 		hs, eCurved, eStraight = append(hs, harc), append(eCurved, ec), append(eStraight, es)
 	}
+	t.Logf("fitted orders: curved %.2f, straight %.2f", slope(hs, eCurved), slope(hs, eStraight))
 	if p := slope(hs, eCurved); math.Abs(p-4) > 0.3 {
 		t.Errorf("curved P2: area error order %.2f, want 4 ± 0.3 (errors %v)", p, eCurved)
 	}
