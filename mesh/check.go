@@ -33,8 +33,13 @@ type CheckOptions struct {
 // reversed, pointing back at t), equal EdgeMarker on both sides of an edge,
 // a marker on every boundary edge, the constrained Delaunay property on
 // unmarked interior edges (exact InCircle of the opposite corner <= 0), and
-// the options' minimum angle and region areas. It returns a *CheckError
-// describing the first violated invariant, or nil.
+// the options' minimum angle and region areas. On meshes with arcs and
+// curved triangles it also checks that EdgeArc has 3 entries per triangle,
+// in range and equal on both sides of an edge, and that every curved
+// triangle keeps a positive Jacobian (at least a quarter of its corner
+// triangle's at its corners, edge midpoints and centroid, the bound
+// Elevate keeps). It returns a *CheckError describing the first violated
+// invariant, or nil.
 func (m *Mesh) Check(opt CheckOptions) error {
 	nv := m.NumVertices
 	nt := len(m.Tri) / 3
@@ -111,6 +116,9 @@ func (m *Mesh) Check(opt CheckOptions) error {
 	if bad > 0 {
 		return fail("delaunay", first, bad, "opposite corner strictly inside the circumcircle across an unmarked edge")
 	}
+	if err := m.checkCurved(); err != nil {
+		return err
+	}
 	if opt.MinAngle > 0 {
 		if err := m.checkAngles(opt); err != nil {
 			return err
@@ -127,6 +135,44 @@ func (m *Mesh) Check(opt CheckOptions) error {
 			if _, ok := opt.RegionAreas[r]; !ok {
 				return fail("region-area", -1, 1, "unexpected region %d with area %g", r, g)
 			}
+		}
+	}
+	return nil
+}
+
+// checkCurved checks EdgeArc and Curved (see Check).
+func (m *Mesh) checkCurved() error {
+	nt := len(m.Tri) / 3
+	fail := func(inv string, t int, format string, args ...any) error {
+		return &CheckError{Invariant: inv, Triangle: t, Count: 1, Detail: fmt.Sprintf(format, args...)}
+	}
+	if m.EdgeArc != nil {
+		if len(m.EdgeArc) != 3*nt {
+			return fail("arc", -1, "len(EdgeArc) = %d, want %d", len(m.EdgeArc), 3*nt)
+		}
+		for i, a := range m.EdgeArc {
+			if a < -1 || int(a) >= len(m.Arcs) {
+				return fail("arc", i/3, "edge %d: arc %d of %d", i%3, a, len(m.Arcs))
+			}
+			if n := m.Nbr[i]; n >= 0 {
+				t := int32(i / 3)
+				for j := 0; j < 3; j++ {
+					if m.Nbr[3*n+int32(j)] == t && m.EdgeArc[3*n+int32(j)] != a {
+						return fail("arc", i/3, "edge %d on arc %d, twin on arc %d", i%3, a, m.EdgeArc[3*n+int32(j)])
+					}
+				}
+			}
+		}
+	}
+	if m.Curved == nil {
+		return nil
+	}
+	if len(m.Curved) != nt || len(m.Mid) != 3*nt {
+		return fail("curved", -1, "len(Curved) = %d, len(Mid) = %d for %d triangles", len(m.Curved), len(m.Mid), nt)
+	}
+	for t, c := range m.Curved {
+		if c && !m.curvedValid(t) {
+			return fail("curved", t, "the quadratic map of the curved triangle folds (Jacobian below a quarter of the corner triangle's)")
 		}
 	}
 	return nil

@@ -25,6 +25,17 @@
 //     or of a sphere (axisymmetric half disc on the axis) as a Kelvin
 //     image meshed beside the model, with the node pairs joining the rims
 //     (open boundaries; ElevateKelvin for second order).
+//   - Curved geometry: BuildInput cuts a polygon's arcs into chords whose
+//     sagitta is at most GraphOptions.ChordRatio (1/20) of the element
+//     size the SizeField asks for at the arc (or an absolute ChordTol), no
+//     chord spanning more than 30 degrees, and the chords remember their
+//     circle (Input.Arcs, Input.SegmentArc). Refinement splits them at
+//     points on the arc, so every mesh vertex on an arc lies on it, and
+//     Elevate puts the midside node of each arc edge on the arc: those
+//     triangles are curved (Mesh.Curved), isoparametric P2 elements with
+//     the quadratic map of their six nodes (curved.go). MapAt, Reference
+//     and TriangleArea give the map, its inverse and the exact area;
+//     RegionAreas, Stats and the Locator use them.
 //
 // # Units and conventions
 //
@@ -56,7 +67,11 @@
 //     leaves near small input angles (shortest edge joining two segments that
 //     share an input vertex, at equal distances from it), and triangles next
 //     to frozen segments;
-//   - per-region areas equal the polygons' areas to 1e-9 relative.
+//   - per-region areas equal the polygons' areas to 1e-9 relative (the
+//     chorded polygons, for regions with arcs whose chords refinement has
+//     not split onto the arc);
+//   - EdgeArc consistent across edges, and every curved triangle's
+//     Jacobian above a quarter of its corner triangle's.
 //
 // # Failures
 //
@@ -78,6 +93,9 @@
 // Triangulate is deterministic: the same Input and Options give the same
 // Mesh, bit for bit, on every run on one architecture (Go may fuse
 // multiply-adds in Steiner point formulas differently on another).
+//
+// Meshes without arcs carry nil Arcs, EdgeArc and Curved and are exactly
+// the meshes made before curved geometry existed.
 //
 // Cost: about 1 microsecond of CPU per output triangle for quality meshes
 // (1,000,000 triangles in about 1 s), memory about 110 bytes per triangle.

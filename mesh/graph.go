@@ -14,7 +14,8 @@ import (
 // BuildInput turns region polygons (with arcs) and a boundary polygon into an
 // Input for Triangulate:
 //
-//  1. arcs become chords (DiscretizePolygon), vertices within MergeTol of
+//  1. arcs become chords (DiscretizePolygon) that remember their circle
+//     (Input.Arcs, Input.SegmentArc), vertices within MergeTol of
 //     their predecessor are dropped, and each polygon is checked for fewer
 //     than 3 distinct vertices, zero area (ZeroArea) and self-intersection
 //     (SelfIntersection), all at resolution MergeTol (see polygon.go);
@@ -72,12 +73,32 @@ const (
 
 // GraphOptions control BuildInput and DiscretizePolygon. The zero value
 // uses the defaults; see WithDefaults.
+//
+// Arcs are cut into chords whose sagitta (the largest distance between the
+// arc and the chord) stays within a tolerance: ChordTol when it is set,
+// otherwise ChordRatio times the element size that Size asks for at the
+// arc, so that arcs are cut finer where the mesh is finer. No chord spans
+// more than MaxArcAngle. The chords are where meshing starts: refinement
+// splits them further at points on the arc, and second-order meshes curve
+// them (see curved.go), so the tolerance bounds how far the mesher moves a
+// split point off the chord (a small fraction of the triangles there) and
+// the straight-sided geometry of first-order meshes.
 type GraphOptions struct {
-	// ChordTol is the largest sagitta (distance between an arc and its
-	// chord), metres; 0 means 1e-3 of the model extent.
+	// ChordTol is the largest sagitta, metres; 0 means ChordRatio times
+	// the size at the arc when Size is set, and 1e-3 of the model extent
+	// otherwise.
 	ChordTol float64
+	// ChordRatio is the largest sagitta as a fraction of the local element
+	// size (Size at the arc), used when ChordTol is 0 and Size is set;
+	// 0 means DefaultChordRatio.
+	ChordRatio float64
+	// Size is the size field the graph will be meshed with (Options.Size);
+	// it sets the sagitta when ChordTol is 0. The field is read at points
+	// of the arc without a region (SizeField.Region does not apply: an
+	// arc between two regions must be cut the same way for both).
+	Size *SizeField
 	// MaxArcAngle is the largest angle one chord may span, radians;
-	// 0 means 10 degrees.
+	// 0 means DefaultMaxArcAngle.
 	MaxArcAngle float64
 	// MergeTol is the resolution of the graph, metres: vertices at most
 	// this far apart merge, a vertex this close to a segment splits it,
@@ -123,6 +144,17 @@ func graphErrAt(p int, reason string, x, y float64) *GraphError {
 	return &GraphError{Polygon: p, Other: -2, Reason: reason, X: x, Y: y, HasAt: true}
 }
 
+// Defaults of the arc discretisation (see GraphOptions).
+const (
+	// DefaultChordRatio is the sagitta of a chord as a fraction of the
+	// local element size when GraphOptions.ChordTol is 0: 1/20.
+	DefaultChordRatio = 1.0 / 20
+	// DefaultMaxArcAngle is the largest angle one chord spans, radians
+	// (30 degrees); the parabola of a curved element then stays within
+	// 1.5e-4 of the radius from the arc.
+	DefaultMaxArcAngle = 30 * math.Pi / 180
+)
+
 // WithDefaults returns o with every zero field replaced by its default for
 // the model made of regions and boundary (the extent is the larger side of
 // the bounding box of all their vertices). DiscretizePolygon with these
@@ -150,11 +182,14 @@ func (o GraphOptions) WithDefaults(regions []Polygon, boundary Polygon) GraphOpt
 	if !(ext > 0) || math.IsInf(ext, 0) {
 		ext = 1
 	}
-	if o.ChordTol <= 0 {
+	if o.ChordTol <= 0 && o.Size == nil {
 		o.ChordTol = 1e-3 * ext
 	}
+	if o.ChordRatio <= 0 {
+		o.ChordRatio = DefaultChordRatio
+	}
 	if o.MaxArcAngle <= 0 {
-		o.MaxArcAngle = 10 * math.Pi / 180
+		o.MaxArcAngle = DefaultMaxArcAngle
 	}
 	if o.MergeTol <= 0 {
 		o.MergeTol = 1e-9 * ext
@@ -177,15 +212,21 @@ func PolygonArea(x, y []float64) float64 {
 }
 
 // DiscretizePolygon returns the vertices of p with every arc replaced by
-// chords: an arc of radius R and sweep θ gets n = ceil(|θ| / φ) equal chords
-// with φ = min(MaxArcAngle, 2 acos(1 - ChordTol/R)), so the sagitta
-// R (1 - cos(θ/2n)) stays within ChordTol. The original vertices are kept, in
-// the original order, with the new ones between them. Zero options are
-// resolved from p alone; pass opt.WithDefaults(...) to match BuildInput.
+// chords. With ChordTol set, an arc of radius R and sweep θ gets
+// n = ceil(|θ| / φ) equal chords with φ = min(MaxArcAngle,
+// 2 acos(1 - ChordTol/R)), so the sagitta R (1 - cos(θ/2n)) stays within
+// ChordTol. Otherwise the allowed angle φ(α) = min(MaxArcAngle,
+// 2 acos(1 - ChordRatio h(α)/R)) follows the size h(α) that Size gives at
+// each point of the arc, and the arc gets n = ceil(∫ dα/φ(α)) chords
+// placed at equal steps of that integral, so each chord spans about the
+// angle allowed where it lies. An arc is cut the same way whichever way a
+// polygon runs along it. The original vertices are kept, in the original
+// order, with the new ones between them. Zero options are resolved from p
+// alone; pass opt.WithDefaults(...) to match BuildInput.
 func DiscretizePolygon(p Polygon, opt GraphOptions) (x, y []float64) {
 	checkPolygonShape(p)
 	opt = opt.WithDefaults(nil, p)
-	x, y, _ = discretize(p, opt)
+	x, y, _, _ = discretize(p, opt)
 	return x, y
 }
 
@@ -205,9 +246,10 @@ func checkPolygonShape(p Polygon) {
 	}
 }
 
-// discretize returns the chorded outline of p and the marker of each of its
-// edges (edge i runs from vertex i to i+1 mod n).
-func discretize(p Polygon, opt GraphOptions) (x, y []float64, mk []int32) {
+// discretize returns the chorded outline of p, the marker of each of its
+// edges (edge i runs from vertex i to i+1 mod n) and the circle each edge is
+// a chord of (R = 0 for a straight edge).
+func discretize(p Polygon, opt GraphOptions) (x, y []float64, mk []int32, arc []Arc) {
 	n := len(p.X)
 	for i := 0; i < n; i++ {
 		marker := p.Marker
@@ -220,42 +262,111 @@ func discretize(p Polygon, opt GraphOptions) (x, y []float64, mk []int32) {
 		x = append(x, p.X[i])
 		y = append(y, p.Y[i])
 		mk = append(mk, marker)
+		arc = append(arc, Arc{})
 		if p.Sweep == nil || p.Sweep[i] == 0 {
 			continue
 		}
 		j := (i + 1) % n
 		x0, y0, x1, y1, th := p.X[i], p.Y[i], p.X[j], p.Y[j], p.Sweep[i]
-		c := math.Hypot(x1-x0, y1-y0)
-		if c == 0 || !(math.Abs(th) < 2*math.Pi) {
+		if (x0 == x1 && y0 == y1) || !(math.Abs(th) < 2*math.Pi) {
 			continue // reported by validate
 		}
+		// Cut the arc from its lexicographically first end, so that two
+		// polygons running along it in opposite directions get the same
+		// points.
+		rev := x1 < x0 || (x1 == x0 && y1 < y0)
+		if rev {
+			x0, y0, x1, y1, th = x1, y1, x0, y0, -th
+		}
+		c := math.Hypot(x1-x0, y1-y0)
 		r := c / (2 * math.Abs(math.Sin(th/2)))
 		// The centre lies on the chord's perpendicular bisector, at
 		// signed distance (c/2)/tan(θ/2) to the left of the chord.
 		h := (c / 2) / math.Tan(th/2)
 		cx := (x0+x1)/2 - (y1-y0)/c*h
 		cy := (y0+y1)/2 + (x1-x0)/c*h
-		phi := opt.MaxArcAngle
-		if q := 1 - opt.ChordTol/r; q > -1 {
-			phi = math.Min(phi, 2*math.Acos(q))
-		}
-		k := int(math.Ceil(math.Abs(th)/phi - 1e-12))
+		arc[len(arc)-1] = Arc{X: cx, Y: cy, R: r}
 		a0 := math.Atan2(y0-cy, x0-cx)
-		for s := 1; s < k; s++ {
-			a := a0 + th*float64(s)/float64(k)
+		fr := chordSteps(cx, cy, r, a0, th, opt)
+		for s := range fr {
+			f := fr[s]
+			if rev {
+				f = fr[len(fr)-1-s]
+			}
+			a := a0 + th*f
 			x = append(x, cx+r*math.Cos(a))
 			y = append(y, cy+r*math.Sin(a))
 			mk = append(mk, marker)
+			arc = append(arc, Arc{X: cx, Y: cy, R: r})
 		}
 	}
-	return x, y, mk
+	return x, y, mk, arc
+}
+
+// anyRegion is the region passed to SizeField.At for points on arcs: no
+// region's size applies.
+const anyRegion int32 = math.MinInt32
+
+// maxArcChords bounds the chords of one arc (a size field far below the
+// arc's radius would otherwise ask for any number).
+const maxArcChords = 1 << 20
+
+// chordSteps returns the interior chord points of the arc about (cx, cy) of
+// radius r from angle a0 through the signed sweep th, as increasing
+// fractions of th in (0, 1) (see DiscretizePolygon for the rule).
+func chordSteps(cx, cy, r, a0, th float64, opt GraphOptions) []float64 {
+	abs := math.Abs(th)
+	allowed := func(tol float64) float64 {
+		phi := opt.MaxArcAngle
+		if q := 1 - tol/r; q > -1 {
+			phi = math.Min(phi, 2*math.Acos(q))
+		}
+		return math.Max(phi, abs/maxArcChords)
+	}
+	var fr []float64
+	if opt.ChordTol > 0 || opt.Size == nil {
+		k := int(math.Ceil(abs/allowed(opt.ChordTol) - 1e-12))
+		for s := 1; s < k; s++ {
+			fr = append(fr, float64(s)/float64(k))
+		}
+		return fr
+	}
+	// Sample the density 1/φ(α) at steps of a quarter of the allowed
+	// angle, integrate it by the trapezoidal rule and cut the integral
+	// into n equal parts.
+	at := func(al float64) float64 {
+		a := a0 + math.Copysign(al, th)
+		return 1 / allowed(opt.ChordRatio*opt.Size.At(cx+r*math.Cos(a), cy+r*math.Sin(a), anyRegion))
+	}
+	als, cum := []float64{0}, []float64{0}
+	prev := at(0)
+	for al := 0.0; al < abs; {
+		next := math.Min(al+0.25/prev, abs)
+		d := at(next)
+		cum = append(cum, cum[len(cum)-1]+0.5*(prev+d)*(next-al))
+		als = append(als, next)
+		al, prev = next, d
+	}
+	total := cum[len(cum)-1]
+	n := int(math.Ceil(total - 1e-9))
+	i := 1
+	for s := 1; s < n; s++ {
+		target := total * float64(s) / float64(n)
+		for cum[i] < target {
+			i++
+		}
+		al := als[i-1] + (als[i]-als[i-1])*(target-cum[i-1])/(cum[i]-cum[i-1])
+		fr = append(fr, al/abs)
+	}
+	return fr
 }
 
 // outline is one discretised polygon, counter-clockwise.
 type outline struct {
 	x, y []float64
 	mk   []int32
-	ccw  bool // the input order was counter-clockwise
+	arc  []Arc // per edge: the circle it is a chord of, R = 0 if straight
+	ccw  bool  // the input order was counter-clockwise
 	area float64
 	box  [4]float64 // x0, y0, x1, y1
 }
@@ -279,7 +390,7 @@ func validate(idx int, p Polygon, opt GraphOptions) (outline, error) {
 			return outline{}, graphErrAt(idx, fmt.Sprintf("edge %d has arc sweep %g, want |sweep| < 2π", i, p.Sweep[i]), p.X[i], p.Y[i])
 		}
 	}
-	x, y, mk := discretize(p, opt)
+	x, y, mk, arc := discretize(p, opt)
 	// Drop vertices that repeat their predecessor within MergeTol.
 	var o outline
 	tol := opt.MergeTol
@@ -288,10 +399,10 @@ func validate(idx int, p Polygon, opt GraphOptions) (outline, error) {
 		if k > 0 && NearPoint(x[i], y[i], o.x[k-1], o.y[k-1], tol) {
 			continue
 		}
-		o.x, o.y, o.mk = append(o.x, x[i]), append(o.y, y[i]), append(o.mk, mk[i])
+		o.x, o.y, o.mk, o.arc = append(o.x, x[i]), append(o.y, y[i]), append(o.mk, mk[i]), append(o.arc, arc[i])
 	}
 	for len(o.x) > 1 && NearPoint(o.x[0], o.y[0], o.x[len(o.x)-1], o.y[len(o.y)-1], tol) {
-		o.x, o.y, o.mk = o.x[:len(o.x)-1], o.y[:len(o.y)-1], o.mk[:len(o.mk)-1]
+		o.x, o.y, o.mk, o.arc = o.x[:len(o.x)-1], o.y[:len(o.y)-1], o.mk[:len(o.mk)-1], o.arc[:len(o.arc)-1]
 	}
 	if len(o.x) < 3 {
 		return o, graphErr(idx, fmt.Sprintf("has %d distinct vertices, need at least 3", len(o.x)))
@@ -312,12 +423,13 @@ func validate(idx int, p Polygon, opt GraphOptions) (outline, error) {
 		// Reverse to counter-clockwise; edge i (i -> i+1) becomes edge
 		// n-2-i of the reversed list, so rotate markers with it.
 		n := len(o.x)
-		rx, ry, rm := make([]float64, n), make([]float64, n), make([]int32, n)
+		rx, ry, rm, ra := make([]float64, n), make([]float64, n), make([]int32, n), make([]Arc, n)
 		for i := 0; i < n; i++ {
 			rx[i], ry[i] = o.x[n-1-i], o.y[n-1-i]
 			rm[i] = o.mk[(2*n-2-i)%n]
+			ra[i] = o.arc[(2*n-2-i)%n]
 		}
-		o.x, o.y, o.mk, o.area = rx, ry, rm, -o.area
+		o.x, o.y, o.mk, o.arc, o.area = rx, ry, rm, ra, -o.area
 	}
 	return o, nil
 }
@@ -354,6 +466,9 @@ func BuildInput(regions []Polygon, boundary Polygon, opt GraphOptions) (*Input, 
 	}
 	g.dedupe()
 	in := &Input{X: g.x, Y: g.y, Segments: g.seg, Markers: g.mk, DefaultRegion: boundary.Region}
+	if len(g.arcs) > 0 {
+		in.Arcs, in.SegmentArc = g.arcs, g.arc
+	}
 	sg := newSegGrid(g)
 	for _, f := range g.faces() {
 		sx, sy, ok := g.seed(sg, f)
@@ -387,17 +502,20 @@ func BuildInput(regions []Polygon, boundary Polygon, opt GraphOptions) (*Input, 
 }
 
 // graph is the edge soup being cleaned up: vertices with a hash for
-// merging, segments (vertex pairs) with markers.
+// merging, segments (vertex pairs) with markers and arcs.
 type graph struct {
-	x, y []float64
-	seg  []int32
-	mk   []int32
-	tol  float64
-	hash map[[2]int64][]int32
+	x, y  []float64
+	seg   []int32
+	mk    []int32
+	arc   []int32 // per segment: index in arcs, or -1
+	arcs  []Arc
+	arcID map[Arc]int32
+	tol   float64
+	hash  map[[2]int64][]int32
 }
 
 func newGraph(tol float64) *graph {
-	return &graph{tol: tol, hash: make(map[[2]int64][]int32)}
+	return &graph{tol: tol, hash: make(map[[2]int64][]int32), arcID: make(map[Arc]int32)}
 }
 
 func (g *graph) cell(x, y float64) [2]int64 {
@@ -433,6 +551,17 @@ func (g *graph) addOutline(o outline) {
 		}
 		if v != prev {
 			g.seg, g.mk = append(g.seg, prev, v), append(g.mk, o.mk[i])
+			a := int32(-1)
+			if o.arc[i].R > 0 {
+				id, ok := g.arcID[o.arc[i]]
+				if !ok {
+					id = int32(len(g.arcs))
+					g.arcs = append(g.arcs, o.arc[i])
+					g.arcID[o.arc[i]] = id
+				}
+				a = id
+			}
+			g.arc = append(g.arc, a)
 		}
 		prev = v
 	}
@@ -505,6 +634,7 @@ func (g *graph) split() error {
 		}
 		seg := make([]int32, 0, len(g.seg)+4*len(splits))
 		mk := make([]int32, 0, len(g.mk)+2*len(splits))
+		arc := make([]int32, 0, len(g.mk)+2*len(splits))
 		for i := 0; i < ns; i++ {
 			p, q := g.seg[2*i], g.seg[2*i+1]
 			vs := splits[i]
@@ -514,12 +644,12 @@ func (g *graph) split() error {
 			prev := p
 			for _, v := range append(vs, q) {
 				if v != prev {
-					seg, mk = append(seg, prev, v), append(mk, g.mk[i])
+					seg, mk, arc = append(seg, prev, v), append(mk, g.mk[i]), append(arc, g.arc[i])
 				}
 				prev = v
 			}
 		}
-		g.seg, g.mk = seg, mk
+		g.seg, g.mk, g.arc = seg, mk, arc
 	}
 	i, _ := g.firstCrossing()
 	p := g.seg[2*i]
@@ -560,21 +690,28 @@ func (g *graph) firstCrossing() (int, int) {
 }
 
 // dedupe removes repeated segments (either direction), keeping the first,
-// so the earliest polygon's marker stays.
+// so the earliest polygon's marker stays; the kept segment is a chord of an
+// arc if any of the repeats is.
 func (g *graph) dedupe() {
-	seen := make(map[[2]int32]bool, len(g.mk))
+	seen := make(map[[2]int32]int, len(g.mk))
 	k := 0
 	for i := 0; i < len(g.mk); i++ {
 		a, b := g.seg[2*i], g.seg[2*i+1]
 		key := [2]int32{min(a, b), max(a, b)}
-		if a == b || seen[key] {
+		if a == b {
 			continue
 		}
-		seen[key] = true
-		g.seg[2*k], g.seg[2*k+1], g.mk[k] = a, b, g.mk[i]
+		if j, ok := seen[key]; ok {
+			if g.arc[j] < 0 {
+				g.arc[j] = g.arc[i]
+			}
+			continue
+		}
+		seen[key] = k
+		g.seg[2*k], g.seg[2*k+1], g.mk[k], g.arc[k] = a, b, g.mk[i], g.arc[i]
 		k++
 	}
-	g.seg, g.mk = g.seg[:2*k], g.mk[:k]
+	g.seg, g.mk, g.arc = g.seg[:2*k], g.mk[:k], g.arc[:k]
 }
 
 // Half-edge h runs along segment h/2, from its first vertex when h is even

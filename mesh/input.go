@@ -6,6 +6,14 @@ type Input struct {
 	X, Y     []float64 // vertices, metres
 	Segments []int32   // 2 vertex indices per constrained segment
 	Markers  []int32   // one marker (>= 1) per segment, copied to Mesh.EdgeMarker
+	// Arcs are circles that segments may lie on, and SegmentArc, when not
+	// nil, gives each segment the index in Arcs of the arc it is a chord
+	// of, or -1 for a straight segment. Refinement splits such a segment at
+	// a point on its arc, and Elevate places the midside node of its edges
+	// on the arc (see Mesh.EdgeArc, Mesh.Curved). BuildInput fills both
+	// from the polygons' arcs.
+	Arcs       []Arc
+	SegmentArc []int32
 	// Seeds claim regions: every triangle reachable from a seed without
 	// crossing a segment gets Seed.Region. A seed with a negative Region
 	// marks a hole: its triangles are removed. When two seeds reach the same

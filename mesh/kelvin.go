@@ -65,6 +65,12 @@ func AddKelvinDisk(m *Mesh, marker int32, cx, cy, r float64, region int32) (*Kel
 		in.Segments = append(in.Segments, int32(i), int32((i+1)%n))
 		in.Markers = append(in.Markers, marker)
 	}
+	if m.EdgeArc != nil {
+		// The model's circle is curved: so is the disk's rim, so that
+		// paired midside nodes sit at the same angle on both.
+		in.Arcs = []Arc{{X: cx + dx, Y: cy, R: r}}
+		in.SegmentArc = make([]int32, n)
+	}
 	out := &KelvinExterior{CX: cx + dx, CY: cy, Radius: r}
 	return out, out.join(m, rim, in, marker)
 }
@@ -107,6 +113,14 @@ func AddKelvinHalfDisk(m *Mesh, marker, axisMarker int32, cz, r float64, region 
 	// The straight side: top of the arc, centre, bottom of the arc.
 	in.Segments = append(in.Segments, int32(n-1), int32(n), int32(n), 0)
 	in.Markers = append(in.Markers, axisMarker, axisMarker)
+	if m.EdgeArc != nil {
+		// The model's half circle is curved: so is the image's arc, so
+		// that paired midside nodes sit at the same angle on both; the
+		// straight side on the axis stays straight.
+		in.Arcs = []Arc{{X: 0, Y: cz + dz, R: r}}
+		in.SegmentArc = make([]int32, n+1)
+		in.SegmentArc[n-1], in.SegmentArc[n] = -1, -1
+	}
 	out := &KelvinExterior{CX: 0, CY: cz + dz, Radius: r, Half: true}
 	return out, out.join(m, rim, in, marker)
 }
@@ -193,7 +207,8 @@ func (k *KelvinExterior) join(m *Mesh, rim []int32, in *Input, marker int32) err
 }
 
 // appendMesh returns a new first-order mesh with b's nodes and triangles
-// after a's (no nodes are merged; neighbours stay within each part).
+// after a's (no nodes are merged; neighbours stay within each part), and
+// both meshes' arcs.
 func appendMesh(a, b *Mesh) *Mesh {
 	off := int32(a.NumNodes())
 	toff := int32(a.NumTriangles())
@@ -214,6 +229,27 @@ func appendMesh(a, b *Mesh) *Mesh {
 			t += toff
 		}
 		out.Nbr = append(out.Nbr, t)
+	}
+	if a.EdgeArc != nil || b.EdgeArc != nil {
+		out.Arcs = append(append([]Arc(nil), a.Arcs...), b.Arcs...)
+		out.EdgeArc = make([]int32, 0, len(out.Tri))
+		for _, part := range []struct {
+			m   *Mesh
+			off int32
+		}{{a, 0}, {b, int32(len(a.Arcs))}} {
+			if part.m.EdgeArc == nil {
+				for range part.m.Tri {
+					out.EdgeArc = append(out.EdgeArc, -1)
+				}
+				continue
+			}
+			for _, e := range part.m.EdgeArc {
+				if e >= 0 {
+					e += part.off
+				}
+				out.EdgeArc = append(out.EdgeArc, e)
+			}
+		}
 	}
 	return out
 }

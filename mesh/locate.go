@@ -31,6 +31,14 @@ import (
 // reported as such (ok = false) and never costs a scan of the mesh. All
 // inside/outside decisions use the exact Orient2D, so a point on a shared
 // edge is inside both triangles and Find returns one of them.
+//
+// Curved triangles (Mesh.Curved) are listed under the bounding box of their
+// curved sides. A point whose corner triangle is curved, or that lies in no
+// corner triangle, is located by inverting the quadratic maps (Reference)
+// of that triangle, of its curved neighbours and of the curved triangles of
+// its cell: a curved side bulges into the triangle on its concave side and
+// out of the mesh on a convex outer boundary. Meshes without curved
+// triangles take none of these steps.
 
 // walkMin is the list length above which Find walks instead of scanning.
 const walkMin = 12
@@ -63,6 +71,13 @@ func NewLocator(m *Mesh) *Locator {
 		l.x0, l.x1 = math.Min(l.x0, m.X[v]), math.Max(l.x1, m.X[v])
 		l.y0, l.y1 = math.Min(l.y0, m.Y[v]), math.Max(l.y1, m.Y[v])
 	}
+	for t := range m.Curved {
+		if m.Curved[t] {
+			bx0, by0, bx1, by1 := m.curvedBox(t)
+			l.x0, l.x1 = math.Min(l.x0, bx0), math.Max(l.x1, bx1)
+			l.y0, l.y1 = math.Min(l.y0, by0), math.Max(l.y1, by1)
+		}
+	}
 	w, h := l.x1-l.x0, l.y1-l.y0
 	size := math.Max(w, h)
 	if w > 0 && h > 0 {
@@ -80,6 +95,10 @@ func NewLocator(m *Mesh) *Locator {
 
 	l.start = make([]int32, nc+1)
 	box := func(t int) (i0, j0, i1, j1 int) {
+		if m.IsCurved(t) {
+			bx0, by0, bx1, by1 := m.curvedBox(t)
+			return l.cellX(bx0), l.cellY(by0), l.cellX(bx1), l.cellY(by1)
+		}
 		a, b, c := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
 		i0, i1 = l.cellX(min(m.X[a], m.X[b], m.X[c])), l.cellX(max(m.X[a], m.X[b], m.X[c]))
 		j0, j1 = l.cellY(min(m.Y[a], m.Y[b], m.Y[c])), l.cellY(max(m.Y[a], m.Y[b], m.Y[c]))
@@ -145,26 +164,88 @@ func (l *Locator) cellY(y float64) int {
 
 // Find returns the triangle t that contains (x, y) and the barycentric
 // coordinates of the point in it (b0 + b1 + b2 = 1, bk >= 0 up to
-// rounding, bk the weight of corner k). A point on an edge or corner shared
-// by several triangles gets any one of them. For a point outside the mesh
-// (or NaN), Find returns t = -1 and ok = false.
+// rounding, bk the weight of corner k). For a curved triangle they are the
+// barycentric coordinates of the point's preimage in the reference
+// triangle: b1 = ξ, b2 = η of Reference. A point on an edge or corner
+// shared by several triangles gets any one of them. For a point outside
+// the mesh (or NaN), Find returns t = -1 and ok = false.
 func (l *Locator) Find(x, y float64) (t int32, b0, b1, b2 float64, ok bool) {
 	if !(x >= l.x0 && x <= l.x1 && y >= l.y0 && y <= l.y1) || len(l.items) == 0 {
 		return -1, 0, 0, 0, false
 	}
 	c := l.cellY(y)*l.nx + l.cellX(x)
 	list := l.items[l.start[c]:l.start[c+1]]
+	t = -1
 	if s := l.first[c]; s >= 0 && l.m.Nbr != nil {
-		if t, ok := l.walk(s, x, y, 2*len(list)+32); ok {
-			b0, b1, b2 = l.bary(t, x, y)
-			return t, b0, b1, b2, true
+		if w, ok := l.walk(s, x, y, 2*len(list)+32); ok {
+			t = w
 		}
 	}
-	for _, t := range list {
-		if l.inside(t, x, y) {
-			b0, b1, b2 = l.bary(t, x, y)
-			return t, b0, b1, b2, true
+	if t < 0 {
+		for _, u := range list {
+			if l.inside(u, x, y) {
+				t = u
+				break
+			}
 		}
+	}
+	if l.m.Curved != nil {
+		return l.findCurved(t, list, x, y)
+	}
+	if t < 0 {
+		return -1, 0, 0, 0, false
+	}
+	b0, b1, b2 = l.bary(t, x, y)
+	return t, b0, b1, b2, true
+}
+
+// refTol is how far outside the reference triangle (in reference
+// coordinates) a point may be found and still count as inside a curved
+// triangle: rounding of Newton's inversion, for points on a curved side.
+const refTol = 1e-12
+
+// findCurved finishes Find on a mesh with curved triangles, given the
+// corner triangle t that holds (x, y) (-1 for none) and the cell's list.
+func (l *Locator) findCurved(t int32, list []int32, x, y float64) (int32, float64, float64, float64, bool) {
+	m := l.m
+	try := func(u int32) (float64, float64, bool) {
+		if u < 0 || !m.Curved[u] {
+			return 0, 0, false
+		}
+		xi, eta, ok := m.Reference(int(u), x, y)
+		return xi, eta, ok && xi >= -refTol && eta >= -refTol && 1-xi-eta >= -refTol
+	}
+	if t >= 0 && !m.Curved[t] {
+		b0, b1, b2 := l.bary(t, x, y)
+		return t, b0, b1, b2, true
+	}
+	if t >= 0 {
+		if xi, eta, ok := try(t); ok {
+			return t, 1 - xi - eta, xi, eta, true
+		}
+		// The point is in the bulge of a neighbour's curved side.
+		for k := 0; k < 3 && m.Nbr != nil; k++ {
+			if u := m.Nbr[3*t+int32(k)]; u >= 0 {
+				if xi, eta, ok := try(u); ok {
+					return u, 1 - xi - eta, xi, eta, true
+				}
+			}
+		}
+	}
+	for _, u := range list {
+		if u == t {
+			continue
+		}
+		if xi, eta, ok := try(u); ok {
+			return u, 1 - xi - eta, xi, eta, true
+		}
+	}
+	if t >= 0 {
+		// Only rounding can get here (a point on a curved side that
+		// both inversions place a hair outside): keep the corner
+		// triangle.
+		xi, eta, _ := m.Reference(int(t), x, y)
+		return t, 1 - xi - eta, xi, eta, true
 	}
 	return -1, 0, 0, 0, false
 }

@@ -27,8 +27,23 @@ type Mesh struct {
 	// the input segment that edge k lies on, or 0 if edge k is not on a segment.
 	EdgeMarker []int32
 	// Mid holds 3 midside node indices per triangle for second-order meshes
-	// (Mid[3t+k] is the node at the midpoint of edge k); nil for first order.
+	// (Mid[3t+k] is the node of edge k: at its midpoint, or on its arc when
+	// the edge is the chord of an arc); nil for first order.
 	Mid []int32
+
+	// Arcs are the circles that curved input segments lie on (Input.Arcs).
+	Arcs []Arc
+	// EdgeArc holds 3 entries per triangle: EdgeArc[3t+k] is the index in
+	// Arcs of the arc whose chord edge k is, or -1 for a straight edge.
+	// nil when no edge lies on an arc.
+	EdgeArc []int32
+	// Curved, on a second-order mesh, marks the triangles that Elevate gave
+	// a midside node on an arc (off the chord's midpoint). Such a triangle
+	// is the image of the reference triangle under the quadratic map of its
+	// six nodes (an isoparametric element, see curved.go); every other
+	// triangle is the affine image of its corners. nil when no triangle is
+	// curved.
+	Curved []bool
 }
 
 // NumTriangles returns the number of triangles.

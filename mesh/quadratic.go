@@ -3,11 +3,13 @@ package mesh
 // Second-order (six-node) triangles.
 //
 // Elevate turns a first-order mesh into a second-order one by adding one node
-// at the midpoint of every edge. The node of an interior edge is shared by the
-// two triangles on either side, so a P2 field assembled on it is continuous.
-// Edges are straight: arcs of the model were already replaced by chords when
-// the graph was built (see DiscretizePolygon), so the midpoint of the chord is
-// the right place for the node.
+// on every edge. The node of an interior edge is shared by the two triangles
+// on either side, so a P2 field assembled on it is continuous. A straight
+// edge gets its node at its midpoint. An edge that is the chord of an arc
+// (Mesh.EdgeArc) gets it on the arc, halfway round (the radial projection of
+// the midpoint), which makes the triangles on both sides curved
+// (Mesh.Curved; see curved.go), unless that would fold one of them (the
+// Jacobian test in curved.go), in which case the edge stays straight.
 //
 // Numbering (see the diagram on Mesh): Mid[3t+k] is the node of edge k, the
 // edge opposite corner k:
@@ -24,9 +26,10 @@ package mesh
 // is deterministic.
 
 // Elevate adds midside nodes to m in place: it appends their coordinates to
-// X and Y after the corner nodes and fills m.Mid. NumVertices, Tri, Nbr,
-// Region and EdgeMarker are unchanged. A mesh that is already second order is
-// left as it is.
+// X and Y after the corner nodes and fills m.Mid, and m.Curved when an edge
+// on an arc was curved. NumVertices, Tri, Nbr, Region, EdgeMarker, Arcs and
+// EdgeArc are unchanged. A mesh that is already second order is left as it
+// is.
 //
 // Interior edges are found through Nbr; when Nbr is nil they are matched by
 // their corner pair. Elevate panics if len(X) != NumVertices on a first-order
@@ -86,6 +89,83 @@ func Elevate(m *Mesh) {
 		}
 	}
 	m.X, m.Y, m.Mid = x, y, mid
+	if m.EdgeArc != nil {
+		m.curve()
+	}
+}
+
+// curve moves the midside node of every edge on an arc onto the arc, then
+// straightens again the arc edges of any triangle whose map the move folds
+// (curvedValid), and fills m.Curved.
+func (m *Mesh) curve() {
+	nt := m.NumTriangles()
+	nv := m.NumVertices
+	onArc := make([]bool, len(m.X)-nv) // per midside node
+	curved := make([]bool, nt)
+	anyCurved := false
+	for t := 0; t < nt; t++ {
+		for k := 0; k < 3; k++ {
+			ai := m.EdgeArc[3*t+k]
+			if ai < 0 || int(ai) >= len(m.Arcs) {
+				continue
+			}
+			n := m.Mid[3*t+k]
+			if !onArc[int(n)-nv] {
+				arc := m.Arcs[ai]
+				a, b := m.Tri[3*t+(k+1)%3], m.Tri[3*t+(k+2)%3]
+				if !arc.holds(m.X[a], m.Y[a]) || !arc.holds(m.X[b], m.Y[b]) {
+					continue
+				}
+				px, py, ok := arc.project(m.X[n], m.Y[n])
+				if !ok {
+					continue
+				}
+				m.X[n], m.Y[n] = px, py
+				onArc[int(n)-nv] = true
+			}
+			curved[t], anyCurved = true, true
+		}
+	}
+	if !anyCurved {
+		return
+	}
+	m.Curved = curved
+	// Straighten folded triangles; straightening an edge changes the
+	// triangle on its other side too, so repeat until nothing folds.
+	for changed := true; changed; {
+		changed = false
+		for t := 0; t < nt; t++ {
+			if !curved[t] || m.curvedValid(t) {
+				continue
+			}
+			for k := 0; k < 3; k++ {
+				n := m.Mid[3*t+k]
+				if !onArc[int(n)-nv] {
+					continue
+				}
+				a, b := m.Tri[3*t+(k+1)%3], m.Tri[3*t+(k+2)%3]
+				m.X[n], m.Y[n] = 0.5*(m.X[a]+m.X[b]), 0.5*(m.Y[a]+m.Y[b])
+				onArc[int(n)-nv] = false
+				changed = true
+			}
+		}
+		if changed {
+			for t := 0; t < nt; t++ {
+				curved[t] = false
+				for k := 0; k < 3; k++ {
+					if onArc[int(m.Mid[3*t+k])-nv] {
+						curved[t] = true
+					}
+				}
+			}
+		}
+	}
+	for _, c := range curved {
+		if c {
+			return
+		}
+	}
+	m.Curved = nil
 }
 
 // twinEdge returns the local index in triangle u of the edge with corners a

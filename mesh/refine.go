@@ -26,6 +26,17 @@ import "math"
 //     exactly these triangles.
 //   - Frozen segments are never split; a circumcentre behind one is not
 //     inserted and the triangle is left as it is.
+//   - A segment that is the chord of an arc (Input.SegmentArc) is split at
+//     a point of the arc, so that every vertex refinement puts on an arc
+//     lies on it, and the two halves are chords of the same arc: at the
+//     middle of the arc, or, for a shell split, at the point of the arc
+//     whose straight distance from the input end is the shell's power of
+//     two (so that the small-angle exemption still sees equal distances).
+//     A piece with an end off the arc (a vertex where another edge
+//     crossed the chord, computed on the chord) is split on the chord. The point lies off the
+//     chord by the chord's sagitta, a small fraction of the triangles there
+//     (GraphOptions); when the triangles around it would not all stay
+//     counter-clockwise, the split falls back to the point on the chord.
 //
 // Termination: encroached subsegments always go first; every insertion is
 // bounded below in distance by the local feature size for angle bounds up to
@@ -47,8 +58,13 @@ type refiner struct {
 	vseg    []int32    // per vertex: segment piece a split put it on, or -1
 	segEnds [][2]int32 // segment pieces' end points (see cdt.segEnds)
 	segOf   map[edgeKey]int32
-	steps   int
-	offK    float64 // off-centre distance factor, 0 to use circumcentres
+	// pieceSeg, segArc and arcs find the arc a piece lies on: the input
+	// segment of the piece, its index in arcs (or -1), the arcs.
+	pieceSeg []int32
+	segArc   []int32
+	arcs     []Arc
+	steps    int
+	offK     float64 // off-centre distance factor, 0 to use circumcentres
 
 	triQ    []triItem
 	triHead int
@@ -96,7 +112,79 @@ func newRefiner(d *cdt, in *Input, vmap []int32, opt *Options, maxTri int) *refi
 		r.vseg[i] = -1
 	}
 	r.segEnds, r.segOf = d.segEnds, d.segOf
+	if in.SegmentArc != nil {
+		r.pieceSeg, r.segArc, r.arcs = d.pieceSeg, in.SegmentArc, in.Arcs
+	}
 	return r
+}
+
+// arcOf returns the arc that segment piece p lies on, if any.
+func (r *refiner) arcOf(p int32) (Arc, bool) {
+	if r.segArc == nil || p < 0 || int(p) >= len(r.pieceSeg) {
+		return Arc{}, false
+	}
+	s := r.pieceSeg[p]
+	if s < 0 {
+		return Arc{}, false
+	}
+	a := r.segArc[s]
+	if a < 0 {
+		return Arc{}, false
+	}
+	return r.arcs[a], true
+}
+
+// pieceOf returns the segment piece that the marked edge (a, b) lies on,
+// or -1: the piece a split put a or b on, or the piece (a, b) itself.
+func (r *refiner) pieceOf(a, b int32) int32 {
+	if p := r.vseg[a]; p >= 0 {
+		return p
+	}
+	if p := r.vseg[b]; p >= 0 {
+		return p
+	}
+	if p, ok := r.segOf[ekey(a, b)]; ok {
+		return p
+	}
+	return -1
+}
+
+// edgeArcs returns, per triangle slot of the triangulation, the index in
+// Input.Arcs of the arc each edge lies on, or -1 (nil when the input has
+// no arcs).
+func (r *refiner) edgeArcs() []int32 {
+	if r.segArc == nil {
+		return nil
+	}
+	d := r.d
+	out := make([]int32, len(d.tri))
+	for i := range out {
+		out[i] = -1
+	}
+	any := false
+	for t := int32(0); t < int32(len(d.tri)/3); t++ {
+		if !d.alive(t) {
+			continue
+		}
+		for k := int32(0); k < 3; k++ {
+			if d.mark[3*t+k] == 0 {
+				continue
+			}
+			a, b := d.tri[3*t+int32(next3[k])], d.tri[3*t+int32(next3[k+1])]
+			p := r.pieceOf(a, b)
+			if p < 0 || int(p) >= len(r.pieceSeg) || r.pieceSeg[p] < 0 {
+				continue
+			}
+			if ai := r.segArc[r.pieceSeg[p]]; ai >= 0 {
+				out[3*t+k] = ai
+				any = true
+			}
+		}
+	}
+	if !any {
+		return nil
+	}
+	return out
 }
 
 func ekey(a, b int32) edgeKey {
@@ -325,6 +413,27 @@ func (r *refiner) splitSegment(u, v int32) error {
 	if seg < 0 {
 		if s, ok := r.segOf[ekey(u, v)]; ok {
 			seg = s
+		}
+	}
+	if a, ok := r.arcOf(seg); ok && a.holds(ux, uy) && a.holds(vx, vy) {
+		qx, qy, ok := a.project(px, py)
+		if uIn != vIn {
+			// Keep the concentric shells: the point of the arc at the
+			// same straight distance from the input end.
+			if uIn {
+				qx, qy, ok = a.pointAt(ux, uy, vx, vy, s*math.Hypot(vx-ux, vy-uy))
+			} else {
+				qx, qy, ok = a.pointAt(vx, vy, ux, uy, (1-s)*math.Hypot(vx-ux, vy-uy))
+			}
+		}
+		if ok {
+			su, sv, sm := d.findCavity(qx, qy, t, k, locEdge)
+			if r.fanOK(qx, qy) {
+				p := r.newVertex(qx, qy, seg)
+				d.commit(p, su, sv, sm)
+				r.afterInsert()
+				return nil
+			}
 		}
 	}
 	su, sv, sm := d.findCavity(px, py, t, k, locEdge)

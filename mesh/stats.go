@@ -54,6 +54,9 @@ func (m *Mesh) Stats() Stats {
 	for t := 0; t < nt; t++ {
 		a, b, c := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
 		q := triShape(m.X[a], m.Y[a], m.X[b], m.Y[b], m.X[c], m.Y[c])
+		if m.IsCurved(t) {
+			q.area = m.TriangleArea(t)
+		}
 		s.MinAngle = math.Min(s.MinAngle, q.minAngle)
 		meanMin.Add(q.minAngle)
 		if q.aspect > s.WorstAspect || math.IsInf(q.aspect, 1) {
@@ -85,8 +88,8 @@ func (m *Mesh) Stats() Stats {
 }
 
 // RegionAreas returns the area of each region tag in m², each a
-// compensated sum over its triangles. A mesh without Region tags counts as
-// region 0.
+// compensated sum over its triangles (TriangleArea: curved triangles count
+// with their curved sides). A mesh without Region tags counts as region 0.
 func (m *Mesh) RegionAreas() map[int32]float64 {
 	acc := make(map[int32]*compsum.Sum)
 	for t := 0; t < m.NumTriangles(); t++ {
@@ -99,8 +102,7 @@ func (m *Mesh) RegionAreas() map[int32]float64 {
 			s = new(compsum.Sum)
 			acc[r] = s
 		}
-		a, b, c := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
-		s.Add(triArea(m.X[a], m.Y[a], m.X[b], m.Y[b], m.X[c], m.Y[c]))
+		s.Add(m.TriangleArea(t))
 	}
 	out := make(map[int32]float64, len(acc))
 	for r, s := range acc {

@@ -87,7 +87,7 @@ func Triangulate(in *Input, opt Options) (*Mesh, error) {
 	if err := r.run(); err != nil {
 		return nil, err
 	}
-	m := d.export(in)
+	m := d.export(in, r.edgeArcs())
 	if opt.Order == 2 {
 		Elevate(m)
 	}
@@ -433,7 +433,9 @@ func (d *cdt) classify(in *Input, vmap []int32) {
 // place: the working arrays become the Mesh's arrays (stamp and link serve
 // as the renumbering tables), so a large mesh is not copied. Used input
 // vertices come first, in input order, then the vertices refinement made.
-func (d *cdt) export(in *Input) *Mesh {
+// edgeArc, when not nil, gives the arc of each edge per triangle slot
+// (refiner.edgeArcs); it becomes Mesh.EdgeArc with Input.Arcs.
+func (d *cdt) export(in *Input, edgeArc []int32) *Mesh {
 	nv := len(d.x)
 	nIn := len(d.perm)
 	vnew := d.link[:nv] // all -1 between insertions
@@ -500,9 +502,16 @@ func (d *cdt) export(in *Input) *Mesh {
 	}
 	nt := len(live)
 	tri, nbr, reg, mark := make([]int32, 3*nt), make([]int32, 3*nt), make([]int32, nt), make([]int32, 3*nt)
+	var ea []int32
+	if edgeArc != nil {
+		ea = make([]int32, 3*nt)
+	}
 	for j, t := range live {
 		reg[j] = d.reg[t]
 		for k := 0; k < 3; k++ {
+			if ea != nil {
+				ea[3*j+k] = edgeArc[3*int(t)+k]
+			}
 			tri[3*j+k] = vnew[d.tri[3*int(t)+k]]
 			if n := d.nbr[3*int(t)+k]; n >= 0 && d.tri[3*n] >= 0 {
 				nbr[3*j+k] = int32(tnew[n])
@@ -520,6 +529,9 @@ func (d *cdt) export(in *Input) *Mesh {
 		Nbr:         nbr,
 		Region:      reg,
 		EdgeMarker:  mark,
+	}
+	if ea != nil {
+		m.EdgeArc, m.Arcs = ea, slices.Clone(in.Arcs)
 	}
 	*d = cdt{} // the arrays now belong to the Mesh
 	return m

@@ -136,7 +136,7 @@ func (m *Model) Check() error {
 		}
 	}
 	mc := m.Mesh
-	if !(mc.Size > 0) || (mc.Order != 1 && mc.Order != 2) || !(mc.MinAngle > 0) || !(mc.Grading > 0) || !(mc.Chord > 0) ||
+	if !(mc.Size > 0) || (mc.Order != 1 && mc.Order != 2) || !(mc.MinAngle > 0) || !(mc.Grading > 0) || mc.Chord < 0 ||
 		!finite(mc.Size, mc.MinAngle, mc.Grading, mc.Chord) {
 		return bad("mesh controls %+v", mc)
 	}

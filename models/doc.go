@@ -45,7 +45,8 @@
 //   - Defaults are filled in: Boundary (box, margin 1.0, zero-potential;
 //     with a template: circle, margin 1.0, open),
 //     Mesh.Size (largest model dimension / 30), Order 1 (2 when
-//     Mesh.Auto), MinAngle 28°, Grading 0.3, Chord (Mesh.Size / 20);
+//     Mesh.Auto), MinAngle 28°, Grading 0.3, Chord 0 (arcs follow the
+//     local element size: the mesher's chords stay within 1/20 of it);
 //     material Stacking 1; magnet MuRecoil 1; line probes 101 samples,
 //     circle probes 180. Mesh.Auto is set when the file states no element
 //     size (no mesh.size, no region mesh-size, no mesh.refine list).

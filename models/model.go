@@ -175,7 +175,7 @@ type MeshControls struct {
 	Order    int     // 1 or 2
 	MinAngle float64 // rad, minimum triangle angle
 	Grading  float64 // allowed relative growth of element size per element, in (0, 1]
-	Chord    float64 // m, largest distance between an arc and its chords
+	Chord    float64 // m, largest distance between an arc and its chords; 0: 1/20 of the local element size
 	// Accuracy is the relative error allowed in every reported quantity:
 	// commands refine the mesh adaptively until each changes by at most
 	// this between two meshes. 0 means the commands' default (1e-3).

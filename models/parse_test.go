@@ -183,7 +183,7 @@ func TestDefaults(t *testing.T) {
 	// base states no element size: the size field is automatic and the
 	// elements second order.
 	if m.Mesh.Size != 0.1/30 || m.Mesh.Order != 2 || !m.Mesh.Auto || m.Mesh.Grading != 0.3 ||
-		m.Mesh.MinAngle != 28*math.Pi/180 || m.Mesh.Chord != m.Mesh.Size/20 {
+		m.Mesh.MinAngle != 28*math.Pi/180 || m.Mesh.Chord != 0 {
 		t.Errorf("mesh defaults %+v", m.Mesh)
 	}
 	if m.Boundary.Shape != "box" || m.Boundary.Margin != 1 || m.Boundary.Condition != "zero-potential" {

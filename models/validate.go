@@ -8,13 +8,12 @@ import (
 
 // Defaults filled in on load.
 const (
-	DefaultMargin       = 1.0  // boundary margin, multiples of the model's largest dimension
-	DefaultSizeDivisor  = 30   // mesh size = largest model dimension / 30
-	DefaultOrder        = 1    // first-order triangles, when the file sets element sizes
-	AutoOrder           = 2    // second-order triangles, when the size field is automatic (MeshControls.Auto)
-	DefaultMinAngleDeg  = 28.0 // degrees
-	DefaultGrading      = 0.3
-	DefaultChordDivisor = 20 // chord = mesh size / 20
+	DefaultMargin      = 1.0  // boundary margin, multiples of the model's largest dimension
+	DefaultSizeDivisor = 30   // mesh size = largest model dimension / 30
+	DefaultOrder       = 1    // first-order triangles, when the file sets element sizes
+	AutoOrder          = 2    // second-order triangles, when the size field is automatic (MeshControls.Auto)
+	DefaultMinAngleDeg = 28.0 // degrees
+	DefaultGrading     = 0.3
 )
 
 // relTol is the relative resolution of validation geometry: lengths up to
@@ -320,8 +319,5 @@ func (d *decoder) defaults(m *Model) {
 	}
 	if mc.Grading == 0 {
 		mc.Grading = DefaultGrading
-	}
-	if mc.Chord == 0 {
-		mc.Chord = mc.Size / DefaultChordDivisor
 	}
 }

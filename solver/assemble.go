@@ -137,13 +137,47 @@ func (as *assembler) affine(t int) (x0, y0, a, b, c, d, det float64) {
 	return
 }
 
-// curlAt fills w.c with the curl vectors at quadrature point q of triangle
-// t and returns the integration weight (including r for axisymmetry) and
-// the physical point.
+// curlAt fills w.c with the curl vectors at quadrature point q of the
+// straight triangle t with the affine map (x0, y0, a, b, c, d, det) and
+// returns the integration weight (including r for axisymmetry) and the
+// physical point.
 func (as *assembler) curlAt(t, q int, w *elemWork, x0, y0, a, b, c, d, det float64) (wt, x, y float64) {
 	xi, eta := as.rule.Point(q)
 	x = x0 + a*xi + b*eta
 	y = y0 + c*xi + d*eta
+	wt = as.curlWith(q, w, x, a, b, c, d, det)
+	return
+}
+
+// curlCurved is curlAt for a curved triangle whose nodes are in w.nodes:
+// the Jacobian of its quadratic map is evaluated at the quadrature point.
+func (as *assembler) curlCurved(q int, w *elemWork) (wt, x, y float64) {
+	x, y, a, b, c, d, det := isoAt(as.m, &w.nodes, &as.val[q], &as.rgrad[q])
+	return as.curlWith(q, w, x, a, b, c, d, det), x, y
+}
+
+// isoAt returns the point and the Jacobian (a, b, c, d) = (∂x/∂ξ, ∂x/∂η,
+// ∂y/∂ξ, ∂y/∂η) with its determinant of the quadratic (isoparametric) map
+// of a curved triangle with the given six nodes, at the reference point
+// where the P2 basis has values val and reference gradients rg.
+func isoAt(m *mesh.Mesh, nodes *[MaxNodes]int32, val *[MaxNodes]float64, rg *[MaxNodes][2]float64) (x, y, a, b, c, d, det float64) {
+	for i := 0; i < 6; i++ {
+		px, py := m.X[nodes[i]], m.Y[nodes[i]]
+		x += val[i] * px
+		y += val[i] * py
+		a += rg[i][0] * px
+		b += rg[i][1] * px
+		c += rg[i][0] * py
+		d += rg[i][1] * py
+	}
+	det = a*d - b*c
+	return
+}
+
+// curlWith fills w.c with the curl vectors at quadrature point q for the
+// Jacobian (a, b, c, d, det) there, x being the radius when axisymmetric,
+// and returns the integration weight.
+func (as *assembler) curlWith(q int, w *elemWork, x, a, b, c, d, det float64) (wt float64) {
 	wt = as.rule.W[q] * 0.5 * det
 	inv := 1 / det
 	rg := &as.rgrad[q]
@@ -189,8 +223,14 @@ func (as *assembler) element(t int, w *elemWork, wantK bool) bool {
 	}
 	ext, isExt := as.ext[reg]
 	x0, y0, a, b, c, d, det := as.affine(t)
+	curved := as.m.IsCurved(t)
 	for q := range as.rule.W {
-		wt, x, y := as.curlAt(t, q, w, x0, y0, a, b, c, d, det)
+		var wt, x, y float64
+		if curved {
+			wt, x, y = as.curlCurved(q, w)
+		} else {
+			wt, x, y = as.curlAt(t, q, w, x0, y0, a, b, c, d, det)
+		}
 		var bx, by float64
 		for i := 0; i < nn; i++ {
 			bx += w.a[i] * w.c[i][0]

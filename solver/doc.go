@@ -102,8 +102,20 @@
 //
 // # Invariants
 //
-// Triangles are counter-clockwise with straight sides; second-order
-// midside nodes sit at edge midpoints (mesh.Elevate). A Solution's A has
+// Triangles are counter-clockwise. Second-order midside nodes sit at edge
+// midpoints, except on the triangles mesh.Elevate curved along an arc
+// (mesh.Mesh.Curved): those are isoparametric, the image of the reference
+// triangle under the quadratic map of their six nodes, and assembly, the
+// residual and energy, B and point location evaluate the Jacobian of that
+// map at each point (O. C. Zienkiewicz and R. L. Taylor, "The Finite
+// Element Method", vol. 1, ch. 9; M. Zlámal, SIAM J. Numer. Anal. 10,
+// 1973). They use the same quadrature rule as straight triangles: a rule
+// exact for degree 2k − 2 keeps the optimal order of P_k isoparametric
+// elements (P. G. Ciarlet and P.-A. Raviart, "The combined effect of curved
+// boundaries and numerical integration in isoparametric finite element
+// methods", 1972; from memory). Straight triangles keep the affine path, so
+// a mesh without curved triangles gives bit for bit the results it gave
+// before. A Solution's A has
 // one entry per mesh node and is consistent: fixed nodes at their values,
 // identified nodes equal.
 package solver

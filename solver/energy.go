@@ -43,9 +43,15 @@ func (s *Solution) Energies() (w, wco float64) {
 			reg := as.m.Region[t]
 			mat := mats[reg]
 			ext, isExt := as.ext[reg]
+			curved := as.m.IsCurved(t)
 			var et, ct float64
 			for q := range as.rule.W {
-				wt, x, y := as.curlAt(t, q, &ew, x0, y0, a, b, c, d, det)
+				var wt, x, y float64
+				if curved {
+					wt, x, y = as.curlCurved(q, &ew)
+				} else {
+					wt, x, y = as.curlAt(t, q, &ew, x0, y0, a, b, c, d, det)
+				}
 				if isExt {
 					wt *= ((x-ext.CX)*(x-ext.CX) + (y-ext.CY)*(y-ext.CY)) / (ext.Radius * ext.Radius)
 				}

@@ -41,6 +41,7 @@ func (s *Solution) ErrorIndicatorTo(dst []float64) ([]float64, float64) {
 	wsum := make([]float64, nn)
 	var nodes [MaxNodes]int32
 	var val [MaxNodes]float64
+	var rg [MaxNodes][2]float64
 	var total float64
 	for lo := 0; lo < nt; {
 		reg := m.Region[order[lo]]
@@ -54,6 +55,9 @@ func (s *Solution) ErrorIndicatorTo(dst []float64) ([]float64, float64) {
 			t := int(t32)
 			k := elementNodes(m, t, &nodes)
 			_, _, _, _, _, _, det := as.affine(t)
+			if m.IsCurved(t) {
+				det = 2 * m.TriangleArea(t)
+			}
 			for i := 0; i < k; i++ {
 				xi, eta := as.el.RefNode(i)
 				_, bx, by := s.evalElement(t, xi, eta)
@@ -81,10 +85,15 @@ func (s *Solution) ErrorIndicatorTo(dst []float64) ([]float64, float64) {
 			t := int(t32)
 			k := elementNodes(m, t, &nodes)
 			x0, y0, a, b, c, d, det := as.affine(t)
+			curved := m.IsCurved(t)
 			var e2 float64
 			for q := range rule.W {
 				xi, eta := rule.Point(q)
-				as.el.EvalTo(val[:], nil, xi, eta)
+				if curved {
+					as.el.EvalTo(val[:], rg[:], xi, eta)
+				} else {
+					as.el.EvalTo(val[:], nil, xi, eta)
+				}
 				var rx, ry float64
 				for i := 0; i < k; i++ {
 					rx += val[i] * rec[nodes[i]][0]
@@ -94,6 +103,11 @@ func (s *Solution) ErrorIndicatorTo(dst []float64) ([]float64, float64) {
 				nu, _ := mat.Nu(bx*bx + by*by)
 				w := rule.W[q] * 0.5 * det
 				x, y := x0+a*xi+b*eta, y0+c*xi+d*eta
+				if curved {
+					var dq float64
+					x, y, _, _, _, _, dq = isoAt(m, &nodes, &val, &rg)
+					w = rule.W[q] * 0.5 * dq
+				}
 				if as.axi {
 					w *= 2 * math.Pi * x
 				}

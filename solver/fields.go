@@ -17,6 +17,11 @@ func (s *Solution) evalWith(t int, xi, eta float64, val *[MaxNodes]float64, rg *
 	var nodes [MaxNodes]int32
 	k := elementNodes(as.m, t, &nodes)
 	x0, _, ja, jb, jc, jd, det := as.affine(t)
+	curved := as.m.IsCurved(t)
+	var xc float64
+	if curved {
+		xc, _, ja, jb, jc, jd, det = isoAt(as.m, &nodes, val, rg)
+	}
 	inv := 1 / det
 	var gx, gy float64
 	for i := 0; i < k; i++ {
@@ -29,6 +34,9 @@ func (s *Solution) evalWith(t int, xi, eta float64, val *[MaxNodes]float64, rg *
 		return a, gy, -gx
 	}
 	r := x0 + ja*xi + jb*eta
+	if curved {
+		r = xc
+	}
 	if r <= as.rtol {
 		// On the axis A = 0 and A/r tends to ∂A/∂r.
 		return a, -gy, 2 * gx
@@ -119,6 +127,9 @@ func (s *Solution) NodalBTo(dst [][2]float64) [][2]float64 {
 		k := elementNodes(m, t, &nodes)
 		_, _, _, _, _, _, det := s.as.affine(t)
 		w := 0.5 * det
+		if m.IsCurved(t) {
+			w = m.TriangleArea(t)
+		}
 		for i := 0; i < k; i++ {
 			xi, eta := s.as.el.RefNode(i)
 			_, bx, by := s.evalElement(t, xi, eta)

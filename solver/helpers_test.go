@@ -317,3 +317,27 @@ func mulVecTo(dst []float64, a *sparse.CSR, x []float64) {
 		dst[i] = s
 	}
 }
+
+// curveRings makes the edges of the first-order mesh m whose two ends lie
+// on one of the circles about the origin with the given radii chords of
+// that circle (mesh.Mesh.EdgeArc), so that mesh.Elevate curves them.
+func curveRings(m *mesh.Mesh, radii ...float64) {
+	m.Arcs = m.Arcs[:0]
+	for _, r := range radii {
+		m.Arcs = append(m.Arcs, mesh.Arc{R: r})
+	}
+	nt := m.NumTriangles()
+	m.EdgeArc = make([]int32, 3*nt)
+	on := func(v int32, r float64) bool { return math.Abs(math.Hypot(m.X[v], m.Y[v])-r) <= 1e-12*r }
+	for t := 0; t < nt; t++ {
+		for k := 0; k < 3; k++ {
+			m.EdgeArc[3*t+k] = -1
+			a, b := m.Tri[3*t+(k+1)%3], m.Tri[3*t+(k+2)%3]
+			for i, r := range radii {
+				if on(a, r) && on(b, r) {
+					m.EdgeArc[3*t+k] = int32(i)
+				}
+			}
+		}
+	}
+}

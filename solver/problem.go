@@ -154,6 +154,9 @@ func (p *Problem) validate() error {
 	if m.Mid != nil && len(m.Mid) != 3*nt {
 		return &ProblemError{Field: "Mesh.Mid", Reason: "needs 3 entries per triangle"}
 	}
+	if m.Curved != nil && (len(m.Curved) != nt || m.Mid == nil) {
+		return &ProblemError{Field: "Mesh.Curved", Reason: "needs one entry per triangle of a second-order mesh"}
+	}
 	if len(m.Nbr) != 3*nt || len(m.EdgeMarker) != 3*nt {
 		return &ProblemError{Field: "Mesh", Reason: "Nbr and EdgeMarker need 3 entries per triangle"}
 	}

@@ -66,6 +66,18 @@ func SizeField(m *models.Model) mesh.SizeField {
 			f.Lines = append(f.Lines, mesh.SizeLine{X0: x[i], Y0: y[i], X1: x[j], Y1: y[j], Size: size})
 		}
 	}
+	// A region's edges, its arcs followed by chords of at most 5° (the
+	// size there then exceeds the asked size by at most the grading times
+	// a sagitta of 1e-3 of the radius).
+	addRegion := func(r *models.Region, size float64) {
+		if r.Sweep == nil {
+			addPolygon(r.X, r.Y, size)
+			return
+		}
+		x, y := mesh.DiscretizePolygon(mesh.Polygon{X: r.X, Y: r.Y, Sweep: r.Sweep},
+			mesh.GraphOptions{ChordTol: math.Inf(1), MaxArcAngle: 5 * math.Pi / 180})
+		addPolygon(x, y, size)
+	}
 	addProbe := func(p *models.Probe, size float64) {
 		switch p.Kind {
 		case models.ProbePoint:
@@ -98,7 +110,7 @@ func SizeField(m *models.Model) mesh.SizeField {
 		}
 		if s > 0 {
 			f.Region[Tag(i)] = s
-			addPolygon(r.X, r.Y, s)
+			addRegion(&m.Regions[i], s)
 		}
 	}
 	// Probes get the global size too: they are where the answers are read.
@@ -115,7 +127,7 @@ func SizeField(m *models.Model) mesh.SizeField {
 			f.Lines = append(f.Lines, mesh.SizeLine{X0: rf.Line[0][0], Y0: rf.Line[0][1], X1: rf.Line[1][0], Y1: rf.Line[1][1], Size: rf.Size})
 		case rf.Near != "":
 			if r, ok := m.Region(rf.Near); ok {
-				addPolygon(r.X, r.Y, rf.Size)
+				addRegion(r, rf.Size)
 				continue
 			}
 			if p, ok := m.Probe(rf.Near); ok {
@@ -124,6 +136,14 @@ func SizeField(m *models.Model) mesh.SizeField {
 		}
 	}
 	return f
+}
+
+// GraphOptions returns the options that build the model's straight-line
+// graph for the mesher's size field size: arcs are cut into chords whose
+// sagitta is the model's chord length (mesh.chord) when it sets one, and
+// otherwise mesh.DefaultChordRatio (1/20) of the element size at the arc.
+func GraphOptions(m *models.Model, size *mesh.SizeField) mesh.GraphOptions {
+	return mesh.GraphOptions{ChordTol: m.Mesh.Chord, Size: size, MergeTol: m.Resolution()}
 }
 
 // MeshOptions returns the mesher options of the model.
@@ -163,7 +183,7 @@ func discretize(m, outer *models.Model, size func(x, y float64, region int32) fl
 	if err := checkProbes(m, outer, d.Boundary); err != nil {
 		return nil, err
 	}
-	gopt := mesh.GraphOptions{ChordTol: m.Mesh.Chord, MergeTol: m.Resolution()}
+	gopt := GraphOptions(m, &d.Options.Size)
 	d.Input, err = mesh.BuildInput(Polygons(m), d.Boundary, gopt)
 	if err != nil {
 		return nil, d.locate(err)

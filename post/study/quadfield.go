@@ -7,8 +7,11 @@ import (
 
 // QuadField evaluates a solution element by element at the points of a
 // quadrature rule: the potential, the flux density and the integration
-// weight. It is the kernel shared by the integrals of post/quantity (circuit, force); it holds the tabulated shape functions and never
-// allocates after NewQuadField.
+// weight. It is the kernel shared by the integrals of post/quantity
+// (circuit, force); it holds the tabulated shape functions and never
+// allocates after NewQuadField. On a curved triangle (mesh.Mesh.Curved) the
+// point, the weight and B come from the quadratic map of its six nodes,
+// its Jacobian evaluated at each quadrature point, as the solver does.
 type QuadField struct {
 	Mesh *mesh.Mesh
 	A    []float64
@@ -76,6 +79,22 @@ func (f *QuadField) At(t, q int) QuadPoint {
 		nodes[3], nodes[4], nodes[5] = m.Mid[3*t], m.Mid[3*t+1], m.Mid[3*t+2]
 	}
 	val, rg := &f.val[q], &f.rg[q]
+	if m.IsCurved(t) {
+		var x, y float64
+		ja, jb, jc, jd = 0, 0, 0, 0
+		for i := 0; i < 6; i++ {
+			px, py := m.X[nodes[i]], m.Y[nodes[i]]
+			x += val[i] * px
+			y += val[i] * py
+			ja += rg[i][0] * px
+			jb += rg[i][1] * px
+			jc += rg[i][0] * py
+			jd += rg[i][1] * py
+		}
+		det = ja*jd - jb*jc
+		inv = 1 / det
+		p.X, p.Y, p.W = x, y, f.Rule.W[q]*0.5*det
+	}
 	var gx, gy float64
 	for i := 0; i < f.nn; i++ {
 		ai := f.A[nodes[i]]
@@ -92,4 +111,31 @@ func (f *QuadField) At(t, q int) QuadPoint {
 	p.W *= twoPi * p.X
 	p.Bx, p.By = -gy, gx+p.A/p.X
 	return p
+}
+
+// LinearGrad returns, at quadrature point q of triangle t, the gradient of
+// the function that is linear in the reference coordinates with values g0,
+// g1, g2 at the corners: the triangle's P1 function, isoparametric on a
+// curved triangle (whose map's Jacobian at the point it uses), so that it
+// stays continuous across curved sides as the P2 field does.
+func (f *QuadField) LinearGrad(t, q int, g0, g1, g2 float64) (gx, gy float64) {
+	m := f.Mesh
+	i0, i1, i2 := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
+	x0, y0 := m.X[i0], m.Y[i0]
+	ja, jb := m.X[i1]-x0, m.X[i2]-x0
+	jc, jd := m.Y[i1]-y0, m.Y[i2]-y0
+	if m.IsCurved(t) {
+		nodes := [6]int32{i0, i1, i2, m.Mid[3*t], m.Mid[3*t+1], m.Mid[3*t+2]}
+		rg := &f.rg[q]
+		ja, jb, jc, jd = 0, 0, 0, 0
+		for i, v := range nodes {
+			ja += rg[i][0] * m.X[v]
+			jb += rg[i][1] * m.X[v]
+			jc += rg[i][0] * m.Y[v]
+			jd += rg[i][1] * m.Y[v]
+		}
+	}
+	det := ja*jd - jb*jc
+	d1, d2 := g1-g0, g2-g0
+	return (jd*d1 - jc*d2) / det, (-jb*d1 + ja*d2) / det
 }

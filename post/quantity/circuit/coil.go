@@ -1,8 +1,6 @@
 package circuit
 
 import (
-	"math"
-
 	"polegap/internal/compsum"
 	"polegap/internal/num"
 	"polegap/models"
@@ -107,8 +105,7 @@ func LinkagesTo(dst []float64, sol *solver.Solution, coils []Coil) ([]float64, e
 			it += pt.W * pt.A
 		}
 		acc.a.Add(it)
-		a, b, c := m.Tri[3*t], m.Tri[3*t+1], m.Tri[3*t+2]
-		acc.area.Add(0.5 * math.Abs((m.X[b]-m.X[a])*(m.Y[c]-m.Y[a])-(m.X[c]-m.X[a])*(m.Y[b]-m.Y[a])))
+		acc.area.Add(m.TriangleArea(t)) // curved triangles with their curved sides
 	}
 	areas := map[int32]float64{}
 	for tag, acc := range want {

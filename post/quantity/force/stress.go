@@ -100,9 +100,13 @@ func (pt *part) stress(sol *solver.Solution, g []float64, band float64) (Force, 
 		gx := (jd*d1 - jc*d2) / det
 		gy := (-jb*d1 + ja*d2) / det
 		mat := p.Materials[m.Region[t]]
+		curved := m.IsCurved(t)
 		var ex, ey float64
 		for q := 0; q < nq; q++ {
 			qp := f.At(t, q)
+			if curved {
+				gx, gy = f.LinearGrad(t, q, g0, g1, g2)
+			}
 			b2 := qp.Bx*qp.Bx + qp.By*qp.By
 			nu, _ := mat.Nu(b2)
 			_, wco := study.EnergyDensity(mat, b2)
