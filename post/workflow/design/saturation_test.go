@@ -84,8 +84,10 @@ func TestSaturationPeakConverges(t *testing.T) {
 
 // The corner values of a second-order solution's linear B, interpolated
 // back, give the element's own B at the points of another rule (degree
-// 4, 6 points): B of a P2 element is linear, so to rounding (1e-12
-// relative to the largest |B| asserted).
+// 4, 6 points): B of a straight P2 element is linear, so to rounding
+// (1e-12 relative to the largest |B| asserted). Curved elements (along
+// arcs, here the open boundary's circle) map their field through a
+// quadratic geometry and are left out.
 func TestLinearB(t *testing.T) {
 	m, err := models.LoadExample("bench-dipole")
 	if err != nil {
@@ -102,6 +104,9 @@ func TestLinearB(t *testing.T) {
 	qf := study.NewQuadField(s.Solution, 4)
 	var worst, bmax float64
 	for tr := range lin {
+		if s.Disc.Mesh.IsCurved(tr) {
+			continue
+		}
 		for q := range qf.NumPoints() {
 			p := qf.At(tr, q)
 			l := qf.Rule.L[q]
