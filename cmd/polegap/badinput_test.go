@@ -75,7 +75,7 @@ func TestBadInputs(t *testing.T) {
 			[]string{`box-cuts-region.yaml:23:17: boundary.box: region "core" reaches from (0, 0) mm to (100, 20) mm, outside the boundary box`, "enlarge the box"}},
 		{"too fine for memory", []string{"solve", "too-fine.yaml"}, 1,
 			[]string{"too-fine.yaml:24:7: mesh: the mesh would need at least ", "over the limit of 20000000 triangles", "enlarge mesh.size (now 0.001 mm) at least"}},
-		{"target above the iron", []string{"size", "--field", "8T", "unreachable-field.yaml"}, 1,
+		{"target above the iron", []string{"size", "--quick", "--field", "8T", "unreachable-field.yaml"}, 1,
 			[]string{"a field of 8 T is out of reach", "the iron is deep in saturation", "enlarge the poles or the yoke, shorten the gap"}},
 		{"usage: unknown unit on a flag", []string{"size", "--field", "8 furlongs", "unreachable-field.yaml"}, 2,
 			[]string{"usage: polegap size"}},
@@ -223,7 +223,7 @@ func TestFailedWriteLeavesNothing(t *testing.T) {
 	t.Run("missing folder", func(t *testing.T) {
 		dir := t.TempDir()
 		target := filepath.Join(dir, "no-such-dir", "x.vtu")
-		code, _, errs := runCmd(t, "solve", "--vtu", target, model)
+		code, _, errs := runCmd(t, "solve", "--quick", "--vtu", target, model)
 		if code != 1 || !strings.Contains(errs, "writing "+target) {
 			t.Errorf("exit %d, stderr %q", code, errs)
 		}
@@ -239,7 +239,7 @@ func TestFailedWriteLeavesNothing(t *testing.T) {
 		if err := os.Mkdir(target, 0o755); err != nil {
 			t.Fatal(err)
 		}
-		code, _, errs := runCmd(t, "solve", "--vtu", target, model)
+		code, _, errs := runCmd(t, "solve", "--quick", "--vtu", target, model)
 		if code != 1 || !strings.Contains(errs, "writing "+target) {
 			t.Errorf("exit %d, stderr %q", code, errs)
 		}
