@@ -327,9 +327,11 @@ func (m *Mesh) shellException(t int, in *Input) bool {
 			if s2 == s1 || !onSeg(v, s2) {
 				continue
 			}
-			// The apex is an input vertex on both segments (an end point of
-			// one, lying anywhere on the other).
-			for _, a := range [4]int32{in.Segments[2*s1], in.Segments[2*s1+1], in.Segments[2*s2], in.Segments[2*s2+1]} {
+			// The apex is an input vertex on both segments: an end point
+			// of one lying anywhere on the other, or the end point of a
+			// third segment lying on both (overlapping or collinear
+			// input, where recovery splits both segments at it).
+			for a := range in.X {
 				ax, ay := in.X[a], in.Y[a]
 				if !onSegXY(ax, ay, s1) || !onSegXY(ax, ay, s2) {
 					continue
