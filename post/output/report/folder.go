@@ -24,7 +24,7 @@ import (
 // an excitation curve, the curve and the efficiency) and gathers them
 // with the run's results for the HTML report.
 func NewBundle(r *demo.Run) (*Bundle, error) {
-	b := &Bundle{Report: r.Report, Check: r.Check, Sweep: r.Sweep, Sizing: r.Sizing, When: r.When}
+	b := &Bundle{Report: r.Report, Check: r.Check, Sweep: r.Sweep, Sizing: r.Sizing, When: r.When, Estimates: estimateRows(r.Report)}
 	img, err := figure.FieldImage(r.Result, "png")
 	if err != nil {
 		return nil, err

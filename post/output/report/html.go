@@ -29,6 +29,36 @@ type Bundle struct {
 	Sizing *coil.Sizing
 	Images []Image
 	When   time.Time
+	// Estimates are the rows of the accuracy table: each converged
+	// quantity with its value and error estimate (see writeAccuracy).
+	Estimates []EstimateRow
+}
+
+// EstimateRow is one number of the report with its error estimate.
+type EstimateRow struct {
+	Path            string // the value's path in the JSON report
+	Value, Estimate float64
+	Relative        float64 // Estimate / |Value|, 0 for a zero value
+}
+
+// estimateRows returns the rows of the accuracy table of a report.
+func estimateRows(r *design.Report) []EstimateRow {
+	if r == nil || len(r.Estimates) == 0 {
+		return nil
+	}
+	flat := design.Flatten(r)
+	var out []EstimateRow
+	for _, k := range r.EstimatedPaths() {
+		if !shownEstimate(k) {
+			continue
+		}
+		row := EstimateRow{Path: k, Value: flat[k], Estimate: r.Estimates[k]}
+		if row.Value != 0 {
+			row.Relative = row.Estimate / abs(row.Value)
+		}
+		out = append(out, row)
+	}
+	return out
 }
 
 // WriteHTML writes a self-contained HTML page (pictures embedded as data
@@ -116,18 +146,25 @@ Produced by polegap{{if not $.When.IsZero}} on {{$.When.Format "2006-01-02 15:04
 {{end}}
 {{end}}
 
+{{with .Report.Accuracy}}<h2>How far to trust the numbers</h2>
+{{if .Target}}<p>Every converging quantity was refined to {{f "%.0e" .Target}} relative: {{if .Reached}}reached{{else}}<span class="fail">NOT reached</span> (refinement limit){{end}} after {{.Rounds}} meshes{{if .Worst}} (largest last change {{f "%.1e" .Change}}, {{.Worst}}){{end}}. The estimate of each number is its change between the last two meshes.</p>
+{{else}}<p class="fail">Quick mode: one solve on the model's own mesh; the numbers carry no error estimate.</p>{{end}}{{end}}
+{{with .Estimates}}<table><tr><th>quantity (JSON path)</th><th>value</th><th>± estimate</th><th>relative</th></tr>
+{{range .}}<tr><td>{{.Path}}</td><td>{{f "%.7g" .Value}}</td><td>{{f "%.2g" .Estimate}}</td><td>{{f "%.1e" .Relative}}</td></tr>{{end}}
+</table>{{end}}
+
 {{with .Check}}<h2>Check</h2>
 <table><tr><th>requirement</th><th>value</th><th>limit</th><th>verdict</th></tr>
 {{range .Items}}<tr><td>{{.What}}{{if .Note}}<br><span class="note">{{.Note}}</span>{{end}}</td><td>{{f "%.4g" .Value}} {{.Unit}}</td><td>{{f "%.4g" .Limit}} {{.Unit}}</td><td>{{if .Pass}}<span class="pass">pass</span>{{else}}<span class="fail">FAIL</span>{{end}}</td></tr>{{end}}
 </table>{{end}}
 
 {{with .Sweep}}<h2>Excitation curve</h2>
-<table><tr><th>current (A)</th><th>ampere-turns</th><th>field (T)</th><th>efficiency</th><th>max iron |B| (T)</th><th>L apparent (H)</th><th>L incremental (H)</th></tr>
-{{range .}}<tr><td>{{f "%.4g" .Current}}</td><td>{{f "%.0f" .AmpereTurns}}</td><td>{{f "%.4f" .Field}}</td><td>{{if .Efficiency}}{{pct .Efficiency}} %{{end}}</td><td>{{f "%.3f" .MaxIronB}}</td><td>{{f "%.4g" .Apparent}}</td><td>{{f "%.4g" .Incremental}}</td></tr>{{end}}
+<table><tr><th>current (A)</th><th>ampere-turns</th><th>field (T)</th><th>efficiency</th><th>max iron |B| (T)</th><th>L apparent (H)</th><th>L incremental (H)</th><th>± field (T)</th></tr>
+{{range .}}<tr><td>{{f "%.4g" .Current}}</td><td>{{f "%.0f" .AmpereTurns}}</td><td>{{f "%.4f" .Field}}</td><td>{{if .Efficiency}}{{pct .Efficiency}} %{{end}}</td><td>{{f "%.3f" .MaxIronB}}</td><td>{{f "%.4g" .Apparent}}</td><td>{{f "%.4g" .Incremental}}</td><td>{{if .FieldEstimate}}{{f "%.1e" .FieldEstimate}}{{end}}</td></tr>{{end}}
 </table>{{end}}
 
 {{with .Sizing}}<h2>Coil for the target field</h2>
-<p>To reach {{f "%.4g" .Target}} T at {{.Probe}} the magnet needs {{f "%.0f" .AmpereTurns}} ampere-turns per winding ({{.Windings}} in series),
+<p>To reach {{f "%.4g" .Target}} T at {{.Probe}} the magnet needs {{f "%.0f" .AmpereTurns}}{{if .AmpereTurnsEstimate}} ± {{f "%.2g" .AmpereTurnsEstimate}}{{end}} ampere-turns per winding ({{.Windings}} in series),
 found in {{.Solves}} nonlinear solves (field reached {{f "%.5f" .Field}} T, efficiency {{pct .Efficiency}} %).
 Coil window: radial build {{f "%.1f" .Window.Width}} mm, height {{f "%.1f" .Window.Height}} mm, mean turn {{f "%.0f" .Window.MeanTurn}} mm.</p>
 {{with .Best}}<p>Least power within every limit: <b>{{.Wire.Name}}</b>, {{.Turns}} turns at {{f "%.4g" .Current}} A ({{amm2 .CurrentDensity}} A/mm²),

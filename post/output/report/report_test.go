@@ -104,3 +104,21 @@ func TestProbeOnInterfaceText(t *testing.T) {
 		t.Errorf("HTML lacks the sides of the interface probe")
 	}
 }
+
+// TestHTMLEstimates: the HTML report carries the accuracy record and a
+// row per converged quantity with its estimate, as the text does.
+func TestHTMLEstimates(t *testing.T) {
+	r := &design.Report{Model: "m", Design: &design.Design{Gap: &design.GapReport{Probe: "c", CentreB: 0.5}},
+		Accuracy:  &design.Accuracy{Target: 1e-3, Reached: true, Rounds: 2},
+		Estimates: map[string]float64{"gap.centre_B_T": 2e-5}}
+	var buf bytes.Buffer
+	if err := WriteHTML(&buf, &Bundle{Report: r, Estimates: estimateRows(r)}); err != nil {
+		t.Fatal(err)
+	}
+	out := buf.String()
+	for _, want := range []string{"How far to trust the numbers", "refined to 1e-03 relative: reached after 2 meshes", "<td>gap.centre_B_T</td><td>0.5</td><td>2e-05</td><td>4.0e-05</td>"} {
+		if !strings.Contains(out, want) {
+			t.Errorf("HTML lacks %q", want)
+		}
+	}
+}
