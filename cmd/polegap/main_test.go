@@ -401,3 +401,28 @@ func TestSolveAccuracy(t *testing.T) {
 		t.Errorf("bad --refine-by: code %d, stderr %q", code, errs)
 	}
 }
+
+// TestCheckVerdictStable (issue 13): the check's verdicts are the same at
+// the default accuracy (1e-3) and ten times tighter, with a saturation
+// limit within 2 % of the arms' peak (1.676 T measured), where a verdict
+// read off the raw corner maximum would flip with the mesh.
+func TestCheckVerdictStable(t *testing.T) {
+	verdicts := func(args ...string) []string {
+		t.Helper()
+		_, out, errs := runCmd(t, append([]string{"check", "--saturation-limit", "1.65T"}, args...)...)
+		var v []string
+		for _, line := range strings.Split(out, "\n") {
+			if strings.HasPrefix(line, "PASS") || strings.HasPrefix(line, "FAIL") {
+				v = append(v, line[:4]+" "+strings.Fields(line)[3])
+			}
+		}
+		if len(v) == 0 {
+			t.Fatalf("check %v: no verdicts; stderr %q", args, errs)
+		}
+		return v
+	}
+	a, b := verdicts("bench-dipole"), verdicts("--accuracy", "1e-4", "bench-dipole")
+	if strings.Join(a, "; ") != strings.Join(b, "; ") {
+		t.Errorf("verdicts at 1e-3 %v, at 1e-4 %v", a, b)
+	}
+}
