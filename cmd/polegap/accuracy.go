@@ -81,14 +81,3 @@ func solveToAccuracy(env *Env, name string, m *models.Model, a accuracyFlags, so
 	}
 	return fine, coarse, acc, nil
 }
-
-// designReport builds the design report of the final solve with the
-// estimates from the solve before it.
-func designReport(fine, coarse *study.Result, acc *design.Accuracy, opt design.DesignOptions) *design.Report {
-	r := design.New(fine, opt)
-	r.Accuracy = acc
-	if coarse != nil {
-		r.SetEstimates(design.New(coarse, opt))
-	}
-	return r
-}

@@ -78,7 +78,7 @@ with status 1; no result is reported for it.`,
 			if err != nil {
 				return err
 			}
-			r := designReport(s, coarse, acc, dopt)
+			r := design.NewEstimated(s, coarse, acc, dopt)
 			if err := env.Ctx.Err(); err != nil {
 				return err // interrupted during the last round or the virtual work
 			}

@@ -264,18 +264,7 @@ func sweepOn(env *Env, fine, coarse *study.Result, opt sweep.Options) ([]sweep.P
 		return pts, runErr
 	}
 	fmt.Fprintf(env.Stderr, "polegap sweep: the same points on the coarser mesh, for the error estimates\n")
-	rc, err := sweep.NewRunnerFrom(coarse, opt.Coil, opt.Probe)
-	if err != nil {
-		return pts, err
-	}
-	co := opt
-	co.Progress = nil
-	cpts, err := rc.Sweep(env.Ctx, co)
-	if err != nil {
-		return pts, err
-	}
-	sweep.Estimate(pts, cpts)
-	return pts, nil
+	return pts, sweep.EstimateOn(env.Ctx, coarse, opt, pts)
 }
 
 // accuracyNote says in a line how converged a table's numbers are.

@@ -42,7 +42,7 @@ func Energies(sol *solver.Solution) (w, wco float64, err error) {
 		panic(errNilSolution)
 	}
 	w, wco = sol.Energies()
-	scale := depthOf(sol.Problem)
+	scale := Depth(sol.Problem)
 	w, wco = w*scale, wco*scale
 	if !num.Finite(w) {
 		return 0, 0, &NotFiniteError{Quantity: "stored energy", Value: w}
@@ -53,10 +53,10 @@ func Energies(sol *solver.Solution) (w, wco float64, err error) {
 	return w, wco, nil
 }
 
-// depthOf is the factor from the solver's per-metre integrals to the
+// Depth is the factor from the solver's per-metre integrals to the
 // magnet: Depth for planar problems, 1 for axisymmetric ones (whose
 // integrals already carry 2π r).
-func depthOf(p *solver.Problem) float64 {
+func Depth(p *solver.Problem) float64 {
 	if p.Formulation == solver.Axisymmetric {
 		return 1
 	}

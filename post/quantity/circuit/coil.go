@@ -118,7 +118,7 @@ func LinkagesTo(dst []float64, sol *solver.Solution, coils []Coil) ([]float64, e
 			}
 		}
 	}
-	scale := depthOf(p)
+	scale := study.Depth(p)
 	for ci := range coils {
 		var l float64
 		for _, s := range coils[ci].Sides {
@@ -139,14 +139,4 @@ func Apparent(lambda, current float64) float64 {
 		return 0
 	}
 	return lambda / current
-}
-
-// depthOf is the factor from the solver's per-metre integrals to the
-// magnet: Depth for planar problems, 1 for axisymmetric ones (whose
-// integrals already carry 2π r).
-func depthOf(p *solver.Problem) float64 {
-	if p.Formulation == solver.Axisymmetric {
-		return 1
-	}
-	return p.Depth
 }

@@ -53,11 +53,7 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 	if err != nil {
 		return nil, err
 	}
-	r := design.New(s, design.DesignOptions{Incremental: true})
-	r.Accuracy = acc
-	if coarse != nil {
-		r.SetEstimates(design.New(coarse, design.DesignOptions{Incremental: true}))
-	}
+	r := design.NewEstimated(s, coarse, acc, design.DesignOptions{Incremental: true})
 	b := &Run{Result: s, Report: r, When: time.Now()}
 	b.Check = check.NewCheck(s, r.Design, check.CheckOptions{})
 	// One runner on the solved mesh serves the curve and the target
@@ -79,7 +75,8 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 		if err != nil {
 			return nil, err
 		}
-		pts, err := r.Sweep(ctx, sweep.Options{Currents: sweep.Range(hi/float64(opt.SweepPoints), hi, opt.SweepPoints), GapLength: m.Gap})
+		so := sweep.Options{Currents: sweep.Range(hi/float64(opt.SweepPoints), hi, opt.SweepPoints), GapLength: m.Gap}
+		pts, err := r.Sweep(ctx, so)
 		if err != nil {
 			return nil, err
 		}
@@ -87,15 +84,9 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 		if coarse != nil {
 			// The same curve on the mesh before the last, for the
 			// estimates of each point.
-			rc, err := sweep.NewRunnerFrom(coarse, "", "")
-			if err != nil {
+			if err := sweep.EstimateOn(ctx, coarse, so, b.Sweep); err != nil {
 				return nil, err
 			}
-			cpts, err := rc.Sweep(ctx, sweep.Options{Currents: sweep.Range(hi/float64(opt.SweepPoints), hi, opt.SweepPoints), GapLength: m.Gap})
-			if err != nil {
-				return nil, err
-			}
-			sweep.Estimate(b.Sweep, cpts)
 		}
 	}
 	if m.Target != nil && len(m.Coils) > 0 {

@@ -194,6 +194,18 @@ func Flatten(v any) map[string]float64 {
 	return out
 }
 
+// NewEstimated builds the report of the final solve of an adaptive
+// refinement with its accuracy record and, when the solve on the mesh
+// before it is given, the estimate of every number (SetEstimates).
+func NewEstimated(fine, coarse *study.Result, acc *Accuracy, opt DesignOptions) *Report {
+	r := New(fine, opt)
+	r.Accuracy = acc
+	if coarse != nil {
+		r.SetEstimates(New(coarse, opt))
+	}
+	return r
+}
+
 // SetEstimates fills r.Estimates from the report of the same model on
 // the previous, coarser mesh of the adaptive sequence: for every number
 // of the report, |value − coarse value| estimates its error. Adaptive

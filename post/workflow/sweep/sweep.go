@@ -439,3 +439,21 @@ func Estimate(fine, coarse []Point) {
 		fine[i].LinkageEstimate = math.Abs(fine[i].Linkage - coarse[i].Linkage)
 	}
 }
+
+// EstimateOn solves the points of a sweep again on coarse, the solve on
+// the mesh before the final one of the adaptive refinement (at the same
+// parameters, coil and probe as opt), and sets their estimates
+// (Estimate). opt.Progress is not called.
+func EstimateOn(ctx context.Context, coarse *study.Result, opt Options, pts []Point) error {
+	r, err := NewRunnerFrom(coarse, opt.Coil, opt.Probe)
+	if err != nil {
+		return err
+	}
+	opt.Progress = nil
+	cpts, err := r.Sweep(ctx, opt)
+	if err != nil {
+		return err
+	}
+	Estimate(pts, cpts)
+	return nil
+}
