@@ -180,9 +180,9 @@ func TestEnergyBoundsKelvinPair(t *testing.T) {
 func TestEnergyBoundsRefused(t *testing.T) {
 	m := rectMesh(4, 4, 0, 1, 0, 1, 1, nil)
 	for name, p := range map[string]*Problem{
-		"magnet":    {Mesh: m, Materials: []Material{linear{1}}, Magnetization: [][2]float64{{1e5, 0}}},
-		"applied":   {Mesh: m, Materials: []Material{linear{1}}, Fixed: []NodeValue{{Node: 0, A: 1e-3}}},
-		"line":      {Mesh: m, Materials: []Material{linear{1}}, PointCurrents: []PointCurrent{{Node: 12, Current: 1}}},
+		"magnet":  {Mesh: m, Materials: []Material{linear{1}}, Magnetization: [][2]float64{{1e5, 0}}},
+		"applied": {Mesh: m, Materials: []Material{linear{1}}, Fixed: []NodeValue{{Node: 0, A: 1e-3}}},
+		"line":    {Mesh: m, Materials: []Material{linear{1}}, PointCurrents: []PointCurrent{{Node: 12, Current: 1}}},
 	} {
 		s, err := Solve(p, Options{})
 		if err != nil {
