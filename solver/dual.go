@@ -394,12 +394,17 @@ func basisOn(el Element, r *Rule) (val [][MaxNodes]float64, rg [][MaxNodes][2]fl
 
 // geometryAt returns, at point q of rule r in triangle t (nodes in
 // nodes, basis values val and reference gradients rg there), the physical
-// point, the integration weight (with r when axisymmetric, per radian),
-// and the physical basis gradients in grad. It also leaves the inverse
-// transposed Jacobian's entries in the returned closure's reach via
-// covariant.
+// point and the integration weight (with r when axisymmetric, per
+// radian), and writes the physical basis gradients into grad.
 func geometryAt(as *assembler, t int, r *Rule, q int, val *[MaxNodes]float64, rg *[MaxNodes][2]float64, nodes *[MaxNodes]int32, grad *[MaxNodes][2]float64) (x, y, wt float64) {
 	a, b, c, d, det := jacobianAt(as, t, r, q, val, rg, nodes, &x, &y)
+	return x, y, gradientsTo(as, r, q, x, rg, a, b, c, d, det, grad)
+}
+
+// gradientsTo writes the physical basis gradients for the Jacobian
+// (a, b, c, d, det) into grad and returns the integration weight at point
+// q of rule r (x the radius when axisymmetric).
+func gradientsTo(as *assembler, r *Rule, q int, x float64, rg *[MaxNodes][2]float64, a, b, c, d, det float64, grad *[MaxNodes][2]float64) (wt float64) {
 	inv := 1 / det
 	for i := 0; i < as.nn; i++ {
 		grad[i] = [2]float64{(d*rg[i][0] - c*rg[i][1]) * inv, (-b*rg[i][0] + a*rg[i][1]) * inv}
@@ -408,7 +413,7 @@ func geometryAt(as *assembler, t int, r *Rule, q int, val *[MaxNodes]float64, rg
 	if as.axi {
 		wt *= x
 	}
-	return
+	return wt
 }
 
 // jacobianAt returns the Jacobian (∂x/∂ξ, ∂x/∂η, ∂y/∂ξ, ∂y/∂η) and its
@@ -432,22 +437,17 @@ func (d *dualProblem) field(t int, r *Rule, q int, val *[MaxNodes]float64, rg *[
 	as := d.as
 	var x, y float64
 	a, b, c, dd, det := jacobianAt(as, t, r, q, val, rg, nodes, &x, &y)
-	inv := 1 / det
-	for i := 0; i < as.nn; i++ {
-		grad[i] = [2]float64{(dd*rg[i][0] - c*rg[i][1]) * inv, (-b*rg[i][0] + a*rg[i][1]) * inv}
-	}
+	wt = gradientsTo(as, r, q, x, rg, a, b, c, dd, det, grad)
+	// The source field is a 1-form and maps covariantly, H = J⁻ᵀ Ĥ, as
+	// the basis gradients do.
 	xi, eta := r.Point(q)
 	rx, ry := whitney(d.circ[t], xi, eta)
-	hx, hy = (dd*rx-c*ry)*inv, (-b*rx+a*ry)*inv
+	hx, hy = (dd*rx-c*ry)/det, (-b*rx+a*ry)/det
 	for i := 0; i < as.nn; i++ {
 		if k := d.dof[nodes[i]]; k >= 0 {
 			hx -= phi[k] * grad[i][0]
 			hy -= phi[k] * grad[i][1]
 		}
-	}
-	wt = r.W[q] * 0.5 * det
-	if as.axi {
-		wt *= x
 	}
 	scale = 1
 	if ext, ok := as.ext[as.m.Region[t]]; ok {
