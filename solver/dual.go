@@ -64,11 +64,12 @@ func (s *Solution) EnergyBounds(opt Options) (EnergyBounds, error) {
 	if err != nil {
 		return EnergyBounds{}, err
 	}
-	up, err := d.solve(opt.withDefaults())
+	lo := s.coEnergyLower()
+	d.a = s.A
+	up, err := d.solve(opt.withDefaults(), lo)
 	if err != nil {
 		return EnergyBounds{}, err
 	}
-	lo := s.coEnergyLower()
 	b := EnergyBounds{Lower: lo, Upper: up, Guaranteed: d.exact && d.linear, Unknowns: d.n, Steps: d.steps}
 	switch {
 	case !d.exact:
@@ -164,9 +165,17 @@ type dualProblem struct {
 	dof   []int32      // per node: unknown of φ, or -1 for the pinned class
 	n     int
 	exact bool
-	// linear and steps are set by solve.
+	// a is the vector potential whose field warm-starts solve (nil: none).
+	a []float64
+	// orient is −1 on triangles drawn mirrored against the model (a
+	// planar Kelvin disk), where the potential's field B = (∂A/∂y,
+	// −∂A/∂x) points against the pulled-back H, and +1 elsewhere.
+	orient []float64
+	// linear, steps and guess (|B| per assembly point, the last value)
+	// are solve's.
 	linear bool
 	steps  int
+	guess  []float64
 }
 
 // edgeKey orders an edge by the identification classes of its ends.
@@ -268,6 +277,11 @@ func newDualProblem(as *assembler) (*dualProblem, error) {
 			area = 0.5 * det
 		}
 		src[t] = p.CurrentDensity[reg] * area
+		if as.axi {
+			// (∇×H)_φ = ∂H_r/∂z − ∂H_z/∂r is minus the plane's curl
+			// in (x, y) = (r, z).
+			src[t] = -src[t]
+		}
 		total += math.Abs(src[t])
 	}
 	// A spanning tree of the dual graph grown from the exits (or from
@@ -275,6 +289,10 @@ func newDualProblem(as *assembler) (*dualProblem, error) {
 	// to its parent edge, leaves first.
 	parentEdge := make([]int32, nt)
 	seen := make([]bool, nt)
+	orient := make([]float64, nt)
+	for t := range orient {
+		orient[t] = 1
+	}
 	order := make([]int32, 0, nt)
 	for e, ex := range exit {
 		if t := edges[e].t[0]; ex && !seen[t] {
@@ -302,6 +320,14 @@ func newDualProblem(as *assembler) (*dualProblem, error) {
 			seen[u] = true
 			parentEdge[u] = e
 			order = append(order, u)
+			// Neighbours run along a shared edge in opposite senses;
+			// across an orientation-reversing identification (the
+			// planar Kelvin disk is a mirror image) in the same sense.
+			for l := 0; l < 3; l++ {
+				if tEdge[u][l] == e {
+					orient[u] = -orient[t] * tSign[t][k] * tSign[u][l]
+				}
+			}
 		}
 	}
 	if len(order) != nt {
@@ -327,7 +353,7 @@ func newDualProblem(as *assembler) (*dualProblem, error) {
 		}
 		circ[parentEdge[t]] = rest / tSign[t][pk]
 	}
-	d := &dualProblem{as: as, circ: make([][3]float64, nt), dof: make([]int32, nn), exact: exact}
+	d := &dualProblem{as: as, circ: make([][3]float64, nt), dof: make([]int32, nn), exact: exact, orient: orient}
 	for t := 0; t < nt; t++ {
 		for k := 0; k < 3; k++ {
 			d.circ[t][k] = tSign[t][k] * circ[tEdge[t][k]]
@@ -468,15 +494,13 @@ type hLaw struct {
 }
 
 func newHLaw(mat Material) hLaw {
-	nu0, d0 := mat.Nu(0)
-	nu1, d1 := mat.Nu(4)
-	l := hLaw{mat: mat, bs: breaks(mat), linear: d0 == 0 && d1 == 0 && nu0 == nu1}
-	l.mu = 1 / nu0
-	return l
+	nu0, _ := mat.Nu(0)
+	return hLaw{mat: mat, bs: breaks(mat), linear: isLinear(mat), mu: 1 / nu0}
 }
 
-// at returns μ, μd and |B| at field strength h (A/m).
-func (l *hLaw) at(h float64) (mu, mud, b float64) {
+// at returns μ, μd and |B| at field strength h (A/m); guess, when
+// positive, is a |B| (T) to start from (the last one at that point).
+func (l *hLaw) at(h, guess float64) (mu, mud, b float64) {
 	if l.linear || !(h > 0) {
 		if !l.linear {
 			nu, _ := l.mat.Nu(0)
@@ -484,32 +508,40 @@ func (l *hLaw) at(h float64) (mu, mud, b float64) {
 		}
 		return l.mu, l.mu, l.mu * h
 	}
-	// ν(b²) b = h is increasing in b (dH/dB = ν + 2ν'b² > 0): bracket
-	// and solve by Newton's method safeguarded by bisection.
+	// ν(b²) b = h is increasing in b (dH/dB = ν + 2ν'b² > 0): Newton's
+	// method, safeguarded by the bracket it narrows (doubling while the
+	// bracket has no top).
 	g := func(b float64) (float64, float64) {
 		nu, dnu := l.mat.Nu(b * b)
 		return nu*b - h, nu + 2*dnu*b*b
 	}
-	lo, hi := 0.0, mu0SI*h
-	for k := 0; k < 200; k++ {
-		if v, _ := g(hi); v >= 0 {
-			break
-		}
-		lo, hi = hi, 2*hi
+	b = guess
+	if !(b > 0) {
+		b = l.mu * h // the initial permeability's value
 	}
-	b = 0.5 * (lo + hi)
-	for k := 0; k < 100; k++ {
+	lo, hi := 0.0, math.Inf(1)
+	prev := math.Inf(1)
+	for k := 0; k < 200; k++ {
 		v, dv := g(b)
 		if v > 0 {
 			hi = b
 		} else {
 			lo = b
 		}
+		// Newton's step, unless it leaves the bracket or the last one
+		// did not halve the residual (Newton cycles across a B-H
+		// curve's knee): then bisect (or double, without a top).
 		nb := b - v/dv
-		if !(nb > lo && nb < hi) {
-			nb = 0.5 * (lo + hi)
+		slow := math.Abs(v) > 0.5*prev
+		prev = math.Abs(v)
+		if !(nb > lo && nb < hi) || slow {
+			if math.IsInf(hi, 1) {
+				nb = 2 * b
+			} else {
+				nb = 0.5 * (lo + hi)
+			}
 		}
-		if math.Abs(nb-b) <= 1e-15*b {
+		if math.Abs(nb-b) <= 1e-14*b {
 			b = nb
 			break
 		}
@@ -524,22 +556,22 @@ func (l *hLaw) coEnergyDensity(h float64) float64 {
 	if l.linear {
 		return 0.5 * l.mu * h * h
 	}
-	_, _, b := l.at(h)
+	_, _, b := l.at(h, 0)
 	_, wco := energyDensity(l.mat, l.bs, b*b)
 	return wco
 }
 
-// mu0SI is the permeability of vacuum (H/m), a starting bracket for |B|:
-// no material here is less permeable.
-const mu0SI = 4e-7 * math.Pi
-
 // assemble writes f_i = ∫B(H)·∇N_i (the negative gradient of the
 // co-energy in φ) for the field of phi and, when tr is not nil, the
-// tangent ∫∇N_iᵀ (dB/dH) ∇N_j into tr.
-func (d *dualProblem) assemble(laws []hLaw, r *Rule, val [][MaxNodes]float64, rg [][MaxNodes][2]float64, phi, f []float64, tr *sparse.Triplet) {
+// tangent ∫∇N_iᵀ (dB/dH) ∇N_j into tr. With warm set it assembles instead
+// the projection onto the vector potential's field H_A in the metric of
+// the potential's tangent T_A: f_i = ∫∇N_i·T_A(H − H_A) and ∫∇N_iᵀ T_A ∇N_j,
+// whose solution starts Newton's method close to the minimum.
+func (d *dualProblem) assemble(laws []hLaw, r *Rule, val [][MaxNodes]float64, rg [][MaxNodes][2]float64, phi, f []float64, tr *sparse.Triplet, warm bool) {
 	as := d.as
 	m := as.m
 	nn := as.nn
+	nq := r.NumPoints()
 	for i := range f {
 		f[i] = 0
 	}
@@ -547,23 +579,56 @@ func (d *dualProblem) assemble(laws []hLaw, r *Rule, val [][MaxNodes]float64, rg
 	var grad [MaxNodes][2]float64
 	for t := 0; t < m.NumTriangles(); t++ {
 		elementNodes(m, t, &nodes)
-		law := &laws[m.Region[t]]
+		reg := m.Region[t]
+		law := &laws[reg]
 		var ke [MaxNodes][MaxNodes]float64
 		var fe [MaxNodes]float64
 		for q := range r.W {
 			hx, hy, wt, sc := d.field(t, r, q, &val[q], &rg[q], &nodes, &grad, phi)
-			h := math.Hypot(hx, hy)
-			mu, mud, _ := law.at(h)
-			mu, mud = mu*sc, mud*sc
-			for i := 0; i < nn; i++ {
-				fe[i] += wt * mu * (hx*grad[i][0] + hy*grad[i][1])
+			var mu, mud, ux, uy float64
+			if warm {
+				// The potential's field and tangent at this point.
+				var a, ax, ay float64
+				for i := 0; i < nn; i++ {
+					ai := d.a[nodes[i]]
+					a += ai * val[q][i]
+					ax += ai * grad[i][0]
+					ay += ai * grad[i][1]
+				}
+				bx, by := ay, -ax
+				if as.axi {
+					var x, y float64
+					jacobianAt(as, t, r, q, &val[q], &rg[q], &nodes, &x, &y)
+					bx, by = -ay, ax+a/x
+				}
+				b2 := bx*bx + by*by
+				nu, dnu := as.p.Materials[reg].Nu(b2)
+				mu, mud = sc/nu, sc/(nu+2*dnu*b2)
+				hx -= d.orient[t] * nu / sc * bx
+				hy -= d.orient[t] * nu / sc * by
+				if b2 > 0 {
+					b := math.Sqrt(b2)
+					ux, uy = bx/b, by/b
+				}
+				for i := 0; i < nn; i++ {
+					tx, ty := mu*hx+(mud-mu)*ux*(ux*hx+uy*hy), mu*hy+(mud-mu)*uy*(ux*hx+uy*hy)
+					fe[i] += wt * (tx*grad[i][0] + ty*grad[i][1])
+				}
+			} else {
+				h := math.Hypot(hx, hy)
+				var b float64
+				mu, mud, b = law.at(h, d.guess[t*nq+q])
+				d.guess[t*nq+q] = b
+				mu, mud = mu*sc, mud*sc
+				for i := 0; i < nn; i++ {
+					fe[i] += wt * mu * (hx*grad[i][0] + hy*grad[i][1])
+				}
+				if h > 0 {
+					ux, uy = hx/h, hy/h
+				}
 			}
 			if tr == nil {
 				continue
-			}
-			var ux, uy float64
-			if h > 0 {
-				ux, uy = hx/h, hy/h
 			}
 			// Tangent dB/dH = μ I + (μd − μ) ĥĥᵀ.
 			txx, txy, tyy := mu+(mud-mu)*ux*ux, (mud-mu)*ux*uy, mu+(mud-mu)*uy*uy
@@ -593,10 +658,14 @@ func (d *dualProblem) assemble(laws []hLaw, r *Rule, val [][MaxNodes]float64, rg
 	}
 }
 
-// solve minimises the co-energy over φ by Newton's method with an exact
-// line search on the (convex) co-energy's slope, and returns the
-// co-energy of the final field (the upper bound).
-func (d *dualProblem) solve(opt Options) (float64, error) {
+// solve minimises the co-energy over φ by Newton's method, started from
+// the projection of the vector potential's field (assemble's warm mode)
+// and damped by halving until the co-energy still falls along the step
+// (see the slope test below). It
+// stops when the Newton decrement says the co-energy can fall by less
+// than 1e-8 of scale, and returns the co-energy of the final field (the
+// upper bound).
+func (d *dualProblem) solve(opt Options, scale float64) (float64, error) {
 	as := d.as
 	m := as.m
 	nt := m.NumTriangles()
@@ -610,31 +679,33 @@ func (d *dualProblem) solve(opt Options) (float64, error) {
 	}
 	r := RuleOfDegree(4)
 	val, rg := basisOn(as.el, r)
+	d.guess = make([]float64, nt*r.NumPoints())
 	phi := make([]float64, d.n)
 	if d.n > 0 {
 		tr := sparse.NewTriplet(d.n, nt*as.nn*as.nn)
-		var k *sparse.CSR
 		f := make([]float64, d.n)
 		ft := make([]float64, d.n)
 		trial := make([]float64, d.n)
 		delta := make([]float64, d.n)
 		lin := opt.linearSolver(d.n)
-		first := 0.0
 		slope := func(alpha float64) float64 { // −d/dα co-energy(φ + αδ)
 			for i := range phi {
 				trial[i] = phi[i] + alpha*delta[i]
 			}
-			d.assemble(laws, r, val, rg, trial, ft, nil)
+			d.assemble(laws, r, val, rg, trial, ft, nil, false)
 			s := 0.0
 			for i := range ft {
 				s += ft[i] * delta[i]
 			}
 			return s
 		}
+		// A linear problem needs one step from φ = 0; a nonlinear one
+		// starts with the warm projection.
+		warm := !d.linear && d.a != nil
 		for step := 0; step < 50; step++ {
 			tr.I, tr.J, tr.V = tr.I[:0], tr.J[:0], tr.V[:0]
-			d.assemble(laws, r, val, rg, phi, f, tr)
-			k = tr.ToCSR()
+			d.assemble(laws, r, val, rg, phi, f, tr, warm)
+			k := tr.ToCSR()
 			if step == 0 {
 				if err := lin.Analyze(k); err != nil {
 					return 0, &LinearSolveError{Stage: "analyze", Err: err}
@@ -648,35 +719,32 @@ func (d *dualProblem) solve(opt Options) (float64, error) {
 			if res, err := lin.SolveTo(delta, f); err != nil {
 				return 0, &LinearSolveError{Stage: "solve", Result: res, Err: err}
 			}
+			d.steps++
+			if warm {
+				for i := range phi {
+					phi[i] += delta[i]
+				}
+				warm = false
+				continue
+			}
 			// The Newton decrement f·δ is twice the co-energy the step
 			// is expected to remove.
 			dec := 0.0
 			for i := range f {
 				dec += f[i] * delta[i]
 			}
+			// Full step unless the slope at its end says it went far
+			// past the minimum along δ: with the slope falling from
+			// dec at α = 0 to above −dec/2 at α, the co-energy fell by
+			// about α·dec/4 at least (trapezoid rule on the slope).
 			alpha := 1.0
-			if !d.linear && slope(1) < 0 {
-				// Past the minimum along δ: bisect the slope's sign
-				// change in (0, 1).
-				lo, hi := 0.0, 1.0
-				for it := 0; it < 30; it++ {
-					mid := 0.5 * (lo + hi)
-					if slope(mid) > 0 {
-						lo = mid
-					} else {
-						hi = mid
-					}
-				}
-				alpha = 0.5 * (lo + hi)
+			for !d.linear && alpha > 1e-3 && slope(alpha) < -0.5*dec {
+				alpha /= 2
 			}
 			for i := range phi {
 				phi[i] += alpha * delta[i]
 			}
-			d.steps++
-			if step == 0 {
-				first = dec
-			}
-			if d.linear || !(dec > 1e-12*first) {
+			if d.linear || !(dec > 2e-8*math.Abs(scale)) {
 				break
 			}
 		}

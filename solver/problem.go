@@ -129,6 +129,25 @@ type Exterior struct {
 	CX, CY, Radius float64
 }
 
+// Linear reports whether every material of the problem is linear (its
+// reluctivity the same at |B| = 0 and 2 T, with a zero derivative).
+func (p *Problem) Linear() bool {
+	for _, mat := range p.Materials {
+		if mat != nil && !isLinear(mat) {
+			return false
+		}
+	}
+	return true
+}
+
+// isLinear reports whether a material's reluctivity is the same at
+// |B| = 0 and 2 T, with a zero derivative at both.
+func isLinear(mat Material) bool {
+	nu0, d0 := mat.Nu(0)
+	nu1, d1 := mat.Nu(4)
+	return d0 == 0 && d1 == 0 && nu0 == nu1
+}
+
 // Check reports the first inconsistency of the problem as a
 // *ProblemError: mesh arrays of the wrong length, indices out of range,
 // triangles that are not counter-clockwise, regions without a material,

@@ -14,7 +14,7 @@ import (
 )
 
 var cmdSolve = &Command{
-	UsageLine: "solve [--accuracy R | --quick] [--refine-by energy|goal] [--stress-only] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tolerance R] [--max-iterations N] MODEL",
+	UsageLine: "solve [--accuracy R | --quick] [--refine-by energy|goal] [--stress-only] [--energy-bounds] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tolerance R] [--max-iterations N] MODEL",
 	Short:     "solve a model and print the field and the design quantities",
 	Long: `Solve meshes the model, solves for the magnetic vector potential (with
 Newton–Raphson when the iron is nonlinear) and prints a summary: the mesh
@@ -32,7 +32,17 @@ gap, the attraction between its poles (the iron wholly above the gap's
 mid-plane), each by the Maxwell stress and by virtual work, with their
 difference as the error estimate; --stress-only skips the virtual work's
 solves. A point probe on an interface between materials lists the field
-on each side. With --json it prints the same as JSON: "mesh" {nodes,
+on each side.
+
+Energy bounds: a model whose materials are all linear also gets two
+numbers that bracket its stored energy, and from them its inductance:
+the vector-potential solution bounds the energy from below, a
+complementary solution for the magnetic field (a scalar potential plus
+a source field that carries the coil currents) from above, both on the
+final mesh. The bracket is rigorous for the meshed geometry (unless a
+current-carrying part is curved). --energy-bounds asks for them on a
+nonlinear model too, where they bracket the co-energy at the cost of a
+few Newton steps more. With --json it prints the same as JSON: "mesh" {nodes,
 triangles}, "newton" {iterations, residual, converged}, and "probes"
 keyed by name (point probes give a, bx, by and b in tesla).
 
@@ -59,6 +69,7 @@ with status 1; no result is reported for it.`,
 		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png or .svg file")
 		satLimit := quantity(fs, "saturation-limit", field, "flag iron regions whose peak |B| exceeds this (e.g. 1.8T)")
 		af := addAccuracyFlags(fs)
+		allBounds := fs.Bool("energy-bounds", false, "bracket the co-energy by a complementary solve on a nonlinear model too (linear models always get the bounds)")
 		stressOnly := fs.Bool("stress-only", false, "forces by Maxwell stress only: skip the virtual work (two solves per direction and part) and the error estimate")
 		fs.Bool("virtual-work", false, aliasPrefix+"virtual work is computed by default now; the flag is kept for old scripts")
 		vtuPath := fs.String("vtu", "", "write the solution (A, B, |B|, H, μr, region) to this VTK .vtu file")
@@ -73,7 +84,10 @@ with status 1; no result is reported for it.`,
 			if err != nil {
 				return err
 			}
-			dopt := design.DesignOptions{Incremental: true, StressOnly: *stressOnly, SaturationLimit: satLimit.SI(m)}
+			dopt := design.DesignOptions{Incremental: true, StressOnly: *stressOnly, SaturationLimit: satLimit.SI(m), Bounds: design.LinearBounds}
+			if *allBounds {
+				dopt.Bounds = design.AllBounds
+			}
 			s, coarse, acc, err := solveToAccuracy(env, "solve", m, af, solver.Options{Tol: *tol, MaxIter: *maxIter})
 			if err != nil {
 				return err

@@ -62,3 +62,24 @@ func Depth(p *solver.Problem) float64 {
 	}
 	return p.Depth
 }
+
+// CoEnergyBounds returns solver.Solution.EnergyBounds scaled as Energies
+// scales: two numbers that bracket the co-energy W' of the meshed
+// problem (the stored energy W with linear materials), J. It returns the
+// solver's *BoundsError for problems the complementary formulation does
+// not cover, and a *NotFiniteError if a bound is not finite.
+func CoEnergyBounds(sol *solver.Solution) (solver.EnergyBounds, error) {
+	if sol == nil || sol.Problem == nil || sol.Problem.Mesh == nil {
+		panic(errNilSolution)
+	}
+	b, err := sol.EnergyBounds(solver.Options{})
+	if err != nil {
+		return b, err
+	}
+	scale := Depth(sol.Problem)
+	b.Lower, b.Upper = b.Lower*scale, b.Upper*scale
+	if !num.Finite(b.Lower) || !num.Finite(b.Upper) {
+		return b, &NotFiniteError{Quantity: "co-energy bounds", Value: b.Upper - b.Lower}
+	}
+	return b, nil
+}

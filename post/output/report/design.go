@@ -40,6 +40,20 @@ func writeDesign(ew *errWriter, d *design.Design) {
 		ew.printf("\n")
 	}
 	ew.printf("energy     stored %.5g J, co-energy %.5g J\n", d.Energy.Energy, d.Energy.CoEnergy)
+	if b := d.Energy.Bounds; b != nil {
+		what := "co-energy"
+		if b.InductanceH != nil || b.Guaranteed {
+			what = "energy"
+		}
+		ew.printf("           %s between %.6g and %.6g J (vector-potential and complementary solutions)", what, b.Lower, b.Upper)
+		if b.InductanceH != nil {
+			ew.printf("; coil %s: L between %.6g and %.6g H", b.Coil, b.InductanceH[0], b.InductanceH[1])
+		}
+		if !b.Guaranteed {
+			ew.printf("\n           not a guaranteed bracket: %s", b.Note)
+		}
+		ew.printf("\n")
+	}
 	if len(d.Saturation) > 0 {
 		ew.printf("\n%-16s %8s %8s %12s %10s %12s\n", "iron region", "knee T", "mean T", "above knee", "peak T", "max raw T")
 		for _, s := range d.Saturation {

@@ -131,7 +131,8 @@ Produced by polegap{{if not $.When.IsZero}} on {{$.When.Format "2006-01-02 15:04
 <table><tr><th>coil</th><th>current (A)</th><th>ampere-turns</th><th>flux linkage (Wb)</th><th>L apparent (H)</th><th>L incremental (H)</th></tr>
 {{range .Coils}}<tr><td>{{.Name}}</td><td>{{f "%.4g" .Current}}</td><td>{{f "%.5g" .AmpereTurns}}</td><td>{{f "%.5g" .Linkage}}</td><td>{{f "%.5g" .Apparent}}</td><td>{{if .Incremental}}{{f "%.5g" .Incremental}}{{end}}</td></tr>{{end}}
 </table>
-<p>Stored energy {{f "%.5g" .Energy.Energy}} J; co-energy {{f "%.5g" .Energy.CoEnergy}} J.</p>
+<p>Stored energy {{f "%.5g" .Energy.Energy}} J; co-energy {{f "%.5g" .Energy.CoEnergy}} J.{{with .Energy.Bounds}}
+Bounds from the vector-potential and complementary solutions: between {{f "%.6g" .Lower}} and {{f "%.6g" .Upper}} J{{with .InductanceH}}; inductance between {{f "%.6g" (index . 0)}} and {{f "%.6g" (index . 1)}} H{{end}}{{if not .Guaranteed}} (not a guaranteed bracket: {{.Note}}){{end}}.{{end}}</p>
 
 {{if .Saturation}}<h2>Saturation of the iron</h2>
 <table><tr><th>region</th><th>knee (T)</th><th>mean |B| (T)</th><th>area above knee</th><th>peak |B| (T): largest mean over a disc of radius {{mm (index .Saturation 0).Radius}} mm</th><th>max raw |B| (T), mesh-dependent</th></tr>

@@ -201,7 +201,9 @@ func NewEstimated(fine, coarse *study.Result, acc *Accuracy, opt DesignOptions) 
 	r := New(fine, opt)
 	r.Accuracy = acc
 	if coarse != nil {
-		r.SetEstimates(New(coarse, opt))
+		copt := opt
+		copt.Bounds = NoBounds // the bounds are their own error statement
+		r.SetEstimates(New(coarse, copt))
 	}
 	return r
 }

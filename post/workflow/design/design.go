@@ -107,7 +107,40 @@ type CoilReport struct {
 type EnergyReport struct {
 	Energy   float64 `json:"stored_J"`
 	CoEnergy float64 `json:"coenergy_J"`
+	// Bounds bracket the co-energy of the meshed model (DesignOptions.Bounds).
+	Bounds *BoundsReport `json:"coenergy_bounds,omitempty"`
 }
+
+// BoundsReport is a two-sided bound of the co-energy (J), the stored
+// energy too when every material is linear: the vector-potential solution
+// gives the lower, a complementary magnetic-field solution the upper
+// (solver.EnergyBounds). Guaranteed says whether the bracket is rigorous
+// for the meshed geometry; Note says why not when it is not. With linear
+// materials and one coil carrying current the bounds give the coil's
+// inductance L = 2W/I² (InductanceH).
+type BoundsReport struct {
+	Lower       float64     `json:"lower_J"`
+	Upper       float64     `json:"upper_J"`
+	Guaranteed  bool        `json:"guaranteed"`
+	Note        string      `json:"note,omitempty"`
+	Coil        string      `json:"coil,omitempty"`
+	InductanceH *[2]float64 `json:"inductance_bounds_H,omitempty"`
+}
+
+// BoundsMode says when the design computes the co-energy bounds, which
+// cost one more solve (of the complementary problem, on the same mesh).
+type BoundsMode int
+
+const (
+	// NoBounds: none (the zero value; adaptive levels use it).
+	NoBounds BoundsMode = iota
+	// LinearBounds: for models whose materials are all linear, where the
+	// extra solve is one linear solve and the bracket is rigorous.
+	LinearBounds
+	// AllBounds: for every model; a nonlinear one takes a few Newton
+	// steps more.
+	AllBounds
+)
 
 // SatReport is the saturation of one iron region.
 type SatReport struct {
@@ -137,6 +170,8 @@ type DesignOptions struct {
 	// StressOnly skips the virtual work (two solves per direction and
 	// part) and with it the forces' error estimates.
 	StressOnly bool
+	// Bounds selects when the co-energy bounds are computed.
+	Bounds BoundsMode
 	// NoPoleForce leaves out the attraction between the poles that a
 	// model with a gap gets by default: the force on the iron regions
 	// that lie wholly above the mid-plane through the gap-centre probe,
@@ -456,6 +491,9 @@ func (d *Design) coils(s *study.Result, opt DesignOptions) {
 		d.Energy = EnergyReport{Energy: w, CoEnergy: wco}
 	}
 	cs := circuit.CoilsAt(s.Model, s.Params)
+	if err == nil {
+		d.bounds(s, opt.Bounds, cs)
+	}
 	lambda, err := circuit.LinkagesTo(nil, s.Solution, cs)
 	if err != nil {
 		d.note("coils: %v", err)
@@ -476,6 +514,38 @@ func (d *Design) coils(s *study.Result, opt DesignOptions) {
 		}
 		d.Coils = append(d.Coils, cr)
 	}
+}
+
+// bounds fills d.Energy.Bounds as mode asks.
+func (d *Design) bounds(s *study.Result, mode BoundsMode, cs []circuit.Coil) {
+	linear := s.Solution.Problem.Linear()
+	if mode == NoBounds || (mode == LinearBounds && !linear) {
+		return
+	}
+	b, err := study.CoEnergyBounds(s.Solution)
+	if err != nil {
+		d.note("co-energy bounds: %v", err)
+		return
+	}
+	br := &BoundsReport{Lower: b.Lower, Upper: b.Upper, Guaranteed: b.Guaranteed, Note: b.Reason}
+	if linear {
+		driven := -1
+		for i, c := range cs {
+			if c.Current != 0 {
+				if driven >= 0 {
+					driven = -2
+					break
+				}
+				driven = i
+			}
+		}
+		if driven >= 0 {
+			i2 := cs[driven].Current * cs[driven].Current
+			br.Coil = cs[driven].Name
+			br.InductanceH = &[2]float64{2 * b.Lower / i2, 2 * b.Upper / i2}
+		}
+	}
+	d.Energy.Bounds = br
 }
 
 func (d *Design) saturation(s *study.Result, opt DesignOptions) {
