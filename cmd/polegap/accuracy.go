@@ -22,7 +22,7 @@ type accuracyFlags struct {
 
 func addAccuracyFlags(fs *flag.FlagSet) accuracyFlags {
 	return accuracyFlags{
-		accuracy: fs.Float64("accuracy", 0, "relative error allowed in each reported quantity; the mesh is refined adaptively until each changes by less than this (default: the model's mesh.accuracy, else 1e-3)"),
+		accuracy: realFlag(fs, "accuracy", 0, numRange{lo: 0, hi: 0.1, hiOpen: true, hint: "a relative error such as 1e-3; 0 takes the model's"}, "relative error allowed in each reported quantity; the mesh is refined adaptively until each changes by less than this (default: the model's mesh.accuracy, else 1e-3)"),
 		quick:    fs.Bool("quick", false, "one solve on the model's own mesh, for a preview: no refinement and no error estimates"),
 		refineBy: fs.String("refine-by", "energy", "where refinement goes: energy (the field's own error, serves every quantity) or goal (weighted by a dual solution for the probe field; converges that field only)"),
 	}
@@ -30,10 +30,7 @@ func addAccuracyFlags(fs *flag.FlagSet) accuracyFlags {
 
 // target returns the accuracy asked for, and a usage error for a bad one.
 func (a accuracyFlags) target(m *models.Model) (float64, error) {
-	acc := *a.accuracy
-	if acc < 0 || acc >= 0.1 || math.IsNaN(acc) {
-		return 0, usagef("--accuracy is a relative error below 0.1, such as 1e-3; got %g", acc)
-	}
+	acc := *a.accuracy // its range is checked where it is parsed
 	if *a.refineBy != "energy" && *a.refineBy != "goal" {
 		return 0, usagef("--refine-by is energy or goal, not %q", *a.refineBy)
 	}

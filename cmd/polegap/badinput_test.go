@@ -79,6 +79,12 @@ func TestBadInputs(t *testing.T) {
 			[]string{"a field of 8 T is out of reach", "the iron is deep in saturation", "enlarge the poles or the yoke, shorten the gap"}},
 		{"usage: unknown unit on a flag", []string{"size", "--field", "8 furlongs", "unreachable-field.yaml"}, 2,
 			[]string{"usage: polegap size"}},
+		// Issue 20: both panicked in package searchcoil before the flags
+		// were checked where they are parsed (flagcheck.go).
+		{"usage: negative search-coil width", []string{"searchcoil", "--turns", "10", "--area", "100mm2", "--at", "0,0", "--width", "-5", "unreachable-field.yaml"}, 2,
+			[]string{`polegap searchcoil: invalid value "-5" for flag --width: the length must be at least 0; got -5`, "usage: polegap searchcoil"}},
+		{"usage: infinite search-coil turns", []string{"searchcoil", "--turns", "Inf", "--area", "100mm2", "--at", "0,0", "unreachable-field.yaml"}, 2,
+			[]string{`polegap searchcoil: invalid value "Inf" for flag --turns: not a finite number`, "usage: polegap searchcoil"}},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
