@@ -83,6 +83,7 @@ func lookup(name string) *Command {
 // It returns 0 on success, 1 on failure and 2 on a usage error.
 func run(args []string, stdout, stderr io.Writer) int {
 	env := &Env{Stdout: stdout, Stderr: stderr}
+	notes = stderr
 	if len(args) == 0 {
 		printUsage(stderr)
 		return 2
