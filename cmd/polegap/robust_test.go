@@ -97,3 +97,22 @@ func TestLevelBudget(t *testing.T) {
 		t.Errorf("exit %d, stderr %q", code, errs)
 	}
 }
+
+// TestEfficiencyWarning: the mineral separator with its old gap key (15
+// mm, the gap at the ends of the curved face, where the probe sits at the
+// 9.7 mm centre) read an efficiency of 1.41 without a word (issue 20).
+func TestEfficiencyWarning(t *testing.T) {
+	p := exampleWith(t, "mineral-separator", "gap: 9.7 ", "gap: 15 ")
+	code, out, errs := runCmd(t, "solve", "--quick", p)
+	if code != 0 {
+		t.Fatalf("exit %d\n%s", code, errs)
+	}
+	if !strings.Contains(out, "warning: magnet efficiency B·g/(μ0·NI) is 1.4, above 1") || !strings.Contains(out, "the gap key is usually wrong") {
+		t.Errorf("no efficiency warning:\n%s", out)
+	}
+	// The example itself gives no warning.
+	code, out, errs = runCmd(t, "solve", "--quick", "mineral-separator")
+	if code != 0 || strings.Contains(out, "warning:") {
+		t.Errorf("mineral-separator: exit %d, a warning where none is due:\n%s%s", code, out, errs)
+	}
+}
