@@ -76,6 +76,9 @@ type Model struct {
 	Probes    []Probe
 	Target    *Target // nil when the model sets no target
 	Forces    []Part  // parts whose force is reported
+	// Dropped holds one located note per region removed for being thinner
+	// than Mesh.MinFeature (see thin.go); nil when none was.
+	Dropped []string `json:",omitempty"`
 }
 
 // Material is a named material definition. Exactly one of Curve, Table,
@@ -180,7 +183,11 @@ type MeshControls struct {
 	// commands refine the mesh adaptively until each changes by at most
 	// this between two meshes. 0 means the commands' default (1e-3).
 	Accuracy float64 `json:",omitempty"`
-	Refine   []Refine
+	// MinFeature is the minimum feature size, m: regions thinner than it
+	// are dropped, and the mesher merges vertices and closes gaps closer
+	// than it (thin.go). 0, the default, keeps every feature.
+	MinFeature float64 `json:",omitempty"`
+	Refine     []Refine
 	// Auto is true when the file sets no element size: no mesh.size, no
 	// mesh-size on any region and no mesh.refine list (a template's own
 	// refinements do not count). Size then holds the default, and

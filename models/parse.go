@@ -162,6 +162,7 @@ func (d *decoder) parse(data []byte) *Model {
 
 	d.validate(m)
 	d.defaults(m)
+	d.dropThin(m)
 	return m
 }
 

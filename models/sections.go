@@ -216,7 +216,7 @@ func (d *decoder) boundaryBox(m *Model, f *fields, v *yaml.Node) {
 	b.boxPos = pos(resolve(v), path)
 }
 
-var meshKeys = []string{"size", "order", "min-angle", "grading", "chord", "accuracy", "refine"}
+var meshKeys = []string{"size", "order", "min-angle", "grading", "chord", "accuracy", "refine", "min-feature"}
 
 // mesh decodes the mesh controls. A refine list replaces the template's.
 func (d *decoder) mesh(m *Model, n *yaml.Node) {
@@ -258,6 +258,9 @@ func (d *decoder) mesh(m *Model, n *yaml.Node) {
 	}
 	if v := f.get("chord"); v != nil {
 		mc.Chord, _ = d.length(v, f.sub("chord"), "chord")
+	}
+	if v := f.get("min-feature"); v != nil {
+		mc.MinFeature, _ = d.length(v, f.sub("min-feature"), "min-feature")
 	}
 	if v := f.get("accuracy"); v != nil {
 		if a, ok := d.positive(v, f.sub("accuracy"), "accuracy"); ok {

@@ -155,14 +155,40 @@ func energyDensity(mat Material, bs []float64, b2 float64) (w, wco float64) {
 		w += glPanels(mat, lo, bk)
 		lo = bk
 	}
-	w += glPanels(mat, lo, b)
+	if n := len(bs); n > 0 && lo == bs[n-1] && lo > 0 {
+		// Past the table's last point the curve goes on with slope μ0:
+		// H is linear in B there and one 3-point panel is exact. Panels
+		// of panelB would take 5e9 steps at an absurd 1e8 T.
+		w += glPanel(mat, lo, b)
+	} else {
+		w += glPanels(mat, lo, b)
+	}
 	return w, nu*b2 - w
+}
+
+// maxPanels bounds the panels of glPanels: at 0.02 T each they reach
+// 80 T, far past any iron's saturation; beyond, the panels widen (a
+// smooth ν is integrated well by fewer, and an absurd field such as 1e8 T
+// ends in microseconds instead of minutes).
+const maxPanels = 4096
+
+// glPanel returns ∫ ν(b²) b db over [b0, b1] by one 3-point Gauss–Legendre
+// panel.
+func glPanel(mat Material, b0, b1 float64) float64 {
+	h := b1 - b0
+	var s float64
+	for i := range gl3x {
+		bi := b0 + gl3x[i]*h
+		ni, _ := mat.Nu(bi * bi)
+		s += gl3w[i] * ni * bi
+	}
+	return s * h
 }
 
 // glPanels returns ∫ ν(b²) b db over [b0, b1] by 3-point Gauss–Legendre
 // on panels of at most panelB.
 func glPanels(mat Material, b0, b1 float64) float64 {
-	n := int(math.Ceil((b1 - b0) / panelB))
+	n := int(math.Min(math.Ceil((b1-b0)/panelB), maxPanels))
 	if n < 1 {
 		n = 1
 	}

@@ -15,25 +15,26 @@ import (
 // accuracyFlags are the flags of every command that reports solved
 // quantities: how accurate they must be, or none (quick).
 type accuracyFlags struct {
-	accuracy *float64
-	quick    *bool
-	refineBy *string
+	accuracy  *float64
+	quick     *bool
+	refineBy  *string
+	maxLevels *int
+	maxNodes  *int
 }
 
 func addAccuracyFlags(fs *flag.FlagSet) accuracyFlags {
 	return accuracyFlags{
-		accuracy: fs.Float64("accuracy", 0, "relative error allowed in each reported quantity; the mesh is refined adaptively until each changes by less than this (default: the model's mesh.accuracy, else 1e-3)"),
-		quick:    fs.Bool("quick", false, "one solve on the model's own mesh, for a preview: no refinement and no error estimates"),
-		refineBy: fs.String("refine-by", "energy", "where refinement goes: energy (the field's own error, serves every quantity) or goal (weighted by a dual solution for the probe field; converges that field only)"),
+		accuracy:  realFlag(fs, "accuracy", 0, numRange{lo: 0, hi: 0.1, hiOpen: true, hint: "a relative error such as 1e-3; 0 takes the model's"}, "relative error allowed in each reported quantity; the mesh is refined adaptively until each changes by less than this (default: the model's mesh.accuracy, else 1e-3)"),
+		quick:     fs.Bool("quick", false, "one solve on the model's own mesh, for a preview: no refinement and no error estimates"),
+		refineBy:  fs.String("refine-by", "energy", "where refinement goes: energy (the field's own error, serves every quantity) or goal (weighted by a dual solution for the probe field; converges that field only)"),
+		maxLevels: intFlag(fs, "max-levels", 10, count(1, 100), "budget of adaptive refinement: meshes solved at most"),
+		maxNodes:  intFlag(fs, "max-nodes", 2_000_000, count(1000, 100_000_000), "budget of adaptive refinement: nodes of the finest mesh at most"),
 	}
 }
 
 // target returns the accuracy asked for, and a usage error for a bad one.
 func (a accuracyFlags) target(m *models.Model) (float64, error) {
-	acc := *a.accuracy
-	if acc < 0 || acc >= 0.1 || math.IsNaN(acc) {
-		return 0, usagef("--accuracy is a relative error below 0.1, such as 1e-3; got %g", acc)
-	}
+	acc := *a.accuracy // its range is checked where it is parsed
 	if *a.refineBy != "energy" && *a.refineBy != "goal" {
 		return 0, usagef("--refine-by is energy or goal, not %q", *a.refineBy)
 	}
@@ -62,7 +63,7 @@ func solveToAccuracy(env *Env, name string, m *models.Model, a accuracyFlags, so
 	if err != nil {
 		return nil, nil, nil, err
 	}
-	opt := design.SolveOptions{Accuracy: target, Solver: so, Marking: adapt.Energy, Progress: func(r adapt.Round) {
+	opt := design.SolveOptions{Accuracy: target, Solver: so, Marking: adapt.Energy, MaxLevels: *a.maxLevels, MaxNodes: *a.maxNodes, Progress: func(r adapt.Round) {
 		if math.IsInf(r.Change, 1) {
 			fmt.Fprintf(env.Stderr, "polegap %s: mesh of %d nodes solved\n", name, r.Nodes)
 			return
@@ -76,8 +77,15 @@ func solveToAccuracy(env *Env, name string, m *models.Model, a accuracyFlags, so
 	if err != nil {
 		return nil, nil, nil, err
 	}
-	if !acc.Reached {
-		fmt.Fprintf(env.Stderr, "polegap %s: refinement stopped at its round or node limit before every quantity changed by less than %g; the estimates say how far each can be trusted\n", name, target)
+	switch {
+	case acc.Stopped != "":
+		fmt.Fprintf(env.Stderr, "polegap %s: refinement stopped after %d mesh(es): %s\n", name, acc.Rounds, acc.Stopped)
+	case acc.Limit == "levels" && acc.Rounds == 1:
+		fmt.Fprintf(env.Stderr, "polegap %s: stopped at the budget of 1 refinement level (--max-levels): one mesh, so no error estimate; raise --max-levels\n", name)
+	case acc.Limit == "levels":
+		fmt.Fprintf(env.Stderr, "polegap %s: stopped at the budget of %d refinement levels (--max-levels) before every quantity changed by less than %g (largest change %.2g, of %s); the estimates say how far each can be trusted; raise --max-levels or loosen --accuracy\n", name, *a.maxLevels, target, acc.Change, acc.Worst)
+	case !acc.Reached:
+		fmt.Fprintf(env.Stderr, "polegap %s: stopped at the budget of %d nodes (--max-nodes) before every quantity changed by less than %g (largest change %.2g, of %s); the estimates say how far each can be trusted; raise --max-nodes or loosen --accuracy\n", name, *a.maxNodes, target, acc.Change, acc.Worst)
 	}
 	return fine, coarse, acc, nil
 }

@@ -79,6 +79,19 @@ func TestBadInputs(t *testing.T) {
 			[]string{"a field of 8 T is out of reach", "the iron is deep in saturation", "enlarge the poles or the yoke, shorten the gap"}},
 		{"usage: unknown unit on a flag", []string{"size", "--field", "8 furlongs", "unreachable-field.yaml"}, 2,
 			[]string{"usage: polegap size"}},
+		// Issue 20: a sliver 1e-7 of the model's size thick ran out of
+		// memory in the mesher; the estimate now counts the band of small
+		// elements along it and names it.
+		{"sliver region", []string{"solve", "sliver.yaml"}, 1,
+			[]string{`sliver.yaml:45:5: regions[5]: region "sliver" is a sliver 3e-05 mm thick over 60 mm near`, "far below the mesh size", "over the limit of 20000000 triangles", "set mesh.min-feature (a length above 3e-05 mm)"}},
+		{"hair-thin gap", []string{"mesh", "thin-gap.yaml"}, 1,
+			[]string{`thin-gap.yaml:45:5: regions[5]: region "yoke" and region "plate" are 3e-05 mm apart over 140 mm near`, "close or widen the gap", "mesh.min-feature"}},
+		// Issue 20: both panicked in package searchcoil before the flags
+		// were checked where they are parsed (flagcheck.go).
+		{"usage: negative search-coil width", []string{"searchcoil", "--turns", "10", "--area", "100mm2", "--at", "0,0", "--width", "-5", "unreachable-field.yaml"}, 2,
+			[]string{`polegap searchcoil: invalid value "-5" for flag --width: the length must be at least 0; got -5`, "usage: polegap searchcoil"}},
+		{"usage: infinite search-coil turns", []string{"searchcoil", "--turns", "Inf", "--area", "100mm2", "--at", "0,0", "unreachable-field.yaml"}, 2,
+			[]string{`polegap searchcoil: invalid value "Inf" for flag --turns: not a finite number`, "usage: polegap searchcoil"}},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
@@ -114,7 +127,9 @@ func TestBadInputsEveryFileUsed(t *testing.T) {
 		"coil-side-zero-area.yaml": true, "zero-turns.yaml": true, "bh-empty.yaml": true, "bh-nonmonotone.yaml": true,
 		"bh-repeated-h.yaml": true, "bh-file-nonmonotone.yaml": true, "bh-file-bad-row.yaml": true,
 		"bh-file-empty.yaml": true, "axisymmetric-negative-r.yaml": true, "too-fine.yaml": true,
-		"unreachable-field.yaml": true, "box-cuts-region.yaml": true,
+		"unreachable-field.yaml": true, "box-cuts-region.yaml": true, "sliver.yaml": true, "thin-gap.yaml": true,
+		// TestMinFeature
+		"sliver-min-feature.yaml": true,
 		// tables read by those models
 		"bh-nonmonotone.csv": true, "bh-bad-row.csv": true, "bh-empty.csv": true,
 		// TestBadMeasuredCSV
@@ -248,4 +263,16 @@ func TestFailedWriteLeavesNothing(t *testing.T) {
 			t.Errorf("left behind: %v", ents)
 		}
 	})
+}
+
+// TestMinFeature: with mesh.min-feature the sliver of sliver.yaml is
+// dropped with a located note, and the model solves (issue 20).
+func TestMinFeature(t *testing.T) {
+	code, out, errs := runCmd(t, "mesh", filepath.Join(badDir, "sliver-min-feature.yaml"))
+	if code != 0 || !strings.Contains(errs, `note: `) || !strings.Contains(errs, `sliver-min-feature.yaml:45:5: regions[5]: region "sliver" (3e-05 mm wide) dropped: thinner than mesh.min-feature (0.01 mm)`) {
+		t.Errorf("exit %d, stderr %q", code, errs)
+	}
+	if !strings.Contains(out, "triangles") || strings.Contains(out, "\nsliver ") {
+		t.Errorf("the mesh should be made without the sliver:\n%s", out)
+	}
 }

@@ -39,7 +39,7 @@ Progress goes to standard error; --json prints the table as JSON.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		sizes := fs.String("sizes", "10k,100k,1M", "first-order node counts (k = 1e3, M = 1e6)")
 		order2 := fs.String("order2", "100k", "node count of the second-order case, or 0 for none")
-		repeat := fs.Int("repeat", 1, "runs of each stage; the median is reported")
+		repeat := intFlag(fs, "repeat", 1, count(1, 1000), "runs of each stage; the median is reported")
 		quick := fs.Bool("quick", false, "only the 10k and 100k first-order cases and the second-order case")
 		curveAll := fs.Bool("curve-all", false, "draw the excitation curve at every size, 1M included")
 		pcgAll := fs.Bool("pcg-all", false, "run the conjugate-gradient comparison at every size, 1M included (about 7 minutes there)")
@@ -47,9 +47,6 @@ Progress goes to standard error; --json prints the table as JSON.`,
 		return func(env *Env, args []string) error {
 			if len(args) > 0 {
 				return usagef("bench takes no arguments, got %q", args)
-			}
-			if *repeat < 1 {
-				return usagef("--repeat must be at least 1")
 			}
 			ns, err := parseSizes(*sizes)
 			if *quick {

@@ -33,9 +33,9 @@ The exit status is 0 when every check passes, 1 when one fails and 2 on
 an error (a bad model, a solve that did not converge), so that scripts
 can use it.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
-		satLimit := quantity(fs, "saturation-limit", field, "limit on the peak |B| of each iron region (e.g. 1.8T); default per curve")
-		tol := fs.Float64("tolerance", 0, "field-uniformity tolerance |ΔB/B0| (1e-3 or 1e-4)")
-		half := quantity(fs, "half-width", length, "half-width over which the tolerance must hold (e.g. 30mm)")
+		satLimit := quantity(fs, "saturation-limit", field, "limit on the peak |B| of each iron region (e.g. 1.8T); default per curve").in(positive)
+		tol := realFlag(fs, "tolerance", 0, fraction, "field-uniformity tolerance |ΔB/B0| (1e-3 or 1e-4)")
+		half := quantity(fs, "half-width", length, "half-width over which the tolerance must hold (e.g. 30mm)").in(positive)
 		half.metresBefore = true
 		asJSON := fs.Bool("json", false, "print the check as JSON")
 		af := addAccuracyFlags(fs)

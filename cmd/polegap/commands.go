@@ -4,6 +4,7 @@ import (
 	"context"
 	"flag"
 	"fmt"
+	"io"
 	"os"
 
 	"polegap/models"
@@ -30,6 +31,20 @@ var commands = []*Command{
 // loadModel reads a model file, or an embedded example when no file of
 // that name exists.
 func loadModel(arg string) (*models.Model, error) {
+	m, err := loadModelFile(arg)
+	if err == nil {
+		for _, d := range m.Dropped {
+			fmt.Fprintf(notes, "note: %s\n", d)
+		}
+	}
+	return m, err
+}
+
+// notes receives what loading a model has to say besides errors (the
+// regions mesh.min-feature dropped); run points it at stderr.
+var notes io.Writer = io.Discard
+
+func loadModelFile(arg string) (*models.Model, error) {
 	if _, err := os.Stat(arg); err == nil {
 		return models.Load(arg)
 	}

@@ -37,7 +37,7 @@ plausible for a built magnet. --png draws both curves with the measured
 points' error bars; --csv writes the residual table.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		fit := fs.String("fit", "", "calibrate this parameter: gap, iron or turns")
-		na := quantity(fs, "turns-area", area, "search-coil turns × area (e.g. 0.5m2) for flux-linkage curves")
+		na := quantity(fs, "turns-area", area, "search-coil turns × area (e.g. 0.5m2) for flux-linkage curves").in(positive)
 		na.metresBefore = true
 		coilName := fs.String("coil", "", "the coil whose current was measured (default the first)")
 		probe := fs.String("probe", "", "the probe where the field was measured (default the target's)")

@@ -83,6 +83,7 @@ func lookup(name string) *Command {
 // It returns 0 on success, 1 on failure and 2 on a usage error.
 func run(args []string, stdout, stderr io.Writer) int {
 	env := &Env{Stdout: stdout, Stderr: stderr}
+	notes = stderr
 	if len(args) == 0 {
 		printUsage(stderr)
 		return 2
@@ -108,6 +109,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 	fs := flag.NewFlagSet(name, flag.ContinueOnError)
 	fs.SetOutput(io.Discard)
 	action := c.Flags(fs)
+	timeLimit := addTimeLimit(fs)
 	pos, err := parseInterspersed(fs, args[1:])
 	if errors.Is(err, flag.ErrHelp) {
 		printHelp(stdout, c)
@@ -129,9 +131,15 @@ func run(args []string, stdout, stderr io.Writer) int {
 				fmt.Fprintf(f, "polegap %s: interrupted; stopping at the next safe point (Ctrl-C again quits at once)\n", name)
 			}
 		}()
-		env.Ctx = ctx
+		tctx, cancel := withTimeLimit(ctx, name, *timeLimit)
+		defer cancel()
+		env.Ctx = tctx
 		err = action(env, pos)
-		if err == context.Canceled || stoppedSolve(err) {
+		if le := timedOut(tctx, err); le != nil {
+			err = le
+		} else if xe, ok := err.(exitError); ok && timedOut(tctx, xe.err) != nil {
+			err = exitError{xe.code, timedOut(tctx, xe.err)}
+		} else if err == context.Canceled || stoppedSolve(err) {
 			err = errInterrupted // a bare ctx.Err() or a solve stopped by it; other wrapped ones say more
 		} else if xe, ok := err.(exitError); ok && (xe.err == context.Canceled || stoppedSolve(xe.err)) {
 			err = exitError{xe.code, errInterrupted}
@@ -262,6 +270,7 @@ func printHelp(w io.Writer, c *Command) {
 	fmt.Fprintf(w, "usage: polegap %s\n\n%s\n", c.UsageLine, strings.TrimSpace(c.Long))
 	fs := flag.NewFlagSet(c.Name(), flag.ContinueOnError)
 	c.Flags(fs)
+	addTimeLimit(fs)
 	var names []string
 	fs.VisitAll(func(f *flag.Flag) {
 		if !strings.HasPrefix(f.Usage, aliasPrefix) {

@@ -24,7 +24,7 @@ file) and, with --png (or .svg), a plot of Bx, By and |B| against the
 distance along the line.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		probe := fs.String("probe", "", "the line probe to sample (default the first)")
-		samples := fs.Int("samples", 0, "number of samples (default the probe's)")
+		samples := intFlag(fs, "samples", 0, count(2, 1000000), "number of samples (default the probe's)")
 		csvOut := fs.String("csv", "", "write the samples to this CSV file")
 		png := fs.String("png", "", "draw the profile to this .png or .svg file")
 		return func(env *Env, args []string) error {

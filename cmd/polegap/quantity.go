@@ -121,6 +121,8 @@ type quantityFlag struct {
 	metresBefore bool
 	// needUnit refuses a bare length or area: the command reads no model.
 	needUnit bool
+	// rng, when set, is the range the number must lie in (see in).
+	rng *numRange
 }
 
 func (q *quantityFlag) Set(s string) error {
@@ -130,6 +132,15 @@ func (q *quantityFlag) Set(s string) error {
 	}
 	if q.needUnit && f == 0 {
 		return fmt.Errorf("give the %s with its unit, e.g. %s (there is no model whose units a bare number could take)", q.kind, quantityKinds[q.kind].example)
+	}
+	if q.rng != nil {
+		v := num
+		if f != 0 {
+			v *= f
+		}
+		if err := q.rng.check(v, s); err != nil {
+			return fmt.Errorf("the %s %v", q.kind, err)
+		}
 	}
 	q.text, q.num, q.factor, q.set = s, num, f, true
 	return nil
@@ -182,12 +193,13 @@ type quantityList struct {
 	kind quantityKind
 	text string
 	vals []quantityFlag
+	rng  *numRange // as quantityFlag.rng, for each value
 }
 
 func (l *quantityList) Set(s string) error {
 	l.text, l.vals = s, nil
 	for _, f := range strings.Split(s, ",") {
-		q := quantityFlag{kind: l.kind}
+		q := quantityFlag{kind: l.kind, rng: l.rng}
 		if err := q.Set(f); err != nil {
 			return fmt.Errorf("%q: %v", f, err)
 		}

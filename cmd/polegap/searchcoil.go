@@ -24,13 +24,13 @@ areas without a unit are in the model's units (squared for --area).
 In an axisymmetric model the coil is a coaxial loop of radius X at height
 Y: its linkage is N·2πr·Aφ and --area and --axis are not used.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
-		turns := fs.Float64("turns", 0, "turns of the search coil")
-		turnArea := quantity(fs, "area", area, "area of one turn (e.g. 100mm2)")
+		turns := realFlag(fs, "turns", 0, positive, "turns of the search coil")
+		turnArea := quantity(fs, "area", area, "area of one turn (e.g. 100mm2)").in(positive)
 		turnArea.metresBefore = true
 		at := fs.String("at", "", "centre of the coil, x,y in the model's units")
 		to := fs.String("to", "", "where the coil is moved to (default: out of the field)")
 		axis := fs.String("axis", "y", "direction of the coil's axis: x or y")
-		width := quantity(fs, "width", length, "width of the coil across the field (e.g. 10mm; 0: a point coil)")
+		width := quantity(fs, "width", length, "width of the coil across the field (e.g. 10mm; 0: a point coil)").in(nonNegative)
 		return func(env *Env, args []string) error {
 			if err := oneModel(args); err != nil {
 				return err

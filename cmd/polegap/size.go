@@ -41,16 +41,16 @@ volts (--supply-voltage), ampere-turns (--max-ampere-turns) or °C
 The currents, voltages and stored energy of a real magnet can injure:
 the cautions printed with the result apply.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
-		want := quantity(fs, "field", field, "target field (e.g. 1.2T; default the model's target)")
+		want := quantity(fs, "field", field, "target field (e.g. 1.2T; default the model's target)").in(positive)
 		coilName := fs.String("coil", "", "the coil to size (default the first)")
 		probe := fs.String("probe", "", "the probe that must reach the field (default the model's target probe)")
-		fill := fs.Float64("fill", 0, "fill factor: wire envelope area over window area (default 0.6)")
-		temp := quantity(fs, "temperature", temperature, "coil temperature for the resistance, °C (default 60)")
+		fill := realFlag(fs, "fill", 0, numRange{lo: 0, hi: 0.9069, loOpen: true, hint: "0.9069 is the densest packing of round wires"}, "fill factor: wire envelope area over window area (default 0.6)")
+		temp := quantity(fs, "temperature", temperature, "coil temperature for the resistance, °C (default 60)").in(numRange{lo: -50, hi: 250, hint: "the range of copper's linear resistance law and of magnet-wire insulation"})
 		cooling := fs.String("cooling", "air-natural", "air-natural, air-forced or water")
 		wires := fs.String("wires", "auto", "wire table: iec, awg, hollow or all (auto: iec, or hollow for water)")
-		supplyV := quantity(fs, "supply-voltage", voltage, "supply voltage limit (e.g. 60V)")
-		supplyI := quantity(fs, "supply-current", current, "supply current limit (e.g. 50A)")
-		maxNI := quantity(fs, "max-ampere-turns", ampereTurns, "give up beyond this (default 5 × the ideal)")
+		supplyV := quantity(fs, "supply-voltage", voltage, "supply voltage limit (e.g. 60V)").in(positive)
+		supplyI := quantity(fs, "supply-current", current, "supply current limit (e.g. 50A)").in(positive)
+		maxNI := quantity(fs, "max-ampere-turns", ampereTurns, "give up beyond this (default 5 × the ideal)").in(positive)
 		csvOut := fs.String("csv", "", "write the winding options to this CSV file")
 		asJSON := fs.Bool("json", false, "print the result as JSON")
 		af := addAccuracyFlags(fs)

@@ -63,11 +63,11 @@ A solve that does not converge prints its residual history and exits
 with status 1; no result is reported for it.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		asJSON := fs.Bool("json", false, "print the report as JSON")
-		tol := fs.Float64("tolerance", 1e-8, "relative residual at which Newton stops")
+		tol := realFlag(fs, "tolerance", 1e-8, fraction, "relative residual at which Newton stops")
 		alias(fs, "tol", "tolerance")
-		maxIter := fs.Int("max-iterations", 30, "limit on Newton steps")
+		maxIter := intFlag(fs, "max-iterations", 30, count(1, 10000), "limit on Newton steps")
 		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png or .svg file")
-		satLimit := quantity(fs, "saturation-limit", field, "flag iron regions whose peak |B| exceeds this (e.g. 1.8T)")
+		satLimit := quantity(fs, "saturation-limit", field, "flag iron regions whose peak |B| exceeds this (e.g. 1.8T)").in(positive)
 		af := addAccuracyFlags(fs)
 		allBounds := fs.Bool("energy-bounds", false, "bracket the co-energy by a complementary solve on a nonlinear model too (linear models always get the bounds)")
 		stressOnly := fs.Bool("stress-only", false, "forces by Maxwell stress only: skip the virtual work (two solves per direction and part) and the error estimate")
@@ -76,9 +76,6 @@ with status 1; no result is reported for it.`,
 		return func(env *Env, args []string) error {
 			if err := oneModel(args); err != nil {
 				return err
-			}
-			if *tol <= 0 || *tol >= 1 || *maxIter < 1 {
-				return usagef("--tolerance must lie in (0, 1) and --max-iterations be at least 1")
 			}
 			m, err := loadModel(args[0])
 			if err != nil {

@@ -45,14 +45,14 @@ the ideal line μ0 NI/g and the efficiency.
 job array can run a long sweep in parallel; join the shards' tables with
 'polegap merge'.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
-		from := quantity(fs, "from", current, "first coil current (e.g. 5A)")
-		to := quantity(fs, "to", current, "last coil current (default twice the model's)")
-		points := fs.Int("points", 20, "number of currents")
-		list := &quantityList{kind: current}
+		from := quantity(fs, "from", current, "first coil current (e.g. 5A)").in(anyFinite)
+		to := quantity(fs, "to", current, "last coil current (default twice the model's)").in(anyFinite)
+		points := intFlag(fs, "points", 20, count(1, 100000), "number of currents")
+		list := &quantityList{kind: current, rng: &anyFinite}
 		fs.Var(list, "currents", "comma-separated coil currents, instead of a range")
 		coil := fs.String("coil", "", "the swept coil (default the first)")
 		probe := fs.String("probe", "", "the probe whose field is reported")
-		gap := quantity(fs, "gap", length, "gap length for the ideal line and the efficiency (e.g. 40mm)")
+		gap := quantity(fs, "gap", length, "gap length for the ideal line and the efficiency (e.g. 40mm)").in(positive)
 		gap.metresBefore = true
 		csvOut := fs.String("csv", "", "write the table to this CSV file")
 		png := fs.String("png", "", "draw the curve to this .png or .svg file")
@@ -118,7 +118,7 @@ model, so --gap needs a unit (e.g. 40mm).`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		out := fs.String("csv", "", "write the merged table here (required)")
 		png := fs.String("png", "", "draw the merged curve to this .png or .svg file")
-		gap := quantity(fs, "gap", length, "gap length for the ideal line and the efficiency, with its unit (e.g. 40mm)")
+		gap := quantity(fs, "gap", length, "gap length for the ideal line and the efficiency, with its unit (e.g. 40mm)").in(positive)
 		gap.needUnit = true
 		return func(env *Env, args []string) error {
 			if *out == "" || len(args) == 0 {

@@ -27,6 +27,50 @@ type Footprint struct {
 	// exceeded the limit it was checked against; the true figures are
 	// larger still.
 	Partial bool
+	// Feature is the small feature that forces most of the triangles, when
+	// small features force at least half of them; nil otherwise.
+	Feature *SmallFeature
+}
+
+// SmallFeature is a place where two edges of the geometry that do not
+// meet come far closer than the mesh size there: a sliver region, a thin
+// part of a region, a thin gap between two regions or between a region
+// and the outer boundary. Quality meshing puts triangles no larger than
+// that distance along it (Ruppert 1995), so a hair-thin feature costs
+// millions of triangles the mesh sizes do not show.
+type SmallFeature struct {
+	// Region and Other are the model region indices of the two edges
+	// (equal for a thin part or sliver of one region; -1 for the outer
+	// boundary).
+	Region, Other int
+	// Sliver is true when the whole region is about as thin as Size (its
+	// width, twice its area over its perimeter, is below 4 Size).
+	Sliver bool
+	Size   float64 // the smallest distance across, m
+	Length float64 // the length of the feature, m
+	X, Y   float64 // where it is thinnest, m
+	// Triangles is the estimated number of triangles the feature forces.
+	Triangles float64
+}
+
+// Describe says what the feature is in the words of the model file:
+// `region "gap-shim" is a sliver 3e-05 mm thick over 60 mm`.
+func (f *SmallFeature) Describe(m *models.Model) string {
+	name := func(i int) string {
+		if i < 0 || i >= len(m.Regions) {
+			return "the outer boundary"
+		}
+		return fmt.Sprintf("region %q", m.Regions[i].Name)
+	}
+	size, length := formatShort(f.Size, m.Units), formatShort(f.Length, m.Units)
+	at := fmt.Sprintf("near (%s, %s)", formatShort(f.X, m.Units), formatShort(f.Y, m.Units))
+	switch {
+	case f.Region == f.Other && f.Sliver:
+		return fmt.Sprintf("%s is a sliver %s thick over %s %s", name(f.Region), size, length, at)
+	case f.Region == f.Other:
+		return fmt.Sprintf("%s has a part %s thin over %s %s", name(f.Region), size, length, at)
+	}
+	return fmt.Sprintf("%s and %s are %s apart over %s %s", name(f.Region), name(f.Other), size, length, at)
 }
 
 // Calibration of the estimate. See estimate_test.go for how the triangle
@@ -110,28 +154,54 @@ func Estimate(m *models.Model, opt mesh.Options, maxTriangles int) (Footprint, e
 		return Footprint{}, err
 	}
 	e := newEstimator(m, &opt.Size, &bd)
-	tri, partial := e.integrate(float64(maxTriangles))
+	fp := Footprint{}
+	ft, per := e.featureTriangles()
+	fp.Feature = e.worst(m, per)
+	var tri float64
+	var partial bool
+	if maxTriangles > 0 && ft*qualityFactor > float64(maxTriangles) {
+		tri, partial = ft, false // the features alone pass the limit: no quadrature needed
+	} else {
+		tri, partial = e.integrate(float64(maxTriangles))
+		if !partial && ft > tri {
+			tri = ft
+		}
+	}
 	n := tri * qualityFactor
 	if partial {
 		n = tri // a lower bound: no mesh meeting the size field has fewer
 	}
-	fp := Footprint{Partial: partial}
+	fp.Partial = partial
+	if fp.Feature != nil {
+		fp.Feature.Triangles = fp.Feature.Triangles * qualityFactor
+		if fp.Feature.Triangles < 0.5*n {
+			fp.Feature = nil // not what decides the size
+		}
+	}
 	fp.Triangles = clampInt(n)
 	nodes := n / 2
 	if opt.Order == 2 {
 		nodes = 2 * n
 	}
 	fp.Nodes = clampInt(nodes)
+	fp.Bytes = int64(footprintBytes(n, opt.Order))
+	return fp, nil
+}
+
+// footprintBytes is the memory model of Estimate for n triangles of the
+// given order: bytesPerNode per node plus the sparse Cholesky factor.
+func footprintBytes(n float64, order int) float64 {
+	nodes := n / 2
 	c := factorEntries
-	if opt.Order == 2 {
+	if order == 2 {
+		nodes = 2 * n
 		c *= 2
 	}
 	bytes := nodes*bytesPerNode + c*nodes*math.Log2(math.Max(nodes, 2))*bytesPerFactorEntry
 	if bytes > math.MaxInt64/2 {
 		bytes = math.MaxInt64 / 2
 	}
-	fp.Bytes = int64(bytes)
-	return fp, nil
+	return bytes
 }
 
 // CheckFootprint estimates the footprint of meshing m with opt and returns
@@ -158,6 +228,12 @@ func CheckFootprint(m *models.Model, opt mesh.Options, lim Limits) (Footprint, e
 		if m.Mesh.Auto {
 			e.Size, e.Auto = 0, true
 		}
+		if f := fp.Feature; f != nil {
+			e.Feature, e.FeatureText = f, f.Describe(m)
+			if r := max(f.Region, f.Other); r >= 0 && r < len(m.Regions) {
+				e.Line, e.Column = m.Regions[r].Pos.Line, m.Regions[r].Pos.Column
+			}
+		}
 		return fp, e
 	}
 	return fp, nil
@@ -176,6 +252,11 @@ type TooLargeError struct {
 	// Auto is true when the sizes were the automatic ones
 	// (models.MeshControls.Auto): the file states none to enlarge.
 	Auto bool
+	// Feature, when set, is the small feature that forces most of the
+	// triangles, described in the model's words (SmallFeature.Describe);
+	// File, Line and Column are then those of its region.
+	Feature     *SmallFeature
+	FeatureText string
 }
 
 func (e *TooLargeError) Error() string {
@@ -212,6 +293,18 @@ func (e *TooLargeError) Error() string {
 	if e.Line > 0 {
 		where = fmt.Sprintf("%s:%d:%d: mesh", e.File, e.Line, e.Column)
 	}
+	if e.Feature != nil {
+		if e.Line > 0 {
+			where = fmt.Sprintf("%s:%d:%d: regions[%d]", e.File, e.Line, e.Column, max(e.Feature.Region, e.Feature.Other))
+		}
+		fix := "remove or thicken it"
+		if e.Feature.Region != e.Feature.Other {
+			fix = "close or widen the gap"
+		}
+		return fmt.Sprintf("%s: %s, far below the mesh size: meshing it would need %s%.3g triangles, %.3g nodes and about %s of memory, %s; "+
+			"%s, or set mesh.min-feature (a length above %s) to drop regions thinner than that and close such gaps deliberately",
+			where, e.FeatureText, at, float64(fp.Triangles), float64(fp.Nodes), formatBytes(fp.Bytes), over, fix, formatShort(e.Feature.Size, e.Units))
+	}
 	return fmt.Sprintf("%s: the mesh would need %s%.3g triangles, %.3g nodes and about %s of memory, %s; %s",
 		where, at, float64(fp.Triangles), float64(fp.Nodes), formatBytes(fp.Bytes), over, fix)
 }
@@ -239,6 +332,15 @@ func formatLength(m float64, units string) string {
 	return fmt.Sprintf("%g %s", m/f, units)
 }
 
+// formatShort is formatLength with three significant digits.
+func formatShort(m float64, units string) string {
+	f := map[string]float64{"mm": 1e-3, "cm": 1e-2, "m": 1, "in": 0.0254}[units]
+	if f == 0 {
+		return fmt.Sprintf("%.3g m", m)
+	}
+	return fmt.Sprintf("%.3g %s", m/f, units)
+}
+
 func clampInt(x float64) int {
 	if !(x < math.MaxInt32*1024.0) {
 		return math.MaxInt32 * 1024
@@ -248,17 +350,19 @@ func clampInt(x float64) int {
 
 // estimator integrates the triangle density of a size field over a domain.
 type estimator struct {
-	f       *mesh.SizeField
-	noReg   mesh.SizeField // f without region sizes: g-Lipschitz, for bounds
-	g       float64
-	dom     ring
-	regions []ring
-	tags    []int32
-	feat    []mesh.SizeLine // small features, graded by featureGrading
-	xmin    float64
-	ymin    float64
-	xmax    float64
-	ymax    float64
+	f          *mesh.SizeField
+	noReg      mesh.SizeField // f without region sizes: g-Lipschitz, for bounds
+	g          float64
+	dom        ring
+	regions    []ring
+	tags       []int32
+	feat       []mesh.SizeLine // small features, graded by featureGrading
+	featInfo   []featureLine   // where each of feat comes from
+	minFeature float64         // mesh.min-feature: smaller features close
+	xmin       float64
+	ymin       float64
+	xmax       float64
+	ymax       float64
 }
 
 // ring is a closed polyline with its bounding box; arcs are replaced by
@@ -335,7 +439,7 @@ func (r *ring) dist(x, y float64) float64 {
 }
 
 func newEstimator(m *models.Model, f *mesh.SizeField, bd *mesh.Polygon) *estimator {
-	e := &estimator{f: f, noReg: *f, g: f.Grading}
+	e := &estimator{f: f, noReg: *f, g: f.Grading, minFeature: m.Mesh.MinFeature}
 	e.noReg.Region = nil
 	if e.g <= 0 {
 		e.g = mesh.DefaultGrading
@@ -371,21 +475,24 @@ const featureSamples = 16
 // featureSamples pieces; a piece gets a feature line at the smaller feature
 // size of its ends when that is below half the field there.
 func (e *estimator) addFeatures(rings []ring) {
-	type edge struct{ x0, y0, x1, y1 float64 }
+	type edge struct {
+		x0, y0, x1, y1 float64
+		ring           int
+	}
 	var edges []edge
-	for _, r := range rings {
+	for k, r := range rings {
 		n := len(r.x)
 		for i := 0; i < n; i++ {
 			j := (i + 1) % n
-			edges = append(edges, edge{r.x[i], r.y[i], r.x[j], r.y[j]})
+			edges = append(edges, edge{r.x[i], r.y[i], r.x[j], r.y[j], k})
 		}
 	}
 	// Edges that share an end point (adjacent edges, or regions meeting at
 	// a vertex) or lie on each other are not features: the mesher joins them.
 	ext := math.Max(e.xmax-e.xmin, e.ymax-e.ymin)
 	touch := 1e-9 * ext
-	lfs := func(x, y float64, self int) float64 {
-		d := math.Inf(1)
+	lfs := func(x, y float64, self int) (float64, int) {
+		d, near := math.Inf(1), -1
 		for k, g := range edges {
 			if k == self {
 				continue
@@ -400,27 +507,118 @@ func (e *estimator) addFeatures(rings []ring) {
 				mesh.SegmentDistance(a.x0, a.y0, g.x0, g.y0, g.x1, g.y1) <= touch || mesh.SegmentDistance(a.x1, a.y1, g.x0, g.y0, g.x1, g.y1) <= touch {
 				continue
 			}
-			d = q
+			d, near = q, k
 		}
-		return d
+		return d, near
 	}
 	var added []mesh.SizeLine
+	e.featInfo = e.featInfo[:0]
 	for k, a := range edges {
 		px, py := a.x0, a.y0
-		pl := lfs(px, py, k)
+		pl, pn := lfs(px, py, k)
 		for s := 1; s <= featureSamples; s++ {
 			t := float64(s) / featureSamples
 			qx, qy := a.x0+t*(a.x1-a.x0), a.y0+t*(a.y1-a.y0)
-			ql := lfs(qx, qy, k)
-			size := math.Min(pl, ql)
-			mx, my := 0.5*(px+qx), 0.5*(py+qy)
-			if size < math.Inf(1) && size < 0.5*e.f.At(mx, my, AirTag) {
-				added = append(added, mesh.SizeLine{X0: px, Y0: py, X1: qx, Y1: qy, Size: size})
+			ql, qn := lfs(qx, qy, k)
+			size, other := pl, pn
+			if ql < pl {
+				size, other = ql, qn
 			}
-			px, py, pl = qx, qy, ql
+			mx, my := 0.5*(px+qx), 0.5*(py+qy)
+			// Features below mesh.min-feature close when the graph is built.
+			if h := e.f.At(mx, my, AirTag); size < math.Inf(1) && size < 0.5*h && size >= e.minFeature {
+				added = append(added, mesh.SizeLine{X0: px, Y0: py, X1: qx, Y1: qy, Size: size})
+				e.featInfo = append(e.featInfo, featureLine{ring: a.ring, other: edges[other].ring, field: h})
+			}
+			px, py, pl, pn = qx, qy, ql, qn
 		}
 	}
 	e.feat = added
+}
+
+// worst returns the group of feature lines (the pair of rings they lie
+// between) that forces the most triangles, per holding each line's count.
+func (e *estimator) worst(m *models.Model, per []float64) *SmallFeature {
+	type pair struct{ a, b int }
+	groups := map[pair]*SmallFeature{}
+	var best *SmallFeature
+	for i, l := range e.feat {
+		fi := e.featInfo[i]
+		p := pair{min(fi.ring, fi.other), max(fi.ring, fi.other)}
+		g := groups[p]
+		if g == nil {
+			g = &SmallFeature{Region: p.a - 1, Other: p.b - 1, Size: math.Inf(1)}
+			groups[p] = g
+		}
+		g.Triangles += per[i]
+		g.Length += math.Hypot(l.X1-l.X0, l.Y1-l.Y0)
+		if l.Size < g.Size {
+			g.Size, g.X, g.Y = l.Size, 0.5*(l.X0+l.X1), 0.5*(l.Y0+l.Y1)
+		}
+		if best == nil || g.Triangles > best.Triangles || g.Triangles == best.Triangles && (g.Region < best.Region || g.Region == best.Region && g.Other < best.Other) {
+			best = g
+		}
+	}
+	if best == nil || best.Triangles == 0 {
+		return nil
+	}
+	// Each side of a thin part or gap is one line; it is as long as one side.
+	best.Length *= 0.5
+	if best.Region == best.Other {
+		if r := best.Region; r >= 0 && r < len(m.Regions) {
+			best.Sliver = regionWidth(&m.Regions[r]) < 4*best.Size
+		}
+	}
+	return best
+}
+
+// regionWidth returns twice a region's area over its perimeter (arcs as
+// chords): the width of a long thin strip.
+func regionWidth(r *models.Region) float64 {
+	rg := newRing(r.X, r.Y, r.Sweep)
+	var a, p float64
+	n := len(rg.x)
+	for i := 0; i < n; i++ {
+		j := (i + 1) % n
+		a += rg.x[i]*rg.y[j] - rg.x[j]*rg.y[i]
+		p += math.Hypot(rg.x[j]-rg.x[i], rg.y[j]-rg.y[i])
+	}
+	if p == 0 {
+		return 0
+	}
+	return math.Abs(a) / p
+}
+
+// featureLine says where a feature line of the estimator comes from: the
+// ring (0 the outer boundary, i+1 region i) of the edge it lies on, the
+// ring of the nearest edge that makes it a feature, and the size the
+// model's field asks for there.
+type featureLine struct {
+	ring, other int
+	field       float64
+}
+
+// featureTriangles returns a lower bound on the number of equilateral
+// triangles the small features force, counted band by band: along a
+// feature line of length ℓ and feature size s the size grows with slope
+// featureGrading away from the line until it meets the field H, so one
+// side of the line holds ∫ ds/(√3/4·(s+d)²) = ℓ/(√3/4)·(1/s − 1/H)
+// triangles per unit length (the two sides of a sliver are the two lines
+// of its faces). The cell quadrature of integrate cannot resolve a band
+// far thinner than its cells; this count can.
+func (e *estimator) featureTriangles() (total float64, per []float64) {
+	const eq = 0.4330127018922193 // √3/4
+	per = make([]float64, len(e.feat))
+	for i, l := range e.feat {
+		h := e.featInfo[i].field
+		if !(l.Size > 0) || !(h > l.Size) {
+			continue
+		}
+		ln := math.Hypot(l.X1-l.X0, l.Y1-l.Y0)
+		per[i] = ln / eq * (1/l.Size - 1/h) / featureGrading
+		total += per[i]
+	}
+	return total, per
 }
 
 // featureGrading is the growth of the mesh size per unit distance away

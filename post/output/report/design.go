@@ -94,4 +94,7 @@ func writeDesign(ew *errWriter, d *design.Design) {
 	for _, n := range d.Notes {
 		ew.printf("note: %s\n", n)
 	}
+	for _, n := range d.Warnings {
+		ew.printf("warning: %s\n", n)
+	}
 }

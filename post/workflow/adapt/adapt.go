@@ -21,6 +21,9 @@ type Options struct {
 	MaxRounds int
 	// MaxNodes stops refining before a mesh would exceed it; default 2e6.
 	MaxNodes int
+	// Stop, when set, is asked after each round's solve; a non-empty
+	// answer ends the refinement there (Result.Stopped says why).
+	Stop func(s *study.Result) string
 	// Fraction is the share of the estimated error (Σ η²) whose triangles
 	// are refined each round; default 0.5.
 	Fraction float64
@@ -77,6 +80,11 @@ type Result struct {
 	Study     *study.Result
 	Previous  *study.Result
 	Converged bool
+	// Stopped is why Options.Stop ended the refinement, "" otherwise;
+	// Limit names the budget that ended it ("levels" or "nodes"), ""
+	// when it converged or Stop ended it.
+	Stopped string
+	Limit   string
 }
 
 // Run refines until the quantity converges to the accuracy, or a limit
@@ -122,6 +130,7 @@ func Run(ctx context.Context, m *models.Model, opt Options) (*Result, error) {
 		}
 		d := cur.Disc
 		if len(res.Rounds) > 0 && d.Mesh.NumNodes() > opt.MaxNodes {
+			res.Limit = "nodes"
 			return res, nil
 		}
 		so := opt.Study.Solver
@@ -148,6 +157,12 @@ func Run(ctx context.Context, m *models.Model, opt Options) (*Result, error) {
 			res.Converged = true
 			return res, nil
 		}
+		if opt.Stop != nil {
+			if why := opt.Stop(s); why != "" {
+				res.Stopped = why
+				return res, nil
+			}
+		}
 		prev = qs
 		if opt.Marking == GoalOriented {
 			z, err := dualIndicator(s, opt)
@@ -160,6 +175,7 @@ func Run(ctx context.Context, m *models.Model, opt Options) (*Result, error) {
 		}
 		size = NextSize(d.Mesh, eta, opt.Fraction)
 	}
+	res.Limit = "levels"
 	return res, nil
 }
 

@@ -34,6 +34,11 @@ type Accuracy struct {
 	Rounds int     `json:"rounds"`
 	Change float64 `json:"largest_change,omitempty"`
 	Worst  string  `json:"largest_change_of,omitempty"`
+	// Stopped says why refinement stopped early on an implausible field
+	// (Implausible); Limit names the budget that ended it, "levels" or
+	// "nodes" (SolveOptions.MaxLevels, MaxNodes); both empty otherwise.
+	Stopped string `json:"stopped,omitempty"`
+	Limit   string `json:"limit,omitempty"`
 }
 
 // SolveOptions control SolveAccurate. The zero value refines to the
@@ -44,6 +49,10 @@ type SolveOptions struct {
 	Marking  adapt.Marking
 	Solver   solver.Options
 	Progress func(adapt.Round)
+	// MaxLevels and MaxNodes are the budgets of adaptive refinement: the
+	// meshes solved and the nodes of the finest; 0 means adapt's defaults
+	// (10 and 2,000,000).
+	MaxLevels, MaxNodes int
 }
 
 // SolveAccurate solves m to the accuracy asked for (Converge, or with
@@ -75,6 +84,9 @@ func SolveAccurate(ctx context.Context, m *models.Model, opt SolveOptions) (fine
 		Quantities: StopQuantities,
 		Study:      study.Options{Solver: opt.Solver},
 		Progress:   opt.Progress,
+		MaxRounds:  opt.MaxLevels,
+		MaxNodes:   opt.MaxNodes,
+		Stop:       Implausible,
 	})
 	if err != nil {
 		return nil, nil, nil, err
@@ -83,7 +95,7 @@ func SolveAccurate(ctx context.Context, m *models.Model, opt SolveOptions) (fine
 		return nil, nil, nil, err
 	}
 	last := res.Rounds[len(res.Rounds)-1]
-	acc = &Accuracy{Target: target, Reached: res.Converged, Rounds: len(res.Rounds), Worst: last.Worst}
+	acc = &Accuracy{Target: target, Reached: res.Converged, Rounds: len(res.Rounds), Worst: last.Worst, Stopped: res.Stopped, Limit: res.Limit}
 	if !math.IsInf(last.Change, 1) {
 		acc.Change = last.Change
 	}

@@ -30,6 +30,9 @@ type Design struct {
 	Saturation []SatReport       `json:"saturation"`
 	Forces     []ForceReport     `json:"forces,omitempty"`
 	Notes      []string          `json:"notes,omitempty"`
+	// Warnings are results no iron-core electromagnet gives, each with its
+	// reason (Plausibility); the run goes on.
+	Warnings []string `json:"warnings,omitempty"`
 }
 
 // ForceReport is the force on one part of the model (N; planar models
@@ -187,6 +190,7 @@ func NewDesign(s *study.Result, opt DesignOptions) *Design {
 	d.coils(s, opt)
 	d.saturation(s, opt)
 	d.forces(s, opt)
+	d.Warnings = Plausibility(s, d)
 	return d
 }
 
