@@ -42,7 +42,8 @@ const (
 // negative H as an odd function. It is read-only after construction and safe
 // for concurrent use. See the package documentation for its invariants.
 type Curve struct {
-	name string
+	name    string
+	builtin bool // from the library (or Stacked from it): name is its entry
 
 	// Knots and the cubic pieces of B(H): on [h[i], h[i+1]] with t = H - h[i],
 	// B = b[i] + t*(d[i] + t*(c2[i] + t*c3[i])). d[i] is dB/dH at knot i.
@@ -358,12 +359,13 @@ func (c *Curve) Stacked(k float64) (*Curve, error) {
 	}
 	n := len(c.h)
 	s := &Curve{
-		name: c.name,
-		h:    append([]float64(nil), c.h...),
-		b:    make([]float64, n),
-		d:    make([]float64, n),
-		c2:   make([]float64, n-1),
-		c3:   make([]float64, n-1),
+		name:    c.name,
+		builtin: c.builtin,
+		h:       append([]float64(nil), c.h...),
+		b:       make([]float64, n),
+		d:       make([]float64, n),
+		c2:      make([]float64, n-1),
+		c3:      make([]float64, n-1),
 	}
 	for i := range n {
 		s.b[i] = k*c.b[i] + (1-k)*Mu0*c.h[i]
