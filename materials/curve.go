@@ -44,6 +44,9 @@ const (
 type Curve struct {
 	name    string
 	builtin bool // from the library (or Stacked from it): name is its entry
+	// dataEnd indexes the knot of the last data point; knots after it
+	// are extrapolated (FitCurve). 0 means the last knot.
+	dataEnd int
 
 	// Knots and the cubic pieces of B(H): on [h[i], h[i+1]] with t = H - h[i],
 	// B = b[i] + t*(d[i] + t*(c2[i] + t*c3[i])). d[i] is dB/dH at knot i.
@@ -216,6 +219,17 @@ func (c *Curve) Table() (h, b []float64) {
 	return append([]float64(nil), c.h...), append([]float64(nil), c.b...)
 }
 
+// TableEnd returns the last point of the data the curve was made from: the
+// last knot, or for a FitCurve the last point given, past which the curve
+// is extrapolated. Results report how much of the iron ran beyond it.
+func (c *Curve) TableEnd() (h, b float64) {
+	i := len(c.h) - 1
+	if c.dataEnd > 0 {
+		i = c.dataEnd
+	}
+	return c.h[i], c.b[i]
+}
+
 // Len returns the number of knots, including the origin.
 func (c *Curve) Len() int { return len(c.h) }
 
@@ -361,6 +375,7 @@ func (c *Curve) Stacked(k float64) (*Curve, error) {
 	s := &Curve{
 		name:    c.name,
 		builtin: c.builtin,
+		dataEnd: c.dataEnd,
 		h:       append([]float64(nil), c.h...),
 		b:       make([]float64, n),
 		d:       make([]float64, n),

@@ -134,8 +134,8 @@ Produced by polegap{{if not $.When.IsZero}} on {{$.When.Format "2006-01-02 15:04
 <p>Stored energy {{f "%.5g" .Energy.Energy}} J; co-energy {{f "%.5g" .Energy.CoEnergy}} J.</p>
 
 {{if .Saturation}}<h2>Saturation of the iron</h2>
-<table><tr><th>region</th><th>knee (T)</th><th>mean |B| (T)</th><th>area above knee</th><th>peak |B| (T): largest mean over a disc of radius {{mm (index .Saturation 0).Radius}} mm</th><th>max raw |B| (T), mesh-dependent</th></tr>
-{{range .Saturation}}<tr><td>{{.Region}}</td><td>{{f "%.2f" .Knee}}</td><td>{{f "%.3f" .Mean}}</td><td>{{pct .AboveKnee}} %</td><td>{{f "%.3f" .Peak}}</td><td>{{f "%.3f" .Max}}{{if .MaxAtCorner}} (at a corner){{end}}</td></tr>{{end}}
+<table><tr><th>region</th><th>knee (T)</th><th>mean |B| (T)</th><th>area above knee</th><th>peak |B| (T): largest mean over a disc of radius {{mm (index .Saturation 0).Radius}} mm</th><th>max raw |B| (T), mesh-dependent</th><th>area beyond the last table point</th><th>B-H curve and its source</th></tr>
+{{range .Saturation}}<tr><td>{{.Region}}</td><td>{{f "%.2f" .Knee}}</td><td>{{f "%.3f" .Mean}}</td><td>{{pct .AboveKnee}} %</td><td>{{f "%.3f" .Peak}}</td><td>{{f "%.3f" .Max}}{{if .MaxAtCorner}} (at a corner){{end}}</td><td>{{pct .BeyondTable}} % (above {{f "%.2f" .TableEnd}} T)</td><td>{{if .Curve}}{{.Curve}}: {{end}}{{if .FromMemory}}<strong>from memory: typical values, not a cited source</strong>{{else}}{{.Source}}{{end}}</td></tr>{{end}}
 </table>{{end}}
 {{if .Forces}}<h2>Forces</h2>
 <table><tr><th>part</th><th>Fx by Maxwell stress (N)</th><th>Fy by Maxwell stress (N)</th><th>by virtual work (N)</th><th>error estimate (N)</th></tr>

@@ -72,6 +72,12 @@ func NewCheck(s *study.Result, d *design.Design, opt CheckOptions) *Check {
 			}
 		}
 		note += fmt.Sprintf("; mean |B| over the worst disc of radius %.3g mm; raw maximum %.3f T mesh-dependent, not checked", sr.Radius*1e3, sr.Max)
+		if sr.FromMemory {
+			note += fmt.Sprintf("; NOTE: curve %s is typical values from memory, not a cited source: confirm with the supplier's or a measured curve", sr.Curve)
+		}
+		if sr.BeyondTable > 0 {
+			note += fmt.Sprintf("; %.1f %% of the region beyond the curve's last table point (%.2f T), on its extrapolation", 100*sr.BeyondTable, sr.TableEnd)
+		}
 		add(CheckItem{What: "saturation of " + sr.Region, Value: sr.Peak, Limit: limit, Unit: "T", Pass: sr.Peak <= limit, Note: note})
 	}
 	if m.Target != nil {
