@@ -32,6 +32,9 @@ type Entry struct {
 	Description string // what the material is, in a line
 	Source      string // where the data come from
 	Kind        Kind
+	// Grade is the IEC 60404-8-4 / EN 10106 designation the curve is
+	// meant to meet (LookupGrade), "" for ungraded material.
+	Grade string
 }
 
 // FromMemory reports whether the entry's data are typical values from

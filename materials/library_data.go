@@ -68,6 +68,7 @@ var curveTables = []curveData{
 			Description: "non-oriented silicon steel, about 3 % Si, 0.35 mm, loss class 2.7 W/kg at 1.5 T 50 Hz (grade class M270-35A); sheet value, apply a stacking factor",
 			Source:      fromMemory,
 			Kind:        KindNonlinear,
+			Grade:       "M270-35A",
 		},
 		h: []float64{0, 20, 40, 60, 80, 100, 150, 200, 300, 500, 1000, 2500, 5000, 10000, 20000, 50000, 100000, 200000},
 		j: []float64{0, 0.10, 0.40, 0.75, 0.95, 1.06, 1.20, 1.27, 1.34, 1.40, 1.46, 1.52, 1.61, 1.72, 1.83, 1.94, 1.99, 2.02},

@@ -23,6 +23,7 @@ var commands = []*Command{
 	cmdProfile,
 	cmdMesh,
 	cmdMaterials,
+	cmdGrades,
 	cmdBench,
 	cmdExamples,
 }

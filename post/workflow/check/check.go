@@ -75,6 +75,9 @@ func NewCheck(s *study.Result, d *design.Design, opt CheckOptions) *Check {
 		if sr.FromMemory {
 			note += fmt.Sprintf("; NOTE: curve %s is typical values from memory, not a cited source: confirm with the supplier's or a measured curve", sr.Curve)
 		}
+		for _, sf := range sr.GradeShortfalls {
+			note += fmt.Sprintf("; WARNING: below grade %s: %s", sr.Grade, sf)
+		}
 		if sr.BeyondTable > 0 {
 			note += fmt.Sprintf("; %.1f %% of the region beyond the curve's last table point (%.2f T), on its extrapolation", 100*sr.BeyondTable, sr.TableEnd)
 		}

@@ -135,6 +135,11 @@ type SatReport struct {
 	Curve      string `json:"curve,omitempty"`
 	Source     string `json:"curve_source"`
 	FromMemory bool   `json:"curve_from_memory,omitempty"`
+	// Grade is the steel grade the material names (models.Material.Grade)
+	// and GradeShortfalls where its curve falls below the grade's
+	// minimum polarisation (a warning, not a failure).
+	Grade           string   `json:"grade,omitempty"`
+	GradeShortfalls []string `json:"grade_shortfalls,omitempty"`
 }
 
 // DesignOptions control which quantities are computed.
@@ -512,7 +517,9 @@ func (d *Design) saturation(s *study.Result, opt DesignOptions) {
 		corners = append(corners, saturation.Corners(mesh.Polygon{X: r.X, Y: r.Y, Sweep: r.Sweep}, saturation.CornerOptions{Mirrors: mirrors})...)
 		_, bEnd := c.TableEnd()
 		regs = append(regs, saturation.Region{Tag: study.Tag(i), Name: r.Name, Curve: c, Limit: opt.SaturationLimit, TableEnd: bEnd})
-		srcs = append(srcs, curveSource(c))
+		src := curveSource(c)
+		src.Grade, src.GradeShortfalls = d.checkGrade(m, r, c)
+		srcs = append(srcs, src)
 	}
 	if len(regs) == 0 {
 		return
@@ -534,8 +541,31 @@ func (d *Design) saturation(s *study.Result, opt DesignOptions) {
 	for i, r := range reps {
 		d.Saturation = append(d.Saturation, SatReport{Region: r.Name, Knee: r.Knee, Mean: r.Mean, AboveKnee: r.AboveKnee,
 			Peak: r.Peak, PeakAt: r.PeakAt, Radius: r.Radius, Max: r.Max, MaxAt: r.MaxAt, MaxAtCorner: r.MaxAtCorner, Limit: r.Limit, Pass: r.Pass,
-			TableEnd: r.TableEnd, BeyondTable: r.BeyondTable, Curve: srcs[i].Curve, Source: srcs[i].Source, FromMemory: srcs[i].FromMemory})
+			TableEnd: r.TableEnd, BeyondTable: r.BeyondTable, Curve: srcs[i].Curve, Source: srcs[i].Source, FromMemory: srcs[i].FromMemory,
+			Grade: srcs[i].Grade, GradeShortfalls: srcs[i].GradeShortfalls})
 	}
+}
+
+// checkGrade notes a warning when a region's material names a steel grade
+// (IEC 60404-8-4 / EN 10106) and its curve falls below the grade's minimum
+// polarisation, checked on the sheet (before stacking).
+// It returns the grade and the shortfalls.
+func (d *Design) checkGrade(m *models.Model, r *models.Region, c *materials.Curve) (string, []string) {
+	def, ok := m.Material(r.Material)
+	if !ok || def.Grade == "" {
+		return "", nil
+	}
+	g, known := materials.LookupGrade(def.Grade)
+	if !known {
+		d.note("WARNING: material %q: unknown steel grade %q, not checked; 'polegap grades' lists the known ones", def.Name, def.Grade)
+		return def.Grade, nil
+	}
+	var out []string
+	for _, sf := range c.CheckGrade(g, def.Stacking) {
+		out = append(out, sf.String())
+		d.note("WARNING: material %q (region %s) falls short of grade %s: %v (%s)", def.Name, r.Name, g.Name, sf, g.Source)
+	}
+	return g.Name, out
 }
 
 // curveSource fills the curve fields of a SatReport: the library entry a
