@@ -24,6 +24,7 @@ var commands = []*Command{
 	cmdMesh,
 	cmdMaterials,
 	cmdGrades,
+	cmdBHFit,
 	cmdBench,
 	cmdExamples,
 }

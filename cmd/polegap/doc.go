@@ -22,6 +22,7 @@ The commands are:
 	mesh       mesh a model and print the mesh statistics
 	materials  list the built-in materials, or show and plot B-H curves
 	grades     list electrical-steel grades, or check a B-H curve against one
+	bhfit      fit a full B-H curve to a few points and extrapolate it to saturation
 	bench      measure the speed of each stage at 10k, 100k and 1M nodes
 	examples   list the embedded example models, or print one
 
