@@ -25,6 +25,7 @@ var commands = []*Command{
 	cmdMaterials,
 	cmdGrades,
 	cmdBHFit,
+	cmdRingCurve,
 	cmdBench,
 	cmdExamples,
 }

@@ -30,3 +30,18 @@ func TestSteelCommands(t *testing.T) {
 		t.Errorf("grades on the fitted table: exit %d\n%s%s", code, out, errOut)
 	}
 }
+
+// ringcurve reduces the ring sample and writes a table-file that a model
+// can read back (materials.ReadCurveCSV through grades).
+func TestRingCurveCommand(t *testing.T) {
+	dir := t.TempDir()
+	table := filepath.Join(dir, "ring.csv")
+	code, out, errOut := runCmd(t, "ringcurve", "--csv", table, "--png", filepath.Join(dir, "ring.svg"), "--compare", "team13-steel", "../../testdata/measured/ring-team13.yaml")
+	if code != 0 || !strings.Contains(out, "logarithmic mean") || !strings.Contains(out, "table: [[") {
+		t.Fatalf("ringcurve: exit %d\n%s%s", code, out, errOut)
+	}
+	code, out, errOut = runCmd(t, "grades", table, "M800-50A")
+	if code != 0 || !strings.Contains(out, "against grade M800-50A") {
+		t.Errorf("grades on the ring table: exit %d\n%s%s", code, out, errOut)
+	}
+}
