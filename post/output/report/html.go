@@ -156,7 +156,7 @@ Produced by polegap{{if not $.When.IsZero}} on {{$.When.Format "2006-01-02 15:04
 {{with .Check}}<h2>Check</h2>
 <table><tr><th>requirement</th><th>value</th><th>limit</th><th>verdict</th></tr>
 {{range .Items}}<tr><td>{{.What}}{{if .Note}}<br><span class="note">{{.Note}}</span>{{end}}</td><td>{{f "%.4g" .Value}} {{.Unit}}</td><td>{{f "%.4g" .Limit}} {{.Unit}}</td><td>{{if .Pass}}<span class="pass">pass</span>{{else}}<span class="fail">FAIL</span>{{end}}</td></tr>{{end}}
-</table>{{end}}
+</table>{{range .Notes}}<p class="note">Note: {{.}}</p>{{end}}{{end}}
 
 {{with .Sweep}}<h2>Excitation curve</h2>
 <table><tr><th>current (A)</th><th>ampere-turns</th><th>field (T)</th><th>efficiency</th><th>max iron |B| (T)</th><th>L apparent (H)</th><th>L incremental (H)</th><th>± field (T)</th></tr>
