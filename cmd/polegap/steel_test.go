@@ -5,6 +5,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"polegap/materials"
 )
 
 // The steel-data commands run end to end: grades lists and checks, and
@@ -24,6 +26,15 @@ func TestSteelCommands(t *testing.T) {
 	code, out, errOut = runCmd(t, "bhfit", "--csv", table, pts)
 	if code != 0 || !strings.Contains(out, "J_s = 1.99") || !strings.Contains(out, "extrapolated") {
 		t.Errorf("bhfit: exit %d\n%s%s", code, out, errOut)
+	}
+	f, err := os.Open(table)
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := materials.ReadCurveCSV(f, table)
+	f.Close()
+	if h, _ := c.TableEnd(); err != nil || h != 6000 {
+		t.Errorf("fitted table: %v, data end at %g A/m, want the last point given, 6000", err, h)
 	}
 	code, out, errOut = runCmd(t, "grades", table, "M400-50A")
 	if code != 0 || !strings.Contains(out, "against grade M400-50A") {

@@ -59,10 +59,13 @@ func WriteFit(w io.Writer, name string, f *materials.Fit) error {
 }
 
 // WriteFitCSV writes the fitted curve as a table a model can use
-// (table-file), its provenance in comment lines.
+// (table-file), its provenance in comment lines, and the last point of the
+// data as a "# data-end:" comment, so that results from the table still
+// report the iron beyond the data (materials.MetaDataEnd).
 func WriteFitCSV(w io.Writer, name string, f *materials.Fit) error {
 	fmt.Fprintf(w, "# B-H curve fitted by polegap bhfit to the %d points of %s\n", len(f.H), name)
 	fmt.Fprintf(w, "# beyond %g A/m: Fröhlich-Kennelly extrapolation, J_s = %.4f T, H_0 = %.4g A/m; trusted to about %.3g A/m\n", f.H[len(f.H)-1], f.Js, f.H0, f.TrustH)
+	fmt.Fprintf(w, "# %s: %.8g\n", materials.MetaDataEnd, f.H[len(f.H)-1])
 	fmt.Fprintf(w, "H (A/m),B (T)\n")
 	h, b := f.Curve.Table()
 	for i := range h {
