@@ -171,7 +171,7 @@ func team13Steel() curveData {
 	return curveData{
 		entry: Entry{
 			Name:        "team13-steel",
-			Description: "steel plate of TEAM Workshop Problem 13 (a mild sheet steel, 3.2 mm plates); published benchmark B-H table, knee about 1.5 T, J_sat 2.16 T",
+			Description: "steel of the 3.2 mm plates of TEAM Workshop Problem 13; published benchmark B-H table; mu_r max about 2300, knee about 1.34 T, J_sat 2.16 T",
 			Source:      "TEAM Workshop Problem 13 (3-D non-linear magnetostatic model; Nakata, Takahashi, Fujiwara et al., 1990): B-H table of the steel plates to 1.8 T, and its Eq. (1) above; values read from public transcriptions of the definition",
 			Kind:        KindNonlinear,
 		},

@@ -95,6 +95,7 @@ func TestLibraryDescriptions(t *testing.T) {
 		{"low-carbon-steel", 3000, 2.11, 0.02},
 		{"cobalt-iron", 0, 2.35, 0.02},
 		{"cast-iron", 300, 1.5, 0.03},
+		{"team13-steel", 2300, 2.16, 0.02},
 	}
 	for _, tc := range cases {
 		m, _, _ := Lookup(tc.name)
