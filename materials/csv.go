@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"math"
 	"strconv"
 	"strings"
 
@@ -143,7 +144,34 @@ func ReadCurveCSV(r io.Reader, name string) (*Curve, error) {
 		return nil, err
 	}
 	c.name = name
+	c.dataEnd = dataEnd(cr.Meta[MetaDataEnd], c.h, scaleH)
 	return c, nil
+}
+
+// MetaDataEnd is the key of a "# data-end: H" comment before a CSV
+// table's header: the H (in the table's H unit) of the last point of
+// measured or supplier data, past which the table is an extrapolation
+// (FitCurve writes it). Curve.TableEnd returns that point, so that
+// results report how much iron ran beyond it. A value that is not one of
+// the table's H is ignored.
+const MetaDataEnd = "data-end"
+
+// dataEnd returns the knot index of the data-end comment, 0 for none.
+func dataEnd(v string, h []float64, scale float64) int {
+	if v == "" {
+		return 0
+	}
+	x, err := strconv.ParseFloat(strings.TrimSpace(v), 64)
+	if err != nil {
+		return 0
+	}
+	x *= scale
+	for i := len(h) - 1; i > 0; i-- {
+		if math.Abs(h[i]-x) <= 1e-9*x {
+			return i
+		}
+	}
+	return 0
 }
 
 // parseHeaderField splits "H (A/m)" into ("h", "A/m"). The column name is

@@ -145,3 +145,23 @@ func FuzzReadCurveCSV(f *testing.F) {
 		}
 	})
 }
+
+// A "# data-end: H" comment marks where the data end and the table's
+// extrapolation begins (in the table's H unit); Curve.TableEnd returns it.
+// Without it, or with an H that is not in the table, the last row is the
+// end.
+func TestCSVDataEnd(t *testing.T) {
+	for _, tc := range []struct {
+		comment string
+		h       float64
+	}{{"# data-end: 2\n", 2000}, {"", 8000}, {"# data-end: 3\n", 8000}} {
+		src := tc.comment + "H (kA/m),B (T)\n0.5,1.0\n2,1.5\n8,1.7\n"
+		c, err := ReadCurveCSV(strings.NewReader(src), "t.csv")
+		if err != nil {
+			t.Fatal(err)
+		}
+		if h, _ := c.TableEnd(); h != tc.h {
+			t.Errorf("%q: TableEnd H = %g, want %g", tc.comment, h, tc.h)
+		}
+	}
+}

@@ -42,7 +42,11 @@ const (
 // negative H as an odd function. It is read-only after construction and safe
 // for concurrent use. See the package documentation for its invariants.
 type Curve struct {
-	name string
+	name    string
+	builtin bool // from the library (or Stacked from it): name is its entry
+	// dataEnd indexes the knot of the last data point; knots after it
+	// are extrapolated (FitCurve). 0 means the last knot.
+	dataEnd int
 
 	// Knots and the cubic pieces of B(H): on [h[i], h[i+1]] with t = H - h[i],
 	// B = b[i] + t*(d[i] + t*(c2[i] + t*c3[i])). d[i] is dB/dH at knot i.
@@ -215,6 +219,17 @@ func (c *Curve) Table() (h, b []float64) {
 	return append([]float64(nil), c.h...), append([]float64(nil), c.b...)
 }
 
+// TableEnd returns the last point of the data the curve was made from: the
+// last knot, or for a FitCurve the last point given, past which the curve
+// is extrapolated. Results report how much of the iron ran beyond it.
+func (c *Curve) TableEnd() (h, b float64) {
+	i := len(c.h) - 1
+	if c.dataEnd > 0 {
+		i = c.dataEnd
+	}
+	return c.h[i], c.b[i]
+}
+
 // Len returns the number of knots, including the origin.
 func (c *Curve) Len() int { return len(c.h) }
 
@@ -358,12 +373,14 @@ func (c *Curve) Stacked(k float64) (*Curve, error) {
 	}
 	n := len(c.h)
 	s := &Curve{
-		name: c.name,
-		h:    append([]float64(nil), c.h...),
-		b:    make([]float64, n),
-		d:    make([]float64, n),
-		c2:   make([]float64, n-1),
-		c3:   make([]float64, n-1),
+		name:    c.name,
+		builtin: c.builtin,
+		dataEnd: c.dataEnd,
+		h:       append([]float64(nil), c.h...),
+		b:       make([]float64, n),
+		d:       make([]float64, n),
+		c2:      make([]float64, n-1),
+		c3:      make([]float64, n-1),
 	}
 	for i := range n {
 		s.b[i] = k*c.b[i] + (1-k)*Mu0*c.h[i]

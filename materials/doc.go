@@ -40,6 +40,33 @@
 // ν → 1/μ0 as b2 → ∞; Nu returns a C1 function of b2 together with its exact
 // derivative, agreeing with H(B)/B to about 1e-9 relative.
 //
+// # Laminations and anisotropy
+//
+// A laminated yoke is modelled as a homogeneous medium with the stack's
+// effective curve (Curve.Stacked): with k the stacking factor, the steel
+// fraction of the stack's cross-section (0 < k <= 1),
+//
+//	B_eff(H) = k B_steel(H) + (1 - k) μ0 H.
+//
+// It holds for flux along the laminations, where the tangential H is the
+// same in steel and insulation and the fluxes add by area (common
+// practice; TestStacked checks it point by point). Flux across the
+// laminations meets the insulation in series and is not modelled; keep the
+// laminations in the plane of the 2-D model. Non-oriented sheet is nearly
+// isotropic in its plane. Grain-oriented steel is not: its rolling
+// direction is far more permeable than the transverse one, and the 2-D
+// model uses one curve for all directions, so a grain-oriented curve is
+// right only where the flux runs along the rolling direction; at corners
+// and in T-joints, where it turns, the model is optimistic.
+//
+// # Sources
+//
+// Every library entry names the source of its data (Entry.Source):
+// published tables are cited by document, table and year, and entries of
+// typical values from memory say so (Entry.FromMemory), which the reports
+// and check repeat wherever such a curve is used. CurveEntry finds the
+// entry of a library curve.
+//
 // # Immutability and concurrency
 //
 // A Curve is read-only after construction. All its methods are safe for

@@ -12,6 +12,7 @@ const (
 	errBadLinear      = "materials: Linear.MuR must be finite and > 0 (or 0 for vacuum); call Check on user input"
 	errBadMagnet      = "materials: Magnet fields must be finite with Remanence >= 0 and MuRecoil > 0 (or 0 for 1); call Check on user input"
 	errBuiltinCurve   = "materials: built-in curve failed validation"
+	errBadStacking    = "materials: stacking factor must lie in (0, 1]"
 )
 
 // Sentinel errors wrapped by TableError, CSVError and the stacking check;

@@ -109,6 +109,7 @@ func ExampleLibrary() {
 	// silicon-steel-no  nonlinear
 	// cobalt-iron       nonlinear
 	// cast-iron         nonlinear
+	// team13-steel      nonlinear
 	// air               linear
 	// copper            linear
 	// linear-1000       linear

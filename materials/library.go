@@ -1,6 +1,7 @@
 package materials
 
 import (
+	"strings"
 	"sync"
 )
 
@@ -31,6 +32,28 @@ type Entry struct {
 	Description string // what the material is, in a line
 	Source      string // where the data come from
 	Kind        Kind
+	// Grade is the IEC 60404-8-4 / EN 10106 designation the curve is
+	// meant to meet (LookupGrade), "" for ungraded material.
+	Grade string
+}
+
+// FromMemory reports whether the entry's data are typical values from
+// memory rather than a cited source: a design that rests on such a curve
+// should be checked against the supplier's or a measured curve.
+func (e Entry) FromMemory() bool { return strings.HasPrefix(e.Source, fromMemory) }
+
+// CurveEntry returns the library entry a curve came from (also through
+// Stacked, which keeps the name), and false for a user's curve.
+func CurveEntry(c *Curve) (Entry, bool) {
+	if c == nil || !c.builtin {
+		return Entry{}, false
+	}
+	for _, t := range curveTables {
+		if t.entry.Name == c.name {
+			return t.entry, true
+		}
+	}
+	return Entry{}, false
 }
 
 // Library returns the entries of the built-in library, nonlinear curves
@@ -49,11 +72,17 @@ func Library() []Entry {
 var libCurves = sync.OnceValue(func() map[string]*Curve {
 	m := make(map[string]*Curve, len(curveTables))
 	for _, t := range curveTables {
-		c, err := curveFromJ(t.h, t.j)
+		var c *Curve
+		var err error
+		if t.b != nil {
+			c, err = NewCurve(t.h, t.b)
+		} else {
+			c, err = curveFromJ(t.h, t.j)
+		}
 		if err != nil {
 			panic(errBuiltinCurve + ": " + t.entry.Name + ": " + err.Error())
 		}
-		c.name = t.entry.Name
+		c.name, c.builtin = t.entry.Name, true
 		m[t.entry.Name] = c
 	}
 	return m

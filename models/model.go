@@ -91,6 +91,8 @@ type Material struct {
 	TableFile string       // CSV path: absolute, or relative to the working directory
 	MuR       float64      // relative permeability of a linear material
 	Stacking  float64      // lamination stacking factor in (0, 1]; 1 when not given
+	Grade     string       `json:",omitzero"` // steel grade designation the curve should meet ("" for none), checked by the design
+	GradePos  Pos          `json:",omitzero"` // where Grade was written
 	Magnet    *Magnet
 	Pos       Pos
 }

@@ -166,7 +166,7 @@ func (d *decoder) parse(data []byte) *Model {
 	return m
 }
 
-var materialKeys = []string{"curve", "table", "table-file", "mu-r", "stacking", "remanence", "mu-recoil", "direction"}
+var materialKeys = []string{"curve", "table", "table-file", "mu-r", "stacking", "grade", "remanence", "mu-recoil", "direction"}
 
 // materials decodes the materials mapping: name -> definition.
 func (d *decoder) materials(m *Model, n *yaml.Node) {
@@ -253,6 +253,14 @@ func (d *decoder) materials(m *Model, n *yaml.Node) {
 				}
 			} else {
 				d.fail(mf.key["stacking"], mf.sub("stacking"), "stacking applies to B-H curves (curve, table, table-file) only; remove it")
+			}
+		}
+		if v := mf.get("grade"); v != nil {
+			if kind == "curve" || kind == "table" || kind == "table-file" {
+				mat.Grade, _ = d.str(v, mf.sub("grade"), "a steel grade designation such as M270-35A")
+				mat.GradePos = pos(v, mf.sub("grade"))
+			} else {
+				d.fail(mf.key["grade"], mf.sub("grade"), "grade applies to B-H curves (curve, table, table-file) only; remove it")
 			}
 		}
 		m.Materials = append(m.Materials, mat)

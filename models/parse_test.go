@@ -204,7 +204,7 @@ func TestDefaults(t *testing.T) {
 
 func TestMaterialsDecoded(t *testing.T) {
 	src := edit(t, "  steel: {mu-r: 1000}", `  steel: {mu-r: 1000}
-  lam: {curve: silicon-steel, stacking: 0.95}
+  lam: {curve: silicon-steel, stacking: 0.95, grade: M270-35A}
   tab: {table: [[0, 0], [100, 1.0], [1000, 1.5]]}
   csv: {table-file: curves/m.csv}
   pm: {remanence: 1.2, mu-recoil: 1.05, direction: 90}`)
@@ -220,7 +220,7 @@ func TestMaterialsDecoded(t *testing.T) {
 	tab, _ := m.Material("tab")
 	csv, _ := m.Material("csv")
 	pm, _ := m.Material("pm")
-	if lam.Curve != "silicon-steel" || lam.Stacking != 0.95 {
+	if lam.Curve != "silicon-steel" || lam.Stacking != 0.95 || lam.Grade != "M270-35A" || lam.GradePos.Line != 6 {
 		t.Errorf("lam %+v", lam)
 	}
 	if len(tab.Table) != 3 || tab.Table[2] != [2]float64{1000, 1.5} {

@@ -24,6 +24,9 @@ var commands = []*Command{
 	cmdProfile,
 	cmdMesh,
 	cmdMaterials,
+	cmdGrades,
+	cmdBHFit,
+	cmdRingCurve,
 	cmdBench,
 	cmdExamples,
 }

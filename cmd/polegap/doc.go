@@ -21,6 +21,9 @@ The commands are:
 	check      check saturation, target field and field quality (exit 0 pass, 1 fail)
 	mesh       mesh a model and print the mesh statistics
 	materials  list the built-in materials, or show and plot B-H curves
+	grades     list electrical-steel grades, or check a B-H curve against one
+	bhfit      fit a full B-H curve to a few points and extrapolate it to saturation
+	ringcurve  reduce a ring-sample test to a B-H curve with uncertainties
 	bench      measure the speed of each stage at 10k, 100k and 1M nodes
 	examples   list the embedded example models, or print one
 

@@ -13,6 +13,12 @@
 //     current-balance (Balance.Reduce) or search-coil (SearchCoil.Calibrate
 //     with a Solenoid or a given field per ampere, then SearchCoil.Field).
 //
+// A ring test of a steel sample (the d.c. ring method of IEC 60404-4) has
+// its own YAML format (RingFormatTag; FORMAT.md, "Ring test"): LoadRing
+// reads it and RingTest.Reduce (Ring.Reduce) turns it into B-H points with
+// standard uncertainties, corrected for the air flux in the search winding
+// and for the thick ring's uneven magnetisation (see Ring).
+//
 // Sample files drawn from a known curve with stated noise are in
 // testdata/measured at the repository root (generator: gen_test.go).
 //

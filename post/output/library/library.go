@@ -48,6 +48,9 @@ func Describe(w io.Writer, name string) error {
 		return fmt.Errorf("no built-in material %q; 'polegap materials' lists them", name)
 	}
 	fmt.Fprintf(w, "%s (%s): %s\nsource: %s\n", e.Name, e.Kind, e.Description, e.Source)
+	if e.Grade != "" {
+		fmt.Fprintf(w, "grade: %s ('polegap grades %s' checks it)\n", e.Grade, e.Name)
+	}
 	c, isCurve := mat.(*materials.Curve)
 	if !isCurve {
 		nu, _ := mat.Nu(0)

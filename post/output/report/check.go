@@ -38,6 +38,9 @@ func WriteCheck(w io.Writer, c *check.Check) error {
 			ew.printf("info  values NOT converged to %.0e relative (refinement limit, %d meshes): a verdict near its limit is uncertain\n", a.Target, a.Rounds)
 		}
 	}
+	for _, n := range c.Notes {
+		ew.printf("note  %s\n", n)
+	}
 	if c.Pass {
 		ew.printf("\nall checks pass\n")
 	} else {

@@ -68,6 +68,25 @@ func writeDesign(ew *errWriter, d *design.Design) {
 		}
 		ew.printf("peak T: largest mean |B| over a disc of radius %.3g mm in the region; limits apply to it\n"+
 			"max raw T: largest element value, mesh-dependent (grows without bound at corners); never checked\n", d.Saturation[0].Radius*1e3)
+		ew.printf("beyond the last point of the B-H table (on the curve's extrapolation):")
+		var labels []string
+		regions := map[string][]string{}
+		for i, s := range d.Saturation {
+			sep := ","
+			if i == 0 {
+				sep = ""
+			}
+			ew.printf("%s %s %.1f%%", sep, s.Region, 100*s.BeyondTable)
+			l := curveLabel(s)
+			if regions[l] == nil {
+				labels = append(labels, l)
+			}
+			regions[l] = append(regions[l], s.Region)
+		}
+		ew.printf("\n")
+		for _, l := range labels {
+			ew.printf("B-H curve of %s: %s\n", strings.Join(regions[l], ", "), l)
+		}
 	}
 	for _, f := range d.Forces {
 		name := f.Part
@@ -97,4 +116,16 @@ func writeDesign(ew *errWriter, d *design.Design) {
 	for _, n := range d.Warnings {
 		ew.printf("warning: %s\n", n)
 	}
+}
+
+// curveLabel names a region's curve and its source for the reports, and
+// says so when the curve is typical values from memory.
+func curveLabel(s design.SatReport) string {
+	if s.Curve == "" {
+		return s.Source
+	}
+	if s.FromMemory {
+		return s.Curve + ": FROM MEMORY (typical values, not a cited source)"
+	}
+	return s.Curve + ": " + s.Source
 }

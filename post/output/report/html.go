@@ -135,8 +135,8 @@ Produced by polegap{{if not $.When.IsZero}} on {{$.When.Format "2006-01-02 15:04
 Bounds from the vector-potential and complementary solutions: between {{f "%.6g" .Lower}} and {{f "%.6g" .Upper}} J{{with .InductanceH}}; inductance between {{f "%.6g" (index . 0)}} and {{f "%.6g" (index . 1)}} H{{end}}{{if not .Guaranteed}} (not a guaranteed bracket: {{.Note}}){{end}}.{{end}}</p>
 
 {{if .Saturation}}<h2>Saturation of the iron</h2>
-<table><tr><th>region</th><th>knee (T)</th><th>mean |B| (T)</th><th>area above knee</th><th>peak |B| (T): largest mean over a disc of radius {{mm (index .Saturation 0).Radius}} mm</th><th>max raw |B| (T), mesh-dependent</th></tr>
-{{range .Saturation}}<tr><td>{{.Region}}</td><td>{{f "%.2f" .Knee}}</td><td>{{f "%.3f" .Mean}}</td><td>{{pct .AboveKnee}} %</td><td>{{f "%.3f" .Peak}}</td><td>{{f "%.3f" .Max}}{{if .MaxAtCorner}} (at a corner){{end}}</td></tr>{{end}}
+<table><tr><th>region</th><th>knee (T)</th><th>mean |B| (T)</th><th>area above knee</th><th>peak |B| (T): largest mean over a disc of radius {{mm (index .Saturation 0).Radius}} mm</th><th>max raw |B| (T), mesh-dependent</th><th>area beyond the last table point</th><th>B-H curve and its source</th></tr>
+{{range .Saturation}}<tr><td>{{.Region}}</td><td>{{f "%.2f" .Knee}}</td><td>{{f "%.3f" .Mean}}</td><td>{{pct .AboveKnee}} %</td><td>{{f "%.3f" .Peak}}</td><td>{{f "%.3f" .Max}}{{if .MaxAtCorner}} (at a corner){{end}}</td><td>{{pct .BeyondTable}} % (above {{f "%.2f" .TableEnd}} T)</td><td>{{if .Curve}}{{.Curve}}: {{end}}{{if .FromMemory}}<strong>from memory: typical values, not a cited source</strong>{{else}}{{.Source}}{{end}}</td></tr>{{end}}
 </table>{{end}}
 {{if .Forces}}<h2>Forces</h2>
 <table><tr><th>part</th><th>Fx by Maxwell stress (N)</th><th>Fy by Maxwell stress (N)</th><th>by virtual work (N)</th><th>error estimate (N)</th></tr>
@@ -157,7 +157,7 @@ Bounds from the vector-potential and complementary solutions: between {{f "%.6g"
 {{with .Check}}<h2>Check</h2>
 <table><tr><th>requirement</th><th>value</th><th>limit</th><th>verdict</th></tr>
 {{range .Items}}<tr><td>{{.What}}{{if .Note}}<br><span class="note">{{.Note}}</span>{{end}}</td><td>{{f "%.4g" .Value}} {{.Unit}}</td><td>{{f "%.4g" .Limit}} {{.Unit}}</td><td>{{if .Pass}}<span class="pass">pass</span>{{else}}<span class="fail">FAIL</span>{{end}}</td></tr>{{end}}
-</table>{{end}}
+</table>{{range .Notes}}<p class="note">Note: {{.}}</p>{{end}}{{end}}
 
 {{with .Sweep}}<h2>Excitation curve</h2>
 <table><tr><th>current (A)</th><th>ampere-turns</th><th>field (T)</th><th>efficiency</th><th>max iron |B| (T)</th><th>L apparent (H)</th><th>L incremental (H)</th><th>± field (T)</th></tr>

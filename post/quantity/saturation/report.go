@@ -28,6 +28,11 @@ type Region struct {
 	Corners [][2]float64
 	// Limit, T, is the largest acceptable Peak; 0 means no check.
 	Limit float64
+	// TableEnd, T, is the flux density at the last point of the
+	// curve's table (materials.Curve.TableEnd): above it the curve is
+	// extrapolated, and Report.BeyondTable says over how much of the
+	// region. 0 means not reported.
+	TableEnd float64
 }
 
 // Options control Analyse. The zero value uses the defaults.
@@ -87,6 +92,12 @@ type Report struct {
 	AboveKnee float64 // area fraction with |B| > Knee
 	Levels    []Level
 
+	// TableEnd (T, from Region) and BeyondTable, the area fraction with
+	// |B| > TableEnd: how much of the iron ran on the curve's
+	// extrapolation past its last table point (0 when TableEnd is 0).
+	TableEnd    float64
+	BeyondTable float64
+
 	// Limit (T, 0 for none) and Pass: Peak <= Limit.
 	Limit float64
 	Pass  bool
@@ -142,7 +153,7 @@ func Analyse(m *mesh.Mesh, b [][2]float64, regions []Region, opt Options) ([]Rep
 	}
 	count := make([]int, len(regions))
 	for i, r := range regions {
-		if r.Limit < 0 || r.Knee < 0 {
+		if r.Limit < 0 || r.Knee < 0 || r.TableEnd < 0 {
 			panic(errNegative)
 		}
 		if r.Knee == 0 && r.Curve == nil {
@@ -181,7 +192,7 @@ func Analyse(m *mesh.Mesh, b [][2]float64, regions []Region, opt Options) ([]Rep
 }
 
 func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Options) (Report, error) {
-	rep := Report{Tag: r.Tag, Name: r.Name, Limit: r.Limit, Knee: r.Knee, Triangles: len(tris), MaxTriangle: -1}
+	rep := Report{Tag: r.Tag, Name: r.Name, Limit: r.Limit, Knee: r.Knee, TableEnd: r.TableEnd, Triangles: len(tris), MaxTriangle: -1}
 	if len(tris) == 0 {
 		return rep, &EmptyRegionError{Tag: r.Tag, Name: r.Name}
 	}
@@ -211,7 +222,7 @@ func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Op
 	rep.Mean = sumS.Value() / total
 	rep.Radius = opt.Radius
 	rep.Levels = make([]Level, len(opt.Levels))
-	var above compsum.Sum
+	var above, beyond compsum.Sum
 	aboveL := make([]compsum.Sum, len(opt.Levels))
 	rad2 := rep.Radius * rep.Radius
 	rep.Max = -1
@@ -219,6 +230,9 @@ func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Op
 		v := mag[j]
 		if v > rep.Knee {
 			above.Add(area[j])
+		}
+		if r.TableEnd > 0 && v > r.TableEnd {
+			beyond.Add(area[j])
 		}
 		for k, l := range opt.Levels {
 			if v > l {
@@ -234,6 +248,7 @@ func analyseRegion(m *mesh.Mesh, b [][2]float64, r *Region, tris []int32, opt Op
 		rep.MaxAtCorner = rep.MaxAtCorner || dx*dx+dy*dy <= rad2
 	}
 	rep.AboveKnee = above.Value() / total
+	rep.BeyondTable = beyond.Value() / total
 	for k, l := range opt.Levels {
 		rep.Levels[k] = Level{B: l, Fraction: aboveL[k].Value() / total}
 	}

@@ -68,7 +68,7 @@ func handMesh() *mesh.Mesh {
 func TestAreaFractionHandMesh(t *testing.T) {
 	m := handMesh()
 	b := [][2]float64{{0.6, 0.8}, {0, 1.7}, {2, 0}} // |B| = 1, 1.7, 2
-	regs := []Region{{Tag: 1, Name: "pole", Knee: 1.5, Limit: 1.8}, {Tag: 2, Name: "yoke", Knee: 1.5, Limit: 1.9}}
+	regs := []Region{{Tag: 1, Name: "pole", Knee: 1.5, Limit: 1.8, TableEnd: 1.6}, {Tag: 2, Name: "yoke", Knee: 1.5, Limit: 1.9}}
 	reps, err := Analyse(m, b, regs, Options{Levels: []float64{0.5, 1.2, 3}})
 	if err != nil {
 		t.Fatal(err)
@@ -87,6 +87,8 @@ func TestAreaFractionHandMesh(t *testing.T) {
 	exact("pole level 1.2", p.Levels[1].Fraction, 1/1.5)
 	exact("pole level 3", p.Levels[2].Fraction, 0)
 	exact("pole max", p.Max, 1.7)
+	exact("pole beyond table", p.BeyondTable, 1/1.5)
+	exact("yoke beyond table (not reported)", y.BeyondTable, 0)
 	if p.MaxTriangle != 1 || p.MaxAt != [2]float64{4.0 / 3, 1.0 / 3} || p.MaxAtCorner || !p.Pass || p.Triangles != 2 {
 		t.Errorf("pole: %+v", p)
 	}

@@ -3,6 +3,8 @@ package check
 import (
 	"fmt"
 	"math"
+	"sort"
+	"strings"
 
 	"polegap/materials"
 	"polegap/post/study"
@@ -42,6 +44,8 @@ type Check struct {
 	Items    []CheckItem          `json:"items"`
 	Fringing *design.FringeReport `json:"fringing,omitempty"`
 	Pass     bool                 `json:"pass"`
+	// Notes qualify the verdicts (a curve of typical values from memory).
+	Notes []string `json:"notes,omitempty"`
 	// Accuracy says how converged the checked numbers are (nil: not
 	// recorded).
 	Accuracy *design.Accuracy `json:"accuracy,omitempty"`
@@ -60,6 +64,8 @@ func NewCheck(s *study.Result, d *design.Design, opt CheckOptions) *Check {
 		c.Pass = c.Pass && it.Pass
 	}
 	m := s.Model
+	var memory []string
+	memCurve := map[string]bool{}
 	for _, sr := range d.Saturation {
 		limit := opt.SaturationLimit
 		note := "limit given"
@@ -72,7 +78,26 @@ func NewCheck(s *study.Result, d *design.Design, opt CheckOptions) *Check {
 			}
 		}
 		note += fmt.Sprintf("; mean |B| over the worst disc of radius %.3g mm; raw maximum %.3f T mesh-dependent, not checked", sr.Radius*1e3, sr.Max)
+		if sr.FromMemory {
+			memory = append(memory, sr.Region)
+			memCurve[sr.Curve] = true
+		}
+		for _, sf := range sr.GradeShortfalls {
+			note += fmt.Sprintf("; WARNING: below grade %s: %s", sr.Grade, sf)
+		}
+		if sr.BeyondTable > 0 {
+			note += fmt.Sprintf("; %.1f %% of the region beyond the curve's last table point (%.2f T), on its extrapolation", 100*sr.BeyondTable, sr.TableEnd)
+		}
 		add(CheckItem{What: "saturation of " + sr.Region, Value: sr.Peak, Limit: limit, Unit: "T", Pass: sr.Peak <= limit, Note: note})
+	}
+	if len(memory) > 0 {
+		var curves []string
+		for name := range memCurve {
+			curves = append(curves, name)
+		}
+		sort.Strings(curves)
+		c.Notes = append(c.Notes, fmt.Sprintf("the saturation verdicts of %s rest on %s: typical values from memory, not a cited source; confirm with the supplier's or a measured curve ('polegap materials' lists the sourced ones)",
+			strings.Join(memory, ", "), strings.Join(curves, ", ")))
 	}
 	if m.Target != nil {
 		for _, p := range s.Probes {

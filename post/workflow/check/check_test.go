@@ -2,6 +2,7 @@ package check
 
 import (
 	"math"
+	"strings"
 	"testing"
 
 	"polegap/models"
@@ -77,6 +78,38 @@ func TestSaturationVerdictStable(t *testing.T) {
 		}
 		if want := limit > peak[0]; c[0].Pass != want {
 			t.Errorf("limit %.4f T against a largest peak of %.4f T: verdict %v, want %v", limit, peak[0], c[0].Pass, want)
+		}
+	}
+}
+
+// A verdict that rests on a library curve of typical values from memory
+// says so (issue 18); the same magnet with the published TEAM 13 curve
+// carries no such note.
+func TestFromMemoryNote(t *testing.T) {
+	m, err := models.LoadExample("bench-dipole")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, tc := range []struct {
+		curve string
+		note  bool
+	}{{"", true}, {"team13-steel", false}} {
+		c := m.Clone()
+		if tc.curve != "" {
+			for i := range c.Materials {
+				if c.Materials[i].Curve != "" {
+					c.Materials[i].Curve = tc.curve
+				}
+			}
+		}
+		res, err := study.Run(c, study.Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		ch := NewCheck(res, design.NewDesign(res, design.DesignOptions{StressOnly: true}), CheckOptions{})
+		got := len(ch.Notes) > 0 && strings.Contains(ch.Notes[0], "from memory")
+		if got != tc.note {
+			t.Errorf("curve %q: notes %q, want a from-memory note: %v", tc.curve, ch.Notes, tc.note)
 		}
 	}
 }

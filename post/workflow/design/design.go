@@ -159,6 +159,23 @@ type SatReport struct {
 	MaxAtCorner bool       `json:"max_raw_at_corner"`
 	Limit       float64    `json:"limit_T,omitempty"`
 	Pass        bool       `json:"pass"`
+	// TableEnd is B (T) at the last point of the region's B-H data and
+	// BeyondTable the area fraction where |B| exceeded it, so that the
+	// result rests on the curve's extrapolation there.
+	TableEnd    float64 `json:"table_end_B_T"`
+	BeyondTable float64 `json:"area_fraction_beyond_table"`
+	// Curve names the region's B-H curve: a library name, or "" for the
+	// model's own table; Source is where its data come from, and
+	// FromMemory is true for a library curve of typical values from
+	// memory rather than a cited source.
+	Curve      string `json:"curve,omitempty"`
+	Source     string `json:"curve_source"`
+	FromMemory bool   `json:"curve_from_memory,omitempty"`
+	// Grade is the steel grade the material names (models.Material.Grade)
+	// and GradeShortfalls where its curve falls below the grade's
+	// minimum polarisation (a warning, not a failure).
+	Grade           string   `json:"grade,omitempty"`
+	GradeShortfalls []string `json:"grade_shortfalls,omitempty"`
 }
 
 // DesignOptions control which quantities are computed.
@@ -557,6 +574,7 @@ func (d *Design) saturation(s *study.Result, opt DesignOptions) {
 	var regs []saturation.Region
 	var corners [][2]float64
 	var mirrors []saturation.Line
+	var srcs []SatReport
 	if m.Geometry == models.Axisymmetric {
 		mirrors = []saturation.Line{{X0: 0, Y0: 0, X1: 0, Y1: 1}} // the axis r = 0
 	}
@@ -571,7 +589,11 @@ func (d *Design) saturation(s *study.Result, opt DesignOptions) {
 			continue
 		}
 		corners = append(corners, saturation.Corners(mesh.Polygon{X: r.X, Y: r.Y, Sweep: r.Sweep}, saturation.CornerOptions{Mirrors: mirrors})...)
-		regs = append(regs, saturation.Region{Tag: study.Tag(i), Name: r.Name, Curve: c, Limit: opt.SaturationLimit})
+		_, bEnd := c.TableEnd()
+		regs = append(regs, saturation.Region{Tag: study.Tag(i), Name: r.Name, Curve: c, Limit: opt.SaturationLimit, TableEnd: bEnd})
+		src := curveSource(c)
+		src.Grade, src.GradeShortfalls = d.checkGrade(m, r, c)
+		srcs = append(srcs, src)
 	}
 	if len(regs) == 0 {
 		return
@@ -590,10 +612,43 @@ func (d *Design) saturation(s *study.Result, opt DesignOptions) {
 			return
 		}
 	}
-	for _, r := range reps {
+	for i, r := range reps {
 		d.Saturation = append(d.Saturation, SatReport{Region: r.Name, Knee: r.Knee, Mean: r.Mean, AboveKnee: r.AboveKnee,
-			Peak: r.Peak, PeakAt: r.PeakAt, Radius: r.Radius, Max: r.Max, MaxAt: r.MaxAt, MaxAtCorner: r.MaxAtCorner, Limit: r.Limit, Pass: r.Pass})
+			Peak: r.Peak, PeakAt: r.PeakAt, Radius: r.Radius, Max: r.Max, MaxAt: r.MaxAt, MaxAtCorner: r.MaxAtCorner, Limit: r.Limit, Pass: r.Pass,
+			TableEnd: r.TableEnd, BeyondTable: r.BeyondTable, Curve: srcs[i].Curve, Source: srcs[i].Source, FromMemory: srcs[i].FromMemory,
+			Grade: srcs[i].Grade, GradeShortfalls: srcs[i].GradeShortfalls})
 	}
+}
+
+// checkGrade notes a warning when a region's material names a steel grade
+// (IEC 60404-8-4 / EN 10106) and its curve falls below the grade's minimum
+// polarisation, checked on the sheet (before stacking).
+// It returns the grade and the shortfalls.
+func (d *Design) checkGrade(m *models.Model, r *models.Region, c *materials.Curve) (string, []string) {
+	def, ok := m.Material(r.Material)
+	if !ok || def.Grade == "" {
+		return "", nil
+	}
+	g, known := materials.LookupGrade(def.Grade)
+	if !known {
+		d.note("WARNING: material %q: unknown steel grade %q, not checked; 'polegap grades' lists the known ones", def.Name, def.Grade)
+		return def.Grade, nil
+	}
+	var out []string
+	for _, sf := range c.CheckGrade(g, def.Stacking) {
+		out = append(out, sf.String())
+		d.note("WARNING: material %q (region %s) falls short of grade %s: %v (%s)", def.Name, r.Name, g.Name, sf, g.Source)
+	}
+	return g.Name, out
+}
+
+// curveSource fills the curve fields of a SatReport: the library entry a
+// curve came from, or the model's own data.
+func curveSource(c *materials.Curve) SatReport {
+	if e, ok := materials.CurveEntry(c); ok {
+		return SatReport{Curve: e.Name, Source: e.Source, FromMemory: e.FromMemory()}
+	}
+	return SatReport{Source: "the model's own B-H data"}
 }
 
 // linearB returns each triangle's own flux density at its three corners
