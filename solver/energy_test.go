@@ -141,7 +141,7 @@ func TestAssemblyAllocations(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		as := newAssembler(p, d, 1)
+		as := newAssembler(p, d, 1, nil)
 		A := make([]float64, m.NumNodes())
 		r := make([]float64, d.n)
 		allocs := testing.AllocsPerRun(5, func() {

@@ -93,7 +93,7 @@ func Prepare(p *Problem, opt Options) (*Prepared, error) {
 	if err != nil {
 		return nil, err
 	}
-	pr := &Prepared{p: p, as: newAssembler(p, d, opt.Workers)}
+	pr := &Prepared{p: p, as: newAssembler(p, d, opt.Workers, nil)}
 	pr.lin = opt.linearSolver(d.n)
 	for _, f := range p.Fixed {
 		pr.fixed = append(pr.fixed, f.Node)
