@@ -30,6 +30,8 @@ type Options struct {
 	// by at most Accuracy (relative to its own magnitude) between two
 	// rounds. Each must be a magnitude whose relative change means
 	// something (a field, a flux, an energy), not a component near zero.
+	// They are evaluated beside the round's error indicator, on another
+	// goroutine: they must only read the result.
 	Quantity   func(*study.Result) (float64, error)
 	Quantities func(*study.Result) (map[string]float64, error)
 	// Progress, when set, is told of each round.
@@ -141,11 +143,19 @@ func Run(ctx context.Context, m *models.Model, opt Options) (*Result, error) {
 		if err != nil {
 			return res, err
 		}
-		qs, err := quantities(s, opt)
+		// The quantities and the error indicator only read the solution:
+		// they run side by side, on both cores.
+		var qs map[string]float64
+		done := make(chan struct{})
+		go func() {
+			defer close(done)
+			qs, err = quantities(s, opt)
+		}()
+		eta, est := s.Solution.ErrorIndicatorTo(nil)
+		<-done
 		if err != nil {
 			return res, err
 		}
-		eta, est := s.Solution.ErrorIndicatorTo(nil)
 		r := Round{Nodes: d.Mesh.NumNodes(), Triangles: d.Mesh.NumTriangles(), Estimate: math.Sqrt(math.Max(est, 0)), Iterations: s.Solution.Iterations}
 		r.Change, r.Worst, r.Value = change(qs, prev)
 		res.Rounds = append(res.Rounds, r)
