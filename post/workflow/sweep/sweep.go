@@ -272,10 +272,14 @@ func (r *Runner) ProbeName() string { return r.probe }
 
 // Solve solves the study with the swept coil at current (the other coils
 // scaled in proportion to the base) and returns the point; r.Last holds
-// the whole result.
+// the whole result. It starts from the potential extrapolated from the
+// last points and takes chord steps (solver.Chord: from such a start they
+// converge to the solver's tolerances at a fraction of the
+// factorizations); opt.Initial and opt.Steps are its own.
 func (r *Runner) Solve(current float64, opt solver.Options) (Point, error) {
 	m := r.Model
 	opt.Initial = r.predict(current)
+	opt.Steps = solver.Chord
 	res, err := r.Study.SolveAt(r.Base.Scaled(m, r.coil, current), opt)
 	if err != nil {
 		return Point{}, err
