@@ -79,7 +79,10 @@ func quadratureDegree(order int, f Formulation) int {
 	}
 }
 
-func newAssembler(p *Problem, d dofMap, workers int) *assembler {
+// newAssembler sets up the assembly of p with the numbering d for the
+// given number of workers. pat, when not nil, is the pattern to use (the numbering d on a mesh of
+// the same topology); nil builds one.
+func newAssembler(p *Problem, d dofMap, workers int, pat *pattern) *assembler {
 	m := p.Mesh
 	as := &assembler{p: p, m: m, el: elementFor(m.Order()), axi: p.Formulation == Axisymmetric, d: d,
 		loc: &lazyLocator{loc: p.Locator}}
@@ -103,7 +106,10 @@ func newAssembler(p *Problem, d dofMap, workers int) *assembler {
 		xi, eta := as.rule.Point(q)
 		as.el.EvalTo(as.val[q][:], as.rgrad[q][:], xi, eta)
 	}
-	as.pat = buildPattern(m, &as.d, workers)
+	if pat == nil {
+		pat = buildPattern(m, &as.d, workers)
+	}
+	as.pat = pat
 	return as
 }
 

@@ -40,7 +40,7 @@ func TestAssemblyMatchesDense(t *testing.T) {
 				if err != nil {
 					t.Fatal(err)
 				}
-				as := newAssembler(p, d, workers)
+				as := newAssembler(p, d, workers, nil)
 				if len(as.pat.parts) != workers && d.n >= 2000 {
 					t.Fatalf("%s: %d parts", name, len(as.pat.parts))
 				}
@@ -102,8 +102,8 @@ func TestP1KernelMatchesGeneric(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	fast := newAssembler(p, d, 1)
-	gen := newAssembler(p, d, 1)
+	fast := newAssembler(p, d, 1, nil)
+	gen := newAssembler(p, d, 1, nil)
 	gen.generic = true
 	A := make([]float64, m.NumNodes())
 	for i := range A {

@@ -72,7 +72,7 @@ func BenchmarkAssemble(b *testing.B) {
 				if err != nil {
 					b.Fatal(err)
 				}
-				as := newAssembler(p, d, 0)
+				as := newAssembler(p, d, 0, nil)
 				A := make([]float64, m.NumNodes())
 				r := make([]float64, d.n)
 				b.ReportAllocs()
@@ -103,7 +103,7 @@ func BenchmarkAssembleWorkers(b *testing.B) {
 				if err != nil {
 					b.Fatal(err)
 				}
-				as := newAssembler(p, d, workers)
+				as := newAssembler(p, d, workers, nil)
 				A := make([]float64, m.NumNodes())
 				r := make([]float64, d.n)
 				b.ReportAllocs()

@@ -127,7 +127,7 @@ func solveWithSource(t *testing.T, p *Problem, src func(x, y float64) float64) *
 	if err != nil {
 		t.Fatal(err)
 	}
-	as := newAssembler(p, d, opt.Workers)
+	as := newAssembler(p, d, opt.Workers, nil)
 	as.source = src
 	s := &Solution{Problem: p, NumUnknowns: d.n, as: as}
 	if err := newton(as, opt, s, opt.linearSolver(d.n), false); err != nil {

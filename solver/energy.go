@@ -2,6 +2,7 @@ package solver
 
 import (
 	"math"
+	"sort"
 
 	"gonum.org/v1/gonum/integrate/quad"
 
@@ -24,10 +25,10 @@ func (s *Solution) Energies() (w, wco float64) {
 	as := s.as
 	nt := as.m.NumTriangles()
 	mats := s.Problem.Materials
-	bs := make([][]float64, len(mats))
+	tabs := make([]energyTable, len(mats))
 	for r, mat := range mats {
 		if mat != nil {
-			bs[r] = breaks(mat)
+			tabs[r] = newEnergyTable(mat, breaks(mat))
 		}
 	}
 	// Fixed contiguous chunks, each summed with compensation, then added
@@ -60,7 +61,7 @@ func (s *Solution) Energies() (w, wco float64) {
 					bx += ew.a[i] * ew.c[i][0]
 					by += ew.a[i] * ew.c[i][1]
 				}
-				e, ce := energyDensity(mat, bs[reg], bx*bx+by*by)
+				e, ce := tabs[reg].density(mat, bx*bx+by*by)
 				et += wt * e
 				ct += wt * ce
 			}
@@ -183,6 +184,59 @@ func glPanel(mat Material, b0, b1 float64) float64 {
 		s += gl3w[i] * ni * bi
 	}
 	return s * h
+}
+
+// energyTable holds ∫₀^b ν(b²) b db at the break points of a tabled
+// curve, summed segment by segment exactly as energyDensity sums them, so
+// that density needs only the panels of the last, partial segment and
+// returns energyDensity's values bit for bit: the integral up to a point
+// on a steep curve far into saturation takes a hundred panels, each
+// solution's energies one such integral per quadrature point.
+type energyTable struct {
+	ends []float64 // the break points energyDensity integrates to, increasing
+	cum  []float64 // the integral from 0 to each
+}
+
+// newEnergyTable integrates mat up to each of its break points bs.
+func newEnergyTable(mat Material, bs []float64) energyTable {
+	var t energyTable
+	lo, w := 0.0, 0.0
+	for _, bk := range bs {
+		if bk <= lo {
+			continue
+		}
+		w += glPanels(mat, lo, bk)
+		lo = bk
+		t.ends = append(t.ends, bk)
+		t.cum = append(t.cum, w)
+	}
+	return t
+}
+
+// density is energyDensity(mat, bs, b2) for the table of mat and bs.
+func (t energyTable) density(mat Material, b2 float64) (w, wco float64) {
+	if !(b2 > 0) {
+		return 0, 0
+	}
+	nu, dnu := mat.Nu(b2)
+	if dnu == 0 {
+		nu0, _ := mat.Nu(0)
+		if nu0 == nu {
+			w = 0.5 * nu * b2
+			return w, w
+		}
+	}
+	b := math.Sqrt(b2)
+	lo := 0.0
+	if j := sort.SearchFloat64s(t.ends, b); j > 0 {
+		lo, w = t.ends[j-1], t.cum[j-1]
+	}
+	if n := len(t.ends); n > 0 && lo == t.ends[n-1] && lo > 0 {
+		w += glPanel(mat, lo, b) // as energyDensity: exact past the table
+	} else {
+		w += glPanels(mat, lo, b)
+	}
+	return w, nu*b2 - w
 }
 
 // glPanels returns ∫ ν(b²) b db over [b0, b1] by 3-point Gauss–Legendre

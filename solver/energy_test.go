@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"testing"
+
+	"polegap/materials"
 )
 
 // For a linear problem with A = 0 on the boundary the three expressions of
@@ -141,7 +143,7 @@ func TestAssemblyAllocations(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		as := newAssembler(p, d, 1)
+		as := newAssembler(p, d, 1, nil)
 		A := make([]float64, m.NumNodes())
 		r := make([]float64, d.n)
 		allocs := testing.AllocsPerRun(5, func() {
@@ -151,6 +153,36 @@ func TestAssemblyAllocations(t *testing.T) {
 		})
 		if allocs != 0 {
 			t.Errorf("P%d: %g allocations per assembly, want 0", order, allocs)
+		}
+	}
+}
+
+// The energies' break-point table gives EnergyDensity's values bit for
+// bit (it sums the same panels in the same order), on a built-in B-H
+// curve from zero far into saturation, exactly at its points and between
+// them, and on a linear material.
+func TestEnergyTableExact(t *testing.T) {
+	steel, _, ok := materials.Lookup("low-carbon-steel")
+	if !ok {
+		t.Fatal("no low-carbon-steel in the library")
+	}
+	for _, mat := range []Material{steel, linear{1000}} {
+		tab := newEnergyTable(mat, breaks(mat))
+		bs := breaks(mat)
+		if _, lin := mat.(linear); !lin && len(tab.ends) < 5 {
+			t.Fatalf("the steel curve has %d break points: not a tabled curve", len(tab.ends))
+		}
+		var probes []float64
+		for b := 0.0; b < 4; b += 0.0137 {
+			probes = append(probes, b)
+		}
+		probes = append(probes, bs...)
+		for _, b := range probes {
+			w0, c0 := EnergyDensity(mat, b*b)
+			w1, c1 := tab.density(mat, b*b)
+			if w0 != w1 || c0 != c1 {
+				t.Fatalf("%T at %g T: table (%.17g, %.17g), direct (%.17g, %.17g)", mat, b, w1, c1, w0, c0)
+			}
 		}
 	}
 }

@@ -125,6 +125,8 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 
 	// The last estimate of the next update, when one was made.
 	upd, hasUpd := 0.0, false
+	// chord: the next step reuses the last factorization (Options.Steps).
+	chord := false
 	// stopped puts a *MaterialError met in iteration it (a material that
 	// fails at a point it passed before) into a *NotConvergedError with
 	// the history of the steps taken; other errors pass unchanged.
@@ -136,13 +138,16 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 		return &NotConvergedError{Iterations: it, History: s.History, Residual: res,
 			HasUpdate: hasUpd, Update: upd, Reason: me.detail(), Err: me}
 	}
-	// direction factors the matrix in hand and solves for the step du.
-	direction := func() error {
+	// direction factors the matrix in hand (unless chord: then the last
+	// factorization is used again) and solves for the step du.
+	direction := func(chord bool) error {
 		t0 := time.Now()
-		if err := lin.Factor(as.pat.k); err != nil {
-			return &LinearSolveError{Stage: "factor", Err: err}
+		if !chord {
+			if err := lin.Factor(as.pat.k); err != nil {
+				return &LinearSolveError{Stage: "factor", Err: err}
+			}
+			s.Time.Factor += time.Since(t0)
 		}
-		s.Time.Factor += time.Since(t0)
 		for i := range R {
 			R[i] = -R[i]
 		}
@@ -198,10 +203,25 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 			}
 		}
 		ok := false
-		err := direction()
+		err := direction(chord)
 		if err == nil {
 			if ok, err = search(); err != nil {
 				return err
+			}
+		}
+		if !ok && chord {
+			// The old factorization gives no descent here: a Newton step.
+			chord = false
+			t0 := time.Now()
+			aerr := as.assemble(A, R, true)
+			s.Time.Assemble += time.Since(t0)
+			if aerr != nil {
+				return stopped(aerr, it)
+			}
+			if err = direction(false); err == nil {
+				if ok, err = search(); err != nil {
+					return err
+				}
 			}
 		}
 		if !ok {
@@ -217,7 +237,7 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 			if aerr != nil {
 				return stopped(aerr, it)
 			}
-			if derr := direction(); derr != nil {
+			if derr := direction(false); derr != nil {
 				return derr
 			}
 			if ok, err = search(); err != nil {
@@ -229,8 +249,12 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 			}
 			s.FixedPointSteps++
 		}
+		if chord {
+			s.ChordSteps++
+		}
 		copy(A, trial)
 		R, Rt = Rt, R
+		prev := res
 		res = norm2(R) / ref
 		s.History = append(s.History, res)
 		s.Iterations = it
@@ -259,6 +283,13 @@ func newton(as *assembler, opt Options, s *Solution, lin sparse.Solver, analyzed
 					return nil
 				}
 			}
+		}
+		// Chord steps: keep the factorization while it contracts the
+		// residual well; R already holds the residual at A (the line
+		// search's), so such a step needs no assembly of the tangent.
+		chord = opt.Steps == Chord && res <= ChordRate*prev
+		if chord {
+			continue
 		}
 		t0 = time.Now()
 		if err := as.assemble(A, R, true); err != nil {

@@ -22,6 +22,31 @@ const (
 	Iterative
 )
 
+// Steps chooses how often Newton's tangent is factored.
+type Steps int
+
+const (
+	// FullNewton factors the tangent at every step.
+	FullNewton Steps = iota
+	// Chord factors the tangent at the first step and keeps that
+	// factorization for the following steps while each cuts the residual
+	// by at least ChordRate, factoring afresh after a step that does not
+	// (or whose direction does not descend): the chord method, or with
+	// the refresh, Shamanskii's (C. T. Kelley, "Iterative Methods for
+	// Linear and Nonlinear Equations", SIAM 1995, sec. 5.4). A chord step
+	// costs a triangular solve and a residual assembly, a Newton step also
+	// the tangent's assembly and factorization; from a good warm start
+	// (a sweep's next point, a small perturbation) the chord steps
+	// converge about as fast and cost a fraction. The solution meets the
+	// same tolerances (Tol, UpdateTol); it differs from a FullNewton one
+	// within them.
+	Chord
+)
+
+// ChordRate is the residual reduction per step below which Chord keeps
+// its factorization.
+const ChordRate = 0.1
+
 // Options control Solve. The zero value works: Auto linear solver,
 // relative residual 1e-8, update 1e-6, 30 Newton steps, all cores.
 type Options struct {
@@ -36,6 +61,9 @@ type Options struct {
 	UpdateTol float64
 	// MaxIter is the limit on Newton steps; default 30.
 	MaxIter int
+	// Steps chooses when the tangent is factored; the zero value is
+	// FullNewton.
+	Steps Steps
 	// LinearTol is the relative residual of an iterative linear solve;
 	// default 1e-10.
 	LinearTol float64

@@ -20,7 +20,7 @@ func TestVertexOrdering(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	as := newAssembler(p, d, 0)
+	as := newAssembler(p, d, 0, nil)
 	perm := vertexOrdering(m, &as.d)
 	if len(perm) != as.d.n || !sparse.IsPermutation(perm) {
 		t.Fatalf("not a permutation of the %d unknowns", as.d.n)

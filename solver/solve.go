@@ -36,6 +36,9 @@ type Solution struct {
 	// FixedPointSteps counts the damped fixed-point steps taken where
 	// Newton stalled (0 normally).
 	FixedPointSteps int
+	// ChordSteps counts the steps that reused an earlier factorization
+	// (Options.Steps Chord); Iterations includes them.
+	ChordSteps int
 	// Residual is the final relative residual ‖R(A)‖/‖R(A₀)‖.
 	Residual float64
 	// History is the relative residual before the first and after each step.
@@ -93,7 +96,7 @@ func Prepare(p *Problem, opt Options) (*Prepared, error) {
 	if err != nil {
 		return nil, err
 	}
-	pr := &Prepared{p: p, as: newAssembler(p, d, opt.Workers)}
+	pr := &Prepared{p: p, as: newAssembler(p, d, opt.Workers, nil)}
 	pr.lin = opt.linearSolver(d.n)
 	for _, f := range p.Fixed {
 		pr.fixed = append(pr.fixed, f.Node)

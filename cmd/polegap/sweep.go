@@ -252,19 +252,13 @@ func progressBar(w io.Writer) func(done, total int, p sweep.Point) {
 }
 
 // sweepOn runs the sweep on the final mesh of the adaptive refinement
-// and, when there is one, again on the mesh before it, whose difference
-// gives each point's error estimates (sweep.Estimate).
+// and, when there is one, beside it on the mesh before it, whose
+// difference gives each point's error estimates (sweep.Both).
 func sweepOn(env *Env, fine, coarse *study.Result, opt sweep.Options) ([]sweep.Point, error) {
-	r, err := sweep.NewRunnerFrom(fine, opt.Coil, opt.Probe)
-	if err != nil {
-		return nil, err
+	if coarse != nil {
+		fmt.Fprintf(env.Stderr, "polegap sweep: the same points on the coarser mesh, for the error estimates\n")
 	}
-	pts, runErr := r.Sweep(env.Ctx, opt)
-	if runErr != nil || coarse == nil {
-		return pts, runErr
-	}
-	fmt.Fprintf(env.Stderr, "polegap sweep: the same points on the coarser mesh, for the error estimates\n")
-	return pts, sweep.EstimateOn(env.Ctx, coarse, opt, pts)
+	return sweep.Both(env.Ctx, fine, coarse, opt)
 }
 
 // accuracyNote says in a line how converged a table's numbers are.

@@ -30,6 +30,9 @@ type Options struct {
 	// Done, when set, is called with each finished case's figures (so that
 	// a long run shows its results as it goes).
 	Done func(r Result)
+	// Accurate adds the figures at the default accuracy (Accurate): the
+	// example AccurateModel solved and swept as the commands do.
+	Accurate bool
 }
 
 // IronMuR is the relative permeability that replaces the steel's B-H
@@ -148,6 +151,16 @@ func Run(ctx context.Context, cases []Case, opt Options) (*Table, error) {
 		if opt.Done != nil {
 			opt.Done(r)
 		}
+	}
+	if opt.Accurate {
+		if opt.Progress != nil {
+			opt.Progress(Case{Name: AccurateModel, Order: 2}, "solve and excitation curve at the default accuracy")
+		}
+		a, err := runAccurate(ctx, opt)
+		if err != nil {
+			return nil, err
+		}
+		t.Accurate = a
 	}
 	t.finish()
 	return t, nil

@@ -161,3 +161,42 @@ func TestRunMisuse(t *testing.T) {
 		}()
 	}
 }
+
+// TestAccurate runs the figures at the default accuracy once (3 curve
+// points) and checks that they are measured, recorded per round, held
+// against their goals and written. No timing is asserted.
+func TestAccurate(t *testing.T) {
+	if testing.Short() {
+		t.Skip("solves the bench-dipole example to the default accuracy")
+	}
+	tab, err := Run(context.Background(), tinyCases[:1], Options{CurvePoints: 3, Accurate: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	a := tab.Accurate
+	if a == nil || !(a.Solve > 0) || !(a.Curve > 0) || a.Points != 3 || len(a.Nodes) < 2 || len(a.Newton) != len(a.Nodes) {
+		t.Fatalf("default-accuracy figures: %+v", a)
+	}
+	// Nested iteration: every round after the first starts from the last.
+	for i := 1; i < len(a.Newton); i++ {
+		if a.Newton[i] >= a.Newton[0] {
+			t.Errorf("round %d: %d Newton steps, the first round %d", i+1, a.Newton[i], a.Newton[0])
+		}
+	}
+	var goals []float64
+	for _, c := range tab.Checks {
+		if c.Case == AccurateModel {
+			goals = append(goals, c.Goal)
+		}
+	}
+	if !slices.Equal(goals, []float64{GoalAccurateSolve, GoalAccurateCurve}) {
+		t.Errorf("checks of %s: goals %v", AccurateModel, goals)
+	}
+	var b bytes.Buffer
+	if err := tab.WriteText(&b); err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(b.String(), "round 2:") || !strings.Contains(b.String(), "solve to 0.001 with estimates") {
+		t.Errorf("text lacks the default-accuracy figures:\n%s", b.String())
+	}
+}

@@ -14,9 +14,11 @@ import (
 // 1 moves a node by the whole displacement, 0 keeps it). Topology,
 // numbering, boundary markers and sources are s's; the coil current
 // densities follow the deformed areas, so every coil's ampere-turns stay
-// exact. Virtual work moves a part this way: w = 1 on the part, falling
-// to 0 through the air around it, so that the discrete co-energy is a
-// smooth function of the displacement and its central difference
+// exact; the solves reuse s's sparsity pattern, ordering and symbolic
+// factorization once s has been solved (solver.PrepareLike). Virtual
+// work moves a part this way: w = 1 on the part, falling to 0 through
+// the air around it, so that the discrete co-energy is a smooth function
+// of the displacement and its central difference
 // converges at O(δ²) (a fresh mesh at each position adds the noise of the
 // mesher's changed decisions; see post/quantity/force).
 //
@@ -75,7 +77,7 @@ func (s *Study) Deformed(w []float64, dx, dy float64) (*Study, error) {
 	}
 	sd := *d
 	sd.Mesh = &sm
-	ds := &Study{Model: s.Model, Disc: &sd, src: s.src, areas: sm.RegionAreas()}
+	ds := &Study{Model: s.Model, Disc: &sd, src: s.src, areas: sm.RegionAreas(), like: s}
 	if err := checkAreas(s.Model, s.src, ds.areas); err != nil {
 		return nil, err
 	}

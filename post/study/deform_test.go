@@ -15,7 +15,8 @@ import (
 // keeps its area (to rounding, so its current density stays) and the
 // mesh's topology; a step larger than the air elements around the coil
 // folds one over (*study.FoldError); moving the nodes of the outer
-// boundary across it is an error.
+// boundary across it is an error. The deformed study's solves reuse the
+// undeformed one's ordering and symbolic analysis.
 func TestDeformed(t *testing.T) {
 	m := fixture.Block(t, 1000, 5, 2)
 	s, err := study.Compile(m)
@@ -40,6 +41,10 @@ func TestDeformed(t *testing.T) {
 	}
 	if _, w1, _ := study.Energies(rs.Solution); math.Abs(w1-w0) > 1e-12*w0 {
 		t.Errorf("zero weight: W' %.15g J, undeformed %.15g J", w1, w0)
+	}
+	// The deformed study reuses the solved one's analysis.
+	if rs.Solution.Time.Analyze != 0 {
+		t.Errorf("deformed study analysed its pattern again (%v)", rs.Solution.Time.Analyze)
 	}
 	for tr := 0; tr < mm.NumTriangles(); tr++ {
 		if mm.Region[tr] == coil {

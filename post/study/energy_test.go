@@ -45,3 +45,30 @@ func TestEnergyDensity(t *testing.T) {
 		t.Errorf("linear: w = %g, w' = %g, want %g", w, wco, want)
 	}
 }
+
+// Memo computes a value once per result and key, and is safe for
+// concurrent use.
+func TestResultMemo(t *testing.T) {
+	var r study.Result
+	calls := 0
+	f := func() any { calls++; return calls }
+	if v := r.Memo("a", f).(int); v != 1 {
+		t.Errorf("first value %d", v)
+	}
+	if v := r.Memo("a", f).(int); v != 1 || calls != 1 {
+		t.Errorf("second call: value %d after %d computations", v, calls)
+	}
+	if v := r.Memo("b", f).(int); v != 2 {
+		t.Errorf("another key: %d", v)
+	}
+	done := make(chan int)
+	for k := 0; k < 4; k++ {
+		go func() { done <- r.Memo(k%2, func() any { return k % 2 }).(int) }()
+	}
+	for k := 0; k < 4; k++ {
+		<-done
+	}
+	if r.Memo(0, f).(int) != 0 || r.Memo(1, f).(int) != 1 {
+		t.Error("concurrent first calls stored another key's value")
+	}
+}

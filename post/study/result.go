@@ -1,6 +1,7 @@
 package study
 
 import (
+	"sync"
 	"time"
 
 	"polegap/models"
@@ -29,6 +30,36 @@ type Result struct {
 
 	field probes.Field // the field the probes read, made once
 	b     [][2]float64 // element flux density, made once
+
+	memoMu sync.Mutex
+	memo   map[any]any // Memo's values
+}
+
+// Memo returns the value f computes for key on this result, computed
+// once and shared by later calls with an equal key: what several reports
+// of one solve need alike (the adaptive stop rule's saturation figures
+// and the final report's) is computed once this way. key must be
+// comparable and say everything besides the result that f depends on;
+// callers must not modify the value. Safe for concurrent use (two
+// simultaneous first calls may both run f; one value is kept).
+func (r *Result) Memo(key any, f func() any) any {
+	r.memoMu.Lock()
+	v, ok := r.memo[key]
+	r.memoMu.Unlock()
+	if ok {
+		return v
+	}
+	v = f()
+	r.memoMu.Lock()
+	defer r.memoMu.Unlock()
+	if w, ok := r.memo[key]; ok {
+		return w
+	}
+	if r.memo == nil {
+		r.memo = map[any]any{}
+	}
+	r.memo[key] = v
+	return v
 }
 
 // ElementB returns the flux density at each triangle's centroid

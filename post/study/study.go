@@ -39,6 +39,9 @@ type Study struct {
 
 	// gap is the last variant at another gap length (see SolveAt).
 	gap *Study
+	// like is the study whose mesh this one's deforms (Deformed): its
+	// pattern and symbolic analysis are reused (solver.PrepareLike).
+	like *Study
 }
 
 // Compile meshes m and resolves its materials and coils.
@@ -169,7 +172,11 @@ func (s *Study) SolveAt(p Params, opt solver.Options) (*Result, error) {
 	fill(s.prob, s.Model, s.src, s.areas, p)
 	s.prob.Locator = s.locator() // one point locator for the probes and the solver
 	if s.prep == nil {
-		pr, err := solver.Prepare(s.prob, opt)
+		var like *solver.Prepared
+		if s.like != nil {
+			like = s.like.prep
+		}
+		pr, err := solver.PrepareLike(s.prob, like, opt)
 		if err != nil {
 			return nil, err
 		}

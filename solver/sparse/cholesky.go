@@ -103,12 +103,31 @@ func (ch *Cholesky) Analyze(a *CSR) error {
 	} else {
 		perm = order(a, ch.Options.Ordering, ch.Options.ND)
 	}
-	ch.sym = analyze(a, perm, workers, ch.Options.Supernodes)
+	ch.setup(analyze(a, perm, workers, ch.Options.Supernodes))
+	return nil
+}
+
+// ShareAnalysis gives ch the ordering and symbolic factorization of src,
+// which must have been analysed, instead of an Analyze of its own: for
+// matrices with src's pattern (the same N and entries in the same places)
+// whose values differ, such as the stiffness matrix of a mesh whose nodes
+// moved. The analysis is only read, so src and ch may factor and solve
+// concurrently; each keeps its own numeric factor. ch's Options are
+// ignored but for SplitWork. It panics if src has not been analysed.
+func (ch *Cholesky) ShareAnalysis(src *Cholesky) {
+	if src.sym == nil {
+		panic(errNotAnalyzed)
+	}
+	ch.setup(src.sym)
+}
+
+// setup makes ch's numeric workspace for the symbolic factorization s.
+func (ch *Cholesky) setup(s *symbolic) {
+	ch.sym = s
 	ch.splitWork = ch.Options.SplitWork
 	if ch.splitWork == 0 {
 		ch.splitWork = defaultSplitWork
 	}
-	s := ch.sym
 	if cap(ch.lx) < s.valPtr[s.ns] {
 		ch.lx = make([]float64, s.valPtr[s.ns])
 	}
@@ -136,7 +155,6 @@ func (ch *Cholesky) Analyze(a *CSR) error {
 	ch.r = make([]float64, s.n)
 	ch.ax = make([]float64, s.n)
 	ch.factored = false
-	return nil
 }
 
 // Factor computes the numeric factor for the current values of a, which

@@ -33,6 +33,8 @@ type Options struct {
 	// by at most Accuracy (relative to its own magnitude) between two
 	// rounds. Each must be a magnitude whose relative change means
 	// something (a field, a flux, an energy), not a component near zero.
+	// They are evaluated beside the round's error indicator, on another
+	// goroutine: they must only read the result.
 	Quantity   func(*study.Result) (float64, error)
 	Quantities func(*study.Result) (map[string]float64, error)
 	// Progress, when set, is told of each round.
@@ -70,6 +72,10 @@ type Round struct {
 	Change           float64 // |value − previous| / |value|, the largest over the quantities; +Inf in the first round
 	Worst            string  // with Quantities: the name of the quantity that changed most
 	Estimate         float64 // global error estimate (ZZ, energy norm, J^½ per m^½)
+	// Iterations is the number of Newton steps of the round's solve: from
+	// zero on the first mesh, from the last round's solution on the others
+	// (nested iteration).
+	Iterations int
 }
 
 // Result is the adaptive sequence; Study is the last solved mesh and
@@ -137,16 +143,29 @@ func Run(ctx context.Context, m *models.Model, opt Options) (*Result, error) {
 		if so.Context == nil {
 			so.Context = ctx
 		}
+		if res.Study != nil && so.Initial == nil && !res.Study.Remeshed {
+			// Nested iteration: start Newton from the last round's
+			// solution interpolated to this mesh (solver.InterpolateTo).
+			so.Initial = res.Study.Solution.InterpolateTo(nil, d.Mesh)
+		}
 		s, err := cur.SolveAt(opt.Study.Params, so)
 		if err != nil {
 			return res, err
 		}
-		qs, err := quantities(s, opt)
+		// The quantities and the error indicator only read the solution:
+		// they run side by side, on both cores.
+		var qs map[string]float64
+		done := make(chan struct{})
+		go func() {
+			defer close(done)
+			qs, err = quantities(s, opt)
+		}()
+		eta, est := s.Solution.ErrorIndicatorTo(nil)
+		<-done
 		if err != nil {
 			return res, err
 		}
-		eta, est := s.Solution.ErrorIndicatorTo(nil)
-		r := Round{Nodes: d.Mesh.NumNodes(), Triangles: d.Mesh.NumTriangles(), Estimate: math.Sqrt(math.Max(est, 0))}
+		r := Round{Nodes: d.Mesh.NumNodes(), Triangles: d.Mesh.NumTriangles(), Estimate: math.Sqrt(math.Max(est, 0)), Iterations: s.Solution.Iterations}
 		r.Change, r.Worst, r.Value = change(qs, prev)
 		res.Rounds = append(res.Rounds, r)
 		res.Previous, res.Study = res.Study, s

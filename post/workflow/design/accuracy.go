@@ -209,13 +209,26 @@ func Flatten(v any) map[string]float64 {
 // NewEstimated builds the report of the final solve of an adaptive
 // refinement with its accuracy record and, when the solve on the mesh
 // before it is given, the estimate of every number (SetEstimates).
+//
+// The two reports are computed side by side (their solves and
+// post-processing share nothing but the model and the resolved materials,
+// which they only read), so both cores work.
 func NewEstimated(fine, coarse *study.Result, acc *Accuracy, opt DesignOptions) *Report {
+	var cr *Report
+	done := make(chan struct{})
+	go func() {
+		defer close(done)
+		if coarse != nil {
+			copt := opt
+			copt.Bounds = NoBounds // the bounds are their own error statement
+			cr = New(coarse, copt)
+		}
+	}()
 	r := New(fine, opt)
+	<-done
 	r.Accuracy = acc
-	if coarse != nil {
-		copt := opt
-		copt.Bounds = NoBounds // the bounds are their own error statement
-		r.SetEstimates(New(coarse, copt))
+	if cr != nil {
+		r.SetEstimates(cr)
 	}
 	return r
 }

@@ -604,7 +604,17 @@ func (d *Design) saturation(s *study.Result, opt DesignOptions) {
 	for i := range regs {
 		regs[i].Corners = corners
 	}
-	reps, err := saturation.Analyse(s.Disc.Mesh, s.ElementB(), regs, saturation.Options{Gap: m.Gap, LinearB: linearB(s.Solution)})
+	// The stop rule of the adaptive refinement and the final report
+	// analyse the same solves: once per result and limit.
+	type analysed struct {
+		reps []saturation.Report
+		err  error
+	}
+	a := s.Memo(saturationKey{opt.SaturationLimit}, func() any {
+		reps, err := saturation.Analyse(s.Disc.Mesh, s.ElementB(), regs, saturation.Options{Gap: m.Gap, LinearB: linearB(s.Solution)})
+		return analysed{reps, err}
+	}).(analysed)
+	reps, err := a.reps, a.err
 	if err != nil {
 		var nk *saturation.NoKneeError
 		if !errors.As(err, &nk) {
@@ -650,6 +660,8 @@ func curveSource(c *materials.Curve) SatReport {
 	}
 	return SatReport{Source: "the model's own B-H data"}
 }
+// saturationKey keys the saturation analysis of a result (study.Result.Memo).
+type saturationKey struct{ limit float64 }
 
 // linearB returns each triangle's own flux density at its three corners
 // when the solution is second order (B is then linear in each triangle,

@@ -272,10 +272,14 @@ func (r *Runner) ProbeName() string { return r.probe }
 
 // Solve solves the study with the swept coil at current (the other coils
 // scaled in proportion to the base) and returns the point; r.Last holds
-// the whole result.
+// the whole result. It starts from the potential extrapolated from the
+// last points and takes chord steps (solver.Chord: from such a start they
+// converge to the solver's tolerances at a fraction of the
+// factorizations); opt.Initial and opt.Steps are its own.
 func (r *Runner) Solve(current float64, opt solver.Options) (Point, error) {
 	m := r.Model
 	opt.Initial = r.predict(current)
+	opt.Steps = solver.Chord
 	res, err := r.Study.SolveAt(r.Base.Scaled(m, r.coil, current), opt)
 	if err != nil {
 		return Point{}, err
@@ -438,6 +442,51 @@ func Estimate(fine, coarse []Point) {
 		fine[i].EnergyEstimate = math.Abs(fine[i].Energy - coarse[i].Energy)
 		fine[i].LinkageEstimate = math.Abs(fine[i].Linkage - coarse[i].Linkage)
 	}
+}
+
+// Both sweeps opt's points on fine, the final solve of an adaptive
+// refinement (each point warm-started from the last, as Runner.Sweep),
+// and, when coarse is not nil, the same points on coarse, the solve on
+// the mesh before it, side by side on another goroutine (both cores; the
+// two share only the model and its materials, which they read), and sets
+// the estimates of fine's points from coarse's (Estimate). opt.Progress is
+// told of fine's points only. It returns fine's points and error (an
+// interrupted sweep returns the points so far, without estimates), else
+// the coarse sweep's error.
+func Both(ctx context.Context, fine, coarse *study.Result, opt Options) ([]Point, error) {
+	r, err := NewRunnerFrom(fine, opt.Coil, opt.Probe)
+	if err != nil {
+		return nil, err
+	}
+	var cpts []Point
+	var cerr error
+	done := make(chan struct{})
+	go func() {
+		defer close(done)
+		if coarse == nil {
+			return
+		}
+		cr, err := NewRunnerFrom(coarse, opt.Coil, opt.Probe)
+		if err != nil {
+			cerr = err
+			return
+		}
+		co := opt
+		co.Progress = nil
+		cpts, cerr = cr.Sweep(ctx, co)
+	}()
+	pts, err := r.Sweep(ctx, opt)
+	<-done
+	if err != nil {
+		return pts, err
+	}
+	if cerr != nil {
+		return pts, cerr
+	}
+	if coarse != nil {
+		Estimate(pts, cpts)
+	}
+	return pts, nil
 }
 
 // EstimateOn solves the points of a sweep again on coarse, the solve on

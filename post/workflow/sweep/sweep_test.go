@@ -223,3 +223,50 @@ func TestInterruptedMidSolve(t *testing.T) {
 		t.Fatalf("err %v (%T), %d points; want an *InterruptedError after 1 point", err, err, len(pts))
 	}
 }
+
+// Both, which sweeps the coarse mesh beside the fine one, gives the
+// points and estimates of a sweep followed by EstimateOn, bit for bit
+// (each sweep is the same sequence of solves on its own study), and
+// tells Progress of the fine sweep's points only.
+func TestBoth(t *testing.T) {
+	results := func() (fine, coarse *study.Result) {
+		t.Helper()
+		var err error
+		if coarse, err = study.Run(fixture.SmallCore(t, "{curve: low-carbon-steel}", 30, 1), study.Options{}); err != nil {
+			t.Fatal(err)
+		}
+		if fine, err = study.Run(smallCore(t, "{curve: low-carbon-steel}"), study.Options{}); err != nil {
+			t.Fatal(err)
+		}
+		return fine, coarse
+	}
+	opt := Options{Currents: Range(50, 400, 4), GapLength: 0.040}
+	fine, coarse := results()
+	r, err := NewRunnerFrom(fine, "", "")
+	if err != nil {
+		t.Fatal(err)
+	}
+	want, err := r.Sweep(context.Background(), opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := EstimateOn(context.Background(), coarse, opt, want); err != nil {
+		t.Fatal(err)
+	}
+	fine, coarse = results()
+	calls := 0
+	opt.Progress = func(done, total int, p Point) { calls++ }
+	got, err := Both(context.Background(), fine, coarse, opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !reflect.DeepEqual(got, want) {
+		t.Errorf("Both:\n%+v\nsweep and EstimateOn:\n%+v", got, want)
+	}
+	if calls != len(opt.Currents) {
+		t.Errorf("%d progress calls for %d points", calls, len(opt.Currents))
+	}
+	if got[1].FieldEstimate == 0 {
+		t.Error("no estimate set")
+	}
+}
