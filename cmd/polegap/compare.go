@@ -14,7 +14,7 @@ import (
 )
 
 var cmdCompare = &Command{
-	UsageLine: "compare [--fit gap,iron,turns,offset] [--turns-area NA] [--coil NAME] [--probe NAME] [--png FILE] [--csv FILE] [--json] MODEL MEASURED",
+	UsageLine: "compare [--fit gap,iron,turns,offset] [--turns-area NA] [--coil NAME] [--probe NAME] [--png FILE] [--csv FILE] [--html FILE] [--json] MODEL MEASURED",
 	Short:     "compare a measured excitation curve with the prediction, and calibrate",
 	Long: `Compare reads a measured excitation curve and solves the model at the
 measured coil currents, then reports the residuals (measured minus
@@ -51,6 +51,7 @@ points' error bars; --csv writes the residual table.`,
 		png := fs.String("png", "", "draw the comparison to this .png or .svg file")
 		csvOut := fs.String("csv", "", "write the residuals to this CSV file")
 		asJSON := fs.Bool("json", false, "print the result as JSON")
+		html := addHTMLFlag(fs, "compare")
 		return func(env *Env, args []string) error {
 			if len(args) != 2 {
 				return usagef("compare needs MODEL and MEASURED")
@@ -89,6 +90,11 @@ points' error bars; --csv writes the residual table.`,
 					return err
 				}
 				if err := plot.Save(p, 16*vg.Centimeter, 11*vg.Centimeter, *png); err != nil {
+					return err
+				}
+			}
+			if html.set() {
+				if err := htmlCompare(html, args, m, out.Result, out.Fit); err != nil {
 					return err
 				}
 			}

@@ -54,6 +54,7 @@ the cautions printed with the result apply.`,
 		csvOut := fs.String("csv", "", "write the winding options to this CSV file")
 		asJSON := fs.Bool("json", false, "print the result as JSON")
 		af := addAccuracyFlags(fs)
+		html := addHTMLFlag(fs, "size")
 		return func(env *Env, args []string) error {
 			m, err := modelArg(args)
 			if err != nil {
@@ -115,6 +116,11 @@ the cautions printed with the result apply.`,
 			s.AmpereTurnsEstimate, s.Accuracy = niEst, accuracyNote(acc)
 			if *csvOut != "" {
 				if err := fileout.Write(*csvOut, func(w io.Writer) error { return coil.WriteCSV(w, opts) }); err != nil {
+					return err
+				}
+			}
+			if html.set() {
+				if err := htmlSize(html, args[0], fine, acc, s); err != nil {
 					return err
 				}
 			}

@@ -30,6 +30,9 @@ func NewBundle(r *demo.Run) (*Bundle, error) {
 		return nil, err
 	}
 	b.Images = append(b.Images, Image{Title: "Field map: |B| and flux lines", PNG: img})
+	if b.Mesh, err = MeshImage(r.Result.Model, r.Result.Disc); err != nil {
+		return nil, err
+	}
 	if len(r.Sweep) > 0 {
 		img, err := excitationImage(r.Result.Model.Name, r.Sweep, r.Result.Model.Gap)
 		if err != nil {

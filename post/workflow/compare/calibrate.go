@@ -83,6 +83,18 @@ type Estimate struct {
 	Verdict   string  `json:"verdict"`
 }
 
+// Shown returns the estimate in the unit it is printed in: millimetres
+// for the gap, millitesla for a field offset, else as stored.
+func (e Estimate) Shown() (nominal, value, sigma float64, unit string) {
+	switch e.Unit {
+	case "m":
+		return e.Nominal * 1e3, e.Value * 1e3, e.Sigma * 1e3, "mm"
+	case "T":
+		return e.Nominal * 1e3, e.Value * 1e3, e.Sigma * 1e3, "mT"
+	}
+	return e.Nominal, e.Value, e.Sigma, e.Unit
+}
+
 // Fit is a calibration of one or more parameters at once.
 //
 // ChiSquare is Σ((measured − fitted)/σ)² over the points (σ the stated

@@ -55,13 +55,7 @@ func writeFit(w io.Writer, unit string, fit *Fit) {
 	}
 	fmt.Fprintln(w, "):")
 	for _, e := range fit.Parameters {
-		u, nom, val, sig := e.Unit, e.Nominal, e.Value, e.Sigma
-		switch {
-		case u == "m":
-			u, nom, val, sig = "mm", nom*1e3, val*1e3, sig*1e3
-		case u == "T":
-			u, nom, val, sig = "mT", nom*1e3, val*1e3, sig*1e3
-		}
+		nom, val, sig, u := e.Shown()
 		if u != "" {
 			u = " " + u
 		}
@@ -121,4 +115,14 @@ func withUncertainty(v, u float64) string {
 	d := 1 - int(math.Floor(math.Log10(u)))
 	d = max(0, min(d, 12))
 	return fmt.Sprintf("%.*f ± %.*f", d, v, d, u)
+}
+
+// ShownWithUncertainty writes the estimate as "value ± u unit" in its
+// printed unit (see Shown), u to two significant digits.
+func (e Estimate) ShownWithUncertainty() string {
+	_, v, u, unit := e.Shown()
+	if unit != "" {
+		unit = " " + unit
+	}
+	return withUncertainty(v, u) + unit
 }
