@@ -62,7 +62,7 @@ can use it.`,
 				}
 			}
 			if *asJSON {
-				err = writeJSON(env.Stdout, c)
+				err = writeJSON(env.Stdout, "check", c)
 			} else {
 				err = report.WriteCheck(env.Stdout, c)
 			}

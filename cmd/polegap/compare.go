@@ -104,7 +104,7 @@ points' error bars; --csv writes the residual table.`,
 				}
 			}
 			if *asJSON {
-				return writeJSON(env.Stdout, out)
+				return writeJSON(env.Stdout, "compare", out)
 			}
 			return compare.WriteText(env.Stdout, m.Name, args[1], out.Result, out.Fit)
 		}

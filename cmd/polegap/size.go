@@ -125,7 +125,7 @@ the cautions printed with the result apply.`,
 				}
 			}
 			if *asJSON {
-				return writeJSON(env.Stdout, s)
+				return writeJSON(env.Stdout, "size", s)
 			}
 			return report.WriteSizing(env.Stdout, s)
 		}

@@ -99,7 +99,7 @@ with status 1; no result is reported for it.`,
 				}
 			}
 			if *asJSON {
-				return writeJSON(env.Stdout, r)
+				return writeJSON(env.Stdout, "solve", r)
 			}
 			return report.WriteText(env.Stdout, r)
 		}

@@ -15,7 +15,14 @@
 // non-finite number reaches a summary: the writers return an error
 // instead.
 //
-// JSON keys (the structs' tags in post/workflow/design): "mesh" {nodes,
+// JSON (WriteJSON) follows one contract, the JSON Schema (draft 2020-12)
+// in schema/output.schema.json at the repository's root: every document
+// starts with "schema_version" (SchemaVersion) and "output" (the
+// command), keys are snake_case with the unit in the key or stated in the
+// schema, enums are words. cmd/polegap's TestJSONSchema validates every
+// command's output against it; a new key needs its entry there.
+//
+// JSON keys of the solve report (the structs' tags in post/workflow/design): "mesh" {nodes,
 // triangles, order}, "newton" {iterations, residual, converged}, "probes"
 // keyed by probe name (point probes give a, bx, by, b; line, box and
 // circle probes give samples and the mean, min and max of |B| and the

@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"io"
 	"os"
 	"path/filepath"
@@ -79,9 +78,7 @@ func WriteFolder(dir string, r *demo.Run, b *Bundle) ([]string, error) {
 		return nil, err
 	}
 	if err := write("report.json", func(w io.Writer) error {
-		enc := json.NewEncoder(w)
-		enc.SetIndent("", "  ")
-		return enc.Encode(struct {
+		return WriteJSON(w, "demo", struct {
 			Report *design.Report `json:"report"`
 			Check  *check.Check   `json:"check"`
 			Sweep  []sweep.Point  `json:"sweep,omitempty"`
