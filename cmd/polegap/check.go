@@ -10,7 +10,7 @@ import (
 )
 
 var cmdCheck = &Command{
-	UsageLine: "check [--saturation-limit B] [--tolerance T --half-width LENGTH] [--json] MODEL",
+	UsageLine: "check [--saturation-limit B] [--tolerance T --half-width LENGTH] [--json] [--html FILE] MODEL",
 	Short:     "check saturation, target field and field quality: exit 0 pass, 1 fail, 2 error",
 	Long: `Check solves the model and checks it against requirements: the peak |B|
 of each iron region (the largest mean |B| over a disc of radius half the
@@ -39,6 +39,7 @@ can use it.`,
 		half.metresBefore = true
 		asJSON := fs.Bool("json", false, "print the check as JSON")
 		af := addAccuracyFlags(fs)
+		html := addHTMLFlag(fs, "check")
 		return func(env *Env, args []string) error {
 			if err := oneModel(args); err != nil {
 				return err
@@ -55,8 +56,13 @@ can use it.`,
 			}
 			c := check.NewCheck(s, design.NewDesign(s, design.DesignOptions{StressOnly: true, NoPoleForce: true}), opt) // the check reads no force
 			c.Accuracy = acc
+			if html.set() {
+				if err := htmlCheck(html, args[0], s, acc, c); err != nil {
+					return exitError{2, err}
+				}
+			}
 			if *asJSON {
-				err = writeJSON(env.Stdout, c)
+				err = writeJSON(env.Stdout, "check", c)
 			} else {
 				err = report.WriteCheck(env.Stdout, c)
 			}

@@ -2,7 +2,6 @@ package main
 
 import (
 	"flag"
-	"fmt"
 	"io"
 
 	"gonum.org/v1/plot/vg"
@@ -15,7 +14,7 @@ import (
 )
 
 var cmdCompare = &Command{
-	UsageLine: "compare [--fit gap|iron|turns] [--turns-area NA] [--coil NAME] [--probe NAME] [--png FILE] [--csv FILE] [--json] MODEL MEASURED",
+	UsageLine: "compare [--fit gap,iron,turns,offset] [--turns-area NA] [--coil NAME] [--probe NAME] [--png FILE] [--csv FILE] [--html FILE] [--json] MODEL MEASURED",
 	Short:     "compare a measured excitation curve with the prediction, and calibrate",
 	Long: `Compare reads a measured excitation curve and solves the model at the
 measured coil currents, then reports the residuals (measured minus
@@ -30,13 +29,21 @@ measured-data format (current balance or search coil readings with their
 instrument constants, reduced to B with uncertainties; see
 post/measure/FORMAT.md).
 
---fit calibrates one model parameter to the measurement: the gap length,
-a scale on the iron's permeability, or the coil's turns, and reports the
-fitted value with its standard uncertainty and whether the change is
-plausible for a built magnet. --png draws both curves with the measured
+--fit calibrates model parameters to the measurement, one or several at
+once (comma-separated): the gap length, a scale on the iron's
+permeability, the coil's turns, and a constant offset (the remanent
+field at zero current, or a probe's zero). It reports each fitted value
+with its standard uncertainty, their correlation, χ² and the degrees of
+freedom ν, and whether each change is plausible for a built magnet.
+When the residuals scatter more than the stated uncertainties allow
+(χ²/ν > 1) the uncertainties are multiplied by the Birge ratio
+sqrt(χ²/ν) and the output says so (R. T. Birge, Phys. Rev. 40, 207,
+1932; GUM, JCGM 100:2008). The gap and the iron scale are told apart
+only by points that reach saturation: below it both act as one
+reluctance, and their correlation near ±1 says so. --png draws both curves with the measured
 points' error bars; --csv writes the residual table.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
-		fit := fs.String("fit", "", "calibrate this parameter: gap, iron or turns")
+		fit := fs.String("fit", "", "calibrate these parameters together, comma-separated: gap, iron, turns, offset")
 		na := quantity(fs, "turns-area", area, "search-coil turns × area (e.g. 0.5m2) for flux-linkage curves").in(positive)
 		na.metresBefore = true
 		coilName := fs.String("coil", "", "the coil whose current was measured (default the first)")
@@ -44,11 +51,12 @@ points' error bars; --csv writes the residual table.`,
 		png := fs.String("png", "", "draw the comparison to this .png or .svg file")
 		csvOut := fs.String("csv", "", "write the residuals to this CSV file")
 		asJSON := fs.Bool("json", false, "print the result as JSON")
+		html := addHTMLFlag(fs, "compare")
 		return func(env *Env, args []string) error {
 			if len(args) != 2 {
 				return usagef("compare needs MODEL and MEASURED")
 			}
-			param, err := parseParameter(*fit)
+			params, err := compare.ParseParameters(*fit)
 			if err != nil {
 				return usagef("--fit: %v", err)
 			}
@@ -71,8 +79,8 @@ points' error bars; --csv writes the residual table.`,
 			if out.Result, err = compare.Compare(env.Ctx, m, curve, opt); err != nil {
 				return err
 			}
-			if param != "" {
-				if out.Fit, err = compare.Calibrate(env.Ctx, m, curve, param, opt); err != nil {
+			if len(params) > 0 {
+				if out.Fit, err = compare.Calibrate(env.Ctx, m, curve, params, opt); err != nil {
 					return err
 				}
 			}
@@ -85,24 +93,20 @@ points' error bars; --csv writes the residual table.`,
 					return err
 				}
 			}
+			if html.set() {
+				if err := htmlCompare(html, args, m, out.Result, out.Fit); err != nil {
+					return err
+				}
+			}
 			if *csvOut != "" {
 				if err := fileout.Write(*csvOut, func(w io.Writer) error { return compare.WriteCSV(w, out.Result) }); err != nil {
 					return err
 				}
 			}
 			if *asJSON {
-				return writeJSON(env.Stdout, out)
+				return writeJSON(env.Stdout, "compare", out)
 			}
 			return compare.WriteText(env.Stdout, m.Name, args[1], out.Result, out.Fit)
 		}
 	},
-}
-
-// parseParameter reads the --fit flag: "" (no fit), gap, iron or turns.
-func parseParameter(s string) (compare.Parameter, error) {
-	switch p := compare.Parameter(s); p {
-	case "", compare.Gap, compare.Iron, compare.Turns:
-		return p, nil
-	}
-	return "", fmt.Errorf("unknown parameter %q: use gap, iron or turns", s)
 }

@@ -67,6 +67,7 @@ on a new machine; it takes well under a minute.`,
 			if err != nil {
 				return err
 			}
+			demoHeader(b, args, m)
 			names, err := report.WriteFolder(*out, run, b)
 			if err != nil {
 				return err

@@ -128,8 +128,8 @@ func TestSizeJSON(t *testing.T) {
 		Field       float64 `json:"field_T"`
 		AmpereTurns float64 `json:"ampere_turns_per_winding"`
 		Best        *struct {
-			Turns   int
-			Current float64
+			Turns   int     `json:"turns"`
+			Current float64 `json:"current_A"`
 		}
 		Cautions []string
 	}
@@ -183,6 +183,7 @@ func TestDemo(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	validateJSON(t, "demo report.json", data) // the JSON contract (schema_test.go)
 	var r struct {
 		Report struct {
 			Probes map[string]struct {

@@ -1,10 +1,10 @@
 package main
 
 import (
-	"encoding/json"
 	"flag"
 	"fmt"
 	"io"
+	"polegap/post/output/report"
 	"time"
 
 	"gonum.org/v1/plot/vg"
@@ -56,7 +56,7 @@ MODEL is a model file or the name of an embedded example.
 				}
 			}
 			if *asJSON {
-				return writeJSON(env.Stdout, meshReport(d))
+				return writeJSON(env.Stdout, "mesh", meshReport(d))
 			}
 			printMeshStats(env.Stdout, d, elapsed)
 			return nil
@@ -115,8 +115,6 @@ func printMeshStats(w io.Writer, d *study.Discretization, elapsed time.Duration)
 	}
 }
 
-func writeJSON(w io.Writer, v any) error {
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(v)
+func writeJSON(w io.Writer, output string, v any) error {
+	return report.WriteJSON(w, output, v)
 }

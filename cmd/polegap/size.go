@@ -54,6 +54,7 @@ the cautions printed with the result apply.`,
 		csvOut := fs.String("csv", "", "write the winding options to this CSV file")
 		asJSON := fs.Bool("json", false, "print the result as JSON")
 		af := addAccuracyFlags(fs)
+		html := addHTMLFlag(fs, "size")
 		return func(env *Env, args []string) error {
 			m, err := modelArg(args)
 			if err != nil {
@@ -118,8 +119,13 @@ the cautions printed with the result apply.`,
 					return err
 				}
 			}
+			if html.set() {
+				if err := htmlSize(html, args[0], fine, acc, s); err != nil {
+					return err
+				}
+			}
 			if *asJSON {
-				return writeJSON(env.Stdout, s)
+				return writeJSON(env.Stdout, "size", s)
 			}
 			return report.WriteSizing(env.Stdout, s)
 		}

@@ -14,7 +14,7 @@ import (
 )
 
 var cmdSolve = &Command{
-	UsageLine: "solve [--accuracy R | --quick] [--refine-by energy|goal] [--stress-only] [--energy-bounds] [--json] [--png FILE] [--vtu FILE] [--saturation-limit B] [--tolerance R] [--max-iterations N] MODEL",
+	UsageLine: "solve [--accuracy R | --quick] [--refine-by energy|goal] [--stress-only] [--energy-bounds] [--json] [--png FILE] [--vtu FILE] [--html FILE] [--saturation-limit B] [--tolerance R] [--max-iterations N] MODEL",
 	Short:     "solve a model and print the field and the design quantities",
 	Long: `Solve meshes the model, solves for the magnetic vector potential (with
 Newton–Raphson when the iron is nonlinear) and prints a summary: the mesh
@@ -73,6 +73,7 @@ with status 1; no result is reported for it.`,
 		stressOnly := fs.Bool("stress-only", false, "forces by Maxwell stress only: skip the virtual work (two solves per direction and part) and the error estimate")
 		fs.Bool("virtual-work", false, aliasPrefix+"virtual work is computed by default now; the flag is kept for old scripts")
 		vtuPath := fs.String("vtu", "", "write the solution (A, B, |B|, H, μr, region) to this VTK .vtu file")
+		html := addHTMLFlag(fs, "solve")
 		return func(env *Env, args []string) error {
 			if err := oneModel(args); err != nil {
 				return err
@@ -103,8 +104,13 @@ with status 1; no result is reported for it.`,
 					return err
 				}
 			}
+			if html.set() {
+				if err := htmlSolve(html, args[0], s, acc, r); err != nil {
+					return err
+				}
+			}
 			if *asJSON {
-				return writeJSON(env.Stdout, r)
+				return writeJSON(env.Stdout, "solve", r)
 			}
 			return report.WriteText(env.Stdout, r)
 		}

@@ -23,7 +23,7 @@ import (
 )
 
 var cmdSweep = &Command{
-	UsageLine: "sweep [--from I] [--to I] [--points N | --currents I1,I2,...] [--coil NAME] [--probe NAME] [--gap LENGTH] [--csv FILE] [--png FILE] [--shard K/N] MODEL",
+	UsageLine: "sweep [--from I] [--to I] [--points N | --currents I1,I2,...] [--coil NAME] [--probe NAME] [--gap LENGTH] [--csv FILE] [--png FILE] [--html FILE] [--shard K/N] MODEL",
 	Short:     "compute the excitation curve: gap field against ampere-turns",
 	Long: `Sweep solves the model at a range of coil currents on one mesh, each
 solve starting from the previous one, and reports the field at the probe
@@ -57,6 +57,7 @@ job array can run a long sweep in parallel; join the shards' tables with
 		csvOut := fs.String("csv", "", "write the table to this CSV file")
 		png := fs.String("png", "", "draw the curve to this .png or .svg file")
 		shard := fs.String("shard", "", "run shard K of N (e.g. 2/8)")
+		html := addHTMLFlag(fs, "sweep")
 		af := addAccuracyFlags(fs)
 		return func(env *Env, args []string) error {
 			m, err := modelArg(args)
@@ -99,6 +100,11 @@ job array can run a long sweep in parallel; join the shards' tables with
 			}
 			if *png != "" {
 				if err := drawSweep(*png, m.Name, pts, opt.GapLength); err != nil {
+					return err
+				}
+			}
+			if html.set() {
+				if err := htmlSweep(html, args[0], fine, acc, pts, opt.GapLength, meta); err != nil {
 					return err
 				}
 			}

@@ -22,6 +22,11 @@
 // Sample files drawn from a known curve with stated noise are in
 // testdata/measured at the repository root (generator: gen_test.go).
 //
+// FitLeastSquares is the weighted nonlinear least-squares fit the
+// calibration uses: several parameters at once, their covariance and
+// correlation, χ², the degrees of freedom and the Birge ratio, with the
+// uncertainties scaled by it when it exceeds 1.
+//
 // # Units and uncertainties
 //
 // SI throughout: A, T, Wb-turns, m, kg, s, V. Every uncertainty is a

@@ -34,7 +34,7 @@ func Comparison(title string, r *compare.Result, fit *compare.Fit) (*gplot.Plot,
 	}
 	series := []plot.Series{{Name: "predicted", X: x, Y: pred}}
 	if fit != nil {
-		series = append(series, plot.Series{Name: "calibrated (" + string(fit.Parameter) + ")", X: x, Y: fitted, Dashed: true})
+		series = append(series, plot.Series{Name: "calibrated (" + fit.Names() + ")", X: x, Y: fitted, Dashed: true})
 	}
 	series = append(series, plot.Series{Name: "measured", X: x, Y: meas, Points: true})
 	ylabel := "field (T)"

@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"io"
 	"os"
 	"path/filepath"
@@ -30,6 +29,9 @@ func NewBundle(r *demo.Run) (*Bundle, error) {
 		return nil, err
 	}
 	b.Images = append(b.Images, Image{Title: "Field map: |B| and flux lines", PNG: img})
+	if b.Mesh, err = MeshImage(r.Result.Model, r.Result.Disc); err != nil {
+		return nil, err
+	}
 	if len(r.Sweep) > 0 {
 		img, err := excitationImage(r.Result.Model.Name, r.Sweep, r.Result.Model.Gap)
 		if err != nil {
@@ -76,9 +78,7 @@ func WriteFolder(dir string, r *demo.Run, b *Bundle) ([]string, error) {
 		return nil, err
 	}
 	if err := write("report.json", func(w io.Writer) error {
-		enc := json.NewEncoder(w)
-		enc.SetIndent("", "  ")
-		return enc.Encode(struct {
+		return WriteJSON(w, "demo", struct {
 			Report *design.Report `json:"report"`
 			Check  *check.Check   `json:"check"`
 			Sweep  []sweep.Point  `json:"sweep,omitempty"`

@@ -38,26 +38,26 @@ func (f Flags) String() string {
 // Option is one winding that delivers Spec.AmpereTurns: a wire, its turns
 // and what it asks of the supply and the cooling. SI units throughout.
 type Option struct {
-	Wire     Wire
-	Turns    int // turns wound (Spec.Turns, or MaxTurns)
-	MaxTurns int // turns of this wire that fit the window
+	Wire     Wire `json:"wire"`
+	Turns    int  `json:"turns"`     // turns wound (Spec.Turns, or MaxTurns)
+	MaxTurns int  `json:"max_turns"` // turns of this wire that fit the window
 
-	Current        float64 // A, AmpereTurns / Turns
-	CurrentDensity float64 // A/m², Current / Wire.Area()
-	Resistance     float64 // Ω at Spec.Temperature
-	Voltage        float64 // V, Current × Resistance
-	Power          float64 // W, Current² × Resistance
-	Mass           float64 // kg of copper, density × Turns × area × MeanTurn
-	Length         float64 // m of conductor, Turns × MeanTurn
-	CopperFill     float64 // copper area over window area, Turns × area / (Width × Height)
+	Current        float64 `json:"current_A"`                // A, AmpereTurns / Turns
+	CurrentDensity float64 `json:"current_density_A_per_m2"` // A/m², Current / Wire.Area()
+	Resistance     float64 `json:"resistance_ohm"`           // Ω at Spec.Temperature
+	Voltage        float64 `json:"voltage_V"`                // V, Current × Resistance
+	Power          float64 `json:"power_W"`                  // W, Current² × Resistance
+	Mass           float64 `json:"copper_mass_kg"`           // kg of copper, density × Turns × area × MeanTurn
+	Length         float64 `json:"conductor_length_m"`       // m of conductor, Turns × MeanTurn
+	CopperFill     float64 `json:"copper_fill"`              // copper area over window area, Turns × area / (Width × Height)
 
-	CoolingPower  float64 // W the air cooling removes at the allowed rise; 0 for Water
-	WaterFlow     float64 // m³/s of water to carry Power at Spec.WaterRise; 0 for air
-	WaterSpeed    float64 // m/s in the bore, flow shared by Spec.WaterCircuits; 0 unless Hollow
-	Reynolds      float64 // Reynolds number of the bore flow; 0 unless Hollow
-	WaterPressure float64 // Pa, pressure drop along one circuit's bore; 0 unless Hollow
+	CoolingPower  float64 `json:"air_cooling_W"`          // W the air cooling removes at the allowed rise; 0 for Water
+	WaterFlow     float64 `json:"water_flow_m3_per_s"`    // m³/s of water to carry Power at Spec.WaterRise; 0 for air
+	WaterSpeed    float64 `json:"water_speed_m_per_s"`    // m/s in the bore, flow shared by Spec.WaterCircuits; 0 unless Hollow
+	Reynolds      float64 `json:"reynolds_number"`        // Reynolds number of the bore flow; 0 unless Hollow
+	WaterPressure float64 `json:"water_pressure_drop_Pa"` // Pa, pressure drop along one circuit's bore; 0 unless Hollow
 
-	Flags Flags
+	Flags Flags `json:"limits_broken"` // as words (Flags.MarshalJSON)
 }
 
 // OK reports whether the winding meets every limit.

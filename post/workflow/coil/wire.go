@@ -33,17 +33,19 @@ func (s Shape) String() string {
 // Corner, insulated OverallWidth × OverallHeight, and (Hollow) a round
 // cooling Bore. The Width lies along the window's Width (the radial build).
 type Wire struct {
-	Name   string
-	Shape  Shape
-	Source string // where the dimensions come from
+	Name   string `json:"name"`
+	Shape  Shape  `json:"shape"`  // "round", "rectangular" or "hollow" (Shape.MarshalText)
+	Source string `json:"source"` // where the dimensions come from
 
-	Diameter float64 // bare conductor (Round)
-	Overall  float64 // insulated (Round)
+	Diameter float64 `json:"diameter_m,omitempty"` // bare conductor (Round)
+	Overall  float64 `json:"overall_m,omitempty"`  // insulated (Round)
 
-	Width, Height               float64 // bare conductor (Rectangular, Hollow)
-	Corner                      float64 // corner radius of the bare bar
-	Bore                        float64 // cooling-hole diameter (Hollow)
-	OverallWidth, OverallHeight float64 // insulated (Rectangular, Hollow)
+	Width         float64 `json:"width_m,omitempty"`          // bare conductor (Rectangular, Hollow)
+	Height        float64 `json:"height_m,omitempty"`         // bare conductor (Rectangular, Hollow)
+	Corner        float64 `json:"corner_radius_m,omitempty"`  // corner radius of the bare bar
+	Bore          float64 `json:"bore_m,omitempty"`           // cooling-hole diameter (Hollow)
+	OverallWidth  float64 `json:"overall_width_m,omitempty"`  // insulated (Rectangular, Hollow)
+	OverallHeight float64 `json:"overall_height_m,omitempty"` // insulated (Rectangular, Hollow)
 }
 
 // Area returns the copper cross-section (m²): π d²/4 for a round wire,

@@ -24,15 +24,19 @@ type Options struct {
 	Progress func(stage string, done, total int)
 }
 
-// Residual is one measured point against the prediction.
+// Residual is one measured point against the prediction, in the unit of
+// its Result (T or Wb-turns).
 type Residual struct {
 	Current   float64 `json:"current_A"`
 	Measured  float64 `json:"measured"`
 	Sigma     float64 `json:"sigma"`
 	Predicted float64 `json:"predicted"`
-	Abs       float64 `json:"residual"`      // measured − predicted
-	Rel       float64 `json:"relative"`      // Abs / predicted
-	Row       int     `json:"row,omitempty"` // line in the measured file
+	Abs       float64 `json:"residual"` // measured − predicted
+	// Rel is Abs / Predicted, nil where it is undefined: at zero current
+	// (a remanent field over a prediction of nothing) or a zero
+	// prediction. Such points count in the absolute figures only.
+	Rel *float64 `json:"relative"`
+	Row int      `json:"row,omitempty"` // line in the measured file
 }
 
 // Result is a comparison.
@@ -42,10 +46,14 @@ type Result struct {
 	Residuals []Residual `json:"residuals"`
 	RMS       float64    `json:"rms"`
 	Max       float64    `json:"max_abs"`
-	RMSRel    float64    `json:"rms_relative"`
-	MaxRel    float64    `json:"max_abs_relative"`
+	// RMSRel and MaxRel are over the RelPoints points whose relative
+	// residual is defined.
+	RMSRel    float64 `json:"rms_relative"`
+	MaxRel    float64 `json:"max_abs_relative"`
+	RelPoints int     `json:"relative_points"`
 	// ChiSquare is Σ (residual/σ)² over the points with a stated σ, and
-	// Weighted the number of such points.
+	// Weighted the number of such points (the degrees of freedom of a
+	// comparison, which fits nothing).
 	ChiSquare float64 `json:"chi_square,omitempty"`
 	Weighted  int     `json:"weighted_points,omitempty"`
 }
@@ -113,21 +121,25 @@ func residuals(c *measure.Curve, field []float64, turnsArea float64) *Result {
 	for i, p := range c.Points {
 		pr := field[i] * scale
 		d := meas[i] - pr
-		rel := 0.0
-		if pr != 0 {
-			rel = d / pr
+		x := Residual{Current: p.Current, Measured: meas[i], Sigma: sig[i], Predicted: pr, Abs: d, Row: p.Row}
+		if p.Current != 0 && pr != 0 {
+			rel := d / pr
+			x.Rel = &rel
+			ssr += rel * rel
+			r.MaxRel = math.Max(r.MaxRel, math.Abs(rel))
+			r.RelPoints++
 		}
-		r.Residuals = append(r.Residuals, Residual{Current: p.Current, Measured: meas[i], Sigma: sig[i], Predicted: pr, Abs: d, Rel: rel, Row: p.Row})
+		r.Residuals = append(r.Residuals, x)
 		ss += d * d
-		ssr += rel * rel
 		r.Max = math.Max(r.Max, math.Abs(d))
-		r.MaxRel = math.Max(r.MaxRel, math.Abs(rel))
 		if sig[i] > 0 {
 			r.ChiSquare += (d / sig[i]) * (d / sig[i])
 			r.Weighted++
 		}
 	}
-	n := float64(len(c.Points))
-	r.RMS, r.RMSRel = math.Sqrt(ss/n), math.Sqrt(ssr/n)
+	r.RMS = math.Sqrt(ss / float64(len(c.Points)))
+	if r.RelPoints > 0 {
+		r.RMSRel = math.Sqrt(ssr / float64(r.RelPoints))
+	}
 	return r
 }

@@ -16,22 +16,24 @@ import (
 
 // Point is one solved point of an excitation curve.
 type Point struct {
-	Index       int     // position in the full list of currents (0-based)
-	Current     float64 // A, of the swept coil
-	AmpereTurns float64 // turns × current of the swept coil
-	Field       float64 // T: |B| at a point probe, or the mean |B| over a line, box or circle probe
-	Efficiency  float64 // B g / (μ0 NI) when the gap length is known, else 0
-	MaxIronB    float64 // T, largest element |B| in nonlinear iron (mesh-dependent at re-entrant corners)
-	Energy      float64 // J, stored magnetic energy (study.Energies; planar: times depth)
-	Linkage     float64 // Wb, flux linkage of the swept coil
-	Apparent    float64 // H, apparent inductance λ/I of the swept coil
-	Incremental float64 // H, dλ/dI from the neighbouring points (0 with fewer than 2 points)
-	Iterations  int     // Newton steps
-	Residual    float64 // final relative residual
+	Index       int     `json:"index"`                    // position in the full list of currents (0-based)
+	Current     float64 `json:"current_A"`                // A, of the swept coil
+	AmpereTurns float64 `json:"ampere_turns"`             // turns × current of the swept coil
+	Field       float64 `json:"field_T"`                  // T: |B| at a point probe, or the mean |B| over a line, box or circle probe
+	Efficiency  float64 `json:"efficiency"`               // B g / (μ0 NI) when the gap length is known, else 0
+	MaxIronB    float64 `json:"max_iron_B_T"`             // T, largest element |B| in nonlinear iron (mesh-dependent at re-entrant corners)
+	Energy      float64 `json:"energy_J"`                 // J, stored magnetic energy (study.Energies; planar: times depth)
+	Linkage     float64 `json:"flux_linkage_Wb"`          // Wb, flux linkage of the swept coil
+	Apparent    float64 `json:"apparent_inductance_H"`    // H, apparent inductance λ/I of the swept coil
+	Incremental float64 `json:"incremental_inductance_H"` // H, dλ/dI from the neighbouring points (0 with fewer than 2 points)
+	Iterations  int     `json:"newton_iterations"`        // Newton steps
+	Residual    float64 `json:"residual"`                 // final relative residual
 	// Error estimates (absolute) of Field, Energy and Linkage: the change
 	// from the same point solved on the coarser mesh before the final one
 	// of the adaptive refinement (Estimate); 0 when not estimated.
-	FieldEstimate, EnergyEstimate, LinkageEstimate float64
+	FieldEstimate   float64 `json:"field_estimate_T"`
+	EnergyEstimate  float64 `json:"energy_estimate_J"`
+	LinkageEstimate float64 `json:"flux_linkage_estimate_Wb"`
 }
 
 // Options control a sweep.
