@@ -70,3 +70,5 @@ func (e *errWriter) printf(format string, args ...any) {
 	}
 	_, e.err = fmt.Fprintf(e.w, format, args...)
 }
+
+func (e *errWriter) sprintf(format string, args ...any) string { return fmt.Sprintf(format, args...) }

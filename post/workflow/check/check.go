@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"polegap/materials"
+	"polegap/models"
 	"polegap/post/study"
 	"polegap/post/workflow/design"
 )
@@ -135,4 +136,23 @@ func BAtMuR(c *materials.Curve, mur float64) float64 {
 		}
 	}
 	return 0.5 * (lo + hi)
+}
+
+// IronLimit returns the lowest default saturation limit over the
+// model's nonlinear iron regions (each curve's flux density at
+// μr = DefaultMinMuR), or 0 when the model has no B-H curve.
+func IronLimit(m *models.Model) float64 {
+	lim := 0.0
+	for i := range m.Regions {
+		mat, _, err := study.Material(m, &m.Regions[i])
+		if err != nil {
+			continue
+		}
+		if cv, ok := mat.(*materials.Curve); ok {
+			if b := BAtMuR(cv, DefaultMinMuR); lim == 0 || b < lim {
+				lim = b
+			}
+		}
+	}
+	return lim
 }
