@@ -53,7 +53,9 @@ can use it.`,
 			if err != nil {
 				return exitError{2, err}
 			}
-			c := check.NewCheck(s, design.NewDesign(s, design.DesignOptions{StressOnly: true, NoPoleForce: true}), opt) // the check reads no force
+			// The poles' attraction by Maxwell stress alone (no extra solves)
+			// quantifies the force caution; no check reads it.
+			c := check.NewCheck(s, design.NewDesign(s, design.DesignOptions{StressOnly: true}), opt)
 			c.Accuracy = acc
 			if *asJSON {
 				err = writeJSON(env.Stdout, c)

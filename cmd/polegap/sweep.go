@@ -37,9 +37,13 @@ The default range is --points 20 currents from a twentieth of --to up to
 without a unit are in ampere; a --gap without a unit is in the model's
 units.
 
---csv writes the table (a partial table, marked "# partial", if the sweep
-is interrupted with Ctrl-C or a point fails); --png draws the curve with
-the ideal line μ0 NI/g and the efficiency.
+Without --csv the table goes to standard output as CSV (for a pipe);
+--csv writes it to a file (a partial table, marked "# partial", if the
+sweep is interrupted with Ctrl-C or a point fails) and prints a short
+table for the terminal instead. --png draws the curve with the ideal line
+μ0 NI/g and the efficiency. A sweep past the model's own (rated) current
+prints the cautions, quantified at its highest point (to standard error
+when standard output carries the CSV).
 
 --shard K/N runs only points K, K+N, K+2N, ... so that a batch scheduler's
 job array can run a long sweep in parallel; join the shards' tables with
@@ -102,7 +106,7 @@ job array can run a long sweep in parallel; join the shards' tables with
 					return err
 				}
 			}
-			return sweep.WriteCSV(env.Stdout, meta, pts)
+			return writeSweepOut(env, m, *coil, meta, pts, *csvOut)
 		}
 	},
 }

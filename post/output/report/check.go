@@ -43,5 +43,6 @@ func WriteCheck(w io.Writer, c *check.Check) error {
 	} else {
 		ew.printf("\nsome checks FAIL\n")
 	}
+	writeCautionList(ew, c.Cautions)
 	return ew.err
 }

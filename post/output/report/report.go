@@ -50,6 +50,7 @@ func WriteText(w io.Writer, r *design.Report) error {
 		writeDesign(ew, r.Design)
 	}
 	writeAccuracy(ew, r)
+	writeCautionList(ew, r.Cautions)
 	return ew.err
 }
 

@@ -43,6 +43,10 @@ func (c Caution) MarshalJSON() ([]byte, error) { return json.Marshal(c.Text) }
 type Facts struct {
 	Energy  float64 // J stored in the field at the operating point
 	Current float64 // A in the coil at the operating point
+	// Inductance (H, apparent) of that coil: with no discharge path
+	// designed, the switch-off caution quotes L I / 1 ms, the voltage of
+	// a circuit broken in a millisecond.
+	Inductance float64
 	// SwitchOffVoltage (V) is the voltage across the coil when its
 	// current is switched off through the chosen path (a discharge
 	// resistor: I R_d); DischargeTime (s) how long the current takes to
@@ -84,6 +88,10 @@ func List(f Facts) []Caution {
 		}
 		add(SwitchOff, f.SwitchOffVoltage, "V", fmt.Sprintf("Switching off through the %s makes %s across the coil%s; opening the circuit without that path makes a far higher voltage: never break the coil circuit under current, and rate the switch, the discharge path and the insulation for it.",
 			f.DischargePath, withPrefix(f.SwitchOffVoltage, "V"), t))
+	} else if f.Inductance > 0 && f.Current != 0 {
+		v := f.Inductance * math.Abs(f.Current) / 1e-3
+		add(SwitchOff, v, "V", fmt.Sprintf("Switching off or disconnecting a coil under current makes a high voltage across it: breaking %s in %.3g H within a millisecond would make about %s (L I / 1 ms); provide a free-wheeling path or dump resistor and ramp the current down.",
+			withPrefix(math.Abs(f.Current), "A"), f.Inductance, withPrefix(v, "V")))
 	} else {
 		add(SwitchOff, 0, "", "Switching off or disconnecting a coil under current makes a high voltage across it: provide a free-wheeling path or dump resistor and ramp the current down.")
 	}

@@ -7,6 +7,7 @@ import (
 	"polegap/materials"
 	"polegap/models"
 	"polegap/post/study"
+	"polegap/post/workflow/caution"
 	"polegap/post/workflow/design"
 )
 
@@ -46,6 +47,9 @@ type Check struct {
 	// Accuracy says how converged the checked numbers are (nil: not
 	// recorded).
 	Accuracy *design.Accuracy `json:"accuracy,omitempty"`
+	// Cautions are the safety cautions quantified from the design (each
+	// encodes to JSON as its sentence).
+	Cautions []caution.Caution `json:"cautions,omitempty"`
 }
 
 // NewCheck checks the design quantities of a solved study against the
@@ -55,7 +59,7 @@ type Check struct {
 // corners), the target field at its probe, and the good-field half-width
 // when asked.
 func NewCheck(s *study.Result, d *design.Design, opt CheckOptions) *Check {
-	c := &Check{Model: s.Model.Name, Fringing: d.Fringing, Pass: true}
+	c := &Check{Model: s.Model.Name, Fringing: d.Fringing, Pass: true, Cautions: caution.List(design.CautionFacts(d))}
 	add := func(it CheckItem) {
 		c.Items = append(c.Items, it)
 		c.Pass = c.Pass && it.Pass
