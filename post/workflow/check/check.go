@@ -26,7 +26,16 @@ type CheckOptions struct {
 	// of the centre value over ±HalfWidth along the mid-plane line probe.
 	// Zero skips the check.
 	Tolerance, HalfWidth float64
+	// TargetTolerance (relative) is how far below the model's target
+	// field the field at its probe may fall and still reach it; 0 means
+	// DefaultTargetTolerance. Give the accuracy the numbers are
+	// converged to: a verdict finer than that is noise.
+	TargetTolerance float64
 }
+
+// DefaultTargetTolerance is the target's tolerance when none is given:
+// the default accuracy of the converged numbers.
+const DefaultTargetTolerance = 1e-3
 
 // CheckItem is one requirement and how the design meets it.
 type CheckItem struct {
@@ -36,6 +45,9 @@ type CheckItem struct {
 	Unit  string  `json:"unit"`
 	Pass  bool    `json:"pass"`
 	Note  string  `json:"note,omitempty"`
+	// Tolerance (relative), when set, marks Limit as a target: the item
+	// passes when Value ≥ Limit × (1 − Tolerance).
+	Tolerance float64 `json:"tolerance,omitempty"`
 }
 
 // Check is the outcome of checking a solved design.
@@ -88,12 +100,16 @@ func NewCheck(s *study.Result, d *design.Design, opt CheckOptions) *Check {
 			if p.Kind == "point" {
 				v = p.Point.B()
 			}
-			add(CheckItem{What: "field at " + p.Name, Value: v, Limit: m.Target.Field, Unit: "T", Pass: v >= m.Target.Field*(1-1e-4),
-				Note: "must reach the model's target at the model's currents"})
+			tt := opt.TargetTolerance
+			if tt == 0 {
+				tt = DefaultTargetTolerance
+			}
+			add(CheckItem{What: "field at " + p.Name, Value: v, Limit: m.Target.Field, Unit: "T", Tolerance: tt, Pass: v >= m.Target.Field*(1-tt),
+				Note: fmt.Sprintf("the model's target, reached at the model's currents within %.0e relative", tt)})
 		}
 	}
 	if opt.Tolerance > 0 && opt.HalfWidth > 0 {
-		it := CheckItem{What: fmt.Sprintf("good-field half-width at |ΔB/B0| < %.0e", opt.Tolerance), Limit: opt.HalfWidth, Unit: "m"}
+		it := CheckItem{What: fmt.Sprintf("good-field half-width at |ΔB/B0| < %s", tolText(opt.Tolerance)), Limit: opt.HalfWidth, Unit: "m"}
 		if d.Uniformity == nil || d.Uniformity.Line == "" {
 			it.Note = "no line probe through the gap centre to measure it on"
 		} else {
@@ -102,10 +118,13 @@ func NewCheck(s *study.Result, d *design.Design, opt CheckOptions) *Check {
 			for _, h := range d.Uniformity.HalfWidths {
 				if math.Abs(h.Tol-opt.Tolerance) <= 1e-12*opt.Tolerance {
 					it.Value, it.Pass, found = h.HalfWidth, h.HalfWidth >= opt.HalfWidth, true
+					if !h.Bounded {
+						it.Note = "at least this: the line probe ends before the field leaves the tolerance"
+					}
 				}
 			}
 			if !found {
-				it.Note = "tolerance not among those computed (1e-3, 1e-4)"
+				it.Note = "tolerance not computed: pass it to design.DesignOptions.Tolerances"
 			}
 		}
 		add(it)
@@ -159,4 +178,16 @@ func IronLimit(m *models.Model) float64 {
 		}
 	}
 	return lim
+}
+
+// tolText writes a tolerance with one figure (1e-04) when that is exact
+// to 1e-12, else with three (5.25e-04).
+func tolText(t float64) string {
+	one := fmt.Sprintf("%.0e", t)
+	var back float64
+	fmt.Sscan(one, &back)
+	if math.Abs(back-t) <= 1e-12*t {
+		return one
+	}
+	return fmt.Sprintf("%.3g", t)
 }
