@@ -86,6 +86,9 @@ job array can run a long sweep in parallel; join the shards' tables with
 			opt.Progress = newProgress(env.Stderr)
 			pts, runErr := sweepOn(env, fine, coarse, opt)
 			meta := sweep.Meta{Model: m.Name, Probe: probeFor(m, *probe), Shard: *shard, Accuracy: accuracyNote(acc)}
+			if *shard != "" {
+				meta.Points = len(opt.Currents) // so that merge sees points missing at the end
+			}
 			if runErr != nil {
 				meta.Partial = runErr.Error()
 			}
@@ -117,8 +120,11 @@ var cmdMerge = &Command{
 	Long: `Merge reads the CSV tables written by 'polegap sweep --shard K/N' and
 writes one table with every point in order. It refuses tables of
 different models or probes and points present twice, and marks the result
-partial (listing what is missing) when points are missing. Merge reads no
-model, so --gap needs a unit (e.g. 40mm).`,
+partial (listing what is missing) when points are missing: every point
+of the sweep, the last ones too, since each shard's table records the
+sweep's number of points ("# points: N"). Points are numbered as the
+tables' index column, from 0. Merge reads no model, so --gap needs a
+unit (e.g. 40mm).`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		out := fs.String("csv", "", "write the merged table here (required)")
 		png := fs.String("png", "", "draw the merged curve to this .png or .svg file")
@@ -151,7 +157,10 @@ model, so --gap needs a unit (e.g. 40mm).`,
 			}
 			fmt.Fprintf(env.Stdout, "merged %d points from %d tables into %s\n", len(all), len(args), *out)
 			if len(missing) > 0 {
-				fmt.Fprintf(env.Stdout, "missing points (1-based): %v\n", plusOne(missing))
+				fmt.Fprintf(env.Stdout, "missing points (index, as in the tables' index column): %v\n", missing)
+			}
+			if meta.Points == 0 {
+				fmt.Fprintf(env.Stdout, "note: no table records the sweep's number of points (\"# points: N\", written by sweep --shard since this version): points missing after the last one present cannot be seen\n")
 			}
 			if *png != "" {
 				return drawSweep(*png, meta.Model, all, gap.SI(nil))
@@ -159,14 +168,6 @@ model, so --gap needs a unit (e.g. 40mm).`,
 			return nil
 		}
 	},
-}
-
-func plusOne(v []int) []int {
-	out := make([]int, len(v))
-	for i, x := range v {
-		out[i] = x + 1
-	}
-	return out
 }
 
 func drawSweep(path, name string, pts []sweep.Point, gap float64) error {
