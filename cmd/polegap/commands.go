@@ -82,8 +82,9 @@ func runStudy(ctx context.Context, m *models.Model, opt study.Options) (*study.R
 var cmdExamples = &Command{
 	UsageLine: "examples [NAME]",
 	Short:     "list the embedded example models, or print one",
-	Long: `Examples lists the example models built into polegap. With a NAME it
-prints that model file, so that it can be saved and edited:
+	Long: `Examples lists the example models built into polegap, each with a line
+from its opening comment. With a NAME it prints that model file, so that
+it can be saved and edited:
 
 	polegap examples bench-dipole > my-magnet.yaml`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
@@ -93,9 +94,9 @@ prints that model file, so that it can be saved and edited:
 				for _, name := range models.Examples() {
 					def := ""
 					if name == models.DefaultExample {
-						def = "   (default, used by 'polegap demo')"
+						def = " (the default, used by 'polegap demo')"
 					}
-					fmt.Fprintf(env.Stdout, "%s%s\n", name, def)
+					fmt.Fprintf(env.Stdout, "%-22s %s%s\n", name, models.ExampleSummary(name), def)
 				}
 				return nil
 			case 1:

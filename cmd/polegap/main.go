@@ -281,7 +281,7 @@ func printHelp(w io.Writer, c *Command) {
 	for _, n := range names {
 		f := fs.Lookup(n)
 		def := ""
-		if f.DefValue != "" && f.DefValue != "false" && f.DefValue != "0" {
+		if f.DefValue != "" && f.DefValue != "false" && f.DefValue != "0" && !strings.Contains(f.Usage, "(default") {
 			def = fmt.Sprintf(" (default %s)", f.DefValue)
 		}
 		switch v := f.Value.(type) {
