@@ -48,3 +48,26 @@ func LoadExample(name string) (*Model, error) {
 	}
 	return Parse("examples/"+name+".yaml", data)
 }
+
+// ExampleSummary returns a one-line description of the embedded example
+// called name: the first sentence or clause (up to a colon or a full
+// stop) of the comment block that opens its file; "" when it has none.
+func ExampleSummary(name string) string {
+	data, err := Example(name)
+	if err != nil {
+		return ""
+	}
+	var words []string
+	for _, line := range strings.Split(string(data), "\n") {
+		t := strings.TrimSpace(line)
+		if !strings.HasPrefix(t, "#") {
+			break
+		}
+		words = append(words, strings.Fields(strings.TrimPrefix(t, "#"))...)
+	}
+	s := strings.Join(words, " ")
+	if i := strings.IndexAny(s, ":."); i > 0 {
+		s = s[:i]
+	}
+	return s
+}

@@ -12,11 +12,14 @@
 //	                 saturation, search-coil linkage (searchcoil); no
 //	                 quantity imports another
 //	post/measure     measured-data formats and their reduction (imports
-//	                 nothing of post)
+//	                 nothing of post); post/measure/samples embeds the
+//	                 measured samples (imports nothing of polegap)
 //	post/workflow/*  what asks for more solutions or combines quantities:
-//	                 sweep, target, coil sizing, compare and calibrate,
-//	                 adaptive refinement, the design summary, the check, the
-//	                 demo; a workflow may use another
+//	                 sweep, target, coil sizing, the supply that drives a
+//	                 coil (supply), the quantified safety cautions
+//	                 (caution), compare and calibrate, adaptive refinement,
+//	                 the design summary, the check, the demo; a workflow
+//	                 may use another
 //	post/output/*    text, JSON, CSV, HTML, figures, VTU: formatting only
 //
 // internal/ holds helpers any layer may use (fileout, compsum, csvtab, num) and

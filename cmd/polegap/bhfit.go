@@ -24,7 +24,7 @@ with --js. It prints the fit, how far it can be trusted, and a table;
 --csv writes the fitted curve as a table-file for a model, --png (or .svg)
 plots it with the points.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
-		js := fs.Float64("js", 0, "saturation polarisation J_s in T (0: fit it)")
+		js := realFlag(fs, "js", 0, nonNegative, "saturation polarisation J_s in T (0: fit it)")
 		csvOut := fs.String("csv", "", "write the fitted curve as a CSV table-file")
 		png := fs.String("png", "", "plot the fit to this .png or .svg file")
 		return func(env *Env, args []string) error {

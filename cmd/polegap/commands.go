@@ -8,6 +8,8 @@ import (
 	"os"
 
 	"polegap/models"
+	"polegap/post/measure"
+	"polegap/post/measure/samples"
 	"polegap/post/study"
 )
 
@@ -100,8 +102,10 @@ func runStudy(ctx context.Context, m *models.Model, opt study.Options) (*study.R
 var cmdExamples = &Command{
 	UsageLine: "examples [NAME]",
 	Short:     "list the embedded example models, or print one",
-	Long: `Examples lists the example models built into polegap. With a NAME it
-prints that model file, so that it can be saved and edited:
+	Long: `Examples lists the example models built into polegap, each with a line
+from its opening comment, and the measured-curve samples built in for
+compare. With a NAME it prints that model or sample file, so that it can
+be saved and edited:
 
 	polegap examples bench-dipole > my-magnet.yaml`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
@@ -111,13 +115,22 @@ prints that model file, so that it can be saved and edited:
 				for _, name := range models.Examples() {
 					def := ""
 					if name == models.DefaultExample {
-						def = "   (default, used by 'polegap demo')"
+						def = " (the default, used by 'polegap demo')"
 					}
-					fmt.Fprintf(env.Stdout, "%s%s\n", name, def)
+					fmt.Fprintf(env.Stdout, "%-22s %s%s\n", name, models.ExampleSummary(name), def)
+				}
+				fmt.Fprintf(env.Stdout, "\nmeasured samples, for 'polegap compare bench-dipole NAME' (invented data, see testdata/measured/README.md):\n")
+				for _, name := range samples.Names() {
+					fmt.Fprintf(env.Stdout, "%-30s %s\n", name, samples.Summaries[name])
 				}
 				return nil
 			case 1:
 				data, err := models.Example(args[0])
+				if err != nil {
+					if d, serr := samples.Data(args[0]); serr == nil {
+						data, err = d, nil
+					}
+				}
 				if err != nil {
 					return err
 				}
@@ -127,4 +140,15 @@ prints that model file, so that it can be saved and edited:
 			return usagef("too many arguments")
 		}
 	},
+}
+
+// loadMeasured reads a measured-data file, or a built-in sample when no
+// file of that name exists ('polegap examples' lists them).
+func loadMeasured(arg string) (*measure.Curve, error) {
+	if _, err := os.Stat(arg); err != nil {
+		if data, serr := samples.Data(arg); serr == nil {
+			return measure.Parse(arg, data)
+		}
+	}
+	return measure.Load(arg)
 }

@@ -7,7 +7,6 @@ import (
 	"gonum.org/v1/plot/vg"
 
 	"polegap/internal/fileout"
-	"polegap/post/measure"
 	"polegap/post/output/figure"
 	"polegap/post/output/plot"
 	"polegap/post/workflow/compare"
@@ -65,7 +64,7 @@ points' error bars; --csv writes the residual table.`,
 				return err
 			}
 			na.noteBare(env.Stderr, m)
-			curve, err := measure.Load(args[1])
+			curve, err := loadMeasured(args[1])
 			if err != nil {
 				return err
 			}

@@ -59,10 +59,16 @@ single solve cannot be stopped half-way: the command stops when it
 ends. A second Ctrl-C ends polegap at once.
 
 Exit status is 0 on success, 1 when the work failed (a bad model, a solve
-that did not converge) and 2 when the command line itself was wrong.
+that did not converge) and 2 when the command line itself was wrong;
+check exits 1 when a check fails, and size exits 3 when it prints its
+table but no winding meets every limit.
 
 Safety: the currents, stored energies and forces of real electromagnets
 can injure. Disconnect supplies before touching a magnet and follow local
 electrical codes and licensed engineering practice for anything built.
+solve, size, sweep (past the model's current) and check print their
+cautions quantified from the design: the stored energy, the switch-off
+voltage, the poles' attraction, the coil's heating and, for water
+cooling, the interlocks; 'polegap help' lists them in general.
 */
 package main

@@ -14,6 +14,7 @@ import (
 	"sort"
 	"strings"
 
+	"polegap/post/workflow/caution"
 	"polegap/solver"
 )
 
@@ -264,6 +265,10 @@ func printUsage(w io.Writer) {
 		fmt.Fprintf(w, "\t%-10s %s\n", c.Name(), c.Short)
 	}
 	fmt.Fprint(w, "\nUse 'polegap help <command>' for more about a command.\n")
+	fmt.Fprint(w, "\nSafety. polegap's figures are design estimates; solve, size, sweep and check\nprint these cautions quantified from the design:\n\n")
+	for _, c := range caution.List(caution.Facts{}) {
+		fmt.Fprintf(w, "  - %s\n", c.Text)
+	}
 }
 
 func printHelp(w io.Writer, c *Command) {
@@ -285,7 +290,7 @@ func printHelp(w io.Writer, c *Command) {
 	for _, n := range names {
 		f := fs.Lookup(n)
 		def := ""
-		if f.DefValue != "" && f.DefValue != "false" && f.DefValue != "0" {
+		if f.DefValue != "" && f.DefValue != "false" && f.DefValue != "0" && !strings.Contains(f.Usage, "(default") {
 			def = fmt.Sprintf(" (default %s)", f.DefValue)
 		}
 		switch v := f.Value.(type) {

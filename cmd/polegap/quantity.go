@@ -23,6 +23,9 @@ const (
 	ampereTurns                     // bare: ampere-turns
 	voltage                         // bare: volt
 	temperature                     // bare: degree Celsius
+	duration                        // bare: second
+	resistance                      // bare: ohm
+	pressure                        // bare: bar (SI: Pa)
 )
 
 // quantityKinds lists, per kind, its name in messages, an example, the
@@ -41,6 +44,9 @@ var quantityKinds = [...]struct {
 	ampereTurns: {"ampere-turns", "32000At", "At", map[string]float64{"At": 1, "A": 1, "kAt": 1e3, "kA": 1e3}},
 	voltage:     {"voltage", "48V", "V", map[string]float64{"V": 1, "kV": 1e3, "mV": 1e-3}},
 	temperature: {"temperature", "60C", "°C", map[string]float64{"C": 1, "°C": 1}},
+	duration:    {"duration", "30s", "s", map[string]float64{"s": 1, "ms": 1e-3, "min": 60, "h": 3600}},
+	resistance:  {"resistance", "2ohm", "Ω", map[string]float64{"ohm": 1, "Ω": 1, "mohm": 1e-3, "mΩ": 1e-3, "kohm": 1e3, "kΩ": 1e3}},
+	pressure:    {"pressure", "6bar", "bar", map[string]float64{"bar": 1e5, "Pa": 1, "kPa": 1e3, "MPa": 1e6}},
 }
 
 func (k quantityKind) String() string { return quantityKinds[k].name }
@@ -162,6 +168,8 @@ func (q *quantityFlag) SI(m *models.Model) float64 {
 		return q.num * m.Scale
 	case area:
 		return q.num * m.Scale * m.Scale
+	case pressure:
+		return q.num * 1e5 // a bare pressure is in bar
 	}
 	return q.num
 }

@@ -10,6 +10,7 @@ import (
 	"polegap/internal/fileout"
 	"polegap/models"
 	"polegap/post/output/report"
+	"polegap/post/workflow/check"
 	"polegap/post/workflow/coil"
 	"polegap/post/workflow/sweep"
 	"polegap/post/workflow/target"
@@ -17,7 +18,7 @@ import (
 )
 
 var cmdSize = &Command{
-	UsageLine: "size [--field B] [--coil NAME] [--probe NAME] [--fill F] [--temperature T] [--cooling KIND] [--wires TABLE] [--supply-voltage V] [--supply-current I] [--max-ampere-turns NI] [--csv FILE] [--json] MODEL",
+	UsageLine: "size [--field B] [--coil NAME] [--probe NAME] [--fill F] [--temperature T] [--cooling KIND] [--wires TABLE] [--supply-voltage V] [--supply-current I] [--circuits N|auto] [--water-pressure P] [--water-speed V] [--water-rise K] [--ramp-time T] [--discharge-resistor R] [--max-ampere-turns NI] [--csv FILE] [--json] MODEL",
 	Short:     "find the ampere-turns for a target field and a coil that delivers them",
 	Long: `Size finds, by nonlinear solves on the model's mesh, the ampere-turns at
 which the target probe reaches the target field (--field, or the model's
@@ -32,14 +33,45 @@ span between the sides and the depth): for each wire of the table
 current, current density, resistance at the coil temperature, voltage,
 power and copper mass, flagging supply limits and the common-practice
 current-density and heat limits of the cooling (air-natural, air-forced
-or water), and picks the one with the least power.
+or water), and recommends (marks "*") the one with the least power among
+those that meet every limit. The limits used are printed above the table.
+
+Air cooling: the table gives the surface heat flux (W/m²) against the
+common-practice limit h × (coil − air temperature). Water cooling: for
+hollow conductors the table gives the parallel circuits (--circuits N,
+or auto: the fewest, up to 32, that meet the water limits), the flow for
+the water's temperature rise (--water-rise, default 20 K), the speed in
+the bore, the Reynolds number, the pressure drop of one circuit by
+Darcy–Weisbach with the Blasius (1913) friction factor (64/Re when
+laminar; straight bore, fittings add to it), and the hottest conductor
+(outlet water plus the film drop by the Gnielinski (1976) correlation),
+flagged against the common-practice limits: pressure drop 6 bar
+(--water-pressure), bore speed 3 m/s (--water-speed) and the coil
+temperature (--temperature). Windings too far from buildable (above
+1500 V, over three times the current-density limit or ten times the
+pressure limit) are left out of the table and counted; --csv and --json
+keep them.
+
+For the recommended winding it then states what the supply must do:
+from the excitation curve (three more solves at a quarter, half and
+three quarters of the current) the incremental inductance, the voltage
+V = L_inc dI/dt + I R over a linear ramp of --ramp-time (default 10 s),
+its peak and profile, the L/R time constant and the stored energy, and
+the switch-off through a free-wheeling diode or, with
+--discharge-resistor, a resistor: its peak voltage I R_d, the time to
+fall to 1 % and the energy it absorbs.
 
 A number without a unit is in tesla (--field), ampere (--supply-current),
-volts (--supply-voltage), ampere-turns (--max-ampere-turns) or °C
-(--temperature).
+volts (--supply-voltage), ampere-turns (--max-ampere-turns), °C
+(--temperature), bar (--water-pressure), seconds (--ramp-time) or ohm
+(--discharge-resistor).
+
+Exit status: 0 with a recommended winding, 3 when the result is printed
+but no winding meets every limit, 1 on failure, 2 on a usage error.
 
 The currents, voltages and stored energy of a real magnet can injure:
-the cautions printed with the result apply.`,
+the cautions printed with the result, quantified from the design,
+apply.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		want := quantity(fs, "field", field, "target field (e.g. 1.2T; default the model's target)").in(positive)
 		coilName := fs.String("coil", "", "the coil to size (default the first)")
@@ -51,6 +83,8 @@ the cautions printed with the result apply.`,
 		supplyV := quantity(fs, "supply-voltage", voltage, "supply voltage limit (e.g. 60V)").in(positive)
 		supplyI := quantity(fs, "supply-current", current, "supply current limit (e.g. 50A)").in(positive)
 		maxNI := quantity(fs, "max-ampere-turns", ampereTurns, "give up beyond this (default 5 × the ideal)").in(positive)
+		wf := addWaterFlags(fs)
+		sf := addSupplyFlags(fs)
 		csvOut := fs.String("csv", "", "write the winding options to this CSV file")
 		asJSON := fs.Bool("json", false, "print the result as JSON")
 		af := addAccuracyFlags(fs)
@@ -67,6 +101,13 @@ the cautions printed with the result apply.`,
 			spec := coil.Spec{FillFactor: *fill, Temperature: temp.SI(m), SupplyVoltage: supplyV.SI(m), SupplyCurrent: supplyI.SI(m)}
 			if spec.Cooling, err = parseCooling(*cooling); err != nil {
 				return usagef("--cooling: %v", err)
+			}
+			if err := wf.apply(&spec, m); err != nil {
+				return err
+			}
+			sopt, err := sf.options(m)
+			if err != nil {
+				return err
 			}
 			table, err := wireTable(*wires, spec.Cooling)
 			if err != nil {
@@ -114,6 +155,10 @@ the cautions printed with the result apply.`,
 			opts := coil.Options(spec, table)
 			s := coil.NewSizing(m.Name, pname, &res, w, spec, opts)
 			s.AmpereTurnsEstimate, s.Accuracy = niEst, accuracyNote(acc)
+			s.IronLimit, s.Planar = check.IronLimit(m), m.Geometry != models.Axisymmetric
+			if err := sizeSupply(env, r, &res, s, sopt); err != nil {
+				return err
+			}
 			if *csvOut != "" {
 				if err := fileout.Write(*csvOut, func(w io.Writer) error { return coil.WriteCSV(w, opts) }); err != nil {
 					return err
@@ -125,9 +170,14 @@ the cautions printed with the result apply.`,
 				}
 			}
 			if *asJSON {
-				return writeJSON(env.Stdout, "size", s)
+				err = writeJSON(env.Stdout, "size", s)
+			} else {
+				err = report.WriteSizing(env.Stdout, s)
 			}
-			return report.WriteSizing(env.Stdout, s)
+			if err == nil && s.Best == nil {
+				return exitError{exitNoWinding, nil}
+			}
+			return err
 		}
 	},
 }

@@ -5,6 +5,7 @@ import (
 	"io"
 
 	"polegap/internal/fileout"
+	"polegap/post/workflow/caution"
 	"polegap/post/workflow/design"
 
 	"polegap/post/output/figure"
@@ -91,6 +92,7 @@ with status 1; no result is reported for it.`,
 				return err
 			}
 			r := design.NewEstimated(s, coarse, acc, dopt)
+			r.Cautions = caution.List(design.CautionFacts(r.Design))
 			if err := env.Ctx.Err(); err != nil {
 				return err // interrupted during the last round or the virtual work
 			}

@@ -37,9 +37,13 @@ The default range is --points 20 currents from a twentieth of --to up to
 without a unit are in ampere; a --gap without a unit is in the model's
 units.
 
---csv writes the table (a partial table, marked "# partial", if the sweep
-is interrupted with Ctrl-C or a point fails); --png draws the curve with
-the ideal line μ0 NI/g and the efficiency.
+Without --csv the table goes to standard output as CSV (for a pipe);
+--csv writes it to a file (a partial table, marked "# partial", if the
+sweep is interrupted with Ctrl-C or a point fails) and prints a short
+table for the terminal instead. --png draws the curve with the ideal line
+μ0 NI/g and the efficiency. A sweep past the model's own (rated) current
+prints the cautions, quantified at its highest point (to standard error
+when standard output carries the CSV).
 
 --shard K/N runs only points K, K+N, K+2N, ... so that a batch scheduler's
 job array can run a long sweep in parallel; join the shards' tables with
@@ -83,6 +87,9 @@ job array can run a long sweep in parallel; join the shards' tables with
 			opt.Progress = newProgress(env.Stderr)
 			pts, runErr := sweepOn(env, fine, coarse, opt)
 			meta := sweep.Meta{Model: m.Name, Probe: probeFor(m, *probe), Shard: *shard, Accuracy: accuracyNote(acc)}
+			if *shard != "" {
+				meta.Points = len(opt.Currents) // so that merge sees points missing at the end
+			}
 			if runErr != nil {
 				meta.Partial = runErr.Error()
 			}
@@ -108,7 +115,7 @@ job array can run a long sweep in parallel; join the shards' tables with
 					return err
 				}
 			}
-			return sweep.WriteCSV(env.Stdout, meta, pts)
+			return writeSweepOut(env, m, *coil, meta, pts, *csvOut)
 		}
 	},
 }
@@ -119,8 +126,11 @@ var cmdMerge = &Command{
 	Long: `Merge reads the CSV tables written by 'polegap sweep --shard K/N' and
 writes one table with every point in order. It refuses tables of
 different models or probes and points present twice, and marks the result
-partial (listing what is missing) when points are missing. Merge reads no
-model, so --gap needs a unit (e.g. 40mm).`,
+partial (listing what is missing) when points are missing: every point
+of the sweep, the last ones too, since each shard's table records the
+sweep's number of points ("# points: N"). Points are numbered as the
+tables' index column, from 0. Merge reads no model, so --gap needs a
+unit (e.g. 40mm).`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		out := fs.String("csv", "", "write the merged table here (required)")
 		png := fs.String("png", "", "draw the merged curve to this .png or .svg file")
@@ -153,7 +163,10 @@ model, so --gap needs a unit (e.g. 40mm).`,
 			}
 			fmt.Fprintf(env.Stdout, "merged %d points from %d tables into %s\n", len(all), len(args), *out)
 			if len(missing) > 0 {
-				fmt.Fprintf(env.Stdout, "missing points (1-based): %v\n", plusOne(missing))
+				fmt.Fprintf(env.Stdout, "missing points (index, as in the tables' index column): %v\n", missing)
+			}
+			if meta.Points == 0 {
+				fmt.Fprintf(env.Stdout, "note: no table records the sweep's number of points (\"# points: N\", written by sweep --shard since this version): points missing after the last one present cannot be seen\n")
 			}
 			if *png != "" {
 				return drawSweep(*png, meta.Model, all, gap.SI(nil))
@@ -161,14 +174,6 @@ model, so --gap needs a unit (e.g. 40mm).`,
 			return nil
 		}
 	},
-}
-
-func plusOne(v []int) []int {
-	out := make([]int, len(v))
-	for i, x := range v {
-		out[i] = x + 1
-	}
-	return out
 }
 
 func drawSweep(path, name string, pts []sweep.Point, gap float64) error {

@@ -19,7 +19,11 @@ func WriteCheck(w io.Writer, c *check.Check) error {
 		if unit == "m" {
 			val, lim, unit = val*1e3, lim*1e3, "mm"
 		}
-		ew.printf("%-4s  %-40s %9.4g %s (limit %.4g %s)", verdict, it.What, val, unit, lim, unit)
+		if it.Tolerance > 0 {
+			ew.printf("%-4s  %-40s %9.4g %s (target %.4g %s within %.0e: at least %.5g %s)", verdict, it.What, val, unit, lim, unit, it.Tolerance, lim*(1-it.Tolerance), unit)
+		} else {
+			ew.printf("%-4s  %-40s %9.4g %s (limit %.4g %s)", verdict, it.What, val, unit, lim, unit)
+		}
 		if it.Note != "" {
 			ew.printf("  [%s]", it.Note)
 		}
@@ -46,5 +50,6 @@ func WriteCheck(w io.Writer, c *check.Check) error {
 	} else {
 		ew.printf("\nsome checks FAIL\n")
 	}
+	writeCautionList(ew, c.Cautions)
 	return ew.err
 }

@@ -33,7 +33,11 @@ func writeDesign(ew *errWriter, d *design.Design) {
 			f.Factor, f.WidthEff*1e3, f.KPerEdge, f.GapEff*1e3)
 	}
 	for _, c := range d.Coils {
-		ew.printf("coil %-5s %.5g A × turns = %.5g A-t; flux linkage %.5g Wb; L apparent %.5g H", c.Name, c.Current, c.AmpereTurns, c.Linkage, c.Apparent)
+		if c.Current != 0 {
+			ew.printf("coil %-5s %.5g A × %.5g turns = %.5g A-t; flux linkage %.5g Wb; L apparent %.5g H", c.Name, c.Current, c.AmpereTurns/c.Current, c.AmpereTurns, c.Linkage, c.Apparent)
+		} else {
+			ew.printf("coil %-5s 0 A, no ampere-turns; flux linkage %.5g Wb; L apparent %.5g H", c.Name, c.Linkage, c.Apparent)
+		}
 		if c.Incremental != 0 {
 			ew.printf(", incremental %.5g H", c.Incremental)
 		}

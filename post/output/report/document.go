@@ -199,7 +199,9 @@ func (d *Document) AddSizing(s *coil.Sizing) error {
 		d.AddCaution(fmt.Sprintf("The recommended winding runs at %.4g A, %.4g V and dissipates %.4g W per winding: check the temperature rise%s before running at full current.",
 			b.Current, b.Voltage, b.Power, map[bool]string{true: " and the cooling-water flow", false: ""}[s.Spec.Cooling == coil.Water]))
 	}
-	d.AddCaution(s.Cautions...)
+	for _, c := range s.Cautions {
+		d.AddCaution(c.Text)
+	}
 	return d.add("Coil for the target field", "sizing", s)
 }
 

@@ -50,6 +50,7 @@ func WriteText(w io.Writer, r *design.Report) error {
 		writeDesign(ew, r.Design)
 	}
 	writeAccuracy(ew, r)
+	writeCautionList(ew, r.Cautions)
 	return ew.err
 }
 
@@ -70,3 +71,5 @@ func (e *errWriter) printf(format string, args ...any) {
 	}
 	_, e.err = fmt.Fprintf(e.w, format, args...)
 }
+
+func (e *errWriter) sprintf(format string, args ...any) string { return fmt.Sprintf(format, args...) }

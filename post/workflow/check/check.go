@@ -7,7 +7,9 @@ import (
 	"strings"
 
 	"polegap/materials"
+	"polegap/models"
 	"polegap/post/study"
+	"polegap/post/workflow/caution"
 	"polegap/post/workflow/design"
 )
 
@@ -26,7 +28,16 @@ type CheckOptions struct {
 	// of the centre value over ±HalfWidth along the mid-plane line probe.
 	// Zero skips the check.
 	Tolerance, HalfWidth float64
+	// TargetTolerance (relative) is how far below the model's target
+	// field the field at its probe may fall and still reach it; 0 means
+	// DefaultTargetTolerance. Give the accuracy the numbers are
+	// converged to: a verdict finer than that is noise.
+	TargetTolerance float64
 }
+
+// DefaultTargetTolerance is the target's tolerance when none is given:
+// the default accuracy of the converged numbers.
+const DefaultTargetTolerance = 1e-3
 
 // CheckItem is one requirement and how the design meets it.
 type CheckItem struct {
@@ -36,6 +47,9 @@ type CheckItem struct {
 	Unit  string  `json:"unit"`
 	Pass  bool    `json:"pass"`
 	Note  string  `json:"note,omitempty"`
+	// Tolerance (relative), when set, marks Limit as a target: the item
+	// passes when Value ≥ Limit × (1 − Tolerance).
+	Tolerance float64 `json:"tolerance,omitempty"`
 }
 
 // Check is the outcome of checking a solved design.
@@ -49,6 +63,9 @@ type Check struct {
 	// Accuracy says how converged the checked numbers are (nil: not
 	// recorded).
 	Accuracy *design.Accuracy `json:"accuracy,omitempty"`
+	// Cautions are the safety cautions quantified from the design (each
+	// encodes to JSON as its sentence).
+	Cautions []caution.Caution `json:"cautions,omitempty"`
 }
 
 // NewCheck checks the design quantities of a solved study against the
@@ -58,7 +75,7 @@ type Check struct {
 // corners), the target field at its probe, and the good-field half-width
 // when asked.
 func NewCheck(s *study.Result, d *design.Design, opt CheckOptions) *Check {
-	c := &Check{Model: s.Model.Name, Fringing: d.Fringing, Pass: true}
+	c := &Check{Model: s.Model.Name, Fringing: d.Fringing, Pass: true, Cautions: caution.List(design.CautionFacts(d))}
 	add := func(it CheckItem) {
 		c.Items = append(c.Items, it)
 		c.Pass = c.Pass && it.Pass
@@ -108,12 +125,16 @@ func NewCheck(s *study.Result, d *design.Design, opt CheckOptions) *Check {
 			if p.Kind == "point" {
 				v = p.Point.B()
 			}
-			add(CheckItem{What: "field at " + p.Name, Value: v, Limit: m.Target.Field, Unit: "T", Pass: v >= m.Target.Field*(1-1e-4),
-				Note: "must reach the model's target at the model's currents"})
+			tt := opt.TargetTolerance
+			if tt == 0 {
+				tt = DefaultTargetTolerance
+			}
+			add(CheckItem{What: "field at " + p.Name, Value: v, Limit: m.Target.Field, Unit: "T", Tolerance: tt, Pass: v >= m.Target.Field*(1-tt),
+				Note: fmt.Sprintf("the model's target, reached at the model's currents within %.0e relative", tt)})
 		}
 	}
 	if opt.Tolerance > 0 && opt.HalfWidth > 0 {
-		it := CheckItem{What: fmt.Sprintf("good-field half-width at |ΔB/B0| < %.0e", opt.Tolerance), Limit: opt.HalfWidth, Unit: "m"}
+		it := CheckItem{What: fmt.Sprintf("good-field half-width at |ΔB/B0| < %s", tolText(opt.Tolerance)), Limit: opt.HalfWidth, Unit: "m"}
 		if d.Uniformity == nil || d.Uniformity.Line == "" {
 			it.Note = "no line probe through the gap centre to measure it on"
 		} else {
@@ -122,10 +143,13 @@ func NewCheck(s *study.Result, d *design.Design, opt CheckOptions) *Check {
 			for _, h := range d.Uniformity.HalfWidths {
 				if math.Abs(h.Tol-opt.Tolerance) <= 1e-12*opt.Tolerance {
 					it.Value, it.Pass, found = h.HalfWidth, h.HalfWidth >= opt.HalfWidth, true
+					if !h.Bounded {
+						it.Note = "at least this: the line probe ends before the field leaves the tolerance"
+					}
 				}
 			}
 			if !found {
-				it.Note = "tolerance not among those computed (1e-3, 1e-4)"
+				it.Note = "tolerance not computed: pass it to design.DesignOptions.Tolerances"
 			}
 		}
 		add(it)
@@ -160,4 +184,35 @@ func BAtMuR(c *materials.Curve, mur float64) float64 {
 		}
 	}
 	return 0.5 * (lo + hi)
+}
+
+// IronLimit returns the lowest default saturation limit over the
+// model's nonlinear iron regions (each curve's flux density at
+// μr = DefaultMinMuR), or 0 when the model has no B-H curve.
+func IronLimit(m *models.Model) float64 {
+	lim := 0.0
+	for i := range m.Regions {
+		mat, _, err := study.Material(m, &m.Regions[i])
+		if err != nil {
+			continue
+		}
+		if cv, ok := mat.(*materials.Curve); ok {
+			if b := BAtMuR(cv, DefaultMinMuR); lim == 0 || b < lim {
+				lim = b
+			}
+		}
+	}
+	return lim
+}
+
+// tolText writes a tolerance with one figure (1e-04) when that is exact
+// to 1e-12, else with three (5.25e-04).
+func tolText(t float64) string {
+	one := fmt.Sprintf("%.0e", t)
+	var back float64
+	fmt.Sscan(one, &back)
+	if math.Abs(back-t) <= 1e-12*t {
+		return one
+	}
+	return fmt.Sprintf("%.3g", t)
 }

@@ -22,7 +22,13 @@
 //   - Spec (what the coil must deliver and its limits), Options (every
 //     winding that fits), FitTurns, Best and Explain, and the text and
 //     CSV writers WriteTable and WriteCSV.
-//   - Cautions: the safety notes to print with any coil result.
+//   - Review (review.go): Absurd and WriteReviewTable, the terminal
+//     table of what a designer acts on with the far-from-buildable
+//     windings left out and counted; LimitLines, the limits used and
+//     their sources; the common-practice water limits CommonWaterPressure,
+//     CommonWaterSpeed and CommonWaterCircuits.
+//   - Cautions: the general safety notes (package caution builds the
+//     quantified ones a Sizing carries).
 //
 // # Units
 //
@@ -42,7 +48,12 @@
 // their constants. For water cooling the flow follows from the power and
 // the water's temperature rise; in a hollow conductor the bore speed,
 // Reynolds number and the pressure drop of each parallel circuit follow
-// by Darcy–Weisbach with the Blasius (1913) or laminar friction factor.
+// by Darcy–Weisbach with the Blasius (1913) or laminar friction factor,
+// and the hottest conductor (outlet water plus the wall film, Gnielinski
+// 1976) is checked against the coil temperature. With
+// Spec.MaxWaterCircuits the number of parallel circuits is chosen per
+// winding: the fewest that meet the pressure, speed and temperature
+// limits.
 //
 // # Failures and invariants
 //

@@ -51,6 +51,10 @@ type NoneError struct {
 	OverDensity  int // current density above the cooling's limit
 	OverHeat     int // power above what the cooling removes
 	OverPressure int // water pressure drop above the supply's
+	OverSpeed    int // water speed in the bore above the limit
+	// OverTemperature counts windings whose hottest conductor (water
+	// outlet plus the film drop) is above the design temperature.
+	OverTemperature int
 }
 
 func (e *NoneError) Error() string {
@@ -74,6 +78,8 @@ func (e *NoneError) Error() string {
 	add(e.OverDensity, "exceed the current-density limit", "stronger cooling")
 	add(e.OverHeat, "dissipate more than the cooling removes", "stronger cooling", "a larger window")
 	add(e.OverPressure, "need more water pressure than the supply gives", "more parallel water circuits")
+	add(e.OverSpeed, "need water faster than the bore's speed limit", "more parallel water circuits")
+	add(e.OverTemperature, "run hotter than the design temperature at the water outlet", "a larger water flow (a smaller water rise)", "a larger window")
 	return fmt.Sprintf("coil: none of %d windings meets every limit: %s; consider %s",
 		e.Windings, strings.Join(parts, ", "), strings.Join(fixes, ", or "))
 }

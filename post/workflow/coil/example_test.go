@@ -123,7 +123,7 @@ func ExampleWriteTable() {
 	//   1.120 mm G2    1.216    929  3.23     3.28  8.466  27.34  88.29   3.66  0.508      ok
 	//   1.250 mm G2    1.349    755  3.97     3.24  5.524  21.95  87.21   3.71  0.515      ok
 	//   1.400 mm G2    1.502    609  4.93     3.20  3.552   17.5  86.19   3.75  0.521      ok
-	// ! Magnet currents and the energy stored in the field can injure or kill: treat the supply and the coil as hazardous.
+	// ! Magnet currents and the energy stored in the field can injure or kill: treat the supply and the coil as hazardous, and disconnect and discharge them before touching the coil or its terminals.
 	// ! Switching off or disconnecting a coil under current makes a high voltage across it: provide a free-wheeling path or dump resistor and ramp the current down.
 }
 
@@ -132,10 +132,9 @@ func ExampleCautions() {
 		fmt.Println("-", c)
 	}
 	// Output:
-	// - Magnet currents and the energy stored in the field can injure or kill: treat the supply and the coil as hazardous.
+	// - Magnet currents and the energy stored in the field can injure or kill: treat the supply and the coil as hazardous, and disconnect and discharge them before touching the coil or its terminals.
 	// - Switching off or disconnecting a coil under current makes a high voltage across it: provide a free-wheeling path or dump resistor and ramp the current down.
 	// - Iron poles attract tools and steel objects with large forces: keep them away from the gap and the yoke while the magnet is energised.
 	// - Coils heat: check the temperature rise (and the cooling-water flow) before running at full current.
-	// - Disconnect and discharge the supply before touching the coil or its terminals.
 	// - Follow local electrical codes and licensed practice for anything built; these figures are design estimates, not a safety assessment.
 }

@@ -10,14 +10,17 @@ import (
 type Flags uint8
 
 const (
-	OverVoltage  Flags = 1 << iota // voltage above Spec.SupplyVoltage
-	OverCurrent                    // current above Spec.SupplyCurrent
-	OverDensity                    // current density above the cooling's limit
-	OverHeat                       // power above what air cooling removes (not for Water)
-	OverPressure                   // water pressure drop above Spec.MaxWaterPressure
+	OverVoltage     Flags = 1 << iota // voltage above Spec.SupplyVoltage
+	OverCurrent                       // current above Spec.SupplyCurrent
+	OverDensity                       // current density above the cooling's limit
+	OverHeat                          // power above what air cooling removes (not for Water)
+	OverPressure                      // water pressure drop above Spec.MaxWaterPressure
+	OverSpeed                         // water speed in the bore above Spec.MaxWaterSpeed
+	OverTemperature                   // hottest conductor (water outlet plus film) above Spec.Temperature
 )
 
-// String lists the flags as short words ("volts,amps,density,heat,water"),
+// String lists the flags as short words
+// ("volts,amps,density,heat,water,speed,temp"),
 // or "ok" for none.
 func (f Flags) String() string {
 	if f == 0 {
@@ -27,7 +30,7 @@ func (f Flags) String() string {
 	for _, p := range []struct {
 		f Flags
 		w string
-	}{{OverVoltage, "volts"}, {OverCurrent, "amps"}, {OverDensity, "density"}, {OverHeat, "heat"}, {OverPressure, "water"}} {
+	}{{OverVoltage, "volts"}, {OverCurrent, "amps"}, {OverDensity, "density"}, {OverHeat, "heat"}, {OverPressure, "water"}, {OverSpeed, "speed"}, {OverTemperature, "temp"}} {
 		if f&p.f != 0 {
 			s = append(s, p.w)
 		}
@@ -58,6 +61,12 @@ type Option struct {
 	WaterPressure float64 `json:"water_pressure_drop_Pa"` // Pa, pressure drop along one circuit's bore; 0 unless Hollow
 
 	Flags Flags `json:"limits_broken"` // as words (Flags.MarshalJSON)
+	// Figures added for buildable coils (snake_case JSON keys, unit in
+	// the key).
+	SurfaceFlux   float64 `json:"surface_flux_W_per_m2,omitempty"` // W/m², Power over the cooling surface; air cooling only
+	WaterCircuits int     `json:"water_circuits,omitempty"`        // parallel water circuits (Hollow)
+	WaterRise     float64 `json:"water_rise_K,omitempty"`          // K, inlet to outlet; Water only
+	HotSpot       float64 `json:"hottest_conductor_C,omitempty"`   // °C, water outlet plus the film drop (Hollow)
 }
 
 // OK reports whether the winding meets every limit.
@@ -144,8 +153,10 @@ func Options(s Spec, wires []Wire) []Option {
 		switch s.Cooling {
 		case AirNatural:
 			o.CoolingPower = HAirNatural * s.CoolingSurface * rise
+			o.SurfaceFlux = o.Power / s.CoolingSurface
 		case AirForced:
 			o.CoolingPower = HAirForced * s.CoolingSurface * rise
+			o.SurfaceFlux = o.Power / s.CoolingSurface
 		case Water:
 			waterCircuit(&o, &s)
 		}
@@ -163,6 +174,12 @@ func Options(s Spec, wires []Wire) []Option {
 		}
 		if s.MaxWaterPressure > 0 && o.WaterPressure > s.MaxWaterPressure {
 			o.Flags |= OverPressure
+		}
+		if s.MaxWaterSpeed > 0 && o.WaterSpeed > s.MaxWaterSpeed {
+			o.Flags |= OverSpeed
+		}
+		if o.HotSpot > s.Temperature {
+			o.Flags |= OverTemperature
 		}
 		out = append(out, o)
 	}
@@ -234,6 +251,12 @@ func Explain(opts []Option) error {
 		}
 		if f&OverPressure != 0 {
 			e.OverPressure++
+		}
+		if f&OverSpeed != 0 {
+			e.OverSpeed++
+		}
+		if f&OverTemperature != 0 {
+			e.OverTemperature++
 		}
 	}
 	return e

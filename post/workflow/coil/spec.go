@@ -104,8 +104,13 @@ type Spec struct {
 	MaxCurrentDensity float64 // A/m²; 0 = Cooling.JMax()
 	CoolingSurface    float64 // m² for the air heat check; 0 = Window.CoolingSurface()
 	WaterRise         float64 // K, water temperature rise; 0 = DefaultWaterRise (20 K)
-	WaterCircuits     int     // parallel water circuits in the coil (Hollow); 0 = 1
+	WaterCircuits     int     // parallel water circuits in the coil (Hollow); 0 = 1, or chosen (MaxWaterCircuits)
 	MaxWaterPressure  float64 // Pa, pressure drop the water supply provides; 0 = no limit
+	MaxWaterSpeed     float64 // m/s in the bore; 0 = no limit (CommonWaterSpeed is common practice)
+	// MaxWaterCircuits, when WaterCircuits is 0, lets Options choose for
+	// each hollow winding the fewest parallel circuits, up to this many
+	// (and the turns), that meet the water limits; 0 keeps one circuit.
+	MaxWaterCircuits int
 }
 
 // withDefaults returns s with its zero fields replaced by the defaults.
@@ -128,7 +133,7 @@ func (s Spec) withDefaults() Spec {
 	if s.WaterRise == 0 {
 		s.WaterRise = DefaultWaterRise
 	}
-	if s.WaterCircuits == 0 {
+	if s.WaterCircuits == 0 && s.MaxWaterCircuits == 0 {
 		s.WaterCircuits = 1
 	}
 	return s
@@ -176,6 +181,10 @@ func (s Spec) Validate() error {
 		return bad("WaterCircuits", float64(s.WaterCircuits), "must be >= 0 (0 = one circuit)")
 	case !fin(s.MaxWaterPressure) || s.MaxWaterPressure < 0:
 		return bad("MaxWaterPressure", s.MaxWaterPressure, "must be finite and >= 0 Pa (0 = no limit)")
+	case !fin(s.MaxWaterSpeed) || s.MaxWaterSpeed < 0:
+		return bad("MaxWaterSpeed", s.MaxWaterSpeed, "must be finite and >= 0 m/s (0 = no limit)")
+	case s.MaxWaterCircuits < 0:
+		return bad("MaxWaterCircuits", float64(s.MaxWaterCircuits), "must be >= 0 (0 = do not choose)")
 	}
 	d := s.withDefaults()
 	switch {

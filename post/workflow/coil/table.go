@@ -29,7 +29,8 @@ var csvHeader = []string{
 	"wire", "shape", "conductor_mm2", "overall_width_mm", "overall_height_mm",
 	"turns", "max_turns", "current_A", "current_density_A_per_mm2",
 	"resistance_ohm", "voltage_V", "power_W", "copper_mass_kg", "conductor_length_m",
-	"copper_fill", "cooling_power_W", "water_flow_l_per_min", "water_speed_m_per_s", "reynolds", "water_pressure_bar", "limits",
+	"copper_fill", "cooling_power_W", "water_flow_l_per_min", "water_speed_m_per_s", "reynolds", "water_pressure_bar",
+	"water_circuits", "water_rise_K", "hottest_conductor_C", "surface_flux_W_per_m2", "limits",
 }
 
 // WriteCSV writes opts as CSV (RFC 4180) with a header row naming every
@@ -54,7 +55,8 @@ func WriteCSV(w io.Writer, opts []Option) error {
 			strconv.Itoa(o.Turns), strconv.Itoa(o.MaxTurns), g(o.Current), u(o.CurrentDensity, 1e-6),
 			g(o.Resistance), g(o.Voltage), g(o.Power), g(o.Mass), g(o.Length),
 			g(o.CopperFill), g(o.CoolingPower), u(o.WaterFlow, 6e4), g(o.WaterSpeed),
-			g(o.Reynolds), u(o.WaterPressure, 1e-5), o.Flags.String())
+			g(o.Reynolds), u(o.WaterPressure, 1e-5),
+			strconv.Itoa(o.WaterCircuits), g(o.WaterRise), g(o.HotSpot), g(o.SurfaceFlux), o.Flags.String())
 		if err := cw.Write(rec); err != nil {
 			return err
 		}

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 
 	"polegap/internal/num"
 	"polegap/materials"
@@ -198,12 +199,16 @@ type DesignOptions struct {
 	// cut from any iron that crosses the mid-plane (force.Options.Joints),
 	// unless a force part of the model already is the iron of one side.
 	NoPoleForce bool
+	// Tolerances are relative field tolerances whose good-field
+	// half-widths are reported besides gap.DefaultTolerances (a check's
+	// own tolerance); each must be finite and in (0, 1).
+	Tolerances []float64
 }
 
 // NewDesign computes the design quantities of a solved study.
 func NewDesign(s *study.Result, opt DesignOptions) *Design {
 	d := &Design{}
-	d.gapQuantities(s)
+	d.gapQuantities(s, opt)
 	d.coils(s, opt)
 	d.saturation(s, opt)
 	d.forces(s, opt)
@@ -352,7 +357,7 @@ func (d *Design) note(format string, args ...any) {
 	d.Notes = append(d.Notes, fmt.Sprintf(format, args...))
 }
 
-func (d *Design) gapQuantities(s *study.Result) {
+func (d *Design) gapQuantities(s *study.Result, opt DesignOptions) {
 	m := s.Model
 	cp, ok := m.CentreProbe()
 	if !ok {
@@ -380,7 +385,7 @@ func (d *Design) gapQuantities(s *study.Result) {
 			g.PoleFaceAvg = v
 		}
 	}
-	d.uniformity(s, f, c, by)
+	d.uniformity(s, f, c, by, opt.Tolerances)
 	if m.Gap > 0 && g.PoleWidth > 0 && by != 0 {
 		d.fringing(s, f, c, by, g.PoleWidth)
 	} else {
@@ -388,7 +393,13 @@ func (d *Design) gapQuantities(s *study.Result) {
 	}
 }
 
-func (d *Design) uniformity(s *study.Result, f gap.Field, c [2]float64, b0 float64) {
+func (d *Design) uniformity(s *study.Result, f gap.Field, c [2]float64, b0 float64, extra []float64) {
+	tols := append([]float64(nil), gap.DefaultTolerances...)
+	for _, t := range extra {
+		if !slices.Contains(tols, t) {
+			tols = append(tols, t)
+		}
+	}
 	m := s.Model
 	u := &UniformityReport{}
 	for i := range m.Probes {
@@ -416,7 +427,7 @@ func (d *Design) uniformity(s *study.Result, f gap.Field, c [2]float64, b0 float
 			}
 			u.Line, u.LineMaxDev = p.Name, dev.MaxAbs
 			centre := math.Hypot(c[0]-p.Line[0][0], c[1]-p.Line[0][1])
-			gf, err := gap.GoodFieldWidths(ss, centre, b0, gap.ComponentY, nil)
+			gf, err := gap.GoodFieldWidths(ss, centre, b0, gap.ComponentY, tols)
 			if err != nil {
 				continue
 			}

@@ -3,6 +3,7 @@ package design
 import (
 	"fmt"
 	"math"
+	"polegap/post/workflow/caution"
 	"strings"
 	"time"
 
@@ -28,7 +29,10 @@ type Report struct {
 	// of each computed number, keyed by the number's path in this JSON
 	// ("gap.centre_B_T", "coils[0].flux_linkage_Wb"); empty in quick mode.
 	Estimates map[string]float64 `json:"estimates,omitempty"`
-	order     []string
+	// Cautions are the safety cautions quantified from the design (each
+	// encodes to JSON as its sentence); nil when not set.
+	Cautions []caution.Caution `json:"cautions,omitempty"`
+	order    []string
 }
 
 // Mesh sizes the discretisation.

@@ -6,6 +6,7 @@ import (
 	"errors"
 	"math"
 	"reflect"
+	"strings"
 	"testing"
 
 	"polegap/models"
@@ -268,5 +269,32 @@ func TestBoth(t *testing.T) {
 	}
 	if got[1].FieldEstimate == 0 {
 		t.Error("no estimate set")
+	}
+}
+
+// TestMergeSeesTheEnd: with the sweep's number of points recorded, the
+// points missing after the last one present are found too; tables that
+// disagree on it, or hold a point beyond it, are refused.
+func TestMergeSeesTheEnd(t *testing.T) {
+	pts := []Point{{Index: 0, Current: 1}, {Index: 2, Current: 3}}
+	var a bytes.Buffer
+	if err := WriteCSV(&a, Meta{Model: "m", Probe: "p", Shard: "1/3", Points: 6}, pts); err != nil {
+		t.Fatal(err)
+	}
+	ma, pa, err := ReadCSV(&a, "a.csv")
+	if err != nil || ma.Points != 6 {
+		t.Fatalf("read: %v, points %d", err, ma.Points)
+	}
+	meta, _, missing, err := Merge([]Meta{ma}, [][]Point{pa})
+	if err != nil || !reflect.DeepEqual(missing, []int{1, 3, 4, 5}) || meta.Points != 6 || !strings.Contains(meta.Partial, "4 point(s) missing") {
+		t.Errorf("missing %v (meta %+v, %v), want [1 3 4 5]", missing, meta, err)
+	}
+	mb := ma
+	mb.Points = 8
+	if _, _, _, err := Merge([]Meta{ma, mb}, [][]Point{pa, nil}); err == nil {
+		t.Error("tables of 6 and 8 points merged")
+	}
+	if _, _, _, err := Merge([]Meta{ma}, [][]Point{{{Index: 6}}}); err == nil {
+		t.Error("a point of index 6 in a sweep of 6 merged")
 	}
 }

@@ -31,6 +31,10 @@ type Meta struct {
 	Partial string // why the table is incomplete, or ""
 	// Accuracy says in a line how converged the numbers are, or "".
 	Accuracy string
+	// Points is the number of points of the whole sweep (a shard's
+	// table holds some of them), so that Merge sees points missing at
+	// the end; 0 when unknown (tables written before it was recorded).
+	Points int
 }
 
 // WriteCSV writes the points as CSV with a comment block ("# key: value"
@@ -40,6 +44,9 @@ func WriteCSV(w io.Writer, meta Meta, pts []Point) error {
 	fmt.Fprintf(bw, "# polegap excitation curve\n# model: %s\n# probe: %s\n", meta.Model, meta.Probe)
 	if meta.Shard != "" {
 		fmt.Fprintf(bw, "# shard: %s\n", meta.Shard)
+	}
+	if meta.Points > 0 {
+		fmt.Fprintf(bw, "# points: %d\n", meta.Points)
 	}
 	if meta.Partial != "" {
 		fmt.Fprintf(bw, "# partial: %s\n", meta.Partial)
@@ -89,6 +96,13 @@ func ReadCSV(r io.Reader, name string) (Meta, []Point, error) {
 		return Meta{}, nil, readErr(err)
 	}
 	meta := Meta{Model: cr.Meta["model"], Probe: cr.Meta["probe"], Shard: cr.Meta["shard"], Partial: cr.Meta["partial"], Accuracy: cr.Meta["accuracy"]}
+	if v, ok := cr.Meta["points"]; ok {
+		n, err := strconv.Atoi(strings.TrimSpace(v))
+		if err != nil || n < 1 {
+			return meta, nil, fmt.Errorf("%s: \"# points: %s\": want the number of points of the whole sweep", name, v)
+		}
+		meta.Points = n
+	}
 	ncol := len(Columns)
 	if err == nil && strings.Join(header, ",") == strings.Join(oldColumns, ",") {
 		ncol = len(oldColumns)
@@ -140,13 +154,26 @@ func ReadCSV(r io.Reader, name string) (Meta, []Point, error) {
 }
 
 // Merge joins shard tables of one sweep: the points sorted by index. It
-// fails on tables of different models or probes and on a point present
-// twice; missing points are reported in the returned list of indices.
+// fails on tables of different models or probes, on tables that disagree
+// on the sweep's number of points, and on a point present twice or
+// beyond that number; missing points are reported in the returned list
+// of indices (0-based, as the tables' index column). The number of
+// points comes from the tables (Meta.Points); when none records it,
+// points missing after the last one present cannot be seen.
 func Merge(tables []Meta, points [][]Point) (Meta, []Point, []int, error) {
 	if len(tables) == 0 {
 		return Meta{}, nil, nil, fmt.Errorf("sweep: nothing to merge")
 	}
 	out := Meta{Model: tables[0].Model, Probe: tables[0].Probe}
+	for i, t := range tables {
+		if t.Points == 0 {
+			continue
+		}
+		if out.Points != 0 && t.Points != out.Points {
+			return Meta{}, nil, nil, fmt.Errorf("sweep: table %d is of a sweep of %d points, an earlier table of %d", i+1, t.Points, out.Points)
+		}
+		out.Points = t.Points
+	}
 	var all []Point
 	seen := map[int]int{}
 	var partial []string
@@ -159,7 +186,10 @@ func Merge(tables []Meta, points [][]Point) (Meta, []Point, []int, error) {
 		}
 		for _, p := range points[i] {
 			if j, dup := seen[p.Index]; dup {
-				return Meta{}, nil, nil, fmt.Errorf("sweep: point %d appears in tables %d and %d", p.Index+1, j+1, i+1)
+				return Meta{}, nil, nil, fmt.Errorf("sweep: point of index %d appears in tables %d and %d", p.Index, j+1, i+1)
+			}
+			if p.Index < 0 || out.Points > 0 && p.Index >= out.Points {
+				return Meta{}, nil, nil, fmt.Errorf("sweep: table %d has a point of index %d, outside a sweep of %d points (indices 0 to %d)", i+1, p.Index, out.Points, out.Points-1)
 			}
 			seen[p.Index] = i
 			all = append(all, p)
@@ -167,11 +197,13 @@ func Merge(tables []Meta, points [][]Point) (Meta, []Point, []int, error) {
 	}
 	sort.Slice(all, func(a, b int) bool { return all[a].Index < all[b].Index })
 	var missing []int
-	if len(all) > 0 {
-		for i := 0; i <= all[len(all)-1].Index; i++ {
-			if _, ok := seen[i]; !ok {
-				missing = append(missing, i)
-			}
+	last := out.Points - 1
+	if last < 0 && len(all) > 0 {
+		last = all[len(all)-1].Index
+	}
+	for i := 0; i <= last; i++ {
+		if _, ok := seen[i]; !ok {
+			missing = append(missing, i)
 		}
 	}
 	if len(partial) > 0 || len(missing) > 0 {
