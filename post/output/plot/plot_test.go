@@ -74,33 +74,3 @@ func TestFieldMapSaves(t *testing.T) {
 		t.Error("an unknown extension should be an error")
 	}
 }
-
-// TestFieldScaleLightness: the scale's lightness rises monotonically, the
-// property that makes it read correctly in grey (CIE L* from sRGB per
-// IEC 61966-2-1 and CIE 15:2004).
-func TestFieldScaleLightness(t *testing.T) {
-	s := NewFieldScale(0, 1)
-	prev := -1.0
-	for i := 0; i <= 50; i++ {
-		c, err := s.At(float64(i) / 50)
-		if err != nil {
-			t.Fatal(err)
-		}
-		r, g, b, _ := c.RGBA()
-		lin := func(v uint32) float64 {
-			x := float64(v) / 65535
-			if x <= 0.04045 {
-				return x / 12.92
-			}
-			return math.Pow((x+0.055)/1.055, 2.4)
-		}
-		y := 0.2126*lin(r) + 0.7152*lin(g) + 0.0722*lin(b)
-		if y <= prev {
-			t.Fatalf("luminance falls at %d/50: %g after %g", i, y, prev)
-		}
-		prev = y
-	}
-	if _, err := s.At(math.NaN()); err == nil {
-		t.Error("NaN should have no colour")
-	}
-}
