@@ -59,7 +59,8 @@ func TestOutlineEachEdgeOnce(t *testing.T) {
 }
 
 func TestFieldMapSaves(t *testing.T) {
-	p, bar := FieldMap("test", sqX, sqY, sqTri, []float64{0.5, 1}, []float64{0, 1, 1, 0}, 5)
+	p, bar := FieldMap(FieldMapInput{Title: "test", X: sqX, Y: sqY, Tri: sqTri, Corner: []float64{0.5, 0.5, 0.5, 1, 1, 1},
+		Potential: []float64{0, 1, 1, 0}, Levels: EvenLevels([]float64{0, 1}, 5), Top: 0.9})
 	dir := t.TempDir()
 	for _, name := range []string{"f.png", "f.svg"} {
 		path := filepath.Join(dir, name)
