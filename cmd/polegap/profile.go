@@ -26,7 +26,8 @@ distance along the line.`,
 		probe := fs.String("probe", "", "the line probe to sample (default the first)")
 		samples := fs.Int("samples", 0, "number of samples (default the probe's)")
 		csvOut := fs.String("csv", "", "write the samples to this CSV file")
-		png := fs.String("png", "", "draw the profile to this .png or .svg file")
+		png := fs.String("png", "", "draw the profile to this .png, .svg or .pdf file")
+		pf := addPictureFlags(fs, false)
 		return func(env *Env, args []string) error {
 			m, err := modelArg(args)
 			if err != nil {
@@ -55,11 +56,11 @@ distance along the line.`,
 			}
 			ss := gap.ProfileTo(nil, s.Field(), p.Line[0], p.Line[1], n)
 			if *png != "" {
-				fig, err := figure.Profile(m.Name+": profile along "+p.Name, ss)
+				fig, err := figure.ProfileWith(m.Name+": profile along "+p.Name, ss, m.Geometry == models.Axisymmetric)
 				if err != nil {
 					return err
 				}
-				if err := plot.Save(fig, 16*vg.Centimeter, 10*vg.Centimeter, *png); err != nil {
+				if err := plot.Save(fig, 16*vg.Centimeter, 10*vg.Centimeter, *png, pf.options()); err != nil {
 					return err
 				}
 			}

@@ -56,7 +56,8 @@ with status 1; no result is reported for it.`,
 		tol := fs.Float64("tolerance", 1e-8, "relative residual at which Newton stops")
 		alias(fs, "tol", "tolerance")
 		maxIter := fs.Int("max-iterations", 30, "limit on Newton steps")
-		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png or .svg file")
+		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png, .svg or .pdf file")
+		pf := addPictureFlags(fs, true)
 		satLimit := quantity(fs, "saturation-limit", field, "flag iron regions whose peak |B| exceeds this (e.g. 1.8T)")
 		af := addAccuracyFlags(fs)
 		stressOnly := fs.Bool("stress-only", false, "forces by Maxwell stress only: skip the virtual work (two solves per direction and part) and the error estimate")
@@ -88,7 +89,7 @@ with status 1; no result is reported for it.`,
 				}
 			}
 			if *png != "" {
-				if err := figure.DrawField(s, *png); err != nil {
+				if err := figure.DrawFieldWith(s, *png, pf.options(), figure.FieldOptions{Report: r, Whole: pf.wholeDomain()}); err != nil {
 					return err
 				}
 			}

@@ -350,18 +350,9 @@ func Bytes(c io.WriterTo) ([]byte, error) {
 	return buf.Bytes(), nil
 }
 
-// Zoom returns the drawing window in millimetres: the magnet (the model's
-// extent) with a margin of a tenth of its larger side around it, where
-// the field is worth seeing.
-func Zoom(s *study.Result) (x0, x1, y0, y1 float64) {
-	xmin, ymin, xmax, ymax := s.Model.Extent()
-	d := 0.1 * math.Max(xmax-xmin, ymax-ymin)
-	x0, x1, y0, y1 = (xmin-d)*1e3, (xmax+d)*1e3, (ymin-d)*1e3, (ymax+d)*1e3
-	if s.Model.Geometry == models.Axisymmetric {
-		x0 = math.Max(x0, 0) // nothing to draw at r < 0
-	}
-	return x0, x1, y0, y1
-}
+// Zoom returns the field map's default window in millimetres
+// (ModelWindow of the solved model).
+func Zoom(s *study.Result) (x0, x1, y0, y1 float64) { return ModelWindow(s.Model) }
 
 // wholeWindow is the whole meshed domain but the exterior disk (mm).
 func wholeWindow(s *study.Result) (x0, x1, y0, y1 float64) {
