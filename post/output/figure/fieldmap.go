@@ -55,8 +55,8 @@ func fieldOptions(opts []FieldOptions) FieldOptions {
 // triangle, flux lines at equal flux steps (the step in the caption),
 // region outlines, region and coil labels with the current's direction.
 // The exterior disk of an open boundary is left out. Flux lines are
-// isolines of A (planar) or of r·Aφ (axisymmetric, the flux function, whose
-// isolines are the field lines).
+// isolines of A (planar) or of 2π·r·Aφ (axisymmetric, the flux through the
+// circle of radius r, whose isolines are the field lines).
 func FieldFigure(s *study.Result, opts ...FieldOptions) (*gplot.Plot, *gplot.Plot) {
 	o := fieldOptions(opts)
 	m := s.Disc.Mesh
@@ -100,7 +100,7 @@ func FieldFigure(s *study.Result, opts ...FieldOptions) (*gplot.Plot, *gplot.Plo
 	pot := append([]float64(nil), s.Solution.A...)
 	if axi {
 		for i := range pot {
-			pot[i] *= m.X[i]
+			pot[i] *= 2 * math.Pi * m.X[i] // the flux through the circle of radius r
 		}
 	}
 	var drawn []float64
@@ -164,7 +164,7 @@ func fieldCaption(m *models.Model, step, top, rawMax float64) string {
 	switch {
 	case step == 0:
 	case m.Geometry == models.Axisymmetric:
-		c = fmt.Sprintf("flux lines every 2π·Δ(r·Aφ) = %s mWb", num(2*math.Pi*step*1e3))
+		c = fmt.Sprintf("flux lines every %s mWb (of the flux 2π·r·Aφ through a circle about the axis)", num(step*1e3))
 	case m.Depth > 0:
 		c = fmt.Sprintf("flux lines every ΔA = %s mWb/m, %s mWb over the %s mm depth", num(step*1e3), num(step*m.Depth*1e3), num(m.Depth*1e3))
 	default:

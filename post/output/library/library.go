@@ -98,7 +98,7 @@ func Figures(names ...string) (bh, mu *gplot.Plot, err error) {
 		sm = append(sm, plot.Series{Name: name, X: b, Y: mur, Colour: col},
 			plot.Series{Name: name + " table", X: pb, Y: pm, Points: true, Colour: col, Size: vg.Points(2)})
 	}
-	title := fmt.Sprintf("B-H curve (drawn to %.2g × the last table H)", DrawnMargin)
+	title := fmt.Sprintf("B-H curve (drawn to %.3g × the last table H)", DrawnMargin)
 	if bh, err = plot.LineFigure(title, "field strength H (kA/m, log scale)", "flux density B (T)", sb...); err != nil {
 		return nil, nil, err
 	}
