@@ -19,7 +19,8 @@ var cmdProfile = &Command{
 	Short:     "sample Bx, By and |B| along a line probe",
 	Long: `Profile solves the model and samples the flux density along a line
 probe (--probe, default the model's first line probe), writing the samples
-as CSV (x_m,y_m,bx_T,by_T,b_T; to standard output unless --csv names a
+as CSV (x_m,y_m,bx_T,by_T,b_T, or r_m,z_m,br_T,bz_T,b_T for an
+axisymmetric model; to standard output unless --csv names a
 file) and, with --png (or .svg), a plot of Bx, By and |B| against the
 distance along the line.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
@@ -65,9 +66,9 @@ distance along the line.`,
 				}
 			}
 			if *csvOut != "" {
-				return fileout.Write(*csvOut, func(w io.Writer) error { return gap.WriteCSV(w, ss) })
+				return fileout.Write(*csvOut, func(w io.Writer) error { return gap.WriteCSVAxes(w, ss, m.Geometry == models.Axisymmetric) })
 			}
-			return gap.WriteCSV(env.Stdout, ss)
+			return gap.WriteCSVAxes(env.Stdout, ss, m.Geometry == models.Axisymmetric)
 		}
 	},
 }

@@ -108,7 +108,7 @@ Newton converged in {{.Newton.Iterations}} step(s) to a relative residual of {{f
 Produced by polegap{{if not $.When.IsZero}} on {{$.When.Format "2006-01-02 15:04"}}{{end}}.</p>
 
 <h2>Field at the probes</h2>
-<table><tr><th>probe</th><th>kind</th><th>|B| (T)</th><th>By (T)</th><th>min |B| (T)</th><th>max |B| (T)</th></tr>
+<table><tr><th>probe</th><th>kind</th><th>|B| (T)</th><th>{{if eq .Geometry "axisymmetric"}}Bz{{else}}By{{end}} (T)</th><th>min |B| (T)</th><th>max |B| (T)</th></tr>
 {{range $name, $p := .Probes}}<tr><td>{{$name}}</td><td>{{$p.Kind}}</td>
 {{if not $p.Valid}}<td colspan="4">outside the mesh</td>{{else if $p.B}}<td>{{f "%.5f" (deref $p.B)}}</td><td>{{f "%.5f" (deref $p.By)}}</td><td></td><td></td>
 {{else}}<td>{{f "%.5f" (deref $p.BMean)}}</td><td>{{f "%.5f" (deref $p.ByMean)}}</td><td>{{f "%.5f" (deref $p.BMin)}}</td><td>{{f "%.5f" (deref $p.BMax)}}</td>{{end}}</tr>
