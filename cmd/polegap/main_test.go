@@ -298,9 +298,10 @@ func TestDocListsEveryCommand(t *testing.T) {
 	}
 }
 
-// TestProfile: the line profile's CSV has the documented columns and one
-// row per sample inside the mesh; at the gap centre it carries the field
-// the solve reports there (same field evaluation).
+// TestProfile: the line profile's CSV has the documented columns (r, z,
+// Br, Bz for this axisymmetric model) and one row per sample inside the
+// mesh; at the gap centre it carries the field the solve reports there
+// (same field evaluation).
 func TestProfile(t *testing.T) {
 	dir := t.TempDir()
 	csvPath, png := filepath.Join(dir, "p.csv"), filepath.Join(dir, "p.png")
@@ -317,7 +318,7 @@ func TestProfile(t *testing.T) {
 		t.Fatal(err)
 	}
 	lines := strings.Split(strings.TrimSpace(string(data)), "\n")
-	if lines[0] != "x_m,y_m,bx_T,by_T,b_T" || len(lines) != 12 {
+	if lines[0] != "r_m,z_m,br_T,bz_T,b_T" || len(lines) != 12 { // axisymmetric: x, y are r, z
 		t.Errorf("CSV header %q and %d rows, want the documented header and 11 rows", lines[0], len(lines)-1)
 	}
 	if st, err := os.Stat(png); err != nil || st.Size() == 0 {
