@@ -67,7 +67,7 @@ func NewCanvas(width, height vg.Length, format string, opts ...Options) (vg.Canv
 	case "svg":
 		return vgsvg.New(width, height), nil
 	case "pdf":
-		return vgpdf.New(width, height), nil
+		return pdfCanvas{vgpdf.New(width, height)}, nil
 	case "eps":
 		return vgeps.New(width, height), nil
 	}
