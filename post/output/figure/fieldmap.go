@@ -185,9 +185,8 @@ func num(v float64) string {
 	return strings.TrimRight(strings.TrimRight(fmt.Sprintf("%.4g", v), "0"), ".")
 }
 
-// regionLabels returns a label inside each region of the model (at the
-// centroid of the triangle nearest the region's area centroid, so that it
-// falls inside a C-shaped region too), with the current's direction for
+// regionLabels returns a label inside each region of the model (deep
+// inside it, near its area centroid), with the current's direction for
 // coil sides: ⊙ out of the drawing, ⊗ into it. The current density of a
 // planar coil runs along z, out of the page when positive; in an
 // axisymmetric one Jφ > 0 runs into the (r, z) page, (r, φ, z) being
@@ -211,19 +210,44 @@ func regionLabels(s *study.Result) []plot.Label {
 		sums[r].x += ar * cx
 		sums[r].y += ar * cy
 	}
+	// Each region's boundary edges (to a triangle of another region, or
+	// the domain's edge).
+	edges := make([][][4]float64, nr+1)
+	for t := 0; t < m.NumTriangles(); t++ {
+		r := int(m.Region[t])
+		if r < 1 || r > nr {
+			continue
+		}
+		for k := 0; k < 3; k++ {
+			if n := m.Nbr[3*t+k]; n >= 0 && m.Region[n] == m.Region[t] {
+				continue
+			}
+			a, b := m.Tri[3*t+(k+1)%3], m.Tri[3*t+(k+2)%3]
+			edges[r] = append(edges[r], [4]float64{m.X[a], m.Y[a], m.X[b], m.Y[b]})
+		}
+	}
+	// The label goes to the triangle deepest inside its region, near the
+	// area centroid: the largest distance to the region's boundary less a
+	// quarter of the distance to the centroid. The plain centroid falls
+	// outside a C-shaped region, and its nearest triangle on the edge.
 	best := make([]int, nr+1)
-	bestD := make([]float64, nr+1)
+	bestScore := make([]float64, nr+1)
 	for i := range best {
-		best[i], bestD[i] = -1, math.Inf(1)
+		best[i], bestScore[i] = -1, math.Inf(-1)
 	}
 	for t := 0; t < m.NumTriangles(); t++ {
 		r := int(m.Region[t])
 		if r < 1 || r > nr || sums[r].a == 0 {
 			continue
 		}
-		d := math.Hypot(cent[t][0]-sums[r].x/sums[r].a, cent[t][1]-sums[r].y/sums[r].a)
-		if d < bestD[r] {
-			best[r], bestD[r] = t, d
+		px, py := cent[t][0], cent[t][1]
+		inset := math.Inf(1)
+		for _, e := range edges[r] {
+			inset = math.Min(inset, segmentDistance(px, py, e))
+		}
+		score := inset - 0.25*math.Hypot(px-sums[r].x/sums[r].a, py-sums[r].y/sums[r].a)
+		if score > bestScore[r] {
+			best[r], bestScore[r] = t, score
 		}
 	}
 	sense := map[string]float64{}
@@ -377,3 +401,14 @@ func wholeWindow(s *study.Result) (x0, x1, y0, y1 float64) {
 
 // CM returns v centimetres.
 func CM(v float64) vg.Length { return vg.Length(v) * vg.Centimeter }
+
+// segmentDistance is the distance from (px, py) to the segment e.
+func segmentDistance(px, py float64, e [4]float64) float64 {
+	dx, dy := e[2]-e[0], e[3]-e[1]
+	l2 := dx*dx + dy*dy
+	t := 0.0
+	if l2 > 0 {
+		t = math.Max(0, math.Min(1, ((px-e[0])*dx+(py-e[1])*dy)/l2))
+	}
+	return math.Hypot(px-e[0]-t*dx, py-e[1]-t*dy)
+}
