@@ -4,11 +4,8 @@ import (
 	"flag"
 	"io"
 
-	"gonum.org/v1/plot/vg"
-
 	"polegap/internal/fileout"
 	"polegap/post/output/figure"
-	"polegap/post/output/plot"
 	"polegap/post/workflow/compare"
 )
 
@@ -47,7 +44,8 @@ points' error bars; --csv writes the residual table.`,
 		na.metresBefore = true
 		coilName := fs.String("coil", "", "the coil whose current was measured (default the first)")
 		probe := fs.String("probe", "", "the probe where the field was measured (default the target's)")
-		png := fs.String("png", "", "draw the comparison to this .png or .svg file")
+		png := fs.String("png", "", "draw the comparison and its residuals to this .png, .svg or .pdf file")
+		pf := addPictureFlags(fs, false)
 		csvOut := fs.String("csv", "", "write the residuals to this CSV file")
 		asJSON := fs.Bool("json", false, "print the result as JSON")
 		html := addHTMLFlag(fs, "compare")
@@ -84,11 +82,7 @@ points' error bars; --csv writes the residual table.`,
 				}
 			}
 			if *png != "" {
-				p, err := figure.Comparison(m.Name+": measured and predicted", out.Result, out.Fit)
-				if err != nil {
-					return err
-				}
-				if err := plot.Save(p, 16*vg.Centimeter, 11*vg.Centimeter, *png); err != nil {
+				if err := figure.DrawComparison(*png, m.Name+": measured and predicted", out.Result, out.Fit, pf.options()); err != nil {
 					return err
 				}
 			}

@@ -51,6 +51,11 @@ command: --tolerance, --vtu FILE for a VTK file, --png, --csv and --json
 for the other outputs. Older spellings still work but are no longer
 listed: --tol (solve --tolerance) and --out (mesh --vtu).
 
+Pictures: --png FILE writes a .png, .svg or .pdf (by the extension; the
+three look the same). A .png is 1600 pixels wide unless --dpi N sets its
+resolution. The field map (solve) and the mesh picture show the magnet
+with a margin; --whole-domain draws all of the meshed air.
+
 Ctrl-C stops a long-running command (solve, size, sweep, compare, check,
 demo, bench) at its next safe point, between two solves: it exits with
 status 1 (check: 2) and writes no result, except that an interrupted

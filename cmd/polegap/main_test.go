@@ -75,8 +75,8 @@ func TestExamplesRoundTrip(t *testing.T) {
 	}
 }
 
-// TestSolveJSON checks the keys that the JSON report promises (the field
-// values themselves are checked against physics in the solver and post
+// TestSolveJSON checks the keys that the JSON report promises, for an
+// axisymmetric model r, z, br, bz (the field values themselves are checked against physics in the solver and post
 // packages).
 func TestSolveJSON(t *testing.T) {
 	code, out, errs := runCmd(t, "solve", "--json", "calibration-solenoid")
@@ -104,7 +104,7 @@ func TestSolveJSON(t *testing.T) {
 			continue
 		}
 		found = true
-		for _, k := range []string{"a", "bx", "by", "b"} {
+		for _, k := range []string{"a", "br", "bz", "b"} { // axisymmetric: x, y are r, z
 			if _, ok := p[k]; !ok {
 				t.Errorf("point probe %s lacks %q", name, k)
 			}
@@ -299,9 +299,10 @@ func TestDocListsEveryCommand(t *testing.T) {
 	}
 }
 
-// TestProfile: the line profile's CSV has the documented columns and one
-// row per sample inside the mesh; at the gap centre it carries the field
-// the solve reports there (same field evaluation).
+// TestProfile: the line profile's CSV has the documented columns (r, z,
+// Br, Bz for this axisymmetric model) and one row per sample inside the
+// mesh; at the gap centre it carries the field the solve reports there
+// (same field evaluation).
 func TestProfile(t *testing.T) {
 	dir := t.TempDir()
 	csvPath, png := filepath.Join(dir, "p.csv"), filepath.Join(dir, "p.png")
@@ -318,7 +319,7 @@ func TestProfile(t *testing.T) {
 		t.Fatal(err)
 	}
 	lines := strings.Split(strings.TrimSpace(string(data)), "\n")
-	if lines[0] != "x_m,y_m,bx_T,by_T,b_T" || len(lines) != 12 {
+	if lines[0] != "r_m,z_m,br_T,bz_T,b_T" || len(lines) != 12 { // axisymmetric: x, y are r, z
 		t.Errorf("CSV header %q and %d rows, want the documented header and 11 rows", lines[0], len(lines)-1)
 	}
 	if st, err := os.Stat(png); err != nil || st.Size() == 0 {

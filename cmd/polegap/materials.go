@@ -19,7 +19,8 @@ each curve. With a NAME it prints that material and, for a B-H curve, B
 and the relative permeability at round values of H. With --png (or .svg)
 it draws B(H) and μr(B); several names separated by commas share the plot.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
-		png := fs.String("png", "", "draw B(H) and μr(B) to this .png or .svg file")
+		png := fs.String("png", "", "draw B(H) and μr(B) to this .png, .svg or .pdf file")
+		pf := addPictureFlags(fs, false)
 		return func(env *Env, args []string) error {
 			switch len(args) {
 			case 0:
@@ -44,7 +45,7 @@ it draws B(H) and μr(B); several names separated by commas share the plot.`,
 			if err != nil {
 				return err
 			}
-			return plot.SaveGrid([][]*gplot.Plot{{bh, mu}}, 24*vg.Centimeter, 10*vg.Centimeter, *png)
+			return plot.SaveGrid([][]*gplot.Plot{{bh, mu}}, 28*vg.Centimeter, 11*vg.Centimeter, *png, pf.options())
 		}
 	},
 }

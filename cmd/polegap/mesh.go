@@ -7,11 +7,9 @@ import (
 	"polegap/post/output/report"
 	"time"
 
-	"gonum.org/v1/plot/vg"
-
 	"polegap/internal/fileout"
 	"polegap/mesh"
-	"polegap/post/output/plot"
+	"polegap/post/output/figure"
 	"polegap/post/study"
 )
 
@@ -29,7 +27,8 @@ MODEL is a model file or the name of an embedded example.
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		out := fs.String("vtu", "", "write the mesh to this .vtu file")
 		alias(fs, "out", "vtu")
-		png := fs.String("png", "", "draw the mesh to this .png or .svg file")
+		png := fs.String("png", "", "draw the mesh to this .png, .svg or .pdf file")
+		pf := addPictureFlags(fs, true)
 		asJSON := fs.Bool("json", false, "print the statistics as JSON")
 		return func(env *Env, args []string) error {
 			m, err := modelArg(args)
@@ -51,7 +50,7 @@ MODEL is a model file or the name of an embedded example.
 				}
 			}
 			if *png != "" {
-				if err := drawMesh(*png, d); err != nil {
+				if err := figure.DrawMesh(*png, d, pf.wholeDomain(), pf.options()); err != nil {
 					return err
 				}
 			}
@@ -66,13 +65,6 @@ MODEL is a model file or the name of an embedded example.
 
 func writeMeshVTU(path string, d *study.Discretization) error {
 	return fileout.Write(path, func(w io.Writer) error { return mesh.WriteVTU(w, d.Mesh) })
-}
-
-func drawMesh(path string, d *study.Discretization) error {
-	m := d.Mesh
-	p := plot.MeshFigure(d.Model.Name+": mesh", m.X, m.Y, m.Tri, m.Region, d.RegionKind)
-	const width = 18 * vg.Centimeter
-	return plot.Save(p, width, plot.EqualAspectHeight(p, width), path)
 }
 
 // meshStats is the JSON form of the mesh statistics.

@@ -19,14 +19,16 @@ var cmdProfile = &Command{
 	Short:     "sample Bx, By and |B| along a line probe",
 	Long: `Profile solves the model and samples the flux density along a line
 probe (--probe, default the model's first line probe), writing the samples
-as CSV (x_m,y_m,bx_T,by_T,b_T; to standard output unless --csv names a
+as CSV (x_m,y_m,bx_T,by_T,b_T, or r_m,z_m,br_T,bz_T,b_T for an
+axisymmetric model; to standard output unless --csv names a
 file) and, with --png (or .svg), a plot of Bx, By and |B| against the
 distance along the line.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		probe := fs.String("probe", "", "the line probe to sample (default the first)")
 		samples := intFlag(fs, "samples", 0, count(2, 1000000), "number of samples (default the probe's)")
 		csvOut := fs.String("csv", "", "write the samples to this CSV file")
-		png := fs.String("png", "", "draw the profile to this .png or .svg file")
+		png := fs.String("png", "", "draw the profile to this .png, .svg or .pdf file")
+		pf := addPictureFlags(fs, false)
 		return func(env *Env, args []string) error {
 			m, err := modelArg(args)
 			if err != nil {
@@ -55,18 +57,18 @@ distance along the line.`,
 			}
 			ss := gap.ProfileTo(nil, s.Field(), p.Line[0], p.Line[1], n)
 			if *png != "" {
-				fig, err := figure.Profile(m.Name+": profile along "+p.Name, ss)
+				fig, err := figure.ProfileWith(m.Name+": profile along "+p.Name, ss, m.Geometry == models.Axisymmetric)
 				if err != nil {
 					return err
 				}
-				if err := plot.Save(fig, 16*vg.Centimeter, 10*vg.Centimeter, *png); err != nil {
+				if err := plot.Save(fig, 16*vg.Centimeter, 10*vg.Centimeter, *png, pf.options()); err != nil {
 					return err
 				}
 			}
 			if *csvOut != "" {
-				return fileout.Write(*csvOut, func(w io.Writer) error { return gap.WriteCSV(w, ss) })
+				return fileout.Write(*csvOut, func(w io.Writer) error { return gap.WriteCSVAxes(w, ss, m.Geometry == models.Axisymmetric) })
 			}
-			return gap.WriteCSV(env.Stdout, ss)
+			return gap.WriteCSVAxes(env.Stdout, ss, m.Geometry == models.Axisymmetric)
 		}
 	},
 }

@@ -67,7 +67,8 @@ with status 1; no result is reported for it.`,
 		tol := realFlag(fs, "tolerance", 1e-8, fraction, "relative residual at which Newton stops")
 		alias(fs, "tol", "tolerance")
 		maxIter := intFlag(fs, "max-iterations", 30, count(1, 10000), "limit on Newton steps")
-		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png or .svg file")
+		png := fs.String("png", "", "draw the field map (|B| and flux lines) to this .png, .svg or .pdf file")
+		pf := addPictureFlags(fs, true)
 		satLimit := quantity(fs, "saturation-limit", field, "flag iron regions whose peak |B| exceeds this (e.g. 1.8T)").in(positive)
 		af := addAccuracyFlags(fs)
 		allBounds := fs.Bool("energy-bounds", false, "bracket the co-energy by a complementary solve on a nonlinear model too (linear models always get the bounds)")
@@ -102,7 +103,7 @@ with status 1; no result is reported for it.`,
 				}
 			}
 			if *png != "" {
-				if err := figure.DrawField(s, *png); err != nil {
+				if err := figure.DrawFieldWith(s, *png, pf.options(), figure.FieldOptions{Report: r, Whole: pf.wholeDomain()}); err != nil {
 					return err
 				}
 			}

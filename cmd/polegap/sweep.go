@@ -9,13 +9,9 @@ import (
 	"strconv"
 	"strings"
 
-	gplot "gonum.org/v1/plot"
-	"gonum.org/v1/plot/vg"
-
 	"polegap/internal/fileout"
 	"polegap/models"
 	"polegap/post/output/figure"
-	"polegap/post/output/plot"
 	"polegap/post/study"
 	"polegap/post/workflow/design"
 	"polegap/post/workflow/sweep"
@@ -59,7 +55,8 @@ job array can run a long sweep in parallel; join the shards' tables with
 		gap := quantity(fs, "gap", length, "gap length for the ideal line and the efficiency (e.g. 40mm)").in(positive)
 		gap.metresBefore = true
 		csvOut := fs.String("csv", "", "write the table to this CSV file")
-		png := fs.String("png", "", "draw the curve to this .png or .svg file")
+		png := fs.String("png", "", "draw the curve to this .png, .svg or .pdf file")
+		pf := addPictureFlags(fs, false)
 		shard := fs.String("shard", "", "run shard K of N (e.g. 2/8)")
 		html := addHTMLFlag(fs, "sweep")
 		af := addAccuracyFlags(fs)
@@ -106,7 +103,7 @@ job array can run a long sweep in parallel; join the shards' tables with
 				return runErr
 			}
 			if *png != "" {
-				if err := drawSweep(*png, m.Name, pts, opt.GapLength); err != nil {
+				if err := figure.DrawExcitation(*png, m.Name, pts, opt.GapLength, figure.ModelMarks(m, opt.Coil, opt.Probe), pf.options()); err != nil {
 					return err
 				}
 			}
@@ -133,7 +130,8 @@ tables' index column, from 0. Merge reads no model, so --gap needs a
 unit (e.g. 40mm).`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		out := fs.String("csv", "", "write the merged table here (required)")
-		png := fs.String("png", "", "draw the merged curve to this .png or .svg file")
+		png := fs.String("png", "", "draw the merged curve to this .png, .svg or .pdf file")
+		pf := addPictureFlags(fs, false)
 		gap := quantity(fs, "gap", length, "gap length for the ideal line and the efficiency, with its unit (e.g. 40mm)").in(positive)
 		gap.needUnit = true
 		return func(env *Env, args []string) error {
@@ -169,26 +167,13 @@ unit (e.g. 40mm).`,
 				fmt.Fprintf(env.Stdout, "note: no table records the sweep's number of points (\"# points: N\", written by sweep --shard since this version): points missing after the last one present cannot be seen\n")
 			}
 			if *png != "" {
-				return drawSweep(*png, meta.Model, all, gap.SI(nil))
+				return figure.DrawExcitation(*png, meta.Model, all, gap.SI(nil), figure.ExcitationOptions{}, pf.options())
 			}
 			return nil
 		}
 	},
 }
 
-func drawSweep(path, name string, pts []sweep.Point, gap float64) error {
-	bp, ep, err := figure.Excitation(name, pts, gap)
-	if err != nil {
-		return err
-	}
-	row := []*gplot.Plot{bp}
-	width := 14 * vg.Centimeter
-	if ep != nil {
-		row = append(row, ep)
-		width = 26 * vg.Centimeter
-	}
-	return plot.SaveGrid([][]*gplot.Plot{row}, width, 10*vg.Centimeter, path)
-}
 
 // sweepCurrents builds the list of currents from the flags.
 func sweepCurrents(m *models.Model, coil string, from, to *quantityFlag, list *quantityList, n int) ([]float64, error) {

@@ -10,6 +10,12 @@ import (
 // Profile returns the plot of a line profile: Bx, By and |B| against
 // the distance along the line (mm). Samples outside the mesh are left out.
 func Profile(title string, ss []gap.Sample) (*gplot.Plot, error) {
+	return ProfileWith(title, ss, false)
+}
+
+// ProfileWith is Profile for a planar (x, y) or an axisymmetric (r, z)
+// model: the components are named Br and Bz in the second case.
+func ProfileWith(title string, ss []gap.Sample, axisymmetric bool) (*gplot.Plot, error) {
 	var s, bx, by, b []float64
 	for _, v := range ss {
 		if !v.Inside {
@@ -20,8 +26,12 @@ func Profile(title string, ss []gap.Sample) (*gplot.Plot, error) {
 		by = append(by, v.By)
 		b = append(b, v.B())
 	}
+	nx, ny := "Bx", "By"
+	if axisymmetric {
+		nx, ny = "Br", "Bz"
+	}
 	return plot.LineFigure(title, "distance along the line (mm)", "flux density (T)",
 		plot.Series{Name: "|B|", X: s, Y: b},
-		plot.Series{Name: "By", X: s, Y: by, Dashed: true},
-		plot.Series{Name: "Bx", X: s, Y: bx, Dashed: true})
+		plot.Series{Name: ny, X: s, Y: by, Dashed: true},
+		plot.Series{Name: nx, X: s, Y: bx, Dashed: true})
 }

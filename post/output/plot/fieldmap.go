@@ -1,13 +1,11 @@
 package plot
 
 import (
+	"fmt"
 	"image/color"
 	"math"
-	"sort"
 
 	"gonum.org/v1/plot"
-	"gonum.org/v1/plot/palette"
-	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 )
@@ -37,13 +35,16 @@ func (l *Isolines) Plot(c draw.Canvas, p *plot.Plot) {
 func (l *Isolines) Segments() [][4]float64 {
 	var out [][4]float64
 	levels := append([]float64(nil), l.Levels...)
-	sort.Float64s(levels)
+	sortBy(levels, func(a, b float64) bool { return a < b })
 	for t := 0; t < len(l.Tri)/3; t++ {
 		n := [3]int32{l.Tri[3*t], l.Tri[3*t+1], l.Tri[3*t+2]}
 		v := [3]float64{l.Value[n[0]], l.Value[n[1]], l.Value[n[2]]}
 		lo := math.Min(v[0], math.Min(v[1], v[2]))
 		hi := math.Max(v[0], math.Max(v[1], v[2]))
-		i := sort.SearchFloat64s(levels, lo)
+		i := 0
+		for i < len(levels) && levels[i] < lo {
+			i++
+		}
 		for ; i < len(levels) && levels[i] <= hi; i++ {
 			lev := levels[i]
 			var pts [][2]float64
@@ -76,10 +77,7 @@ func (l *Isolines) DataRange() (xmin, xmax, ymin, ymax float64) {
 // EvenLevels returns n levels evenly spaced strictly inside the range of
 // v (flux lines at equal flux steps).
 func EvenLevels(v []float64, n int) []float64 {
-	lo, hi := math.Inf(1), math.Inf(-1)
-	for _, x := range v {
-		lo, hi = math.Min(lo, x), math.Max(hi, x)
-	}
+	lo, hi := valueRange(v)
 	if !(hi > lo) || n < 1 {
 		return nil
 	}
@@ -90,54 +88,115 @@ func EvenLevels(v []float64, n int) []float64 {
 	return out
 }
 
-// FieldMap returns a plot of the flux density magnitude (one value per
-// triangle, tesla) as filled triangles over a colour scale from 0 to bmax,
-// with flux lines drawn as isolines of potential (one value per corner
-// node). Lengths are drawn in millimetres. The colour bar is returned as a
-// second plot, to be placed beside the map with SaveGrid.
-func FieldMap(title string, x, y []float64, tri []int32, bmag []float64, potential []float64, lines int) (*plot.Plot, *plot.Plot) {
-	xs, ys := scaled(x, 1e3), scaled(y, 1e3)
-	bmax := 0.0
-	for _, b := range bmag {
-		if !math.IsNaN(b) && !math.IsInf(b, 0) {
-			bmax = math.Max(bmax, b)
+// StepLevels returns the levels at the multiples of a nice step (1, 2 or
+// 5 × 10ⁿ, NiceStep) that give about n levels strictly inside the range of
+// v, and the step: flux lines at equal flux steps of a round size, so that
+// the caption can state the flux between two lines.
+func StepLevels(v []float64, n int) ([]float64, float64) {
+	lo, hi := valueRange(v)
+	if !(hi > lo) || n < 1 {
+		return nil, 0
+	}
+	step := NiceStep(hi-lo, n)
+	var out []float64
+	for k := math.Floor(lo/step) + 1; k*step < hi; k++ {
+		if k*step > lo {
+			out = append(out, k*step)
 		}
 	}
-	if bmax == 0 {
-		bmax = 1
+	return out, step
+}
+
+func valueRange(v []float64) (lo, hi float64) {
+	lo, hi = math.Inf(1), math.Inf(-1)
+	for _, x := range v {
+		if !math.IsNaN(x) {
+			lo, hi = math.Min(lo, x), math.Max(hi, x)
+		}
 	}
-	cm := NewFieldScale(0, bmax)
-	t := NewTriangles(xs, ys, tri)
-	t.Edge.Width = 0
-	t.Fill = make([]color.Color, len(bmag))
-	for i, b := range bmag {
-		t.Fill[i] = colourAt(cm, b)
+	return lo, hi
+}
+
+// FieldMapInput is what FieldMap draws. Lengths are in metres and drawn in
+// millimetres; fields in tesla.
+type FieldMapInput struct {
+	Title          string
+	XLabel, YLabel string // axis names without unit ("x", "r"); "x" and "y" when empty
+	Caption        string // printed under the title, lines separated by "\n"
+	X, Y           []float64
+	Tri            []int32
+	// Corner holds |B| at the three corners of each triangle
+	// (CornerAverage); NaN leaves a triangle out.
+	Corner []float64
+	// Potential (per node) and Levels give the flux lines; nil draws none.
+	Potential []float64
+	Levels    []float64
+	// Top is the top of the colour scale (T); values above it are drawn
+	// in OverColour and a box of that colour sits above the bar. 0 takes
+	// the largest corner value.
+	Top float64
+}
+
+// FieldMap returns the field map (the |B| raster with flux lines) and its
+// colour bar, to be placed beside the map with RenderRow.
+func FieldMap(in FieldMapInput) (*plot.Plot, *plot.Plot) {
+	xs, ys := scaled(in.X, 1e3), scaled(in.Y, 1e3)
+	_, bmax := valueRange(in.Corner)
+	top := in.Top
+	if !(top > 0) {
+		top = bmax
 	}
+	if !(top > 0) || math.IsInf(top, 0) {
+		top = 1
+	}
+	cm := NewFieldScale(0, top)
 	p := plot.New()
-	p.Title.Text = title
-	p.X.Label.Text = "x (mm)"
-	p.Y.Label.Text = "y (mm)"
-	p.Add(t)
-	if lines > 0 && potential != nil {
-		p.Add(&Isolines{X: xs, Y: ys, Tri: tri, Value: potential, Levels: EvenLevels(potential, lines),
-			Line: draw.LineStyle{Color: color.Gray{Y: 20}, Width: vg.Points(0.5)}})
+	p.Title.Text = in.Title
+	if in.Caption != "" {
+		// In the title, not under the x axis: gonum narrows the plot to
+		// fit a wide axis label.
+		p.Title.Text += "\n" + in.Caption
+	}
+	xl, yl := in.XLabel, in.YLabel
+	if xl == "" {
+		xl, yl = "x", "y"
+	}
+	p.X.Label.Text = xl + " (mm)"
+	p.Y.Label.Text = yl + " (mm)"
+	p.X.Tick.Marker = NiceTicks{N: 6}
+	p.Y.Tick.Marker = NiceTicks{N: 6}
+	p.Add(&FieldRaster{X: xs, Y: ys, Tri: in.Tri, Corner: in.Corner, Scale: cm})
+	if len(in.Levels) > 0 && in.Potential != nil {
+		p.Add(&Isolines{X: xs, Y: ys, Tri: in.Tri, Value: in.Potential, Levels: in.Levels,
+			Line: draw.LineStyle{Color: color.Gray{Y: 25}, Width: vg.Points(0.45)}})
 	}
 	bar := plot.New()
 	bar.Title.Text = "|B| (T)"
-	cb := &plotter.ColorBar{ColorMap: cm, Vertical: true}
-	bar.Add(cb)
+	sb := &ScaleBar{Scale: cm}
+	if bmax > top*(1+1e-9) {
+		sb.Over = OverColour
+		bar.Title.Text = fmt.Sprintf("|B| (T)\nabove %.2f:\nmagenta", top)
+	}
+	bar.Add(sb)
 	bar.HideX()
+	bar.X.Min, bar.X.Max = -0.15, 1.6 // the bar takes 60 % of its panel
+	bar.Y.Tick.Marker = barTicks{NiceTicks{N: 8}, top}
 	return p, bar
 }
 
-func colourAt(cm palette.ColorMap, v float64) color.Color {
-	if math.IsNaN(v) {
-		return color.Black
+// barTicks are a colour bar's ticks: none above the top of the scale,
+// where the over box sits.
+type barTicks struct {
+	NiceTicks
+	top float64
+}
+
+func (b barTicks) Ticks(min, max float64) []plot.Tick {
+	var out []plot.Tick
+	for _, t := range b.NiceTicks.Ticks(min, b.top) {
+		if t.Value <= b.top*(1+1e-9) {
+			out = append(out, t)
+		}
 	}
-	v = math.Max(cm.Min(), math.Min(cm.Max(), v))
-	c, err := cm.At(v)
-	if err != nil {
-		return color.Black
-	}
-	return c
+	return out
 }

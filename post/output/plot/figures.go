@@ -7,6 +7,7 @@ import (
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
 )
 
 // RegionColour is the fill colour of a region kind in mesh figures: air
@@ -42,8 +43,41 @@ func MeshFigure(title string, x, y []float64, tri, region []int32, kindOf func(i
 	p.Title.Text = title
 	p.X.Label.Text = "x (mm)"
 	p.Y.Label.Text = "y (mm)"
+	p.X.Tick.Marker = NiceTicks{N: 6}
+	p.Y.Tick.Marker = NiceTicks{N: 6}
 	p.Add(t)
+	// A legend entry per kind present, in a fixed order.
+	present := map[study.RegionKind]bool{}
+	for i := range t.Fill {
+		present[kindOf(region[i])] = true
+	}
+	for _, k := range []struct {
+		kind study.RegionKind
+		name string
+	}{{study.KindIron, "iron"}, {study.KindCoil, "coil"}, {study.KindMagnet, "magnet"}, {study.KindAir, "air"}} {
+		if present[k.kind] {
+			p.Legend.Add(k.name, swatch{RegionColour(k.kind)})
+		}
+	}
+	p.Legend.Top = true
 	return p
+}
+
+// AxisNames renames a figure's axes r and z for an axisymmetric model.
+func AxisNames(p *plot.Plot, axisymmetric bool) {
+	if axisymmetric {
+		p.X.Label.Text = "r (mm)"
+		p.Y.Label.Text = "z (mm)"
+	}
+}
+
+// swatch is a legend thumbnail: a square of one colour with a grey edge.
+type swatch struct{ c color.Color }
+
+func (s swatch) Thumbnail(c *draw.Canvas) {
+	pts := []vg.Point{{X: c.Min.X, Y: c.Min.Y}, {X: c.Max.X, Y: c.Min.Y}, {X: c.Max.X, Y: c.Max.Y}, {X: c.Min.X, Y: c.Max.Y}}
+	c.FillPolygon(s.c, pts)
+	c.StrokeLines(draw.LineStyle{Color: color.Gray{Y: 90}, Width: vg.Points(0.5)}, append(pts, pts[0]))
 }
 
 // EqualAspectHeight returns the figure height that gives p's data equal

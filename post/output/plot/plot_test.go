@@ -59,7 +59,8 @@ func TestOutlineEachEdgeOnce(t *testing.T) {
 }
 
 func TestFieldMapSaves(t *testing.T) {
-	p, bar := FieldMap("test", sqX, sqY, sqTri, []float64{0.5, 1}, []float64{0, 1, 1, 0}, 5)
+	p, bar := FieldMap(FieldMapInput{Title: "test", X: sqX, Y: sqY, Tri: sqTri, Corner: []float64{0.5, 0.5, 0.5, 1, 1, 1},
+		Potential: []float64{0, 1, 1, 0}, Levels: EvenLevels([]float64{0, 1}, 5), Top: 0.9})
 	dir := t.TempDir()
 	for _, name := range []string{"f.png", "f.svg"} {
 		path := filepath.Join(dir, name)
@@ -72,35 +73,5 @@ func TestFieldMapSaves(t *testing.T) {
 	}
 	if err := Save(p, 10*vg.Centimeter, 10*vg.Centimeter, filepath.Join(dir, "f.bmp")); err == nil {
 		t.Error("an unknown extension should be an error")
-	}
-}
-
-// TestFieldScaleLightness: the scale's lightness rises monotonically, the
-// property that makes it read correctly in grey (CIE L* from sRGB per
-// IEC 61966-2-1 and CIE 15:2004).
-func TestFieldScaleLightness(t *testing.T) {
-	s := NewFieldScale(0, 1)
-	prev := -1.0
-	for i := 0; i <= 50; i++ {
-		c, err := s.At(float64(i) / 50)
-		if err != nil {
-			t.Fatal(err)
-		}
-		r, g, b, _ := c.RGBA()
-		lin := func(v uint32) float64 {
-			x := float64(v) / 65535
-			if x <= 0.04045 {
-				return x / 12.92
-			}
-			return math.Pow((x+0.055)/1.055, 2.4)
-		}
-		y := 0.2126*lin(r) + 0.7152*lin(g) + 0.0722*lin(b)
-		if y <= prev {
-			t.Fatalf("luminance falls at %d/50: %g after %g", i, y, prev)
-		}
-		prev = y
-	}
-	if _, err := s.At(math.NaN()); err == nil {
-		t.Error("NaN should have no colour")
 	}
 }

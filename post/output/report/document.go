@@ -172,7 +172,7 @@ func (d *Document) AddCheck(c *check.Check) error {
 // error estimate per point, and its picture (the ideal line μ0·NI/g and
 // the efficiency when gap > 0), under one heading.
 func (d *Document) AddSweep(name string, pts []sweep.Point, gap float64, accuracy string) error {
-	img, err := excitationImage(name, pts, gap)
+	img, err := excitationImage(name, pts, gap, figure.ExcitationOptions{})
 	if err != nil {
 		return err
 	}

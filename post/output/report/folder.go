@@ -24,7 +24,7 @@ import (
 // with the run's results for the HTML report.
 func NewBundle(r *demo.Run) (*Bundle, error) {
 	b := &Bundle{Report: r.Report, Check: r.Check, Sweep: r.Sweep, Sizing: r.Sizing, When: r.When, Estimates: estimateRows(r.Report)}
-	img, err := figure.FieldImage(r.Result, "png")
+	img, err := figure.FieldImage(r.Result, "png", figure.FieldOptions{Report: r.Report})
 	if err != nil {
 		return nil, err
 	}
@@ -33,7 +33,7 @@ func NewBundle(r *demo.Run) (*Bundle, error) {
 		return nil, err
 	}
 	if len(r.Sweep) > 0 {
-		img, err := excitationImage(r.Result.Model.Name, r.Sweep, r.Result.Model.Gap)
+		img, err := excitationImage(r.Result.Model.Name, r.Sweep, r.Result.Model.Gap, figure.ModelMarks(r.Result.Model, "", ""))
 		if err != nil {
 			return nil, err
 		}
@@ -42,8 +42,8 @@ func NewBundle(r *demo.Run) (*Bundle, error) {
 	return b, nil
 }
 
-func excitationImage(name string, pts []sweep.Point, gap float64) ([]byte, error) {
-	bp, ep, err := figure.Excitation(name, pts, gap)
+func excitationImage(name string, pts []sweep.Point, gap float64, marks figure.ExcitationOptions) ([]byte, error) {
+	bp, ep, err := figure.ExcitationWith(name, pts, gap, marks)
 	if err != nil {
 		return nil, err
 	}
@@ -105,9 +105,7 @@ func WriteFolder(dir string, r *demo.Run, b *Bundle) ([]string, error) {
 			return nil, err
 		}
 	}
-	m := s.Disc.Mesh
-	mp := plot.MeshFigure(s.Model.Name+": mesh", m.X, m.Y, m.Tri, m.Region, s.Disc.RegionKind)
-	mp.X.Min, mp.X.Max, mp.Y.Min, mp.Y.Max = figure.Zoom(s)
+	mp := figure.Mesh(s.Disc, false)
 	names = append(names, "mesh.png")
 	if err := plot.Save(mp, figure.CM(18), plot.EqualAspectHeight(mp, figure.CM(18)), filepath.Join(dir, "mesh.png")); err != nil {
 		return nil, err

@@ -153,7 +153,7 @@ var funcs = template.FuncMap{
 // sections holds one template per kind of section; Document's Add
 // methods execute them into a Section's body.
 var sections = template.Must(template.New("sections").Funcs(funcs).Parse(`
-{{define "probes"}}<table><tr><th>probe</th><th>kind</th><th>|B| (T)</th><th>By (T)</th><th>min |B| (T)</th><th>max |B| (T)</th></tr>
+{{define "probes"}}<table><tr><th>probe</th><th>kind</th><th>|B| (T)</th><th>{{if eq .Geometry "axisymmetric"}}Bz{{else}}By{{end}} (T)</th><th>min |B| (T)</th><th>max |B| (T)</th></tr>
 {{range $name, $p := .Probes}}<tr><td>{{$name}}</td><td>{{$p.Kind}}</td>
 {{if not $p.Valid}}<td colspan="4">outside the mesh</td>{{else if $p.B}}<td>{{f "%.5f" (deref $p.B)}}</td><td>{{f "%.5f" (deref $p.By)}}</td><td></td><td></td>
 {{else}}<td>{{f "%.5f" (deref $p.BMean)}}</td><td>{{f "%.5f" (deref $p.ByMean)}}</td><td>{{f "%.5f" (deref $p.BMin)}}</td><td>{{f "%.5f" (deref $p.BMax)}}</td>{{end}}</tr>

@@ -25,7 +25,11 @@ func WriteText(w io.Writer, r *design.Report) error {
 		sort.Strings(names)
 	}
 	if len(names) > 0 {
-		ew.printf("\n%-16s %-6s %10s %10s %10s %10s\n", "probe", "kind", "|B| (T)", "By (T)", "min |B|", "max |B|")
+		comp := "By (T)"
+		if r.Geometry == "axisymmetric" {
+			comp = "Bz (T)" // x, y are r, z
+		}
+		ew.printf("\n%-16s %-6s %10s %10s %10s %10s\n", "probe", "kind", "|B| (T)", comp, "min |B|", "max |B|")
 	}
 	for _, n := range names {
 		p := r.Probes[n]

@@ -94,6 +94,19 @@ func ExampleWriteCSV() {
 	// flux 0.0160 Wb/m
 }
 
+// The same profile read as an axisymmetric model's (x, y are r, z): the
+// header names r, z, Br and Bz.
+func ExampleWriteCSVAxes() {
+	ss := gap.ProfileTo(nil, uniformField(0.8), [2]float64{0, 0.01}, [2]float64{0.02, 0.01}, 2)
+	if err := gap.WriteCSVAxes(os.Stdout, ss, true); err != nil {
+		fmt.Println(err)
+	}
+	// Output:
+	// r_m,z_m,br_T,bz_T,b_T
+	// 0,0.01,0,0.8,0.8
+	// 0.02,0.01,0,0.8,0.8
+}
+
 type uniformField float64
 
 func (b uniformField) At(x, y float64) (a, bx, by float64, ok bool) {

@@ -117,9 +117,17 @@ func ProfileTo(dst []Sample, f Field, p, q [2]float64, n int) []Sample {
 // shortest form that reads back exactly. Samples outside the mesh are left
 // out. It returns the first error of w. Writing to a temporary file and
 // renaming it (atomic output) is the caller's business.
-func WriteCSV(w io.Writer, ss []Sample) error {
+func WriteCSV(w io.Writer, ss []Sample) error { return WriteCSVAxes(w, ss, false) }
+
+// WriteCSVAxes is WriteCSV for a planar or an axisymmetric model; for the
+// second the header is r_m,z_m,br_T,bz_T,b_T (x, y are r, z).
+func WriteCSVAxes(w io.Writer, ss []Sample, axisymmetric bool) error {
 	bw := bufio.NewWriter(w)
-	bw.WriteString("x_m,y_m,bx_T,by_T,b_T\n")
+	if axisymmetric {
+		bw.WriteString("r_m,z_m,br_T,bz_T,b_T\n")
+	} else {
+		bw.WriteString("x_m,y_m,bx_T,by_T,b_T\n")
+	}
 	var buf []byte
 	for _, s := range ss {
 		if !s.Inside {

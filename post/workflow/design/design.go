@@ -671,6 +671,7 @@ func curveSource(c *materials.Curve) SatReport {
 	}
 	return SatReport{Source: "the model's own B-H data"}
 }
+
 // saturationKey keys the saturation analysis of a result (study.Result.Memo).
 type saturationKey struct{ limit float64 }
 

@@ -1,6 +1,7 @@
 package design
 
 import (
+	"encoding/json"
 	"fmt"
 	"math"
 	"polegap/post/workflow/caution"
@@ -8,6 +9,7 @@ import (
 	"time"
 
 	"polegap/internal/num"
+	"polegap/models"
 	"polegap/post/study"
 	"polegap/post/study/probes"
 )
@@ -82,6 +84,8 @@ type Probe struct {
 	// Bx, By are then the side of the lowest permeability (usually air:
 	// what a Hall probe there reads), and each side is listed.
 	Sides []ProbeSide `json:"interface_sides,omitempty"`
+
+	axi bool // axisymmetric model: JSON names r, z, br, bz (MarshalJSON)
 }
 
 // ProbeSide is the field of one region at a point probe on an interface.
@@ -92,6 +96,8 @@ type ProbeSide struct {
 	By       float64 `json:"by"`
 	B        float64 `json:"b"`
 	Reported bool    `json:"reported"` // the side the probe's value is
+
+	axi bool // axisymmetric model: JSON names br, bz
 }
 
 func ptr(v float64) *float64 { return &v }
@@ -130,7 +136,8 @@ func New(s *study.Result, opt DesignOptions) *Report {
 }
 
 func probe(p probes.Result, disc *study.Discretization) Probe {
-	out := Probe{Kind: p.Kind, Valid: p.Valid}
+	axi := disc.Model.Geometry == models.Axisymmetric
+	out := Probe{Kind: p.Kind, Valid: p.Valid, axi: axi}
 	if p.Kind == "point" {
 		s := p.Point
 		out.X, out.Y = ptr(s.X), ptr(s.Y)
@@ -141,7 +148,7 @@ func probe(p probes.Result, disc *study.Discretization) Probe {
 			k := probes.Reported(p.Sides)
 			for i, sd := range p.Sides {
 				out.Sides = append(out.Sides, ProbeSide{Region: disc.RegionName(sd.Region), MuR: 1 / (sd.Nu * num.Mu0),
-					Bx: sd.Bx, By: sd.By, B: math.Hypot(sd.Bx, sd.By), Reported: i == k})
+					Bx: sd.Bx, By: sd.By, B: math.Hypot(sd.Bx, sd.By), Reported: i == k, axi: axi})
 			}
 		}
 		return out
@@ -171,3 +178,52 @@ func interfaceNote(name string, sides []ProbeSide) string {
 
 // Order returns the probe names in the model's order.
 func (r *Report) Order() []string { return r.order }
+
+// MarshalJSON writes the probe with the coordinates and components named
+// after the model's geometry: x, y, bx, by, by_mean for a planar model;
+// r, z, br, bz, bz_mean for an axisymmetric one (x = r, y = z).
+func (p Probe) MarshalJSON() ([]byte, error) {
+	type plain Probe
+	if !p.axi {
+		return json.Marshal(plain(p))
+	}
+	return json.Marshal(struct {
+		Kind       string      `json:"kind"`
+		Valid      bool        `json:"inside_mesh"`
+		R          *float64    `json:"r,omitempty"`
+		Z          *float64    `json:"z,omitempty"`
+		A          *float64    `json:"a,omitempty"`
+		Br         *float64    `json:"br,omitempty"`
+		Bz         *float64    `json:"bz,omitempty"`
+		B          *float64    `json:"b,omitempty"`
+		Samples    int         `json:"samples,omitempty"`
+		Outside    int         `json:"outside,omitempty"`
+		BMean      *float64    `json:"b_mean,omitempty"`
+		BMin       *float64    `json:"b_min,omitempty"`
+		BMax       *float64    `json:"b_max,omitempty"`
+		BzMean     *float64    `json:"bz_mean,omitempty"`
+		Uniformity *float64    `json:"uniformity,omitempty"`
+		Sides      []ProbeSide `json:"interface_sides,omitempty"`
+	}{p.Kind, p.Valid, p.X, p.Y, p.A, p.Bx, p.By, p.B, p.Samples, p.Outside, p.BMean, p.BMin, p.BMax, p.ByMean, p.Uniformity, p.Sides})
+}
+
+// MarshalJSON writes the side with its components named after the model's
+// geometry (bx, by or br, bz).
+func (s ProbeSide) MarshalJSON() ([]byte, error) {
+	type plain ProbeSide
+	if !s.axi {
+		return json.Marshal(plain(s))
+	}
+	return json.Marshal(struct {
+		Region   string  `json:"region"`
+		MuR      float64 `json:"mu_r"`
+		Br       float64 `json:"br"`
+		Bz       float64 `json:"bz"`
+		B        float64 `json:"b"`
+		Reported bool    `json:"reported"`
+	}{s.Region, s.MuR, s.Bx, s.By, s.B, s.Reported})
+}
+
+// Axisymmetric reports whether the probe belongs to an axisymmetric model,
+// whose x and y are r and z.
+func (p Probe) Axisymmetric() bool { return p.axi }
