@@ -44,6 +44,9 @@ type SolveOptions struct {
 	Marking  adapt.Marking
 	Solver   solver.Options
 	Progress func(adapt.Round)
+	// Params are the parameter values of every solve (the zero value:
+	// the model's own).
+	Params study.Params
 }
 
 // SolveAccurate solves m to the accuracy asked for (Converge, or with
@@ -56,7 +59,7 @@ func SolveAccurate(ctx context.Context, m *models.Model, opt SolveOptions) (fine
 		if so.Context == nil {
 			so.Context = ctx
 		}
-		s, err := study.Run(m, study.Options{Solver: so})
+		s, err := study.Run(m, study.Options{Solver: so, Params: opt.Params})
 		if err != nil {
 			return nil, nil, nil, err
 		}
@@ -73,7 +76,7 @@ func SolveAccurate(ctx context.Context, m *models.Model, opt SolveOptions) (fine
 		Accuracy:   target,
 		Marking:    opt.Marking,
 		Quantities: StopQuantities,
-		Study:      study.Options{Solver: opt.Solver},
+		Study:      study.Options{Solver: opt.Solver, Params: opt.Params},
 		Progress:   opt.Progress,
 	})
 	if err != nil {
