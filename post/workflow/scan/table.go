@@ -203,13 +203,13 @@ func Merge(tables []Meta, rows [][]Row) (Meta, []Row, []int, error) {
 
 // jsonRow is a row in the JSON table: NaN becomes null.
 type jsonRow struct {
-	Index     int                 `json:"index"`
-	Values    map[string]string   `json:"parameters"`
-	Q         map[string]*float64 `json:"quantities"`
-	Est       map[string]*float64 `json:"estimates"`
-	Reached   bool                `json:"accuracy_reached"`
-	Winding   string              `json:"winding,omitempty"`
-	Err       string              `json:"error,omitempty"`
+	Index   int                 `json:"index"`
+	Values  map[string]string   `json:"parameters"`
+	Q       map[string]*float64 `json:"quantities"`
+	Est     map[string]*float64 `json:"estimates"`
+	Reached bool                `json:"accuracy_reached"`
+	Winding string              `json:"winding,omitempty"`
+	Err     string              `json:"error,omitempty"`
 }
 
 // WriteJSON writes the table as one JSON object: the meta block and the
