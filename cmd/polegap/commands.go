@@ -17,6 +17,7 @@ var commands = []*Command{
 	cmdSize,
 	cmdSweep,
 	cmdMerge,
+	cmdScan,
 	cmdCheck,
 	cmdCompare,
 	cmdSearchCoil,

@@ -14,7 +14,8 @@ The commands are:
 	solve      solve a model and print the field and design quantities
 	size       find the ampere-turns for a target field and a coil that delivers them
 	sweep      compute the excitation curve: gap field against ampere-turns
-	merge      join the tables of a sharded sweep
+	merge      join the tables of a sharded sweep or scan
+	scan       solve many variants of a design and tabulate their design quantities
 	profile    sample Bx, By and |B| along a line probe
 	compare    compare a measured excitation curve with the prediction, and calibrate
 	searchcoil predict a search coil's flux linkage, to compare with an integrator reading
@@ -49,9 +50,10 @@ for the other outputs. Older spellings still work but are no longer
 listed: --tol (solve --tolerance) and --out (mesh --vtu).
 
 Ctrl-C stops a long-running command (solve, size, sweep, compare, check,
-demo, bench) at its next safe point, between two solves: it exits with
-status 1 (check: 2) and writes no result, except that an interrupted
-sweep keeps its finished points in its --csv table, marked partial. A
+demo, bench, scan) at its next safe point, between two solves: it exits
+with status 1 (check: 2) and writes no result, except that an interrupted
+sweep or scan keeps its finished points or variants in its --csv table,
+marked partial. A
 single solve cannot be stopped half-way: the command stops when it
 ends. A second Ctrl-C ends polegap at once.
 

@@ -109,9 +109,10 @@ job array can run a long sweep in parallel; join the shards' tables with
 
 var cmdMerge = &Command{
 	UsageLine: "merge --csv OUT [--png FILE] [--gap LENGTH] SHARD.csv...",
-	Short:     "join the tables of a sharded sweep",
-	Long: `Merge reads the CSV tables written by 'polegap sweep --shard K/N' and
-writes one table with every point in order. It refuses tables of
+	Short:     "join the tables of a sharded sweep or scan",
+	Long: `Merge reads the CSV tables written by 'polegap sweep --shard K/N' (or
+'polegap scan --shard K/N') and writes one table with every point (or
+variant) in order. It refuses tables of
 different models or probes and points present twice, and marks the result
 partial (listing what is missing) when points are missing. Merge reads no
 model, so --gap needs a unit (e.g. 40mm).`,
@@ -123,6 +124,9 @@ model, so --gap needs a unit (e.g. 40mm).`,
 		return func(env *Env, args []string) error {
 			if *out == "" || len(args) == 0 {
 				return usagef("merge needs --csv OUT and at least one shard table")
+			}
+			if isScanTable(args[0]) {
+				return mergeScan(env, *out, args)
 			}
 			var metas []sweep.Meta
 			var pts [][]sweep.Point

@@ -14,7 +14,7 @@ import (
 func Column(meta Meta, rows []Row, name string) ([]float64, error) {
 	out := make([]float64, len(rows))
 	for k, q := range Quantities {
-		if name == q || name == estimateName(q) {
+		if name == q || name == EstimateName(q) {
 			for i, r := range rows {
 				out[i] = r.Q[k]
 				if name != q {

@@ -5,11 +5,13 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 
 	"polegap/materials"
 	"polegap/models"
+	"polegap/post/quantity/gap"
 	"polegap/post/study"
 	"polegap/post/workflow/coil"
 	"polegap/post/workflow/design"
@@ -84,7 +86,8 @@ type Row struct {
 	Index  int      // position in the full list of variants (0-based)
 	Values []string // the parameters' values, as in Options.Params
 	// Q are the quantities (Quantities order; NaN when not computed) and
-	// Est their error estimates (absolute; 0 when exact or not estimated).
+	// Est their error estimates (absolute; 0 when exact, as the masses;
+	// NaN when not estimated, as in quick mode).
 	Q, Est [numQuantities]float64
 	// Reached is true when the solve met its accuracy (false in quick mode).
 	Reached bool
@@ -144,6 +147,9 @@ func (opt *Options) check() error {
 		if len(v) != len(opt.Params) {
 			return fmt.Errorf("scan: variant %d has %d values for %d parameters", i+1, len(v), len(opt.Params))
 		}
+	}
+	if opt.Tol != 0 && !slices.Contains(gap.DefaultTolerances, opt.Tol) {
+		return fmt.Errorf("scan: the good-field tolerance %g is not one the design report measures (%v)", opt.Tol, gap.DefaultTolerances)
 	}
 	seen := map[string]bool{}
 	for _, p := range opt.Params {
@@ -271,8 +277,19 @@ func (r *Row) evaluate(ctx context.Context, src Source, opt Options) error {
 		return err
 	}
 	r.Reached = acc.Reached
+	if coarse == nil { // quick mode: nothing estimated (the masses are exact)
+		for k := range r.Est {
+			r.Est[k] = math.NaN()
+		}
+		r.Est[IronMass], r.Est[CopperMass] = 0, 0
+	}
 	rep := design.NewEstimated(fine, coarse, acc, design.DesignOptions{StressOnly: true, NoPoleForce: true})
-	est := func(path string) float64 { e, _ := rep.Est(path); return e }
+	est := func(path string) float64 {
+		if e, ok := rep.Est(path); ok {
+			return e
+		}
+		return math.NaN()
+	}
 	if rep.Gap != nil {
 		r.Q[B0], r.Est[B0] = rep.Gap.CentreB, est("gap.centre_B_T")
 	}
@@ -310,7 +327,10 @@ func (r *Row) evaluate(ctx context.Context, src Source, opt Options) error {
 		}
 	}
 	ni := fine.Params.TurnsOf(m, ci) * fine.Params.Current(m, ci)
-	niEst := 0.0
+	niEst := 0.0 // the model's own ampere-turns are exact
+	if coarse == nil {
+		niEst = math.NaN()
+	}
 	if bt := opt.Target; !opt.NoTarget && (bt > 0 || m.Target != nil) {
 		probe := m.MainProbe()
 		if bt == 0 {
@@ -327,6 +347,7 @@ func (r *Row) evaluate(ctx context.Context, src Source, opt Options) error {
 		if ni, err = search(fine); err != nil {
 			return err
 		}
+		niEst = math.NaN()
 		if coarse != nil {
 			c, err := search(coarse)
 			if err != nil {

@@ -34,14 +34,14 @@ func Header(params []string) []string {
 	h := []string{"index"}
 	h = append(h, params...)
 	for _, q := range Quantities {
-		h = append(h, q, estimateName(q))
+		h = append(h, q, EstimateName(q))
 	}
 	return append(h, "reached", "winding", "error")
 }
 
-// estimateName is the column of a quantity's estimate: "B0_T" gives
+// EstimateName is the column of a quantity's estimate: "B0_T" gives
 // "B0_estimate_T", "ampere_turns" "ampere_turns_estimate".
-func estimateName(q string) string {
+func EstimateName(q string) string {
 	for _, u := range []string{"_T", "_m", "_W", "_kg"} {
 		if s, ok := strings.CutSuffix(q, u); ok {
 			return s + "_estimate" + u
