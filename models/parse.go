@@ -121,6 +121,7 @@ func (d *decoder) parseRoot(root *yaml.Node) *Model {
 	if t != nil {
 		m.Template = t.name
 		m.Gap = t.gap
+		m.Shim = t.shim
 		m.Regions = t.regions
 		m.Coils = t.coils
 		m.Probes = t.probes
