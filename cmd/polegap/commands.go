@@ -18,6 +18,7 @@ var commands = []*Command{
 	cmdSweep,
 	cmdMerge,
 	cmdScan,
+	cmdShim,
 	cmdCheck,
 	cmdCompare,
 	cmdSearchCoil,

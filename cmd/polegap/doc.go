@@ -16,6 +16,7 @@ The commands are:
 	sweep      compute the excitation curve: gap field against ampere-turns
 	merge      join the tables of a sharded sweep or scan
 	scan       solve many variants of a design and tabulate their design quantities
+	shim       optimise the pole-edge shims of a dipole for the widest good-field region
 	profile    sample Bx, By and |B| along a line probe
 	compare    compare a measured excitation curve with the prediction, and calibrate
 	searchcoil predict a search coil's flux linkage, to compare with an integrator reading
