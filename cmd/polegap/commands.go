@@ -19,6 +19,7 @@ var commands = []*Command{
 	cmdMerge,
 	cmdScan,
 	cmdShim,
+	cmdLength,
 	cmdCheck,
 	cmdCompare,
 	cmdSearchCoil,

@@ -17,6 +17,7 @@ The commands are:
 	merge      join the tables of a sharded sweep or scan
 	scan       solve many variants of a design and tabulate their design quantities
 	shim       optimise the pole-edge shims of a dipole for the widest good-field region
+	length     compute the effective magnetic length and field integral of a dipole
 	profile    sample Bx, By and |B| along a line probe
 	compare    compare a measured excitation curve with the prediction, and calibrate
 	searchcoil predict a search coil's flux linkage, to compare with an integrator reading
