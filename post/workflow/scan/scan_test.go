@@ -205,3 +205,31 @@ func TestFront(t *testing.T) {
 		t.Errorf("front %v, want %v", got, want)
 	}
 }
+
+// TestModelParams checks how parameter names reach the model: template
+// dimensions and file paths through the text, coil currents, turns and
+// the iron scale through study.Params.
+func TestModelParams(t *testing.T) {
+	src := benchSource(t)
+	opt := Options{
+		Params:   []Param{{Name: "pole-height"}, {Name: "depth"}, {Name: "materials.yoke-steel.curve"}, {Name: "current:main"}, {Name: "turns:main"}, {Name: "iron"}},
+		Variants: [][]string{{"90", "250", "silicon-steel-no", "80", "300", "0.9"}},
+	}
+	m, p, err := Model(src, opt, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	up, _ := m.Region("upper-pole")
+	_, y0, _, y1 := up.Bounds()
+	mat, _ := m.Material("yoke-steel")
+	if math.Abs(y1-y0-0.09) > 1e-12 || m.Depth != 0.25 || mat.Curve != "silicon-steel-no" {
+		t.Errorf("pole height %g m, depth %g m, curve %q", y1-y0, m.Depth, mat.Curve)
+	}
+	if p.Currents[0] != 80 || p.Turns[0] != 300 || p.IronScale != 0.9 {
+		t.Errorf("params %+v", p)
+	}
+	opt.Variants[0][3] = "eighty"
+	if _, _, err := Model(src, opt, 0); err == nil {
+		t.Error("a current that is not a number: no error")
+	}
+}
