@@ -244,7 +244,7 @@ func grow(v []float64, m *models.Model, of func(*models.Coil) float64) []float64
 func Evaluate(ctx context.Context, src Source, opt Options, i int) (Row, error) {
 	r := Row{Index: i, Values: opt.Variants[i]}
 	for k := range r.Q {
-		r.Q[k] = math.NaN()
+		r.Q[k], r.Est[k] = math.NaN(), math.NaN()
 	}
 	err := r.evaluate(ctx, src, opt)
 	if err != nil {
@@ -277,12 +277,6 @@ func (r *Row) evaluate(ctx context.Context, src Source, opt Options) error {
 		return err
 	}
 	r.Reached = acc.Reached
-	if coarse == nil { // quick mode: nothing estimated (the masses are exact)
-		for k := range r.Est {
-			r.Est[k] = math.NaN()
-		}
-		r.Est[IronMass], r.Est[CopperMass] = 0, 0
-	}
 	rep := design.NewEstimated(fine, coarse, acc, design.DesignOptions{StressOnly: true, NoPoleForce: true})
 	est := func(path string) float64 {
 		if e, ok := rep.Est(path); ok {
@@ -309,7 +303,7 @@ func (r *Row) evaluate(ctx context.Context, src Source, opt Options) error {
 			r.Q[IronPeak], r.Est[IronPeak] = s.Peak, est(fmt.Sprintf("saturation[%d].peak_disc_mean_B_T", k))
 		}
 	}
-	r.Q[IronMass] = ironMass(fine)
+	r.Q[IronMass], r.Est[IronMass] = ironMass(fine), 0 // geometry: exact
 
 	if len(m.Coils) == 0 {
 		return nil
@@ -396,7 +390,7 @@ func (r *Row) winding(m *models.Model, c *models.Coil, ni, niEst float64, opt Op
 	}
 	k := float64(w.Windings)
 	r.Q[Power], r.Est[Power] = k*best.Power, k*best.Power*2*niEst/ni
-	r.Q[CopperMass] = k * best.Mass
+	r.Q[CopperMass], r.Est[CopperMass] = k*best.Mass, 0
 	r.Winding = fmt.Sprintf("%s × %d", best.Wire.Name, best.Turns)
 	if !best.OK() {
 		r.Winding += " (" + best.Flags.String() + ")"
