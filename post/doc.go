@@ -16,7 +16,9 @@
 //	post/workflow/*  what asks for more solutions or combines quantities:
 //	                 sweep, target, coil sizing, compare and calibrate,
 //	                 adaptive refinement, the design summary, the check, the
-//	                 demo; a workflow may use another
+//	                 demo, design scans (scan), pole-shim optimisation
+//	                 (shim), the effective length (efflen); a workflow may
+//	                 use another
 //	post/output/*    text, JSON, CSV, HTML, figures, VTU: formatting only
 //
 // internal/ holds helpers any layer may use (fileout, compsum, csvtab, num) and
