@@ -29,8 +29,9 @@ func FromModel(m *models.Model) (Geometry, error) {
 		return Geometry{}, fmt.Errorf("%s: no gap-centre probe to place the side view", m.File)
 	}
 	xc, face := cp.Point[0], cp.Point[1]+m.Gap/2
-	// Climb through the iron regions whose extent spans x = xc and starts
-	// where the last one ended (tolerance: the model's resolution).
+	// Climb through the iron regions whose extent spans x = xc and reaches
+	// above where the last one ended, from below or at it (a shimmed
+	// pole's extent starts below the face).
 	tol := 1e-9 * (m.Gap + m.Depth)
 	top := face
 	for grew := true; grew; {
@@ -41,7 +42,7 @@ func FromModel(m *models.Model) (Geometry, error) {
 				continue
 			}
 			x0, y0, x1, y1 := r.Bounds()
-			if x0 <= xc && xc <= x1 && math.Abs(y0-top) <= tol+1e-6*m.Gap && y1 > top {
+			if x0 <= xc && xc <= x1 && y0 <= top+tol+1e-6*m.Gap && y0 >= cp.Point[1] && y1 > top {
 				top, grew = y1, true
 			}
 		}

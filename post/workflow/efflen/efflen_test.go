@@ -100,7 +100,8 @@ func TestLongYoke(t *testing.T) {
 }
 
 // TestBenchDipoleSideView: the side view read off the bench dipole (40 mm
-// gap, 300 mm of iron, 80 mm pole and 180 mm arm above the face).
+// gap, 300 mm of iron, 80 mm pole and 180 mm arm above the face), with
+// and without pole-edge shims.
 func TestBenchDipoleSideView(t *testing.T) {
 	m, err := models.LoadExample("bench-dipole")
 	if err != nil {
@@ -112,5 +113,14 @@ func TestBenchDipoleSideView(t *testing.T) {
 	}
 	if math.Abs(geo.Height-0.26) > 1e-9 || geo.Length != 0.3 || geo.Gap != 0.04 {
 		t.Fatalf("side view %+v, want gap 0.04, length 0.3, height 0.26 m", geo)
+	}
+	// Shims at the face edges leave the view through the centre alone.
+	data, _ := models.Example("bench-dipole")
+	ms, err := models.ParseWith("x.yaml", data, []models.Setting{{Path: "dimensions.shim-height", Value: "1"}, {Path: "dimensions.shim-width", Value: "10"}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if gs, err := FromModel(ms); err != nil || gs != geo {
+		t.Errorf("shimmed: %+v, %v; want %+v", gs, err, geo)
 	}
 }
