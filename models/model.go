@@ -333,9 +333,12 @@ func (r *Region) Area() float64 {
 // Bounds returns the region's bounding box, arcs included exactly.
 func (r *Region) Bounds() (xmin, ymin, xmax, ymax float64) { return r.exactBounds() }
 
-// Shim is a pole-edge step of a c-core or h-core template (m): Height
+// Shim is a pole-edge shim of a c-core or h-core template (m): Height
 // into the gap, Width along the face, at each face edge of both poles;
 // Min is the template's shim-min, the smallest size either may have.
 type Shim struct {
 	Height, Width, Min float64
+	// Bevel: a ramp rising Height over Width towards the face edge
+	// (shim-shape: bevel) instead of a step.
+	Bevel bool
 }

@@ -36,7 +36,7 @@ import "math"
 // two pole coils are in series, giving 2·turns·current ampere-turns.
 var cCoreKeys = []string{"gap", "pole-width", "pole-height", "pole-face-width", "chamfer", "arm-thickness",
 	"leg-width", "window-width", "coil", "coil-width", "coil-height", "clearance", "turns", "current", "field", "steel",
-	"shim-height", "shim-width", "shim-min"}
+	"shim-height", "shim-width", "shim-shape", "shim-min"}
 
 var cCoreCoils = []string{"back-leg", "poles"}
 
@@ -197,7 +197,10 @@ func (t *dims) poleRefine(x *expansion, xa, xb, g float64, sh shim) {
 	for _, s := range []float64{1, -1} {
 		x.refine = append(x.refine, t.refinePoint(xa, s*g/2, g/20), t.refinePoint(xb, s*g/2, g/20))
 		if sh.h > 0 {
-			y := s * (g/2 - sh.h)
+			y := s * (g/2 - sh.h) // a step's inner corners
+			if sh.bevel {
+				y = s * g / 2 // a ramp's top ends
+			}
 			x.refine = append(x.refine, t.refinePoint(xa+sh.w, y, g/20), t.refinePoint(xb-sh.w, y, g/20))
 		}
 	}

@@ -26,7 +26,7 @@ package models
 // in series give 2·turns·current ampere-turns, driving the gap field along +y.
 var hCoreKeys = []string{"gap", "pole-width", "pole-height", "pole-face-width", "chamfer", "yoke-thickness",
 	"leg-width", "window-width", "coil-width", "coil-height", "clearance", "turns", "current", "field", "steel",
-	"shim-height", "shim-width", "shim-min"}
+	"shim-height", "shim-width", "shim-shape", "shim-min"}
 
 func expandHCore(m *Model, t *dims, x *expansion) {
 	d := t.d

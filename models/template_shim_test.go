@@ -25,7 +25,7 @@ func TestShim(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if m.Shim != (Shim{h, w, 0.5e-3}) {
+	if m.Shim != (Shim{Height: h, Width: w, Min: 0.5e-3}) {
 		t.Errorf("shim %+v", m.Shim)
 	}
 	for _, c := range []struct {
@@ -47,5 +47,24 @@ func TestShim(t *testing.T) {
 		if _, err := ParseWith("x.yaml", data, bad); err == nil || !strings.Contains(err.Error(), "shim") {
 			t.Errorf("%v: error %v, want one about the shim", bad, err)
 		}
+	}
+}
+
+// TestShimBevel: a bevel adds half a step's area to each pole edge.
+func TestShimBevel(t *testing.T) {
+	data, err := Example("bench-dipole")
+	if err != nil {
+		t.Fatal(err)
+	}
+	plain, _ := Parse("x.yaml", data)
+	m, err := ParseWith("x.yaml", data, []Setting{{"dimensions.shim-height", "0.8"}, {"dimensions.shim-width", "14"}, {"dimensions.shim-shape", "bevel"}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	a, _ := plain.Region("upper-pole")
+	b, _ := m.Region("upper-pole")
+	// Two ramps of 0.8 × 14 mm: 2 × ½ h w; 1e-15 m² as in TestShim.
+	if d := b.Area() - a.Area() - 0.8e-3*14e-3; math.Abs(d) > 1e-15 || !m.Shim.Bevel {
+		t.Errorf("area change %.6g m², bevel %v", b.Area()-a.Area(), m.Shim.Bevel)
 	}
 }

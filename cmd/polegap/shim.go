@@ -13,11 +13,12 @@ import (
 )
 
 var cmdShim = &Command{
-	UsageLine: "shim [--tolerance T] [--currents I1,I2,...] [--evaluations N] [--png FILE] [--json] MODEL",
+	UsageLine: "shim [--tolerance T] [--currents I1,I2,...] [--evaluations N] [--bevel] [--png FILE] [--json] MODEL",
 	Short:     "optimise the pole-edge shims of a dipole for the widest good-field region",
 	Long: `Shim finds the pole-edge shim of a c-core or h-core model — a step of
 some height and width at each edge of both pole faces — that gives the
-widest good-field region along the mid-plane: the half-width within which
+widest good-field region along the mid-plane (--bevel: a ramp rising
+towards the edge instead of a step): the half-width within which
 |ΔB/B0| stays below --tolerance (default 1e-4). It starts from Rose's
 shim proportions and runs the Nelder–Mead simplex method on full
 nonlinear solves, each solved to the accuracy asked for (--accuracy; with
@@ -34,6 +35,7 @@ after.`,
 		list := &quantityList{kind: current}
 		fs.Var(list, "currents", "comma-separated operating currents of the first coil (default the model's)")
 		n := fs.Int("evaluations", 40, "largest number of shapes solved")
+		bevel := fs.Bool("bevel", false, "optimise a bevel (a ramp towards the face edge) instead of a step")
 		png := fs.String("png", "", "draw ΔB/B0 along the mid-plane before and after to this .png or .svg file")
 		asJSON := fs.Bool("json", false, "print the result as JSON")
 		af := addAccuracyFlags(fs)
@@ -48,7 +50,7 @@ after.`,
 			if !(*tol > 0 && *tol < 0.1) || *n < 1 {
 				return usagef("--tolerance must lie between 0 and 0.1 and --evaluations be at least 1")
 			}
-			opt := shim.Options{Tol: *tol, MaxEvaluations: *n}
+			opt := shim.Options{Tol: *tol, MaxEvaluations: *n, Bevel: *bevel}
 			if list.vals != nil {
 				opt.Currents = list.SI(m)
 			}
@@ -91,7 +93,11 @@ func writeShim(w io.Writer, name string, r *shim.Result) error {
 		fmt.Fprintf(w, "best        no shim beats the flat pole after %d shapes (%s)\n", len(r.Evals), r.Status)
 		return nil
 	}
-	fmt.Fprintf(w, "best        shim-height %.3f mm, shim-width %.2f mm: ±%.2f mm\n", mm(r.Best.Shape.Height), mm(r.Best.Shape.Width), mm(r.Best.HalfWidth))
+	shape := "step"
+	if r.Best.Shape.Bevel {
+		shape = "bevel"
+	}
+	fmt.Fprintf(w, "best        %s: shim-height %.3f mm, shim-width %.2f mm: ±%.2f mm\n", shape, mm(r.Best.Shape.Height), mm(r.Best.Shape.Width), mm(r.Best.HalfWidth))
 	_, err := fmt.Fprintf(w, "gain        %+.2f mm (%+.0f %%) after %d shapes (%s)\n", mm(r.Gain()), 100*r.Gain()/r.Unshimmed.HalfWidth, len(r.Evals), r.Status)
 	return err
 }

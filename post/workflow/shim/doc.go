@@ -1,5 +1,6 @@
 // Package shim optimises the pole-edge shims of a dipole (a c-core or
-// h-core template): the step height and width (models.Shim) that give the
+// h-core template): the height and width of a step, or of a bevel (a
+// ramp towards the edge), at each pole-face edge (models.Shim) that give the
 // widest good-field region — the half-width along the mid-plane within
 // which |ΔB/B0| stays below a tolerance, 1e-4 by default — at the
 // operating current, or the narrowest such region over a list of currents

@@ -33,6 +33,8 @@ type Options struct {
 	MaxEvaluations int
 	// Initial is the first shape; zero means Rose's (Rose).
 	Initial models.Shim
+	// Bevel optimises a ramp (shim-shape: bevel) instead of a step.
+	Bevel bool
 	// Samples along the mid-plane line probe; 0 means 801.
 	Samples int
 	Solver  solver.Options
@@ -123,11 +125,15 @@ func Optimise(ctx context.Context, file string, data []byte, opt Options) (*Resu
 	res.Rose = opt.Initial
 	if res.Rose.Height == 0 || res.Rose.Width == 0 {
 		res.Rose = Rose(m.Gap, m.Shim.Min)
+		if opt.Bevel {
+			// A ramp adds half a step's iron: start twice as high.
+			res.Rose.Height *= 2
+		}
 	}
 	// The variables: height and width in units of the initial ones.
 	h0, w0 := res.Rose.Height, res.Rose.Width
 	shape := func(x []float64) models.Shim {
-		return models.Shim{Height: x[0] * h0, Width: x[1] * w0, Min: m.Shim.Min}
+		return models.Shim{Height: x[0] * h0, Width: x[1] * w0, Min: m.Shim.Min, Bevel: opt.Bevel}
 	}
 	best := res.Unshimmed
 	var bestProfile Profile
@@ -238,10 +244,14 @@ func (e *evaluator) model(s models.Shim) (*models.Model, error) {
 	if s.Height == 0 && s.Width == 0 {
 		return models.Parse(e.file, e.data)
 	}
-	return models.ParseWith(e.file, e.data, []models.Setting{
+	set := []models.Setting{
 		{Path: "dimensions.shim-height", Value: strconv.FormatFloat(s.Height/e.scale, 'g', -1, 64)},
 		{Path: "dimensions.shim-width", Value: strconv.FormatFloat(s.Width/e.scale, 'g', -1, 64)},
-	})
+	}
+	if e.opt.Bevel {
+		set = append(set, models.Setting{Path: "dimensions.shim-shape", Value: "bevel"})
+	}
+	return models.ParseWith(e.file, e.data, set)
 }
 
 // halfWidth solves m at current c of its first coil and measures the
