@@ -67,6 +67,9 @@ type Model struct {
 	Gap      float64 // m, the air gap the design is built around (top-level gap or the template's), 0 when unstated
 
 	Template string // template name the model was expanded from, "" for none
+	// Shim is the pole-edge shim of a c-core or h-core template (zero
+	// sizes: none) and the smallest shim the workshop can machine.
+	Shim Shim `json:",omitzero"`
 
 	Materials []Material // user materials in file order, then template defaults, then air and copper
 	Regions   []Region
@@ -338,3 +341,13 @@ func (r *Region) Area() float64 {
 
 // Bounds returns the region's bounding box, arcs included exactly.
 func (r *Region) Bounds() (xmin, ymin, xmax, ymax float64) { return r.exactBounds() }
+
+// Shim is a pole-edge shim of a c-core or h-core template (m): Height
+// into the gap, Width along the face, at each face edge of both poles;
+// Min is the template's shim-min, the smallest size either may have.
+type Shim struct {
+	Height, Width, Min float64
+	// Bevel: a ramp rising Height over Width towards the face edge
+	// (shim-shape: bevel) instead of a step.
+	Bevel bool
+}

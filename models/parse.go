@@ -58,6 +58,11 @@ func (d *decoder) parse(data []byte) *Model {
 		d.errs = append(d.errs, e)
 		return nil
 	}
+	return d.parseRoot(&root)
+}
+
+// parseRoot decodes the document node of a model file.
+func (d *decoder) parseRoot(root *yaml.Node) *Model {
 	if len(root.Content) == 0 {
 		d.fail(nil, "", "the file is empty; a model needs at least units and regions (or a template)")
 		return nil
@@ -116,6 +121,7 @@ func (d *decoder) parse(data []byte) *Model {
 	if t != nil {
 		m.Template = t.name
 		m.Gap = t.gap
+		m.Shim = t.shim
 		m.Regions = t.regions
 		m.Coils = t.coils
 		m.Probes = t.probes

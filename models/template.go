@@ -12,6 +12,7 @@ import (
 type expansion struct {
 	name      string
 	gap       float64 // m, the template's air gap
+	shim      Shim    // the pole-edge shim (c-core, h-core)
 	regions   []Region
 	coils     []Coil
 	probes    []Probe

@@ -35,7 +35,8 @@ import "math"
 // field along +y. Each side carries turns conductors; with coil: poles the
 // two pole coils are in series, giving 2·turns·current ampere-turns.
 var cCoreKeys = []string{"gap", "pole-width", "pole-height", "pole-face-width", "chamfer", "arm-thickness",
-	"leg-width", "window-width", "coil", "coil-width", "coil-height", "clearance", "turns", "current", "field", "steel"}
+	"leg-width", "window-width", "coil", "coil-width", "coil-height", "clearance", "turns", "current", "field", "steel",
+	"shim-height", "shim-width", "shim-shape", "shim-min"}
 
 var cCoreCoils = []string{"back-leg", "poles"}
 
@@ -70,6 +71,7 @@ func expandCCore(m *Model, t *dims, x *expansion) {
 	// Fit checks, with the relative tolerance used elsewhere.
 	tol := relTol * (wl + ww + wp + g + hp + ta)
 	t.poleFit(wp, hp, wf, c, tol)
+	sh := t.shim(x, g, wf-2*c, tol)
 	g2, yr := g/2, g/2+hp
 	x0, x1 := wl+ww, wl+ww+wp
 	xc := (x0 + x1) / 2
@@ -100,7 +102,7 @@ func expandCCore(m *Model, t *dims, x *expansion) {
 	upperArm := t.poly("upper-arm", steel, []float64{0, wl, x0, x1, x1, 0}, []float64{yr, yr, yr, yr, yt, yt})
 	x.regions = append(x.regions, upperArm, mirrorY(upperArm, "lower-arm"))
 
-	x.regions = append(x.regions, t.poles(steel, x0, x1, wf, c, g2, yr)...)
+	x.regions = append(x.regions, t.poles(steel, x0, x1, wf, c, g2, yr, sh)...)
 
 	coil := Coil{Name: "main", Turns: turns, Current: current, Pos: t.at}
 	switch place {
@@ -113,7 +115,7 @@ func expandCCore(m *Model, t *dims, x *expansion) {
 	x.coils = append(x.coils, coil)
 
 	x.probes = append(x.probes, t.gapProbes(xc, wp, wf, g)...)
-	t.poleRefine(x, xl+c, xr-c, g)
+	t.poleRefine(x, xl+c, xr-c, g, sh)
 	t.target(x, "gap-centre")
 }
 
@@ -153,26 +155,54 @@ func (t *dims) poleFit(wp, hp, wf, c, tol float64) {
 
 // poles returns the upper and lower pole pieces between x0 and x1 (root
 // width) with a face pole-face-width wf wide, chamfered by c, faces at
-// y = ±g2 and roots at ±yr, and the air region "gap" between the flat faces.
-func (t *dims) poles(steel string, x0, x1, wf, c, g2, yr float64) []Region {
+// y = ±g2 and roots at ±yr, shimmed at the face edges by sh, and the air
+// region "gap" between the faces (notched by the shims).
+func (t *dims) poles(steel string, x0, x1, wf, c, g2, yr float64, sh shim) []Region {
 	xc := (x0 + x1) / 2
 	xl, xr := xc-wf/2, xc+wf/2
 	// Upper pole, counter-clockwise from the face's left end.
 	ux, uy := sideStep(xr, g2, x1, yr, c)
 	vx, vy := sideStep(xl, g2, x0, yr, c)
+	fx, fy := sh.face(xl+c, xr-c, g2)
+	if sh.h > 0 {
+		// The shims' outer sides rise to the face level at the chamfers.
+		fx = append(append([]float64{xl + c}, fx...), xr-c)
+		fy = append(append([]float64{g2}, fy...), g2)
+	}
 	px, py := dropDuplicates(
-		[]float64{xl + c, xr - c, ux, x1, x0, vx},
-		[]float64{g2, g2, uy, yr, yr, vy})
+		append(fx, ux, x1, x0, vx),
+		append(fy, uy, yr, yr, vy))
 	up := t.poly("upper-pole", steel, px, py)
-	return []Region{up, mirrorY(up, "lower-pole"), t.rect("gap", "air", xl+c, -g2, xr-c, g2)}
+	gap := t.rect("gap", "air", xl+c, -g2, xr-c, g2)
+	if sh.h > 0 {
+		// Lower face left to right, then the upper face right to left.
+		lx, ly := sh.face(xl+c, xr-c, g2)
+		gx, gy := make([]float64, 0, 2*len(lx)), make([]float64, 0, 2*len(lx))
+		for i := range lx {
+			gx, gy = append(gx, lx[i]), append(gy, -ly[i])
+		}
+		for i := len(lx) - 1; i >= 0; i-- {
+			gx, gy = append(gx, lx[i]), append(gy, ly[i])
+		}
+		gap = t.poly("gap", "air", gx, gy)
+	}
+	return []Region{up, mirrorY(up, "lower-pole"), gap}
 }
 
 // poleRefine asks for fine elements in the gap (gap/10) and at the four
-// corners xa, xb of the flat faces (gap/20).
-func (t *dims) poleRefine(x *expansion, xa, xb, g float64) {
+// corners xa, xb of the flat faces (gap/20), and at the shims' inner
+// corners.
+func (t *dims) poleRefine(x *expansion, xa, xb, g float64, sh shim) {
 	x.refine = append(x.refine, Refine{Near: "gap", Size: g / 10, Pos: t.at})
 	for _, s := range []float64{1, -1} {
 		x.refine = append(x.refine, t.refinePoint(xa, s*g/2, g/20), t.refinePoint(xb, s*g/2, g/20))
+		if sh.h > 0 {
+			y := s * (g/2 - sh.h) // a step's inner corners
+			if sh.bevel {
+				y = s * g / 2 // a ramp's top ends
+			}
+			x.refine = append(x.refine, t.refinePoint(xa+sh.w, y, g/20), t.refinePoint(xb-sh.w, y, g/20))
+		}
 	}
 }
 

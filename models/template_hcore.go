@@ -25,7 +25,8 @@ package models
 // with clearance; each side carries turns conductors, so the two pole coils
 // in series give 2·turns·current ampere-turns, driving the gap field along +y.
 var hCoreKeys = []string{"gap", "pole-width", "pole-height", "pole-face-width", "chamfer", "yoke-thickness",
-	"leg-width", "window-width", "coil-width", "coil-height", "clearance", "turns", "current", "field", "steel"}
+	"leg-width", "window-width", "coil-width", "coil-height", "clearance", "turns", "current", "field", "steel",
+	"shim-height", "shim-width", "shim-shape", "shim-min"}
 
 func expandHCore(m *Model, t *dims, x *expansion) {
 	d := t.d
@@ -49,6 +50,7 @@ func expandHCore(m *Model, t *dims, x *expansion) {
 	}
 	tol := relTol * (wl + ww + wp + g + hp + ty)
 	t.poleFit(wp, hp, wf, c, tol)
+	sh := t.shim(x, g, wf-2*c, tol)
 	if cw+2*clr > ww+tol {
 		t.misfit("coil-width", "a coil side in the window needs coil-width + 2·clearance = %s, but window-width is %s", d.fmtLen(cw+2*clr), d.fmtLen(ww))
 	}
@@ -68,11 +70,11 @@ func expandHCore(m *Model, t *dims, x *expansion) {
 		[]float64{-xo, -xo + wl, x0, x1, xo - wl, xo, xo, -xo},
 		[]float64{yr, yr, yr, yr, yr, yr, yt, yt})
 	x.regions = append(x.regions, up, mirrorY(up, "lower-yoke"))
-	x.regions = append(x.regions, t.poles(steel, x0, x1, wf, c, g2, yr)...)
+	x.regions = append(x.regions, t.poles(steel, x0, x1, wf, c, g2, yr, sh)...)
 	coil := Coil{Name: "main", Turns: turns, Current: current, Pos: t.at}
 	t.poleCoils(x, &coil, x0, x1, yr, cw, ch, clr)
 	x.coils = append(x.coils, coil)
 	x.probes = append(x.probes, t.gapProbes(0, wp, wf, g)...)
-	t.poleRefine(x, -wf/2+c, wf/2-c, g)
+	t.poleRefine(x, -wf/2+c, wf/2-c, g, sh)
 	t.target(x, "gap-centre")
 }

@@ -18,8 +18,9 @@
 //	                 sweep, target, coil sizing, the supply that drives a
 //	                 coil (supply), the quantified safety cautions
 //	                 (caution), compare and calibrate, adaptive refinement,
-//	                 the design summary, the check, the demo; a workflow
-//	                 may use another
+//	                 the design summary, the check, the demo, design scans
+//	                 (scan), pole-shim optimisation (shim), the effective
+//	                 length (efflen); a workflow may use another
 //	post/output/*    text, JSON, CSV, HTML, figures, VTU: formatting only
 //
 // internal/ holds helpers any layer may use (fileout, compsum, csvtab, num) and

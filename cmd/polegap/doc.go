@@ -14,7 +14,10 @@ The commands are:
 	solve      solve a model and print the field and design quantities
 	size       find the ampere-turns for a target field and a coil that delivers them
 	sweep      compute the excitation curve: gap field against ampere-turns
-	merge      join the tables of a sharded sweep
+	merge      join the tables of a sharded sweep or scan
+	scan       solve many variants of a design and tabulate their design quantities
+	shim       optimise the pole-edge shims of a dipole for the widest good-field region
+	length     compute the effective magnetic length and field integral of a dipole
 	profile    sample Bx, By and |B| along a line probe
 	compare    compare a measured excitation curve with the prediction, and calibrate
 	searchcoil predict a search coil's flux linkage, to compare with an integrator reading
@@ -57,9 +60,10 @@ resolution. The field map (solve) and the mesh picture show the magnet
 with a margin; --whole-domain draws all of the meshed air.
 
 Ctrl-C stops a long-running command (solve, size, sweep, compare, check,
-demo, bench) at its next safe point, between two solves: it exits with
-status 1 (check: 2) and writes no result, except that an interrupted
-sweep keeps its finished points in its --csv table, marked partial. A
+demo, bench, scan) at its next safe point, between two solves: it exits
+with status 1 (check: 2) and writes no result, except that an interrupted
+sweep or scan keeps its finished points or variants in its --csv table,
+marked partial. A
 single solve cannot be stopped half-way: the command stops when it
 ends. A second Ctrl-C ends polegap at once.
 

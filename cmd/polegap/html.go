@@ -3,13 +3,14 @@ package main
 import (
 	"flag"
 
-	gplot "gonum.org/v1/plot"
-	"gonum.org/v1/plot/vg"
 	"io"
 	"os"
 	"runtime/debug"
 	"strings"
 	"time"
+
+	gplot "gonum.org/v1/plot"
+	"gonum.org/v1/plot/vg"
 
 	"polegap/internal/fileout"
 	"polegap/models"

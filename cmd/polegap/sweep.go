@@ -119,9 +119,10 @@ job array can run a long sweep in parallel; join the shards' tables with
 
 var cmdMerge = &Command{
 	UsageLine: "merge --csv OUT [--png FILE] [--gap LENGTH] SHARD.csv...",
-	Short:     "join the tables of a sharded sweep",
-	Long: `Merge reads the CSV tables written by 'polegap sweep --shard K/N' and
-writes one table with every point in order. It refuses tables of
+	Short:     "join the tables of a sharded sweep or scan",
+	Long: `Merge reads the CSV tables written by 'polegap sweep --shard K/N' (or
+'polegap scan --shard K/N') and writes one table with every point (or
+variant) in order. It refuses tables of
 different models or probes and points present twice, and marks the result
 partial (listing what is missing) when points are missing: every point
 of the sweep, the last ones too, since each shard's table records the
@@ -137,6 +138,9 @@ unit (e.g. 40mm).`,
 		return func(env *Env, args []string) error {
 			if *out == "" || len(args) == 0 {
 				return usagef("merge needs --csv OUT and at least one shard table")
+			}
+			if isScanTable(args[0]) {
+				return mergeScan(env, *out, args)
 			}
 			var metas []sweep.Meta
 			var pts [][]sweep.Point
@@ -173,7 +177,6 @@ unit (e.g. 40mm).`,
 		}
 	},
 }
-
 
 // sweepCurrents builds the list of currents from the flags.
 func sweepCurrents(m *models.Model, coil string, from, to *quantityFlag, list *quantityList, n int) ([]float64, error) {

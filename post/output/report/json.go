@@ -14,7 +14,7 @@ const SchemaVersion = 1
 
 // Outputs are the names WriteJSON accepts: the command whose output the
 // document is ("demo" for the demo's report.json).
-var Outputs = []string{"solve", "check", "size", "compare", "mesh", "demo"}
+var Outputs = []string{"solve", "check", "size", "compare", "mesh", "demo", "shim", "length"}
 
 // WriteJSON writes v, which must encode as a JSON object, indented by two
 // spaces, with "schema_version" and "output" (one of Outputs) as its first

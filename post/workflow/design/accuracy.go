@@ -53,6 +53,9 @@ type SolveOptions struct {
 	// meshes solved and the nodes of the finest; 0 means adapt's defaults
 	// (10 and 2,000,000).
 	MaxLevels, MaxNodes int
+	// Params are the parameter values of every solve (the zero value:
+	// the model's own).
+	Params study.Params
 }
 
 // SolveAccurate solves m to the accuracy asked for (Converge, or with
@@ -65,7 +68,7 @@ func SolveAccurate(ctx context.Context, m *models.Model, opt SolveOptions) (fine
 		if so.Context == nil {
 			so.Context = ctx
 		}
-		s, err := study.Run(m, study.Options{Solver: so})
+		s, err := study.Run(m, study.Options{Solver: so, Params: opt.Params})
 		if err != nil {
 			return nil, nil, nil, err
 		}
@@ -82,7 +85,7 @@ func SolveAccurate(ctx context.Context, m *models.Model, opt SolveOptions) (fine
 		Accuracy:   target,
 		Marking:    opt.Marking,
 		Quantities: StopQuantities,
-		Study:      study.Options{Solver: opt.Solver},
+		Study:      study.Options{Solver: opt.Solver, Params: opt.Params},
 		Progress:   opt.Progress,
 		MaxRounds:  opt.MaxLevels,
 		MaxNodes:   opt.MaxNodes,

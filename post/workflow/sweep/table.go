@@ -174,8 +174,6 @@ func Merge(tables []Meta, points [][]Point) (Meta, []Point, []int, error) {
 		}
 		out.Points = t.Points
 	}
-	var all []Point
-	seen := map[int]int{}
 	var partial []string
 	for i, t := range tables {
 		if t.Model != out.Model || t.Probe != out.Probe {
@@ -185,26 +183,18 @@ func Merge(tables []Meta, points [][]Point) (Meta, []Point, []int, error) {
 			partial = append(partial, fmt.Sprintf("table %d: %s", i+1, t.Partial))
 		}
 		for _, p := range points[i] {
-			if j, dup := seen[p.Index]; dup {
-				return Meta{}, nil, nil, fmt.Errorf("sweep: point of index %d appears in tables %d and %d", p.Index, j+1, i+1)
-			}
 			if p.Index < 0 || out.Points > 0 && p.Index >= out.Points {
 				return Meta{}, nil, nil, fmt.Errorf("sweep: table %d has a point of index %d, outside a sweep of %d points (indices 0 to %d)", i+1, p.Index, out.Points, out.Points-1)
 			}
-			seen[p.Index] = i
-			all = append(all, p)
 		}
 	}
-	sort.Slice(all, func(a, b int) bool { return all[a].Index < all[b].Index })
-	var missing []int
-	last := out.Points - 1
-	if last < 0 && len(all) > 0 {
-		last = all[len(all)-1].Index
+	total := -1
+	if out.Points > 0 {
+		total = out.Points
 	}
-	for i := 0; i <= last; i++ {
-		if _, ok := seen[i]; !ok {
-			missing = append(missing, i)
-		}
+	all, missing, err := Join(points, func(p Point) int { return p.Index }, total)
+	if err != nil {
+		return Meta{}, nil, nil, fmt.Errorf("sweep: %w", err)
 	}
 	if len(partial) > 0 || len(missing) > 0 {
 		out.Partial = strings.Join(partial, "; ")
@@ -216,4 +206,33 @@ func Merge(tables []Meta, points [][]Point) (Meta, []Point, []int, error) {
 		}
 	}
 	return out, all, missing, nil
+}
+
+// Join joins the rows of shard tables (Select's shards of one list, in
+// any order) into one list sorted by index. It fails on a row present
+// twice; missing lists the indices absent below total, or below the
+// largest index present when total < 0. Any sharded workflow (a sweep, a
+// design scan) merges its tables with it.
+func Join[T any](tables [][]T, index func(T) int, total int) (all []T, missing []int, err error) {
+	seen := map[int]int{}
+	for i, rows := range tables {
+		for _, r := range rows {
+			k := index(r)
+			if j, dup := seen[k]; dup {
+				return nil, nil, fmt.Errorf("point of index %d appears in tables %d and %d", k, j+1, i+1)
+			}
+			seen[k] = i
+			all = append(all, r)
+		}
+	}
+	sort.SliceStable(all, func(a, b int) bool { return index(all[a]) < index(all[b]) })
+	if total < 0 && len(all) > 0 {
+		total = index(all[len(all)-1]) + 1
+	}
+	for i := 0; i < total; i++ {
+		if _, ok := seen[i]; !ok {
+			missing = append(missing, i)
+		}
+	}
+	return all, missing, nil
 }
