@@ -7,6 +7,8 @@ import (
 
 	"gonum.org/v1/plot/vg"
 
+	"polegap/internal/num"
+	"polegap/models"
 	"polegap/post/output/figure"
 	"polegap/post/output/plot"
 	"polegap/post/workflow/shim"
@@ -76,7 +78,7 @@ after.`,
 				}
 			}
 			if *asJSON {
-				return writeJSON(env.Stdout, "shim", res)
+				return writeJSON(env.Stdout, "shim", newShimJSON(res))
 			}
 			return writeShim(env.Stdout, m.Name, res)
 		}
@@ -100,4 +102,61 @@ func writeShim(w io.Writer, name string, r *shim.Result) error {
 	fmt.Fprintf(w, "best        %s: shim-height %.3f mm, shim-width %.2f mm: ±%.2f mm\n", shape, mm(r.Best.Shape.Height), mm(r.Best.Shape.Width), mm(r.Best.HalfWidth))
 	_, err := fmt.Fprintf(w, "gain        %+.2f mm (%+.0f %%) after %d shapes (%s)\n", mm(r.Gain()), 100*r.Gain()/r.Unshimmed.HalfWidth, len(r.Evals), r.Status)
 	return err
+}
+
+// shimJSON is shim --json: the optimisation in the JSON contract
+// (snake_case keys with units, no NaN: a shape that could not be solved
+// has no half-width and says why).
+type shimJSON struct {
+	Tolerance   float64        `json:"tolerance"`
+	Gap         float64        `json:"gap_m"`
+	ShimMin     float64        `json:"shim_min_m"`
+	Start       shimShape      `json:"start"`
+	Currents    []float64      `json:"currents_A"`
+	Unshimmed   shimEvalJSON   `json:"unshimmed"`
+	Best        shimEvalJSON   `json:"best"`
+	Gain        float64        `json:"gain_m"`
+	Before      shimProfile    `json:"before"`
+	After       shimProfile    `json:"after"`
+	Evaluations []shimEvalJSON `json:"evaluations"`
+	Status      string         `json:"status"`
+}
+
+type shimShape struct {
+	Height float64 `json:"height_m"`
+	Width  float64 `json:"width_m"`
+	Bevel  bool    `json:"bevel"`
+}
+
+type shimEvalJSON struct {
+	Shape     shimShape `json:"shape"`
+	HalfWidth *float64  `json:"half_width_m"`
+	Error     string    `json:"error,omitempty"`
+}
+
+type shimProfile struct {
+	X   []float64 `json:"x_m"`
+	Dev []float64 `json:"dB_over_B0"`
+}
+
+func newShimJSON(r *shim.Result) shimJSON {
+	shape := func(s models.Shim) shimShape { return shimShape{Height: s.Height, Width: s.Width, Bevel: s.Bevel} }
+	eval := func(e shim.Eval) shimEvalJSON {
+		out := shimEvalJSON{Shape: shape(e.Shape), Error: e.Err}
+		if num.Finite(e.HalfWidth) {
+			hw := e.HalfWidth
+			out.HalfWidth = &hw
+		}
+		return out
+	}
+	out := shimJSON{Tolerance: r.Tol, Gap: r.Gap, ShimMin: r.Min, Start: shape(r.Rose), Currents: r.Currents,
+		Unshimmed: eval(r.Unshimmed), Best: eval(r.Best), Before: shimProfile{r.Before.X, r.Before.Dev},
+		After: shimProfile{r.After.X, r.After.Dev}, Status: r.Status, Evaluations: []shimEvalJSON{}}
+	if g := r.Gain(); num.Finite(g) {
+		out.Gain = g
+	}
+	for _, e := range r.Evals {
+		out.Evaluations = append(out.Evaluations, eval(e))
+	}
+	return out
 }
