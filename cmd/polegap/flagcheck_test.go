@@ -21,7 +21,7 @@ func TestEveryNumberFlagChecked(t *testing.T) {
 		c.Flags(fs)
 		fs.VisitAll(func(f *flag.Flag) {
 			switch v := f.Value.(type) {
-			case *quantityFlag, *realFlagValue, *intFlagValue, *quantityList:
+			case *quantityFlag, *realFlagValue, *intFlagValue, *quantityList, *varyFlag:
 				for _, b := range bad {
 					code, out, errs := runCmd(t, c.Name(), "--"+f.Name, b, "no-such-model.yaml")
 					if code != 2 || out != "" || !strings.Contains(errs, "flag --"+f.Name) || strings.Contains(errs, "panic") {

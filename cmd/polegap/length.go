@@ -28,7 +28,7 @@ which is compared with the prediction. A bare --reach is in the model's
 units.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		reach := quantity(fs, "reach", length, "how far beyond each iron end to integrate (default 2 × gap)")
-		measured := fs.Float64("measured", 0, "a measured field integral ∫B dz along the beam axis, T·m")
+		measured := realFlag(fs, "measured", 0, anyFinite, "a measured field integral ∫B dz along the beam axis, T·m")
 		asJSON := fs.Bool("json", false, "print the result as JSON")
 		af := addAccuracyFlags(fs)
 		return func(env *Env, args []string) error {

@@ -15,7 +15,7 @@ type pictureFlags struct {
 
 func addPictureFlags(fs *flag.FlagSet, whole bool) pictureFlags {
 	var pf pictureFlags
-	pf.dpi = fs.Float64("dpi", 0, "resolution of a .png picture in dots per inch (default: 1600 pixels wide)")
+	pf.dpi = realFlag(fs, "dpi", 0, numRange{lo: 0, hi: 4800, hint: "dots per inch, 0 for the default"}, "resolution of a .png picture in dots per inch (default: 1600 pixels wide)")
 	if whole {
 		pf.whole = fs.Bool("whole-domain", false, "draw the whole meshed domain instead of the magnet and a margin")
 	}

@@ -3,11 +3,13 @@ package main
 import (
 	"flag"
 	"io"
+	"os"
 
 	"gonum.org/v1/plot/vg"
 
 	"polegap/internal/fileout"
 	"polegap/post/measure"
+	"polegap/post/measure/samples"
 	"polegap/post/output/library"
 	"polegap/post/output/plot"
 )
@@ -36,7 +38,7 @@ comparison when --compare names one.`,
 			if len(args) != 1 {
 				return usagef("ringcurve needs one ring-test file")
 			}
-			rt, err := measure.LoadRing(args[0])
+			rt, err := loadRing(args[0])
 			if err != nil {
 				return err
 			}
@@ -66,4 +68,15 @@ comparison when --compare names one.`,
 			return plot.Save(p, 16*vg.Centimeter, 11*vg.Centimeter, *png)
 		}
 	},
+}
+
+// loadRing reads a ring-test file, or a built-in sample when no file of
+// that name exists ('polegap examples' lists them).
+func loadRing(arg string) (*measure.RingTest, error) {
+	if _, err := os.Stat(arg); err != nil {
+		if data, serr := samples.Data(arg); serr == nil {
+			return measure.ParseRing(arg, data)
+		}
+	}
+	return measure.LoadRing(arg)
 }

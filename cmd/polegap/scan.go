@@ -53,15 +53,15 @@ cannot be built or solved keeps its row with the error.
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
 		var vary varyFlag
 		fs.Var(&vary, "vary", "a parameter and its values: NAME=V1,V2,... or NAME=LO:HI:N (NAME=LO:HI with --lhs); repeat for more")
-		lhs := fs.Int("lhs", 0, "a Latin hypercube of this many variants instead of the full grid")
-		seed := fs.Uint64("seed", 1, "seed of the Latin hypercube")
+		lhs := intFlag(fs, "lhs", 0, count(0, 1000000), "a Latin hypercube of this many variants instead of the full grid")
+		seed := intFlag(fs, "seed", 1, count(0, 1<<53), "seed of the Latin hypercube")
 		list := fs.String("variants", "", "a CSV file of variants: a header of parameter names, one row per variant")
 		want := quantity(fs, "field", field, "target field for the ampere-turns (default the model's target)")
 		noTarget := fs.Bool("no-target", false, "skip the ampere-turn search; the power is at the model's own ampere-turns")
-		tol := fs.Float64("tolerance", 1e-4, "relative tolerance of the good-field half-width (1e-3 or 1e-4)")
+		tol := realFlag(fs, "tolerance", 1e-4, fraction, "relative tolerance of the good-field half-width (1e-3 or 1e-4)")
 		coilName := fs.String("coil", "", "the coil of the ampere-turns and the power (default the first)")
 		cooling := fs.String("cooling", "air-natural", "air-natural, air-forced or water")
-		fill := fs.Float64("fill", 0, "fill factor of the winding (default 0.6)")
+		fill := realFlag(fs, "fill", 0, numRange{lo: 0, hi: 0.9069, hint: "0.9069 is the densest packing of round wires; 0 for the default"}, "fill factor of the winding (default 0.6)")
 		temp := quantity(fs, "temperature", temperature, "coil temperature for the resistance, °C (default 60)")
 		wires := fs.String("wires", "auto", "wire table: iec, awg, hollow or all")
 		csvOut := fs.String("csv", "", "write the table to this CSV file")
@@ -82,7 +82,7 @@ cannot be built or solved keeps its row with the error.
 				return err
 			}
 			opt := scan.Options{Params: vary.params, Coil: *coilName, Tol: *tol, NoTarget: *noTarget, Quick: *af.quick}
-			if opt.Variants, opt.Plan, err = scanVariants(&opt, *lhs, *seed, *list); err != nil {
+			if opt.Variants, opt.Plan, err = scanVariants(&opt, *lhs, uint64(*seed), *list); err != nil {
 				return err
 			}
 			if opt.Shard, opt.Shards, err = parseShard(*shard); err != nil {

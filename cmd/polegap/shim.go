@@ -33,10 +33,10 @@ workshop can machine) is solved or proposed. The result is the gain over
 the unshimmed pole; --png draws ΔB/B0 along the mid-plane before and
 after.`,
 	Flags: func(fs *flag.FlagSet) func(*Env, []string) error {
-		tol := fs.Float64("tolerance", 1e-4, "relative field tolerance of the good-field region")
+		tol := realFlag(fs, "tolerance", 1e-4, numRange{lo: 0, hi: 0.1, loOpen: true, hiOpen: true, hint: "a relative field tolerance below 0.1"}, "relative field tolerance of the good-field region")
 		list := &quantityList{kind: current}
 		fs.Var(list, "currents", "comma-separated operating currents of the first coil (default the model's)")
-		n := fs.Int("evaluations", 40, "largest number of shapes solved")
+		n := intFlag(fs, "evaluations", 40, count(1, 10000), "largest number of shapes solved")
 		bevel := fs.Bool("bevel", false, "optimise a bevel (a ramp towards the face edge) instead of a step")
 		png := fs.String("png", "", "draw ΔB/B0 along the mid-plane before and after to this .png or .svg file")
 		asJSON := fs.Bool("json", false, "print the result as JSON")

@@ -51,4 +51,5 @@ var Summaries = map[string]string{
 	"bench-dipole-hall.csv":        "bench dipole, Hall-probe field readings (plain CSV)",
 	"bench-dipole-balance.yaml":    "bench dipole, current-balance readings (measured-data format)",
 	"bench-dipole-searchcoil.yaml": "bench dipole, search-coil readings with a solenoid calibration (measured-data format)",
+	"ring-team13.yaml":             "ring-sample test of a steel (IEC 60404-4 ring method) for 'polegap ringcurve'",
 }
