@@ -1,6 +1,9 @@
 package mesh
 
-import "math"
+import (
+	"math"
+	"slices"
+)
 
 // sizeGrid evaluates the point and line sources of a size field exactly
 // but fast: a uniform grid over the domain keeps, for each cell, only the
@@ -25,8 +28,12 @@ func newSizeGrid(src []SizeLine, g, x0, y0, x1, y1 float64) *sizeGrid {
 	sg := &sizeGrid{x0: x0, y0: y0, nx: n, ny: n, src: src, g: g,
 		cw: (x1 - x0) / n, ch: (y1 - y0) / n}
 	r := 0.5 * math.Hypot(sg.cw, sg.ch)
-	lb := make([]float64, len(src))
 	sg.start = make([]int32, n*n+1)
+	if len(src) > bucketSources && g > 0 && sg.cw > 0 && sg.ch > 0 {
+		sg.fillBucketed(r)
+		return sg
+	}
+	lb := make([]float64, len(src))
 	for j := 0; j < n; j++ {
 		for i := 0; i < n; i++ {
 			cx, cy := x0+(float64(i)+0.5)*sg.cw, y0+(float64(j)+0.5)*sg.ch
@@ -113,4 +120,131 @@ func (f SizeField) indexed(x, y []float64) SizeField {
 	}
 	f.Points, f.Lines = nil, nil
 	return f
+}
+
+// Indexed returns f with its point and line sources moved into a grid
+// over the bounding box of the points (x, y), as Triangulate does before
+// refining: the same sizes (to rounding) at a few source evaluations per
+// query instead of one per source. Fields with few sources are returned
+// as they are.
+func (f SizeField) Indexed(x, y []float64) SizeField { return f.indexed(x, y) }
+
+// bucketSources is the number of sources from which newSizeGrid finds
+// each cell's candidates through buckets of nearby sources instead of a
+// loop over all of them (64×64 cells times 40,000 sources is 1.6e8
+// distances; a model of 10,000 small regions has that many).
+const bucketSources = 2048
+
+// fillBucketed fills start and cand with the same candidates as the loop
+// over all sources in newSizeGrid (each cell's sources whose lower bound
+// is at most the smallest upper bound), visiting only the sources near
+// each cell: the sources go into buckets by the cells their bounding box
+// overlaps (clamped to the grid), and for a cell the rings of buckets
+// around it are searched outwards. A source first met in ring k lies at
+// least (k − ½)·min(cw, ch) from the cell's centre, so its upper bound
+// is at least sMin + g·((k − ½)·c + r) and its lower bound at least
+// sMin + g·max(0, (k − ½)·c − r): the search for the smallest upper
+// bound stops at the first ring beyond it, and the candidates are all in
+// the rings up to where the lower bound passes it. The candidates are
+// listed in increasing source index, as the full loop lists them.
+func (sg *sizeGrid) fillBucketed(r float64) {
+	n := sg.nx
+	src, g := sg.src, sg.g
+	cell := func(x, y float64) (int, int) {
+		i, j := int((x-sg.x0)/sg.cw), int((y-sg.y0)/sg.ch)
+		if !(i >= 0) {
+			i = 0
+		}
+		if !(j >= 0) {
+			j = 0
+		}
+		return min(i, n-1), min(j, n-1)
+	}
+	sMin := math.Inf(1)
+	cnt := make([]int32, n*n+1)
+	for _, l := range src {
+		sMin = math.Min(sMin, l.Size)
+		i0, j0 := cell(math.Min(l.X0, l.X1), math.Min(l.Y0, l.Y1))
+		i1, j1 := cell(math.Max(l.X0, l.X1), math.Max(l.Y0, l.Y1))
+		for j := j0; j <= j1; j++ {
+			for i := i0; i <= i1; i++ {
+				cnt[j*n+i+1]++
+			}
+		}
+	}
+	for c := 1; c <= n*n; c++ {
+		cnt[c] += cnt[c-1]
+	}
+	bucket := make([]int32, cnt[n*n])
+	fill := make([]int32, n*n)
+	for k, l := range src {
+		i0, j0 := cell(math.Min(l.X0, l.X1), math.Min(l.Y0, l.Y1))
+		i1, j1 := cell(math.Max(l.X0, l.X1), math.Max(l.Y0, l.Y1))
+		for j := j0; j <= j1; j++ {
+			for i := i0; i <= i1; i++ {
+				c := j*n + i
+				bucket[cnt[c]+fill[c]] = int32(k)
+				fill[c]++
+			}
+		}
+	}
+	cmin := math.Min(sg.cw, sg.ch)
+	stamp := make([]int32, len(src))
+	query := int32(0)
+	var found []int32
+	// ring calls f for each source in the buckets at Chebyshev distance k
+	// from cell (ci, cj), once per query.
+	ring := func(ci, cj, k int, f func(s int32)) {
+		for j := cj - k; j <= cj+k; j++ {
+			if j < 0 || j >= n {
+				continue
+			}
+			for i := ci - k; i <= ci+k; i++ {
+				if i < 0 || i >= n || (j != cj-k && j != cj+k && i != ci-k && i != ci+k) {
+					continue
+				}
+				c := j*n + i
+				for _, s := range bucket[cnt[c]:cnt[c+1]] {
+					if stamp[s] != query {
+						stamp[s] = query
+						f(s)
+					}
+				}
+			}
+		}
+	}
+	for cj := 0; cj < n; cj++ {
+		for ci := 0; ci < n; ci++ {
+			cx, cy := sg.x0+(float64(ci)+0.5)*sg.cw, sg.y0+(float64(cj)+0.5)*sg.ch
+			// The smallest upper bound.
+			query++
+			best := math.Inf(1)
+			for k := 0; k < n; k++ {
+				if k > 0 && sMin+g*((float64(k)-0.5)*cmin+r) > best {
+					break
+				}
+				ring(ci, cj, k, func(s int32) {
+					l := &src[s]
+					best = math.Min(best, l.Size+g*(SegmentDistance(cx, cy, l.X0, l.Y0, l.X1, l.Y1)+r))
+				})
+			}
+			// The candidates.
+			query++
+			found = found[:0]
+			for k := 0; k < n; k++ {
+				if k > 0 && sMin+g*math.Max(0, (float64(k)-0.5)*cmin-r) > best {
+					break
+				}
+				ring(ci, cj, k, func(s int32) {
+					l := &src[s]
+					if l.Size+g*math.Max(0, SegmentDistance(cx, cy, l.X0, l.Y0, l.X1, l.Y1)-r) <= best {
+						found = append(found, s)
+					}
+				})
+			}
+			slices.Sort(found)
+			sg.cand = append(sg.cand, found...)
+			sg.start[cj*n+ci+1] = int32(len(sg.cand))
+		}
+	}
 }

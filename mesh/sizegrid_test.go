@@ -67,3 +67,58 @@ func BenchmarkSizeFieldAt(b *testing.B) {
 		})
 	}
 }
+
+// TestSizeGridBucketed: with many sources the grid finds each cell's
+// candidates through buckets; the lists are the same, in the same order,
+// as the loop over all sources gives, so the sizes are bit-identical.
+// Some sources lie outside the grid, and some are long.
+func TestSizeGridBucketed(t *testing.T) {
+	rng := rand.New(rand.NewPCG(2, 1))
+	var src []SizeLine
+	for i := 0; i < bucketSources+500; i++ {
+		x, y := 1.4*rng.Float64()-0.2, 1.4*rng.Float64()-0.2
+		l := 0.01
+		if i%100 == 0 {
+			l = 0.8
+		}
+		src = append(src, SizeLine{X0: x, Y0: y, X1: x + l*rng.NormFloat64(), Y1: y + l*rng.NormFloat64(), Size: 1e-3 + 0.05*rng.Float64()})
+	}
+	for _, g := range []float64{0.05, 0.3, 1} {
+		fast := newSizeGrid(src, g, 0, 0, 1, 1)
+		// The loop over all sources, as newSizeGrid runs it for few sources.
+		slow := newSizeGrid(src[:1], g, 0, 0, 1, 1)
+		slow.src, slow.cand = src, nil
+		r := 0.5 * math.Hypot(slow.cw, slow.ch)
+		lb := make([]float64, len(src))
+		for j := 0; j < slow.ny; j++ {
+			for i := 0; i < slow.nx; i++ {
+				cx, cy := (float64(i)+0.5)*slow.cw, (float64(j)+0.5)*slow.ch
+				best := math.Inf(1)
+				for k, l := range src {
+					d := SegmentDistance(cx, cy, l.X0, l.Y0, l.X1, l.Y1)
+					lb[k] = l.Size + g*max(0, d-r)
+					best = min(best, l.Size+g*(d+r))
+				}
+				for k := range src {
+					if lb[k] <= best {
+						slow.cand = append(slow.cand, int32(k))
+					}
+				}
+				slow.start[j*slow.nx+i+1] = int32(len(slow.cand))
+			}
+		}
+		if len(fast.cand) != len(slow.cand) {
+			t.Fatalf("grading %g: %d candidates bucketed, %d by the full loop", g, len(fast.cand), len(slow.cand))
+		}
+		for i := range fast.cand {
+			if fast.cand[i] != slow.cand[i] {
+				t.Fatalf("grading %g: candidate %d differs", g, i)
+			}
+		}
+		for i := range fast.start {
+			if fast.start[i] != slow.start[i] {
+				t.Fatalf("grading %g: cell %d starts differ", g, i)
+			}
+		}
+	}
+}

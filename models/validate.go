@@ -2,6 +2,7 @@ package models
 
 import (
 	"math"
+	"sort"
 
 	"polegap/mesh"
 )
@@ -91,17 +92,16 @@ func (d *decoder) validate(m *Model) {
 	for i := range m.Regions {
 		valid[i] = d.checkPolygon(m, &m.Regions[i], tol)
 	}
-	// Pairs: interiors must not overlap.
-	for i := range m.Regions {
-		for j := i + 1; j < len(m.Regions) && valid[i]; j++ {
-			if !valid[j] {
-				continue
-			}
-			a, b := &m.Regions[i], &m.Regions[j]
-			if x, y, ok := overlap(a, b, tol); ok {
-				d.failAt(b.Pos, "region %q overlaps region %q near %s; regions may touch or share edges but not overlap (one inside another is an overlap too: cut a hole by splitting the outer region)",
-					b.Name, a.Name, d.fmtPoint(x, y))
-			}
+	// Pairs: interiors must not overlap. Only pairs whose boxes meet can
+	// (overlap checks that first), so a sweep over the boxes sorted by x
+	// finds them in O(n log n + pairs): 10,000 small regions are checked
+	// in milliseconds. The pairs are checked in (i, j) order, as a double
+	// loop would.
+	for _, p := range boxPairs(m.Regions, valid) {
+		a, b := &m.Regions[p[0]], &m.Regions[p[1]]
+		if x, y, ok := overlap(a, b, tol); ok {
+			d.failAt(b.Pos, "region %q overlaps region %q near %s; regions may touch or share edges but not overlap (one inside another is an overlap too: cut a hole by splitting the outer region)",
+				b.Name, a.Name, d.fmtPoint(x, y))
 		}
 	}
 
@@ -320,4 +320,35 @@ func (d *decoder) defaults(m *Model) {
 	if mc.Grading == 0 {
 		mc.Grading = DefaultGrading
 	}
+}
+
+// boxPairs returns the pairs i < j of valid regions whose bounding boxes
+// (arcs exact) meet, sorted by i then j.
+func boxPairs(rs []Region, valid []bool) [][2]int {
+	type box struct {
+		x0, y0, x1, y1 float64
+		i              int
+	}
+	bs := make([]box, 0, len(rs))
+	for i := range rs {
+		if valid[i] {
+			x0, y0, x1, y1 := rs[i].exactBounds()
+			bs = append(bs, box{x0, y0, x1, y1, i})
+		}
+	}
+	sort.Slice(bs, func(a, b int) bool { return bs[a].x0 < bs[b].x0 || bs[a].x0 == bs[b].x0 && bs[a].i < bs[b].i })
+	var pairs [][2]int
+	for a := range bs {
+		for b := a + 1; b < len(bs) && bs[b].x0 <= bs[a].x1; b++ {
+			if bs[b].y0 > bs[a].y1 || bs[a].y0 > bs[b].y1 {
+				continue
+			}
+			i, j := bs[a].i, bs[b].i
+			pairs = append(pairs, [2]int{min(i, j), max(i, j)})
+		}
+	}
+	sort.Slice(pairs, func(a, b int) bool {
+		return pairs[a][0] < pairs[b][0] || pairs[a][0] == pairs[b][0] && pairs[a][1] < pairs[b][1]
+	})
+	return pairs
 }

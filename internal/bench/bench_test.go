@@ -4,6 +4,9 @@ import (
 	"context"
 	"flag"
 	"testing"
+
+	"polegap/models"
+	"polegap/post/study"
 )
 
 var bench1M = flag.Bool("bench.1m", false, "also run the 1M-node design benchmark (minutes, a few GB)")
@@ -58,6 +61,36 @@ func BenchmarkDesign(b *testing.B) {
 			}
 			b.ReportMetric(float64(sum.PeakHeap)/(1<<20), "MiB-peak-heap")
 			b.ReportMetric(sum.BytesPerNode/n, "B/node-w/o-factor")
+		})
+	}
+}
+
+// BenchmarkLargeInput meshes the large inputs of issue 20: an outline of
+// 100,000 vertices (CircleOutline) and 10,000 small regions
+// (ManyRegions), from the parsed model to the finished mesh (the model's
+// checks, the size estimate, the geometry graph and the mesher).
+func BenchmarkLargeInput(b *testing.B) {
+	for _, c := range []struct {
+		name string
+		make func() (*models.Model, error)
+	}{
+		{"circle-100k", func() (*models.Model, error) { return CircleOutline(100_000) }},
+		{"regions-10k", func() (*models.Model, error) { return ManyRegions(100) }},
+	} {
+		b.Run(c.name, func(b *testing.B) {
+			var tri int
+			for i := 0; i < b.N; i++ {
+				m, err := c.make()
+				if err != nil {
+					b.Fatal(err)
+				}
+				d, err := study.Discretize(m)
+				if err != nil {
+					b.Fatal(err)
+				}
+				tri = d.Mesh.NumTriangles()
+			}
+			b.ReportMetric(float64(tri), "triangles")
 		})
 	}
 }

@@ -61,10 +61,16 @@ func SizeField(m *models.Model) mesh.SizeField {
 	far := math.Max(xmax-xmin, ymax-ymin) / FarSizeDivisor
 	f := mesh.SizeField{Global: math.Max(far, m.Mesh.Size), Grading: m.Mesh.Grading, Region: map[int32]float64{}}
 	addPolygon := func(x, y []float64, size float64) {
+		lines := make([]mesh.SizeLine, len(x))
 		for i := range x {
 			j := (i + 1) % len(x)
-			f.Lines = append(f.Lines, mesh.SizeLine{X0: x[i], Y0: y[i], X1: x[j], Y1: y[j], Size: size})
+			lines[i] = mesh.SizeLine{X0: x[i], Y0: y[i], X1: x[j], Y1: y[j], Size: size}
 		}
+		g := f.Grading
+		if g <= 0 {
+			g = mesh.DefaultGrading
+		}
+		f.Lines = append(f.Lines, simplifyLines(lines, g, 0.1)...)
 	}
 	// A region's edges, its arcs followed by chords of at most 5° (the
 	// size there then exceeds the asked size by at most the grading times

@@ -359,6 +359,9 @@ type estimator struct {
 	feat       []mesh.SizeLine // small features, graded by featureGrading
 	featInfo   []featureLine   // where each of feat comes from
 	minFeature float64         // mesh.min-feature: smaller features close
+	featField  mesh.SizeField  // feat as a size field, indexed
+	regBoxes   *edgeGrid       // the regions' bounding boxes, as diagonals
+	regAll     []int32         // 0..len(regions)-1, when regBoxes is nil
 	xmin       float64
 	ymin       float64
 	xmax       float64
@@ -370,7 +373,12 @@ type estimator struct {
 type ring struct {
 	x, y                   []float64
 	xmin, ymin, xmax, ymax float64
+	grid                   *edgeGrid // for rings of many edges (gridRing)
 }
+
+// gridRing is the number of edges from which a ring's queries go through
+// an edgeGrid.
+const gridRing = 64
 
 func newRing(x, y, sweep []float64) ring {
 	var r ring
@@ -408,6 +416,15 @@ func newRing(x, y, sweep []float64) ring {
 		r.xmin, r.xmax = math.Min(r.xmin, r.x[i]), math.Max(r.xmax, r.x[i])
 		r.ymin, r.ymax = math.Min(r.ymin, r.y[i]), math.Max(r.ymax, r.y[i])
 	}
+	if n := len(r.x); n > gridRing {
+		// Segment k runs from vertex k-1 to vertex k, as contains walks them.
+		ax, ay := make([]float64, n), make([]float64, n)
+		for k := range n {
+			j := (k + n - 1) % n
+			ax[k], ay[k] = r.x[j], r.y[j]
+		}
+		r.grid = newEdgeGrid(ax, ay, r.x, r.y)
+	}
 	return r
 }
 
@@ -416,6 +433,9 @@ func newRing(x, y, sweep []float64) ring {
 func (r *ring) contains(x, y float64) bool {
 	if x < r.xmin || x > r.xmax || y < r.ymin || y > r.ymax {
 		return false
+	}
+	if r.grid != nil {
+		return r.grid.crossings(x, y)%2 == 1
 	}
 	in := false
 	n := len(r.x)
@@ -426,6 +446,14 @@ func (r *ring) contains(x, y float64) bool {
 		}
 	}
 	return in
+}
+
+// within reports whether an edge of the ring lies within d of (x, y).
+func (r *ring) within(x, y, d float64) bool {
+	if r.grid != nil {
+		return r.grid.within(x, y, d)
+	}
+	return r.dist(x, y) <= d
 }
 
 // dist returns the distance from (x, y) to the ring's edges.
@@ -439,12 +467,16 @@ func (r *ring) dist(x, y float64) float64 {
 }
 
 func newEstimator(m *models.Model, f *mesh.SizeField, bd *mesh.Polygon) *estimator {
-	e := &estimator{f: f, noReg: *f, g: f.Grading, minFeature: m.Mesh.MinFeature}
-	e.noReg.Region = nil
+	e := &estimator{g: f.Grading, minFeature: m.Mesh.MinFeature}
 	if e.g <= 0 {
 		e.g = mesh.DefaultGrading
 	}
 	e.dom = newRing(bd.X, bd.Y, bd.Sweep)
+	// The field's sources in a grid, as the mesher holds them: a model
+	// with many edges has as many size lines.
+	fi := f.Indexed(e.dom.x, e.dom.y)
+	e.f, e.noReg = &fi, fi
+	e.noReg.Region = nil
 	e.xmin, e.ymin, e.xmax, e.ymax = e.dom.xmin, e.dom.ymin, e.dom.xmax, e.dom.ymax
 	all := []ring{e.dom}
 	for i := range m.Regions {
@@ -487,46 +519,90 @@ func (e *estimator) addFeatures(rings []ring) {
 			edges = append(edges, edge{r.x[i], r.y[i], r.x[j], r.y[j], k})
 		}
 	}
+	ax, ay := make([]float64, len(edges)), make([]float64, len(edges))
+	bx, by := make([]float64, len(edges)), make([]float64, len(edges))
+	for k, g := range edges {
+		ax[k], ay[k], bx[k], by[k] = g.x0, g.y0, g.x1, g.y1
+	}
+	grid := newEdgeGrid(ax, ay, bx, by)
 	// Edges that share an end point (adjacent edges, or regions meeting at
 	// a vertex) or lie on each other are not features: the mesher joins them.
 	ext := math.Max(e.xmax-e.xmin, e.ymax-e.ymin)
 	touch := 1e-9 * ext
-	lfs := func(x, y float64, self int) (float64, int) {
+	// lfs returns the distance from (x, y) on edge self to the nearest
+	// edge that does not reach self, and that edge, when it is at most r
+	// away (+Inf and -1 otherwise): the grid looks at the edges near the
+	// point only.
+	near1 := func(x, y float64, self int, r float64) (float64, int) {
 		d, near := math.Inf(1), -1
-		for k, g := range edges {
+		a := edges[self]
+		grid.visit(x-r, y-r, x+r, y+r, func(k int) {
 			if k == self {
-				continue
+				return
 			}
+			g := edges[k]
 			q := mesh.SegmentDistance(x, y, g.x0, g.y0, g.x1, g.y1)
-			if q <= touch || q >= d {
-				continue
+			if q <= touch || q > r || q > d || q == d && k > near {
+				return
 			}
 			// Skip the edges that reach the sample's own edge.
-			a := edges[self]
 			if mesh.SegmentDistance(g.x0, g.y0, a.x0, a.y0, a.x1, a.y1) <= touch || mesh.SegmentDistance(g.x1, g.y1, a.x0, a.y0, a.x1, a.y1) <= touch ||
 				mesh.SegmentDistance(a.x0, a.y0, g.x0, g.y0, g.x1, g.y1) <= touch || mesh.SegmentDistance(a.x1, a.y1, g.x0, g.y0, g.x1, g.y1) <= touch {
-				continue
+				return
 			}
 			d, near = q, k
-		}
+		})
 		return d, near
+	}
+	// The search widens from a few lengths of the sample's own edge: on
+	// an outline of many short edges the nearest one is close by.
+	lfs := func(x, y float64, self int, r float64) (float64, int) {
+		a := edges[self]
+		rr := math.Min(r, 4*math.Max(math.Hypot(a.x1-a.x0, a.y1-a.y0), touch))
+		for {
+			d, near := near1(x, y, self, rr)
+			if near >= 0 || rr >= r {
+				return d, near
+			}
+			rr = math.Min(r, 4*rr)
+		}
 	}
 	var added []mesh.SizeLine
 	e.featInfo = e.featInfo[:0]
+	var mids []float64
 	for k, a := range edges {
+		// An edge far shorter than the size at it needs fewer samples.
+		ln := math.Hypot(a.x1-a.x0, a.y1-a.y0)
+		ns := featureSamples
+		if h := e.f.At(0.5*(a.x0+a.x1), 0.5*(a.y0+a.y1), AirTag); ln < h {
+			ns = max(2, min(featureSamples, int(math.Ceil(featureSamples*ln/h))))
+		}
+		// The size at each piece's middle; a feature counts where it is
+		// below half of that, so no edge farther than half the largest
+		// matters.
+		mids = mids[:0]
+		r := 0.0
+		for s := 1; s <= ns; s++ {
+			t := (float64(s) - 0.5) / float64(ns)
+			h := e.f.At(a.x0+t*(a.x1-a.x0), a.y0+t*(a.y1-a.y0), AirTag)
+			mids = append(mids, h)
+			r = math.Max(r, 0.5*h)
+		}
+		if math.IsInf(r, 1) {
+			r = 2 * ext
+		}
 		px, py := a.x0, a.y0
-		pl, pn := lfs(px, py, k)
-		for s := 1; s <= featureSamples; s++ {
-			t := float64(s) / featureSamples
+		pl, pn := lfs(px, py, k, r)
+		for s := 1; s <= ns; s++ {
+			t := float64(s) / float64(ns)
 			qx, qy := a.x0+t*(a.x1-a.x0), a.y0+t*(a.y1-a.y0)
-			ql, qn := lfs(qx, qy, k)
+			ql, qn := lfs(qx, qy, k, r)
 			size, other := pl, pn
 			if ql < pl {
 				size, other = ql, qn
 			}
-			mx, my := 0.5*(px+qx), 0.5*(py+qy)
 			// Features below mesh.min-feature close when the graph is built.
-			if h := e.f.At(mx, my, AirTag); size < math.Inf(1) && size < 0.5*h && size >= e.minFeature {
+			if h := mids[s-1]; size < math.Inf(1) && size < 0.5*h && size >= e.minFeature {
 				added = append(added, mesh.SizeLine{X0: px, Y0: py, X1: qx, Y1: qy, Size: size})
 				e.featInfo = append(e.featInfo, featureLine{ring: a.ring, other: edges[other].ring, field: h})
 			}
@@ -534,6 +610,9 @@ func (e *estimator) addFeatures(rings []ring) {
 		}
 	}
 	e.feat = added
+	// The lines of a many-vertex outline merge into chords for the
+	// quadrature (featureTriangles counts them one by one).
+	e.featField = mesh.SizeField{Lines: simplifyLines(added, featureGrading, 0.25), Grading: featureGrading}.Indexed(e.dom.x, e.dom.y)
 }
 
 // worst returns the group of feature lines (the pair of rings they lie
@@ -629,11 +708,7 @@ const featureGrading = 1.0
 // featureSize returns the size the small features ask for at (x, y), +Inf
 // where there are none.
 func (e *estimator) featureSize(x, y float64) float64 {
-	h := math.Inf(1)
-	for _, l := range e.feat {
-		h = math.Min(h, l.Size+featureGrading*mesh.SegmentDistance(x, y, l.X0, l.Y0, l.X1, l.Y1))
-	}
-	return h
+	return e.featField.At(x, y, AirTag)
 }
 
 // cell is one rectangle of the adaptive grid.
@@ -658,12 +733,12 @@ func (e *estimator) density(c cell) (est, low float64, split bool) {
 	hf := e.featureSize(x, y)
 	lo, hi = math.Min(lo, math.Max(hf-featureGrading*rad, 0)), math.Min(hi, hf+featureGrading*rad)
 	tag := AirTag
-	for k := range e.regions {
+	for _, k := range e.regionsAt(x, y) {
 		if e.regions[k].contains(x, y) {
 			tag = e.tags[k]
 			s := e.f.Region[tag]
 			lo = math.Min(lo, s)
-			if e.regions[k].dist(x, y) > rad {
+			if !e.regions[k].within(x, y, rad) {
 				hi = math.Min(hi, s)
 			}
 			break
@@ -732,4 +807,35 @@ func (e *estimator) integrate(limit float64) (n float64, partial bool) {
 		level, next = next, level
 	}
 	return done, false
+}
+
+// regionsAt returns the indices, increasing, of the regions of e.regions
+// whose bounding box may hold (x, y): all of them for a few regions, the
+// ones listed in the grid cell of (x, y) for many.
+func (e *estimator) regionsAt(x, y float64) []int32 {
+	if e.regBoxes == nil {
+		if len(e.regAll) != len(e.regions) {
+			e.regAll = make([]int32, len(e.regions))
+			for k := range e.regAll {
+				e.regAll[k] = int32(k)
+			}
+		}
+		if len(e.regions) <= gridRing {
+			return e.regAll
+		}
+		n := len(e.regions)
+		ax, ay, bx, by := make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
+		for k := range e.regions {
+			r := &e.regions[k]
+			ax[k], ay[k], bx[k], by[k] = r.xmin, r.ymin, r.xmax, r.ymax
+		}
+		e.regBoxes = newEdgeGrid(ax, ay, bx, by)
+	}
+	g := e.regBoxes
+	if x < g.x0 || y < g.y0 || x > g.x0+float64(g.nx)*g.cw || y > g.y0+float64(g.ny)*g.ch {
+		return nil
+	}
+	i, j := g.cell(x, y)
+	c := j*g.nx + i
+	return g.idx[g.start[c]:g.start[c+1]]
 }
