@@ -172,7 +172,7 @@ func team13Steel() curveData {
 		entry: Entry{
 			Name:        "team13-steel",
 			Description: "steel of the 3.2 mm plates of TEAM Workshop Problem 13; published benchmark B-H table; mu_r max about 2300, knee about 1.34 T, J_sat 2.16 T",
-			Source:      "TEAM Workshop Problem 13 (3-D non-linear magnetostatic model; Nakata, Takahashi, Fujiwara et al., 1990): B-H table of the steel plates to 1.8 T, and its Eq. (1) above; values read from public transcriptions of the definition",
+			Source:      "TEAM Workshop Problem 13, 3-D non-linear magnetostatic model (T. Nakata, N. Takahashi, K. Fujiwara et al., 1990; authors and year from memory): B-H table of the steel plates to 1.8 T, and its Eq. (1) above; values read from four agreeing public transcriptions of the definition",
 			Kind:        KindNonlinear,
 		},
 		h:         h,
