@@ -140,6 +140,7 @@ func htmlSolve(h *htmlFlag, arg string, s *study.Result, acc *design.Accuracy, r
 
 func htmlCheck(h *htmlFlag, arg string, s *study.Result, acc *design.Accuracy, c *check.Check) error {
 	d := h.document(s.Model.Name+" — check", arg, s.Model, acc)
+	d.AddDesignCautions(design.NewDesign(s, design.DesignOptions{StressOnly: true, NoPoleForce: true}))
 	if err := d.AddCheck(c); err != nil {
 		return err
 	}

@@ -14,72 +14,46 @@ import (
 	"polegap/post/output/report"
 )
 
-// TestHTMLReports: every command that takes --html writes a report with
-// the cautions first, then the inputs (the model's SHA-256 among them),
-// the results, the mesh picture and the sign-off block; "Excitation
-// curve" heads at most one section; the command's options are listed.
-// When chromium is installed (Debian's package) and the test is not
-// -short, each report must also load in headless chromium, which prints
-// the parsed page (--dump-dom) with the inputs section in it and reports
-// no script error (the page has no scripts).
-func TestHTMLReports(t *testing.T) {
-	dir := t.TempDir()
+// checkHTMLReport checks a command's --html report: the cautions first,
+// then the inputs (the model's SHA-256 among them), the results, the mesh
+// picture and the sign-off block; "Excitation curve" heads at most one
+// section; want lists what else the page must hold (the command's
+// options among them).
+func checkHTMLReport(t *testing.T, name, path string, want []string) {
+	t.Helper()
 	src, err := models.Example("bench-dipole")
 	if err != nil {
 		t.Fatal(err)
 	}
-	sum := report.Fingerprint(src)
-	cases := []struct {
-		name string
-		args []string
-		want []string // besides the common parts
-	}{
-		{"solve", []string{"solve", "--quick", "--stress-only"}, []string{"Field at the probes", "Design quantities", "Field map"}},
-		{"size", []string{"size", "--quick", "--cooling", "water"}, []string{"Coil for the target field", "water (l/min)", "--cooling water"}},
-		{"sweep", []string{"sweep", "--quick", "--points", "3"}, []string{"Excitation curve"}},
-		{"check", []string{"check", "--quick", "--saturation-limit", "1.9T"}, []string{"<h2>Check</h2>", "--saturation-limit 1.9T"}},
-		{"compare", []string{"compare"}, []string{"Measured against predicted", "relative residual is undefined at zero current"}},
+	data, err := os.ReadFile(path)
+	if err != nil {
+		t.Errorf("%s: %v", name, err)
+		return
 	}
-	var rendered [][2]string
-	for _, c := range cases {
-		path := filepath.Join(dir, c.name+".html")
-		args := append(append([]string(nil), c.args...), "--html", path, "bench-dipole")
-		if c.name == "compare" {
-			args = append(args, "../../testdata/measured/bench-dipole-hall.csv")
+	page := string(data)
+	for _, w := range append([]string{`<section id="inputs">`, report.Fingerprint(src), "Revision and sign-off", "<h2>Mesh</h2>", "data:image/png;base64,", "Follow local electrical codes"}, want...) {
+		if !strings.Contains(page, w) {
+			t.Errorf("%s: the report lacks %q", name, w)
 		}
-		code, _, errs := runCmd(t, args...)
-		if code != 0 {
-			t.Errorf("%s: code %d\n%s", c.name, code, errs)
-			continue
-		}
-		data, err := os.ReadFile(path)
-		if err != nil {
-			t.Errorf("%s: %v", c.name, err)
-			continue
-		}
-		page := string(data)
-		for _, want := range append([]string{`<section id="inputs">`, sum, "Revision and sign-off", "<h2>Mesh</h2>", "data:image/png;base64,", "Follow local electrical codes"}, c.want...) {
-			if !strings.Contains(page, want) {
-				t.Errorf("%s: the report lacks %q", c.name, want)
-			}
-		}
-		if ci, ii := strings.Index(page, `id="cautions"`), strings.Index(page, `id="inputs"`); ci < 0 || ci > ii {
-			t.Errorf("%s: the cautions are not above the inputs", c.name)
-		}
-		if n := strings.Count(page, "<h2>Excitation curve</h2>"); n > 1 {
-			t.Errorf("%s: %d sections called Excitation curve", c.name, n)
-		}
-		for _, bad := range []string{"NaN", "+Inf", "%!"} {
-			if strings.Contains(stripImages(page), bad) {
-				t.Errorf("%s: the report holds %q", c.name, bad)
-			}
-		}
-		rendered = append(rendered, [2]string{c.name, path})
 	}
-	// chromium mostly waits (for a bus it does not find here): load the
-	// pages at once.
+	if ci, ii := strings.Index(page, `id="cautions"`), strings.Index(page, `id="inputs"`); ci < 0 || ci > ii {
+		t.Errorf("%s: the cautions are not above the inputs", name)
+	}
+	if n := strings.Count(page, "<h2>Excitation curve</h2>"); n > 1 {
+		t.Errorf("%s: %d sections called Excitation curve", name, n)
+	}
+	for _, bad := range []string{"NaN", "+Inf", "%!"} {
+		if strings.Contains(stripImages(page), bad) {
+			t.Errorf("%s: the report holds %q", name, bad)
+		}
+	}
+}
+
+// renderAll loads the pages in headless chromium at once (it mostly
+// waits, for a bus it does not find here): see renderInChromium.
+func renderAll(t *testing.T, pages [][2]string) {
 	var wg sync.WaitGroup
-	for _, r := range rendered {
+	for _, r := range pages {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
@@ -105,8 +79,11 @@ func stripImages(s string) string {
 	}
 }
 
-// renderInChromium loads a page in headless chromium, when installed and
-// the test is not -short, and checks the parsed page.
+// renderInChromium loads a page in headless chromium, when installed
+// (Debian's package) and the test is not -short, and checks that it
+// loads, that the parsed page (--dump-dom) holds the inputs and the
+// sign-off, and that chromium reports no script error (the page has no
+// scripts).
 func renderInChromium(t *testing.T, name, path string) {
 	if testing.Short() {
 		return

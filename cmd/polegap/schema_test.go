@@ -254,27 +254,48 @@ func TestValidator(t *testing.T) {
 }
 
 // TestJSONSchema: the JSON output of every command that prints JSON
-// validates against the schema, with schema_version first.
+// validates against the schema, with schema_version first; the same runs
+// write each command's --html report (solve, size, sweep, check,
+// compare), checked by checkHTMLReport and, when chromium is installed,
+// loaded in it.
 func TestJSONSchema(t *testing.T) {
-	cases := [][]string{
-		{"solve", "--json", "--quick", "bench-dipole"},
-		{"solve", "--json", "--quick", "--stress-only", "calibration-solenoid"},
-		{"solve", "--json", "--quick", "holding-magnet"},
-		{"check", "--json", "--quick", "--saturation-limit", "1.5T", "bench-dipole"},
-		{"size", "--json", "--quick", "--cooling", "water", "bench-dipole"},
-		{"size", "--json", "--quick", "bench-dipole"},
-		{"compare", "--json", "--fit", "offset", "bench-dipole", "../../testdata/measured/bench-dipole-hall.csv"},
-		{"mesh", "--json", "bench-dipole"},
+	dir := t.TempDir()
+	cases := []struct {
+		args []string
+		html []string // what the --html report must hold; nil: no report
+	}{
+		{[]string{"solve", "--json", "--quick", "--stress-only", "bench-dipole"}, []string{"Field at the probes", "Design quantities", "Field map", "The force on pole attraction"}},
+		{[]string{"solve", "--json", "--quick", "--stress-only", "calibration-solenoid"}, nil},
+		{[]string{"solve", "--json", "--quick", "holding-magnet"}, nil},
+		{[]string{"check", "--json", "--quick", "--saturation-limit", "1.5T", "bench-dipole"}, []string{"<h2>Check</h2>", "--saturation-limit 1.5T", "some checks FAIL"}},
+		{[]string{"size", "--json", "--quick", "--cooling", "water", "bench-dipole"}, []string{"Coil for the target field", "water (l/min)", "--cooling water"}},
+		{[]string{"size", "--json", "--quick", "bench-dipole"}, nil},
+		{[]string{"compare", "--json", "--fit", "offset", "bench-dipole", "../../testdata/measured/bench-dipole-hall.csv"}, []string{"Measured against predicted", "relative residual is undefined at zero current", "Birge ratio"}},
+		{[]string{"mesh", "--json", "bench-dipole"}, nil},
+		{[]string{"sweep", "--quick", "--points", "3", "bench-dipole"}, []string{"Excitation curve", "At the highest current of the sweep"}},
 	}
-	for _, args := range cases {
-		name := strings.Join(args, " ")
+	var pages [][2]string
+	for i, c := range cases {
+		name := strings.Join(c.args, " ")
+		args := c.args
+		page := filepath.Join(dir, fmt.Sprintf("%d-%s.html", i, c.args[0]))
+		if c.html != nil {
+			args = append([]string{args[0], "--html", page}, args[1:]...)
+		}
 		code, out, errs := runCmd(t, args...)
-		if code != 0 && !(args[0] == "check" && code == 1) {
+		if code != 0 && !(c.args[0] == "check" && code == 1) {
 			t.Errorf("%s: code %d\n%s", name, code, errs)
 			continue
 		}
-		validateJSON(t, name, []byte(out))
+		if c.args[0] != "sweep" {
+			validateJSON(t, name, []byte(out))
+		}
+		if c.html != nil {
+			checkHTMLReport(t, name, page, c.html)
+			pages = append(pages, [2]string{c.args[0], page})
+		}
 	}
+	renderAll(t, pages)
 	// The pinned outputs too (testdata/golden), which cost no solve.
 	goldens, _ := filepath.Glob("testdata/golden/*.json")
 	if len(goldens) == 0 {
@@ -285,6 +306,8 @@ func TestJSONSchema(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
+		// golden_test.go masks the timings as "<time>".
+		data = []byte(strings.ReplaceAll(string(data), `"<time>"`, "0"))
 		validateJSON(t, g, data)
 	}
 }

@@ -82,7 +82,7 @@ func (d *Document) AddReport(r *design.Report) error {
 		if err := d.add("Design quantities", "design", r.Design); err != nil {
 			return err
 		}
-		d.AddCaution(designCautions(r.Design)...)
+		d.AddDesignCautions(r.Design)
 	}
 	if r.Accuracy != nil {
 		return d.add("How far to trust the numbers", "accuracy", struct {
@@ -93,7 +93,12 @@ func (d *Document) AddReport(r *design.Report) error {
 	return nil
 }
 
-// designCautions are the cautions a design's numbers make concrete.
+// AddDesignCautions adds the cautions a design's numbers make concrete:
+// each coil's current and the stored energy, and each computed force.
+func (d *Document) AddDesignCautions(ds *design.Design) {
+	d.AddCaution(designCautions(ds)...)
+}
+
 func designCautions(ds *design.Design) []string {
 	var out []string
 	for _, c := range ds.Coils {
@@ -170,6 +175,16 @@ func (d *Document) AddSweep(name string, pts []sweep.Point, gap float64, accurac
 	img, err := excitationImage(name, pts, gap)
 	if err != nil {
 		return err
+	}
+	top := 0
+	for i, p := range pts {
+		if abs(p.Current) > abs(pts[top].Current) {
+			top = i
+		}
+	}
+	if len(pts) > 0 && pts[top].Energy > 0 {
+		p := pts[top]
+		d.AddCaution(fmt.Sprintf("At the highest current of the sweep, %.4g A (%.5g ampere-turns), the field stores %.4g J and the flux linkage is %.4g Wb: a supply switched off there must be able to absorb that energy through a free-wheeling path or dump resistor. Check that the coil is rated for this current before driving it there.", p.Current, p.AmpereTurns, p.Energy, p.Linkage))
 	}
 	return d.add("Excitation curve", "sweep", struct {
 		Points   []sweep.Point
