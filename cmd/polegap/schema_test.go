@@ -128,17 +128,20 @@ func validate(root, schema map[string]any, doc any, path string) []string {
 			var first []string
 			for _, sub := range v.([]any) {
 				e := validate(root, sub.(map[string]any), doc, path)
-				if len(e) == 0 {
+				switch {
+				case len(e) == 0:
 					matched++
-				} else if first == nil || k == "allOf" {
+				case k == "allOf":
 					first = append(first, e...)
+				case first == nil || len(e) < len(first):
+					first = e // the closest branch's complaints
 				}
 			}
 			if k == "allOf" && matched < len(v.([]any)) {
 				errs = append(errs, first...)
 			}
 			if k == "oneOf" && matched != 1 {
-				fail("matches %d of the oneOf schemas, want 1; the first's complaints: %v", matched, first)
+				fail("matches %d of the oneOf schemas, want 1; the closest one's complaints: %v", matched, first)
 			}
 		default:
 			fail("the schema uses %q, which this validator does not implement", k)

@@ -215,8 +215,8 @@ Bounds from the vector-potential and complementary solutions: between {{f "%.6g"
 {{end}}
 
 {{define "comparison"}}<p>Measured: <code>{{.Measured}}</code> ({{.R.Kind}}, {{.R.Unit}}).</p>
-<table><tr><th>current (A)</th><th>measured</th><th>u</th><th>predicted</th><th>residual</th><th>relative</th></tr>
-{{range .R.Residuals}}<tr><td>{{f "%.4g" .Current}}</td><td>{{f "%.5f" .Measured}}</td><td>{{f "%.2g" .Sigma}}</td><td>{{f "%.5f" .Predicted}}</td><td>{{f "%+.5f" .Abs}}</td><td>{{relpct .Rel}}</td></tr>{{end}}
+<table><tr><th>current (A)</th><th>measured</th><th>u</th><th>predicted</th><th>residual</th><th>residual/u</th><th>relative</th></tr>
+{{range .R.Residuals}}<tr><td>{{f "%.4g" .Current}}</td><td>{{f "%.5f" .Measured}}</td><td>{{f "%.2g" .Sigma}}</td><td>{{f "%.5f" .Predicted}}</td><td>{{f "%+.5f" .Abs}}</td><td>{{with .Normalised}}{{f "%+.2f" (deref .)}}{{else}}–{{end}}</td><td>{{relpct .Rel}}</td></tr>{{end}}
 </table>
 <p>RMS residual {{f "%.4g" .R.RMS}} {{.R.Unit}}, largest {{f "%.4g" .R.Max}} {{.R.Unit}}{{if .R.RelPoints}}; relative RMS {{pct .R.RMSRel}} % over {{.R.RelPoints}} points{{end}}.
 The relative residual is undefined at zero current and at a zero prediction; such points count in the absolute figures only.

@@ -36,7 +36,11 @@ type Residual struct {
 	// (a remanent field over a prediction of nothing) or a zero
 	// prediction. Such points count in the absolute figures only.
 	Rel *float64 `json:"relative"`
-	Row int      `json:"row,omitempty"` // line in the measured file
+	// Normalised is Abs / Sigma, nil where no uncertainty is stated: the
+	// residual in standard uncertainties, what a residual panel plots to
+	// show whether the points scatter as their uncertainties say.
+	Normalised *float64 `json:"normalised"`
+	Row        int      `json:"row,omitempty"` // line in the measured file
 }
 
 // Result is a comparison.
@@ -133,6 +137,8 @@ func residuals(c *measure.Curve, field []float64, turnsArea float64) *Result {
 		ss += d * d
 		r.Max = math.Max(r.Max, math.Abs(d))
 		if sig[i] > 0 {
+			z := d / sig[i]
+			r.Residuals[len(r.Residuals)-1].Normalised = &z
 			r.ChiSquare += (d / sig[i]) * (d / sig[i])
 			r.Weighted++
 		}

@@ -169,6 +169,12 @@ func TestOffsetAndZeroCurrent(t *testing.T) {
 	if r.Residuals[0].Rel != nil || r.RelPoints != 3 {
 		t.Errorf("relative residual at 0 A %v, %d relative points; want nil and 3", r.Residuals[0].Rel, r.RelPoints)
 	}
+	// 8 mT over σ = 1 mT, to the solver's tolerance (1e-7 relative).
+	for _, x := range r.Residuals {
+		if x.Normalised == nil || math.Abs(*x.Normalised-8) > 1e-4 {
+			t.Errorf("normalised residual at %g A: %v, want 8", x.Current, x.Normalised)
+		}
+	}
 	var buf bytes.Buffer
 	f, err := Calibrate(context.Background(), m, c, []Parameter{Offset}, Options{})
 	if err != nil {

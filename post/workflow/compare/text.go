@@ -17,7 +17,7 @@ const BirgeCitation = "R. T. Birge, Phys. Rev. 40, 207 (1932); GUM, JCGM 100:200
 func WriteText(w io.Writer, model, measured string, r *Result, fit *Fit) error {
 	fmt.Fprintf(w, "model %s against %s (%s, %s)\n\n", model, measured, r.Kind, r.Unit)
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
-	fmt.Fprintf(tw, "current A\tmeasured\tu\tpredicted\tresidual\trelative\t\n")
+	fmt.Fprintf(tw, "current A\tmeasured\tu\tpredicted\tresidual\tresidual/u\trelative\t\n")
 	undefined := 0
 	for _, x := range r.Residuals {
 		rel := "undefined"
@@ -26,7 +26,11 @@ func WriteText(w io.Writer, model, measured string, r *Result, fit *Fit) error {
 		} else {
 			undefined++
 		}
-		fmt.Fprintf(tw, "%.4g\t%.5f\t%.2g\t%.5f\t%+.5f\t%s\t\n", x.Current, x.Measured, x.Sigma, x.Predicted, x.Abs, rel)
+		z := "-"
+		if x.Normalised != nil {
+			z = fmt.Sprintf("%+.2f", *x.Normalised)
+		}
+		fmt.Fprintf(tw, "%.4g\t%.5f\t%.2g\t%.5f\t%+.5f\t%s\t%s\t\n", x.Current, x.Measured, x.Sigma, x.Predicted, x.Abs, z, rel)
 	}
 	if err := tw.Flush(); err != nil {
 		return err
@@ -89,18 +93,22 @@ func writeFit(w io.Writer, unit string, fit *Fit) {
 
 // WriteCSV writes the residual table with units in the header. The
 // relative residual is empty where it is undefined (zero current or zero
-// prediction).
+// prediction), the normalised one (residual/σ) where no σ is stated.
 func WriteCSV(w io.Writer, r *Result) error {
 	cw := csv.NewWriter(w)
 	u := strings.ReplaceAll(r.Unit, "-", "_")
-	cw.Write([]string{"current_A", "measured_" + u, "sigma_" + u, "predicted_" + u, "residual_" + u, "relative"})
+	cw.Write([]string{"current_A", "measured_" + u, "sigma_" + u, "predicted_" + u, "residual_" + u, "relative", "normalised"})
 	g := func(v float64) string { return strconv.FormatFloat(v, 'g', 10, 64) }
 	for _, x := range r.Residuals {
 		rel := ""
 		if x.Rel != nil {
 			rel = g(*x.Rel)
 		}
-		cw.Write([]string{g(x.Current), g(x.Measured), g(x.Sigma), g(x.Predicted), g(x.Abs), rel})
+		z := ""
+		if x.Normalised != nil {
+			z = g(*x.Normalised)
+		}
+		cw.Write([]string{g(x.Current), g(x.Measured), g(x.Sigma), g(x.Predicted), g(x.Abs), rel, z})
 	}
 	cw.Flush()
 	return cw.Error()
