@@ -107,17 +107,8 @@ func sizeSupply(env *Env, r *sweep.Runner, res *target.Result, s *coil.Sizing, o
 		}
 		pts = append(pts, p)
 	}
-	// The search may solve one current twice (bracketing); keep the first.
-	seen := map[float64]bool{}
-	uniq := pts[:0]
-	for _, p := range pts {
-		if !seen[p.Current] {
-			seen[p.Current] = true
-			uniq = append(uniq, p)
-		}
-	}
 	rc := float64(max(s.Windings, 1)) * b.Resistance
-	sup, err := supply.New(supply.CurveOf(uniq, b.Turns), rc, b.Current, opt)
+	sup, err := supply.New(supply.CurveOf(pts, b.Turns), rc, b.Current, opt)
 	if err != nil {
 		return fmt.Errorf("supply figures: %w", err)
 	}

@@ -9,6 +9,7 @@ import (
 	"polegap/post/workflow/check"
 	"polegap/post/workflow/coil"
 	"polegap/post/workflow/design"
+	"polegap/post/workflow/supply"
 	"polegap/post/workflow/sweep"
 	"polegap/post/workflow/target"
 )
@@ -108,9 +109,20 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 			if werr == nil {
 				spec := coil.Spec{AmpereTurns: res.AmpereTurns, Window: w.Window, Cooling: opt.Cooling,
 					FillFactor: m.Coils[0].FillFactor, Temperature: m.Coils[0].Temperature,
-					SupplyVoltage: m.Coils[0].SupplyVoltage, SupplyCurrent: m.Coils[0].SupplyCurrent}
+					SupplyVoltage: m.Coils[0].SupplyVoltage, SupplyCurrent: m.Coils[0].SupplyCurrent,
+					MaxWaterPressure: coil.CommonWaterPressure, MaxWaterSpeed: coil.CommonWaterSpeed, MaxWaterCircuits: coil.CommonWaterCircuits}
 				if spec.Validate() == nil {
 					b.Sizing = coil.NewSizing(m.Name, m.Target.Probe, &res, w, spec, coil.Options(spec, coil.DefaultWires(opt.Cooling)))
+					b.Sizing.Planar = m.Geometry != models.Axisymmetric
+					if bw := b.Sizing.Best; bw != nil {
+						// The supply from the curve and the search's solves (one mesh).
+						pts := append(append([]sweep.Point(nil), b.Sweep...), res.Solves...)
+						r := float64(max(w.Windings, 1)) * bw.Resistance
+						if sup, err := supply.New(supply.CurveOf(pts, bw.Turns), r, bw.Current, supply.Options{}); err == nil {
+							sup.FieldEnergy = res.Point.Energy
+							b.Sizing.SetSupply(sup)
+						}
+					}
 				}
 			}
 		}

@@ -86,13 +86,17 @@ func (e *CurveError) Error() string { return "supply: excitation curve: " + e.Re
 // excitation curve of a winding of turns turns per winding carrying the
 // same ampere-turns: I = NI/turns and Ψ = Ψ_model × turns/turns_model
 // (the flux per turn is set by the ampere-turns alone). Points at zero
-// current are dropped (New adds the origin).
+// current are dropped (New adds the origin), and so is a point at a
+// current met before (a search may solve one current twice; the points
+// of a sweep and of a search on one mesh may meet).
 func CurveOf(pts []sweep.Point, turns int) []CurvePoint {
 	out := make([]CurvePoint, 0, len(pts))
+	seen := make(map[float64]bool, len(pts))
 	for _, p := range pts {
-		if p.Current == 0 || p.AmpereTurns == 0 {
+		if p.Current == 0 || p.AmpereTurns == 0 || seen[p.Current] {
 			continue
 		}
+		seen[p.Current] = true
 		nm := p.AmpereTurns / p.Current
 		out = append(out, CurvePoint{Current: p.AmpereTurns / float64(turns), Linkage: p.Linkage * float64(turns) / nm})
 	}
