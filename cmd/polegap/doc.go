@@ -67,6 +67,26 @@ marked partial. A
 single solve cannot be stopped half-way: the command stops when it
 ends. A second Ctrl-C ends polegap at once.
 
+Every number on the command line is checked where it is parsed: it must
+be finite and lie in its flag's range (a positive width, a tolerance in
+(0, 1), a whole number of points), else the command exits with status 2
+and says which range.
+
+Budgets. Every long computation has a limit: Newton steps
+(--max-iterations, 30), adaptive refinement (--max-levels, 10 meshes;
+--max-nodes, 2,000,000 nodes), the mesh (the size estimate before meshing
+refuses more than 20,000,000 triangles or the memory available, and names
+a sliver or hair-thin gap that causes it; models/REFERENCE.md, mesh
+min-feature) and wall time (--time-limit on every command, 2h). A
+refinement budget reached still reports the numbers of the last mesh with
+their estimates and says which budget to raise; the others end with an
+error that names the limit, what was reached and what to change.
+Refinement also stops after the first mesh when the field passes
+1000 T: the excitation or the units are then wrong. Results that no
+iron-core electromagnet gives (efficiency above 1 without magnets, fields
+above 30 T, iron far past its B-H table, current densities beyond any
+cooling) are reported with a warning and its reason.
+
 Exit status is 0 on success, 1 when the work failed (a bad model, a solve
 that did not converge) and 2 when the command line itself was wrong;
 check exits 1 when a check fails, and size exits 3 when it prints its

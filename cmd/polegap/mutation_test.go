@@ -208,6 +208,7 @@ func TestMutants(t *testing.T) {
 			located++
 		case strings.Contains(oc.err, name):
 			fileOnly++
+			t.Logf("%s: refused naming the file only: %s", what, strings.SplitN(oc.err, "\n", 2)[0])
 		default:
 			t.Errorf("%s: exit %d with a message that names no file:\n%s", what, oc.code, oc.err)
 		}

@@ -186,7 +186,7 @@ func discretize(m, outer *models.Model, size func(x, y float64, region int32) fl
 	if err != nil {
 		return nil, err
 	}
-	d.Options.MaxTriangles = meshBudget(fp, d.Options.MaxTriangles)
+	d.Options.MaxTriangles = meshBudget(fp, d.Options.MaxTriangles, d.Options.Order, size != nil)
 	if d.Boundary, err = Boundary(outer); err != nil {
 		return nil, err
 	}
@@ -221,17 +221,23 @@ const (
 )
 
 // meshBudget returns the triangle limit for meshing with footprint fp
-// under the limit max (0: mesh.DefaultMaxTriangles).
-func meshBudget(fp Footprint, max int) int {
+// under the limit max (0: mesh.DefaultMaxTriangles). With an adaptive
+// size function (sized) the estimate's quadrature cannot see the
+// function's finest spots, and adaptive refinement has its own node
+// budget (adapt.Options.MaxNodes): the mesher's limit stays max then.
+func meshBudget(fp Footprint, max, order int, sized bool) int {
 	if max <= 0 {
 		max = mesh.DefaultMaxTriangles
+	}
+	if sized {
+		return max
 	}
 	b := budgetFactor*fp.Triangles + budgetSlack
 	// Memory grows faster than the triangles (the factor's log): find the
 	// count whose estimated bytes fill the memory available.
 	avail := AvailableMemory()
 	for n := b; n > budgetSlack; n = n * 3 / 4 {
-		if footprintBytes(float64(n), 2) <= float64(avail) {
+		if footprintBytes(float64(n), order) <= float64(avail) {
 			b = n
 			break
 		}

@@ -361,6 +361,7 @@ type estimator struct {
 	minFeature float64         // mesh.min-feature: smaller features close
 	featField  mesh.SizeField  // feat as a size field, indexed
 	regBoxes   *edgeGrid       // the regions' bounding boxes, as diagonals
+	touch      float64         // edges this close touch: the mesher's MergeTol
 	regAll     []int32         // 0..len(regions)-1, when regBoxes is nil
 	xmin       float64
 	ymin       float64
@@ -467,7 +468,7 @@ func (r *ring) dist(x, y float64) float64 {
 }
 
 func newEstimator(m *models.Model, f *mesh.SizeField, bd *mesh.Polygon) *estimator {
-	e := &estimator{g: f.Grading, minFeature: m.Mesh.MinFeature}
+	e := &estimator{g: f.Grading, minFeature: m.Mesh.MinFeature, touch: GraphOptions(m, f).MergeTol}
 	if e.g <= 0 {
 		e.g = mesh.DefaultGrading
 	}
@@ -528,7 +529,9 @@ func (e *estimator) addFeatures(rings []ring) {
 	// Edges that share an end point (adjacent edges, or regions meeting at
 	// a vertex) or lie on each other are not features: the mesher joins them.
 	ext := math.Max(e.xmax-e.xmin, e.ymax-e.ymin)
-	touch := 1e-9 * ext
+	// Touching is decided at the mesher's resolution (GraphOptions'
+	// MergeTol): a sliver just above it is meshed, so it is a feature.
+	touch := e.touch
 	// lfs returns the distance from (x, y) on edge self to the nearest
 	// edge that does not reach self, and that edge, when it is at most r
 	// away (+Inf and -1 otherwise): the grid looks at the edges near the
