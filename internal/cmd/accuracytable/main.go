@@ -18,6 +18,7 @@ import (
 	"time"
 
 	"polegap/models"
+	"polegap/post/workflow/adapt"
 	"polegap/post/workflow/design"
 )
 
@@ -44,14 +45,14 @@ func solenoidCentre(ni, a, b, l float64) float64 {
 
 // paths are the report keys compared, with their names and units.
 var paths = []struct{ key, name, unit string }{
-	{"design.gap.centre_B_T", "gap field", "T"},
-	{"design.energy.stored_J", "stored energy", "J"},
-	{"design.coils[0].flux_linkage_Wb", "flux linkage", "Wb"},
+	{"gap.centre_B_T", "gap field", "T"},
+	{"energy.stored_J", "stored energy", "J"},
+	{"coils[0].flux_linkage_Wb", "flux linkage", "Wb"},
 }
 
 func solve(m *models.Model, acc float64) (*design.Report, float64, error) {
 	start := time.Now()
-	fine, coarse, a, err := design.SolveAccurate(context.Background(), m, design.SolveOptions{Accuracy: acc})
+	fine, coarse, a, err := design.SolveAccurate(context.Background(), m, design.SolveOptions{Accuracy: acc, Marking: adapt.Energy})
 	if err != nil {
 		return nil, 0, err
 	}

@@ -6,6 +6,7 @@ import (
 
 	"polegap/models"
 	"polegap/post/study"
+	"polegap/post/workflow/adapt"
 	"polegap/post/workflow/check"
 	"polegap/post/workflow/coil"
 	"polegap/post/workflow/design"
@@ -50,7 +51,7 @@ func RunAll(ctx context.Context, m *models.Model, opt RunOptions) (*Run, error) 
 		}
 	}
 	say("solving and refining the mesh until every quantity converges")
-	s, coarse, acc, err := design.SolveAccurate(ctx, m, design.SolveOptions{Accuracy: opt.Accuracy, Quick: opt.Quick})
+	s, coarse, acc, err := design.SolveAccurate(ctx, m, design.SolveOptions{Accuracy: opt.Accuracy, Quick: opt.Quick, Marking: adapt.Energy})
 	if err != nil {
 		return nil, err
 	}

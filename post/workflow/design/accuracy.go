@@ -42,7 +42,9 @@ type Accuracy struct {
 }
 
 // SolveOptions control SolveAccurate. The zero value refines to the
-// model's mesh.accuracy, else DefaultAccuracy, with energy marking.
+// model's mesh.accuracy, else DefaultAccuracy, with goal-oriented marking
+// (adapt's zero Marking); the commands, the demo, scans and shims ask for
+// adapt.Energy, which drives every reported quantity alike.
 type SolveOptions struct {
 	Accuracy float64 // relative; 0: the model's mesh.accuracy, else DefaultAccuracy
 	Quick    bool    // one solve on the model's mesh, no estimate

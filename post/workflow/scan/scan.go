@@ -13,6 +13,7 @@ import (
 	"polegap/models"
 	"polegap/post/quantity/gap"
 	"polegap/post/study"
+	"polegap/post/workflow/adapt"
 	"polegap/post/workflow/coil"
 	"polegap/post/workflow/design"
 	"polegap/post/workflow/sweep"
@@ -272,7 +273,7 @@ func (r *Row) evaluate(ctx context.Context, src Source, opt Options) error {
 	if so.Context == nil {
 		so.Context = ctx
 	}
-	fine, coarse, acc, err := design.SolveAccurate(ctx, m, design.SolveOptions{Accuracy: opt.Accuracy, Quick: opt.Quick, Solver: so, Params: params})
+	fine, coarse, acc, err := design.SolveAccurate(ctx, m, design.SolveOptions{Accuracy: opt.Accuracy, Quick: opt.Quick, Solver: so, Params: params, Marking: adapt.Energy})
 	if err != nil {
 		return err
 	}

@@ -11,6 +11,7 @@ import (
 	"polegap/models"
 	"polegap/post/quantity/gap"
 	"polegap/post/study"
+	"polegap/post/workflow/adapt"
 	"polegap/post/workflow/design"
 	"polegap/solver"
 )
@@ -262,7 +263,7 @@ func (e *evaluator) halfWidth(m *models.Model, c float64) (float64, Profile, err
 		so.Context = e.ctx
 	}
 	params := study.Params{}.Scaled(m, 0, c)
-	fine, _, _, err := design.SolveAccurate(e.ctx, m, design.SolveOptions{Quick: e.opt.Accuracy == 0, Accuracy: e.opt.Accuracy, Solver: so, Params: params})
+	fine, _, _, err := design.SolveAccurate(e.ctx, m, design.SolveOptions{Quick: e.opt.Accuracy == 0, Accuracy: e.opt.Accuracy, Solver: so, Params: params, Marking: adapt.Energy})
 	if err != nil {
 		return 0, Profile{}, err
 	}
