@@ -92,10 +92,10 @@ func (s *Solution) coEnergyLower() float64 {
 	r := RuleOfDegree(boundRule)
 	val, rg := basisOn(as.el, r)
 	mats := as.p.Materials
-	bs := make([][]float64, len(mats))
+	tabs := make([]energyTable, len(mats))
 	for k, mat := range mats {
 		if mat != nil {
-			bs[k] = breaks(mat)
+			tabs[k] = newEnergyTable(mat, breaks(mat))
 		}
 	}
 	var sum compsum.Sum
@@ -122,7 +122,7 @@ func (s *Solution) coEnergyLower() float64 {
 			if as.axi {
 				bx, by = -ay, ax+a/x // B = (−∂A/∂z, ∂A/∂r + A/r)
 			}
-			w, _ := energyDensity(mats[reg], bs[reg], bx*bx+by*by)
+			w, _ := tabs[reg].density(mats[reg], bx*bx+by*by)
 			if ext, ok := as.ext[reg]; ok {
 				w *= ((x-ext.CX)*(x-ext.CX) + (y-ext.CY)*(y-ext.CY)) / (ext.Radius * ext.Radius)
 			}
@@ -488,14 +488,14 @@ func (d *dualProblem) field(t int, r *Rule, q int, val *[MaxNodes]float64, rg *[
 // the differential permeability μd = db/dh.
 type hLaw struct {
 	mat    Material
-	bs     []float64
+	tab    energyTable
 	linear bool
 	mu     float64 // when linear
 }
 
 func newHLaw(mat Material) hLaw {
 	nu0, _ := mat.Nu(0)
-	return hLaw{mat: mat, bs: breaks(mat), linear: isLinear(mat), mu: 1 / nu0}
+	return hLaw{mat: mat, tab: newEnergyTable(mat, breaks(mat)), linear: isLinear(mat), mu: 1 / nu0}
 }
 
 // at returns μ, μd and |B| at field strength h (A/m); guess, when
@@ -557,7 +557,7 @@ func (l *hLaw) coEnergyDensity(h float64) float64 {
 		return 0.5 * l.mu * h * h
 	}
 	_, _, b := l.at(h, 0)
-	_, wco := energyDensity(l.mat, l.bs, b*b)
+	_, wco := l.tab.density(l.mat, b*b)
 	return wco
 }
 

@@ -132,17 +132,9 @@ func breaks(mat Material) []float64 {
 
 // energyDensity is EnergyDensity with the curve's break points given.
 func energyDensity(mat Material, bs []float64, b2 float64) (w, wco float64) {
-	if !(b2 > 0) {
-		return 0, 0
-	}
-	nu, dnu := mat.Nu(b2)
-	if dnu == 0 {
-		// Linear: exact, and no panels.
-		nu0, _ := mat.Nu(0)
-		if nu0 == nu {
-			w = 0.5 * nu * b2
-			return w, w
-		}
+	nu, w, done := linearDensity(mat, b2)
+	if done {
+		return w, w
 	}
 	b := math.Sqrt(b2)
 	lo := 0.0
@@ -156,15 +148,39 @@ func energyDensity(mat Material, bs []float64, b2 float64) (w, wco float64) {
 		w += glPanels(mat, lo, bk)
 		lo = bk
 	}
-	if n := len(bs); n > 0 && lo == bs[n-1] && lo > 0 {
-		// Past the table's last point the curve goes on with slope μ0:
-		// H is linear in B there and one 3-point panel is exact. Panels
-		// of panelB would take 5e9 steps at an absurd 1e8 T.
-		w += glPanel(mat, lo, b)
-	} else {
-		w += glPanels(mat, lo, b)
+	last := 0.0
+	if n := len(bs); n > 0 {
+		last = bs[n-1]
 	}
+	w += lastSegment(mat, lo, b, last)
 	return w, nu*b2 - w
+}
+
+// linearDensity returns ν(b2) and, with done set, the density of a zero
+// field or of a linear material (exact, no panels); otherwise the caller
+// integrates.
+func linearDensity(mat Material, b2 float64) (nu, w float64, done bool) {
+	if !(b2 > 0) {
+		return 0, 0, true
+	}
+	nu, dnu := mat.Nu(b2)
+	if dnu == 0 {
+		if nu0, _ := mat.Nu(0); nu0 == nu {
+			return nu, 0.5 * nu * b2, true
+		}
+	}
+	return nu, 0, false
+}
+
+// lastSegment integrates ν(b²) b db from the last break point lo below b
+// up to b. Past the table's last point (last) the curve goes on with
+// slope μ0: H is linear in B there and one 3-point panel is exact (panels
+// of panelB would take 5e9 steps at an absurd 1e8 T).
+func lastSegment(mat Material, lo, b, last float64) float64 {
+	if lo > 0 && lo == last {
+		return glPanel(mat, lo, b)
+	}
+	return glPanels(mat, lo, b)
 }
 
 // maxPanels bounds the panels of glPanels: at 0.02 T each they reach
@@ -215,27 +231,20 @@ func newEnergyTable(mat Material, bs []float64) energyTable {
 
 // density is energyDensity(mat, bs, b2) for the table of mat and bs.
 func (t energyTable) density(mat Material, b2 float64) (w, wco float64) {
-	if !(b2 > 0) {
-		return 0, 0
-	}
-	nu, dnu := mat.Nu(b2)
-	if dnu == 0 {
-		nu0, _ := mat.Nu(0)
-		if nu0 == nu {
-			w = 0.5 * nu * b2
-			return w, w
-		}
+	nu, w, done := linearDensity(mat, b2)
+	if done {
+		return w, w
 	}
 	b := math.Sqrt(b2)
 	lo := 0.0
 	if j := sort.SearchFloat64s(t.ends, b); j > 0 {
 		lo, w = t.ends[j-1], t.cum[j-1]
 	}
-	if n := len(t.ends); n > 0 && lo == t.ends[n-1] && lo > 0 {
-		w += glPanel(mat, lo, b) // as energyDensity: exact past the table
-	} else {
-		w += glPanels(mat, lo, b)
+	last := 0.0
+	if n := len(t.ends); n > 0 {
+		last = t.ends[n-1]
 	}
+	w += lastSegment(mat, lo, b, last)
 	return w, nu*b2 - w
 }
 
