@@ -35,6 +35,19 @@ func (e *Error) Error() string {
 // Unwrap returns the underlying error.
 func (e *Error) Unwrap() error { return e.Err }
 
+// Located returns err of the file name as "name:line:column: msg" (or
+// "name:line: msg") when it is an *Error, else "name: err".
+func Located(name string, err error) error {
+	var te *Error
+	switch {
+	case !errors.As(err, &te):
+		return fmt.Errorf("%s: %w", name, err)
+	case te.Column > 0:
+		return fmt.Errorf("%s:%d:%d: %s", name, te.Line, te.Column, te.Msg)
+	}
+	return fmt.Errorf("%s:%d: %s", name, te.Line, te.Msg)
+}
+
 // Reader reads records in the dialect described in the package doc.
 type Reader struct {
 	// Meta holds the "# key: value" comments before the header, keys in

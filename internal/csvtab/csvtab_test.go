@@ -207,3 +207,18 @@ func FuzzReader(f *testing.F) {
 		t.Fatalf("Read did not end")
 	})
 }
+
+func TestLocated(t *testing.T) {
+	for _, c := range []struct {
+		err  error
+		want string
+	}{
+		{&Error{Line: 3, Column: 2, Msg: "bad quote"}, "f.csv:3:2: bad quote"},
+		{&Error{Line: 4, Msg: "3 fields, want 2"}, "f.csv:4: 3 fields, want 2"},
+		{io.ErrUnexpectedEOF, "f.csv: unexpected EOF"},
+	} {
+		if got := Located("f.csv", c.err).Error(); got != c.want {
+			t.Errorf("got %q, want %q", got, c.want)
+		}
+	}
+}

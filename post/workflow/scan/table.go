@@ -4,7 +4,6 @@ import (
 	"bufio"
 	"encoding/csv"
 	"encoding/json"
-	"errors"
 	"fmt"
 	"io"
 	"math"
@@ -101,16 +100,7 @@ func IsTable(first string) bool { return strings.TrimSpace(first) == "# polegap 
 // for a bad row, its line.
 func ReadCSV(r io.Reader, name string) (Meta, []Row, error) {
 	cr := csvtab.NewReader(r)
-	readErr := func(err error) error {
-		var te *csvtab.Error
-		switch {
-		case !errors.As(err, &te):
-			return fmt.Errorf("%s: %w", name, err)
-		case te.Column > 0:
-			return fmt.Errorf("%s:%d:%d: %s", name, te.Line, te.Column, te.Msg)
-		}
-		return fmt.Errorf("%s:%d: %s", name, te.Line, te.Msg)
-	}
+	readErr := func(err error) error { return csvtab.Located(name, err) }
 	header, err := cr.Read()
 	if err != nil && err != io.EOF {
 		return Meta{}, nil, readErr(err)

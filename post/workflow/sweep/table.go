@@ -3,7 +3,6 @@ package sweep
 import (
 	"bufio"
 	"encoding/csv"
-	"errors"
 	"fmt"
 	"io"
 	"math"
@@ -81,16 +80,7 @@ func g(v float64) string { return strconv.FormatFloat(v, 'g', 10, 64) }
 // (internal/csvtab). Errors name the file and, for a bad row, its line.
 func ReadCSV(r io.Reader, name string) (Meta, []Point, error) {
 	cr := csvtab.NewReader(r)
-	readErr := func(err error) error {
-		var te *csvtab.Error
-		switch {
-		case !errors.As(err, &te):
-			return fmt.Errorf("%s: %w", name, err)
-		case te.Column > 0:
-			return fmt.Errorf("%s:%d:%d: %s", name, te.Line, te.Column, te.Msg)
-		}
-		return fmt.Errorf("%s:%d: %s", name, te.Line, te.Msg)
-	}
+	readErr := func(err error) error { return csvtab.Located(name, err) }
 	header, err := cr.Read()
 	if err != nil && err != io.EOF {
 		return Meta{}, nil, readErr(err)
