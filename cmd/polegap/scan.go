@@ -383,19 +383,9 @@ var scanProgress = func(w io.Writer) func(done, total int, r scan.Row) {
 // mergeScan joins the shard tables of a design scan (merge's work when
 // the first table is a scan's).
 func mergeScan(env *Env, out string, args []string) error {
-	var metas []scan.Meta
-	var rows [][]scan.Row
-	for _, a := range args {
-		f, err := os.Open(a)
-		if err != nil {
-			return err
-		}
-		meta, r, err := scan.ReadCSV(f, a)
-		f.Close()
-		if err != nil {
-			return err
-		}
-		metas, rows = append(metas, meta), append(rows, r)
+	metas, rows, err := readTables(args, scan.ReadCSV)
+	if err != nil {
+		return err
 	}
 	meta, all, missing, err := scan.Merge(metas, rows)
 	if err != nil {

@@ -142,19 +142,9 @@ unit (e.g. 40mm).`,
 			if isScanTable(args[0]) {
 				return mergeScan(env, *out, args)
 			}
-			var metas []sweep.Meta
-			var pts [][]sweep.Point
-			for _, a := range args {
-				f, err := os.Open(a)
-				if err != nil {
-					return err
-				}
-				meta, p, err := sweep.ReadCSV(f, a)
-				f.Close()
-				if err != nil {
-					return err
-				}
-				metas, pts = append(metas, meta), append(pts, p)
+			metas, pts, err := readTables(args, sweep.ReadCSV)
+			if err != nil {
+				return err
 			}
 			meta, all, missing, err := sweep.Merge(metas, pts)
 			if err != nil {
@@ -271,4 +261,24 @@ func accuracyNote(a *design.Accuracy) string {
 		return fmt.Sprintf("%.0e relative reached at the model's currents after %d meshes; estimates per point from the mesh before", a.Target, a.Rounds)
 	}
 	return fmt.Sprintf("%.0e relative NOT reached at the model's currents (refinement limit, %d meshes); estimates per point from the mesh before", a.Target, a.Rounds)
+}
+
+// readTables reads the shard tables named in args with read (a sweep's or
+// a scan's ReadCSV), in order.
+func readTables[M, R any](args []string, read func(io.Reader, string) (M, []R, error)) ([]M, [][]R, error) {
+	var metas []M
+	var rows [][]R
+	for _, a := range args {
+		f, err := os.Open(a)
+		if err != nil {
+			return nil, nil, err
+		}
+		meta, r, err := read(f, a)
+		f.Close()
+		if err != nil {
+			return nil, nil, err
+		}
+		metas, rows = append(metas, meta), append(rows, r)
+	}
+	return metas, rows, nil
 }
