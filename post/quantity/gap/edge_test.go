@@ -5,66 +5,14 @@ import (
 	"math"
 	"testing"
 
+	"polegap/internal/reference"
 	"polegap/mesh"
 	"polegap/solver"
 )
 
-// Fringing at the edge of a pole pair, against a conformal map.
-//
-// Two infinitely permeable poles with square edges face each other across
-// a gap g = 2δ; by symmetry the mid-plane is an equipotential, so one half
-// is a pole (potential V) whose face y = δ runs for x < 0 and whose side
-// x = 0 rises from y = δ, opposite a plane y = 0 (potential 0). The
-// Schwarz-Christoffel map of the upper half w-plane onto this region,
-// with w = 0 at the far end of the channel under the pole and w = 1 at the
-// corner, is
-//
-//	dz/dw = C √(w − 1) / w,  z = 2C (√(w − 1) − atan √(w − 1)) + iδ,  C = −iδ/π,
-//
-// (Schwarz-Christoffel transformation: e.g. K. J. Binns, P. J. Lawrenson,
-// C. W. Trowbridge, "The Analytical and Numerical Solution of Electric and
-// Magnetic Fields", Wiley 1992, chapter 3 (from memory); the same corner as
-// in Carter's slot of 1900, for a slot of unlimited width). The complex
-// potential is (V/π) ln w. On the plane (w = −τ, v = √(1 + τ) > 1) this
-// gives, derived here,
-//
-//	x(v) = (2δ/π) (v − artanh(1/v)),   B/B0 = 1/v,   B0 = μ0 V/δ,
-//
-// and the flux per metre reaching the plane between two points is
-// B0 (δ/π) Δ ln(v² − 1). Integrating B/B0 minus the ideal step (1 under
-// the pole, 0 beyond) from x = −∞ to X gives the extra width per edge
-//
-//	Δ(X) = (δ/π) [ ln(v_X² − 1) + 2 − 2 ln 2 ],   x(v_X) = X,
-//
-// which grows like (g/π)(1 + ln(π X/(2g))) far out: the fringe flux of a
-// square pole edge diverges logarithmically, so k of w_eff = w + k g is
-// only defined together with the extent of the line. (The closed form was
-// checked against numerical quadrature of 1/v(x) while writing this test.)
-// We found no published table of Δ(X) to cite; the check is against this
-// derivation.
-
-// edgeX returns x(v) of the map above for δ = 1.
-func edgeX(v float64) float64 { return 2 / math.Pi * (v - math.Atanh(1/v)) }
-
-// edgeV solves x(v) = x by bisection (x is increasing in v).
-func edgeV(x float64) float64 {
-	lo, hi := 1+1e-15, 1e6
-	for range 200 {
-		m := 0.5 * (lo + hi)
-		if edgeX(m) < x {
-			lo = m
-		} else {
-			hi = m
-		}
-	}
-	return 0.5 * (lo + hi)
-}
-
-// edgeDelta returns Δ(X)/δ.
-func edgeDelta(x float64) float64 {
-	v := edgeV(x)
-	return (math.Log(v*v-1) + 2 - 2*math.Log(2)) / math.Pi
-}
+// Fringing at the edge of a pole pair, against the conformal map of a
+// square pole edge (internal/reference, which gives the derivation and
+// its source).
 
 // poleEdge solves the air region of the half problem: the channel under
 // the pole from x = −lo to 0 and the quadrant beyond the corner, closed by
@@ -135,7 +83,7 @@ func TestPoleEdgeFringing(t *testing.T) {
 			t.Fatalf("%s: %v", name, err)
 		}
 		got := fr.KPerEdge * 2 // Δ/δ = k g/δ with g = 2δ
-		want := edgeDelta(xe)
+		want := reference.SquareEdgeDelta(xe)
 		rel := (got - want) / want
 		t.Logf("%s: %d nodes, Δ/δ = %.5f, conformal map %.5f, relative %.2g, end field %.3g B0",
 			name, s.Problem.Mesh.NumNodes(), got, want, rel, fr.EndRatio)
@@ -145,8 +93,8 @@ func TestPoleEdgeFringing(t *testing.T) {
 		// The field on the plane beyond the edge, B/B0 = 1/v(x): a point
 		// value: 0.2 % (measured: 1e-4).
 		_, _, by, _ := s.At(xe*delta, 0)
-		t.Logf("%s: B/B0 = %.5f, conformal map %.5f", name, by/b0, 1/edgeV(xe))
-		if w := 1 / edgeV(xe); math.Abs(by/b0-w) > 0.002*w {
+		t.Logf("%s: B/B0 = %.5f, conformal map %.5f", name, by/b0, 1/reference.SquareEdgeV(xe))
+		if w := 1 / reference.SquareEdgeV(xe); math.Abs(by/b0-w) > 0.002*w {
 			t.Errorf("%s: B/B0 = %.5f on the plane, conformal map %.5f", name, by/b0, w)
 		}
 	}

@@ -5,36 +5,15 @@ import (
 	"math"
 	"testing"
 
+	"polegap/internal/reference"
 	"polegap/models"
 )
 
-// The conformal map of an ideal square pole edge (the same derivation as
-// post/quantity/gap's edge_test.go: Schwarz-Christoffel map of a pole
-// face y = δ ending in a side x = 0 over the plane y = 0; K. J. Binns,
-// P. J. Lawrenson, C. W. Trowbridge, "The Analytical and Numerical
-// Solution of Electric and Magnetic Fields", Wiley 1992, ch. 3, from
+// The conformal map of an ideal square pole edge is internal/reference's
+// (Schwarz-Christoffel; Binns, Lawrenson and Trowbridge 1992, ch. 3, from
 // memory): on the plane x(v) = (2δ/π)(v − artanh(1/v)), B/B0 = 1/v, and
 // the field integral beyond the ideal step, from deep under the pole to
 // X past the edge, is Δ(X) = (δ/π)(ln(v_X² − 1) + 2 − 2 ln 2).
-func edgeX(v float64) float64 { return 2 / math.Pi * (v - math.Atanh(1/v)) }
-
-func edgeV(x float64) float64 {
-	lo, hi := 1+1e-15, 1e6
-	for range 200 {
-		m := 0.5 * (lo + hi)
-		if edgeX(m) < x {
-			lo = m
-		} else {
-			hi = m
-		}
-	}
-	return 0.5 * (lo + hi)
-}
-
-func edgeDelta(x float64) float64 {
-	v := edgeV(x)
-	return (math.Log(v*v-1) + 2 - 2*math.Log(2)) / math.Pi
-}
 
 // TestSideViewIdealEdge checks the side-view solve against the conformal
 // map: a long magnet (L = 20 g) with tall iron (H = 40 g) is, near each
@@ -59,7 +38,7 @@ func TestSideViewIdealEdge(t *testing.T) {
 			t.Fatalf("%s: outside", name)
 		}
 		got := (w - geo.Length) / 2 / delta
-		want := edgeDelta(xe)
+		want := reference.SquareEdgeDelta(xe)
 		rel := (got - want) / want
 		t.Logf("%s: Δ/δ = %.5f, conformal map %.5f, relative %.2g (%d nodes)", name, got, want, rel, res.Nodes)
 		if math.Abs(rel) > 0.01 {
